@@ -1,0 +1,3 @@
+module plumb
+
+go 1.26
