@@ -1,0 +1,53 @@
+package geom
+
+import "math"
+
+// Rect is an axis-aligned rectangle, the set of points with Min.X ≤ x ≤ Max.X and Min.Y ≤ y ≤ Max.Y.
+// A Rect with Min.X > Max.X or Min.Y > Max.Y is empty; EmptyRect returns the one that Union and Extend
+// treat as the identity.
+type Rect struct{ Min, Max Point }
+
+// EmptyRect returns the empty rectangle (Min = +∞, Max = −∞).
+func EmptyRect() Rect {
+	inf := math.Inf(1)
+	return Rect{Point{inf, inf}, Point{-inf, -inf}}
+}
+
+// RectFromPoints returns the smallest rectangle holding every point of pts (empty for none).
+func RectFromPoints(pts ...Point) Rect {
+	r := EmptyRect()
+	for _, p := range pts {
+		r = r.Extend(p)
+	}
+	return r
+}
+
+// IsEmpty reports whether r holds no point.
+func (r Rect) IsEmpty() bool { return r.Min.X > r.Max.X || r.Min.Y > r.Max.Y }
+
+// Extend returns the smallest rectangle holding r and p.
+func (r Rect) Extend(p Point) Rect {
+	return Rect{
+		Point{math.Min(r.Min.X, p.X), math.Min(r.Min.Y, p.Y)},
+		Point{math.Max(r.Max.X, p.X), math.Max(r.Max.Y, p.Y)},
+	}
+}
+
+// Union returns the smallest rectangle holding r and s.
+func (r Rect) Union(s Rect) Rect {
+	if s.IsEmpty() {
+		return r
+	}
+	return r.Extend(s.Min).Extend(s.Max)
+}
+
+// Center returns the midpoint of r.
+func (r Rect) Center() Point { return Point{(r.Min.X + r.Max.X) / 2, (r.Min.Y + r.Max.Y) / 2} }
+
+// Size returns the width and height of r as a vector.
+func (r Rect) Size() Point { return r.Max.Sub(r.Min) }
+
+// Contains reports whether p lies in r (edges included).
+func (r Rect) Contains(p Point) bool {
+	return r.Min.X <= p.X && p.X <= r.Max.X && r.Min.Y <= p.Y && p.Y <= r.Max.Y
+}
