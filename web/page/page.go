@@ -1,0 +1,102 @@
+// Package page holds the browser page around Plumb's WebAssembly app: the HTML template, its style sheet
+// and the panel script, and Render, which packs them with the compiled module into one self-contained,
+// offline HTML file.
+//
+// The page needs nothing from the network. Its Content-Security-Policy (CSP) allows only the inline
+// scripts and styles it carries, WebAssembly compilation, and data: and blob: images; connect-src is
+// 'none', so neither the page nor the app can open a connection.
+package page
+
+import (
+	"bytes"
+	_ "embed"
+	"encoding/base64"
+	"encoding/json"
+	"fmt"
+	"text/template"
+)
+
+// CSP is the page's Content-Security-Policy.
+const CSP = "default-src 'none'; script-src 'unsafe-inline' 'wasm-unsafe-eval'; style-src 'unsafe-inline'; " +
+	"img-src data: blob:; connect-src 'none'; base-uri 'none'; form-action 'none'"
+
+var (
+	//go:embed page.html
+	pageHTML string
+	//go:embed panel.css
+	panelCSS string
+	//go:embed panel.js
+	panelJS string
+
+	pageTemplate = template.Must(template.New("page.html").Parse(pageHTML))
+)
+
+// Assets are what Render packs into the page.
+type Assets struct {
+	WasmExec []byte   // the Go runtime's JavaScript support (wasm_exec.js) of the toolchain that built Module
+	Module   []byte   // the app's WebAssembly module, gzip-compressed
+	Demo     []byte   // the demo part file, loaded when there is no autosaved part
+	Presets  *Presets // the material and thickness choices offered in the panel; nil offers none
+}
+
+// Presets are the choices the panel offers while typing a material or thickness.
+type Presets struct {
+	Materials   []Material         `json:"materials"`
+	Thicknesses []Thickness        `json:"thicknesses"`
+	Gauges      map[string][]Gauge `json:"gauges"` // by material key
+}
+
+// Material is one sheet material in the panel's list.
+type Material struct {
+	Key     string  `json:"key"`
+	Name    string  `json:"name"`
+	Density float64 `json:"density"` // kg/m³
+}
+
+// Thickness is a common sheet thickness, written the way a user would type it ("3 mm", "1/8 in").
+type Thickness struct {
+	Text string  `json:"text"`
+	MM   float64 `json:"mm"`
+	In   float64 `json:"in"`
+}
+
+// Gauge is one gauge number of a material's gauge system.
+type Gauge struct {
+	Number int     `json:"n"`
+	MM     float64 `json:"mm"`
+	In     float64 `json:"in"`
+}
+
+// Render returns the complete page. The module is stored as base64 of its gzip form and unpacked in the
+// browser with DecompressionStream; the demo part and presets become JavaScript values
+// (window.PLUMB_DEMO, a string, and window.PLUMB_PRESETS).
+func Render(a Assets) ([]byte, error) {
+	if bytes.Contains(bytes.ToLower(a.WasmExec), []byte("</script")) {
+		return nil, fmt.Errorf("page: wasm_exec.js contains </script and cannot be inlined")
+	}
+	if !json.Valid(a.Demo) {
+		return nil, fmt.Errorf("page: the demo part is not valid JSON")
+	}
+	demo, err := json.Marshal(string(a.Demo)) // escapes <, > and & so it cannot end the script element
+	if err != nil {
+		return nil, err
+	}
+	presets, err := json.Marshal(a.Presets)
+	if err != nil {
+		return nil, err
+	}
+	var out bytes.Buffer
+	err = pageTemplate.Execute(&out, map[string]string{
+		"CSP":      CSP,
+		"CSS":      panelCSS,
+		"JS":       panelJS,
+		"WasmExec": string(a.WasmExec),
+		"Module":   base64.StdEncoding.EncodeToString(a.Module),
+		"Demo":     string(demo),
+		"Presets":  string(presets),
+	})
+	if err != nil {
+		return nil, err
+	}
+	return out.Bytes(), nil
+}

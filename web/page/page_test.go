@@ -1,0 +1,43 @@
+package page
+
+import (
+	"bytes"
+	"strings"
+	"testing"
+)
+
+func TestRenderKeepsDemoInsideItsScript(t *testing.T) {
+	demo := []byte(`{"name": "</script><script>alert(1)</script>"}`)
+	html, err := Render(Assets{WasmExec: []byte("globalThis.Go = class {};"), Module: []byte{1, 2, 3}, Demo: demo})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if n := strings.Count(strings.ToLower(string(html)), "</script"); n != 4 {
+		t.Errorf("page has %d script end tags, want 4 (module, data, runtime, panel)", n)
+	}
+	if !bytes.Contains(html, []byte(`window.PLUMB_DEMO = "{\"name\": \"\u003c/script\u003e`)) {
+		t.Errorf("demo part not embedded as an escaped string")
+	}
+	if !bytes.Contains(html, []byte(`id="plumb-module">AQID</script>`)) {
+		t.Errorf("module not embedded as base64")
+	}
+}
+
+func TestRenderRefuses(t *testing.T) {
+	tests := []struct {
+		name string
+		a    Assets
+		want string
+	}{
+		{"runtime ends the script", Assets{WasmExec: []byte("x = '</SCRIPT>'"), Demo: []byte("{}")}, "wasm_exec.js"},
+		{"demo not JSON", Assets{Demo: []byte("{")}, "demo part"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, err := Render(tt.a)
+			if err == nil || !strings.Contains(err.Error(), tt.want) {
+				t.Errorf("Render: error %v, want one mentioning %q", err, tt.want)
+			}
+		})
+	}
+}

@@ -1,0 +1,584 @@
+// The panel around Plumb's drawing: it starts the WebAssembly app, shows its answers, sends it the material,
+// units and tool choices, opens and saves files, and keeps the part in local storage so a reload (or a lost
+// WebGL context, which makes the app reload the page) never loses work.
+//
+// The app talks to this script through the bridge: it sets window.plumb when it is ready and then calls
+// window.plumbUI.ready(); after every recompute it calls window.plumbUI.onChange(state, partJSON).
+"use strict";
+(() => {
+  const AUTOSAVE = "plumb.autosave"; // the current part, as a part file
+  const PREVIOUS = "plumb.previous"; // the part the demo replaced when the page was opened with #demo
+  const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
+  const FOLDED = "plumb.panelFolded";
+  const MAX_FILE_BYTES = 50 << 20;
+  const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 };
+  const KG_PER_LB = 0.45359237; // exact, by definition of the international pound
+
+  const $ = (id) => document.getElementById(id);
+  const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauges: {} };
+  const timing = {}; // milliseconds since navigation: readyMs, firstChangeMs
+  let app = null; // window.plumb once the app is ready
+  let state = null; // the app's last state
+  let mode = "sheet"; // "sheet" (material and thickness) or "formula"
+  let materialFromUser = false; // the material fields hold the user's edit, not the part's
+
+  // ---- small helpers ----
+
+  function readStore(key) {
+    try { return localStorage.getItem(key); } catch { return null; }
+  }
+  function writeStore(key, value) {
+    try { localStorage.setItem(key, value); return true; } catch { return false; }
+  }
+  let toastTimer = 0;
+  function toast(msg, bad) {
+    const t = $("toast");
+    t.textContent = msg;
+    t.classList.toggle("bad", Boolean(bad));
+    t.hidden = false;
+    clearTimeout(toastTimer);
+    toastTimer = setTimeout(() => { t.hidden = true; }, bad ? 9000 : 3500);
+  }
+  function canvas() { return document.querySelector("canvas"); }
+  function giveCanvasKeys() { const c = canvas(); if (c) c.focus({ preventScroll: true }); }
+  function unitName() { return (state && state.units && state.units.length) || "mm"; }
+  function fmtLen(v) {
+    return Number.isFinite(v) ? v.toFixed(DECIMALS[unitName()] ?? 3) : "—";
+  }
+  function fmtSig(v, digits = 4) {
+    if (!Number.isFinite(v)) return "—";
+    const a = Math.abs(v);
+    if (a !== 0 && (a < 1e-3 || a >= 1e7)) return v.toExponential(digits - 1);
+    return Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 });
+  }
+  function fmtDeg(v) { return Number.isFinite(v) ? v.toFixed(1) + "°" : "—"; }
+
+  // ---- starting the app ----
+
+  function failed(msg) {
+    $("loading").classList.remove("done");
+    $("loading").classList.add("failed");
+    $("loading-msg").textContent = msg;
+  }
+
+  function decodeBase64(text) {
+    const bin = atob(text);
+    const bytes = new Uint8Array(bin.length);
+    for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+    return bytes;
+  }
+
+  async function startApp() {
+    const holder = $("plumb-module");
+    const packed = decodeBase64(holder.textContent.trim());
+    holder.remove();
+    const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
+    const module = await new Response(stream).arrayBuffer();
+    const go = new Go();
+    const { instance } = await WebAssembly.instantiate(module, go.importObject);
+    go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
+  }
+
+  function setEnabled(on) {
+    for (const el of document.querySelectorAll("#tools button, #panel button, #panel input, #panel select")) {
+      if (el.dataset.action === "help" || el.dataset.action === "cautions" || el.id === "fold") continue;
+      el.disabled = !on;
+    }
+  }
+
+  function ready() {
+    app = window.plumb;
+    timing.readyMs = performance.now();
+    $("loading").classList.add("done");
+    setEnabled(true);
+    try {
+      restore();
+    } catch (e) {
+      toast("The part could not be restored: " + e.message, true);
+    }
+  }
+
+  // restore brings back the autosaved part, or shows the demo part when there is none or the address asks
+  // for it (#demo). A part the demo replaces is kept under plumb.previous and offered back.
+  function restore() {
+    const saved = readStore(AUTOSAVE);
+    if (saved === null || location.hash === "#demo") {
+      if (saved !== null && saved !== window.PLUMB_DEMO) {
+        writeStore(PREVIOUS, saved);
+        $("previous").hidden = false;
+      }
+      loadText(window.PLUMB_DEMO, "demo.json", true);
+      try { history.replaceState(null, "", location.pathname + location.search); } catch { /* file:// may refuse */ }
+      return;
+    }
+    const r = app.load(saved, "autosave.json");
+    if (!r.ok) {
+      writeStore(UNREADABLE, saved);
+      loadText(window.PLUMB_DEMO, "demo.json", true);
+      toast("Your last part could not be read back (" + r.error + "). Its text is kept in this browser's " +
+        "storage under " + UNREADABLE + "; the demo part is shown.", true);
+      return;
+    }
+    refresh();
+  }
+
+  function onChange(s, partJSON) {
+    if (timing.firstChangeMs === undefined) timing.firstChangeMs = performance.now();
+    state = s;
+    try {
+      save(partJSON);
+      render();
+    } catch (e) {
+      toast("The panel could not show the results: " + e.message, true);
+    }
+  }
+
+  function save(partJSON) {
+    if (typeof partJSON === "string" && partJSON !== "") {
+      if (!writeStore(AUTOSAVE, partJSON)) toast("This browser's storage is full: save the part to a file.", true);
+      showPart(partJSON);
+    }
+  }
+
+  function refresh() {
+    if (!app) return;
+    state = app.state();
+    render();
+  }
+
+  // ---- files ----
+
+  function loadText(text, name, quiet) {
+    if (!app) { toast("Still loading; try again in a moment."); return false; }
+    materialFromUser = false;
+    const r = app.load(text, name);
+    if (!r.ok) {
+      toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
+      return false;
+    }
+    refresh();
+    app.fit();
+    const warnings = r.warnings || [];
+    if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
+    else if (!quiet) toast("Opened " + name);
+    return true;
+  }
+
+  function openFile(file) {
+    if (file.size > MAX_FILE_BYTES) {
+      toast(file.name + " is " + Math.round(file.size / 1048576) + " MB; parts and drawings over 50 MB are refused.", true);
+      return;
+    }
+    file.text().then((text) => loadText(text, file.name), (e) => toast(file.name + ": " + e.message, true));
+  }
+
+  function baseName() {
+    const name = (state && state.file) || $("part-name").textContent || "part";
+    return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
+  }
+
+  function download(text, name, type) {
+    const url = URL.createObjectURL(new Blob([text], { type }));
+    const a = document.createElement("a");
+    a.href = url;
+    a.download = name;
+    document.body.append(a);
+    a.click();
+    a.remove();
+    setTimeout(() => URL.revokeObjectURL(url), 10000);
+  }
+
+  async function copyText(text) {
+    try {
+      await navigator.clipboard.writeText(text);
+    } catch {
+      const area = document.createElement("textarea");
+      area.value = text;
+      document.body.append(area);
+      area.select();
+      document.execCommand("copy");
+      area.remove();
+    }
+    toast("Results copied.");
+  }
+
+  function resultsText() {
+    const u = unitName();
+    const lines = ["Part: " + baseName()];
+    if (state && !state.error) {
+      lines.push("Weight: " + $("weight").textContent + " (" + $("weight-sub").textContent + ")");
+      lines.push("Balance point: x " + fmtLen(state.centroid.x) + " " + u + ", y " + fmtLen(state.centroid.y) + " " + u);
+      if (state.hang) lines.push("Hang hole: " + $("hang").textContent + " " + u + "; " + $("hang-sub").textContent);
+      if (state.material) lines.push("Material: " + state.material);
+    }
+    lines.push("Geometry estimates only: hardware ratings, fixings and overhead signs follow local codes and a licensed engineer.");
+    return lines.join("\n");
+  }
+
+  // ---- the part's material, shown in the fields ----
+
+  // showPart fills the name and, unless the user is editing them, the material fields from a part file.
+  function showPart(partJSON) {
+    let doc;
+    try { doc = JSON.parse(partJSON); } catch { return; }
+    if (doc.name) $("part-name").textContent = doc.name;
+    const spec = doc.material;
+    if (!spec || materialFromUser) return;
+    if (spec.formula) {
+      setMode("formula");
+      $("formula").value = spec.formula;
+      $("density-unit").value = spec.unit || "kg/m2";
+      $("params").value = Object.entries(spec.params || {}).map(([k, v]) => k + " = " + v).join(", ");
+    } else {
+      setMode("sheet");
+      $("material").value = spec.material || "";
+      $("thickness").value = spec.thickness || "";
+    }
+    showThickness();
+    fillThicknessList();
+  }
+
+  function setMode(m) {
+    mode = m;
+    for (const b of document.querySelectorAll("[data-mode]")) b.setAttribute("aria-pressed", String(b.dataset.mode === m));
+    $("sheet-fields").hidden = m !== "sheet";
+    $("formula-fields").hidden = m !== "formula";
+  }
+
+  function parseParams(text) {
+    const params = {};
+    let pos = 0;
+    for (const part of text.split(/[,;\n]/)) {
+      const lead = part.length - part.trimStart().length;
+      if (part.trim() !== "") {
+        const m = /^\s*([A-Za-z_]\w*)\s*=\s*(\S+)\s*$/.exec(part);
+        if (!m || m[2].trim() === "" || !Number.isFinite(Number(m[2]))) {
+          return { error: { field: "params", col: pos + lead + 1, msg: "write each parameter as name = number, separated by commas" } };
+        }
+        params[m[1]] = Number(m[2]);
+      }
+      pos += part.length + 1;
+    }
+    return { params };
+  }
+
+  const FIELD_INPUT = { material: "material", thickness: "thickness", formula: "formula", params: "params", unit: "density-unit" };
+  const FIELD_LABEL = { material: "Material", thickness: "Thickness", formula: "Formula", params: "Parameters", unit: "Unit" };
+
+  function sendMaterial() {
+    if (!app) return;
+    materialFromUser = true;
+    let spec;
+    let err = null;
+    if (mode === "sheet") {
+      spec = { material: $("material").value.trim(), thickness: $("thickness").value.trim() };
+    } else {
+      const p = parseParams($("params").value);
+      err = p.error || null;
+      spec = { formula: $("formula").value, unit: $("density-unit").value, params: p.params || {} };
+    }
+    if (!err) {
+      const r = app.setMaterial(spec);
+      if (!r.ok) err = r.error || { msg: "not accepted" };
+    }
+    showMaterialError(err);
+    showThickness();
+    if (!err) refresh();
+  }
+
+  function showMaterialError(err) {
+    for (const f of Object.keys(FIELD_INPUT)) underline($(FIELD_INPUT[f]), err && err.field === f ? err.col || 0 : -1);
+    if (!err) { $("material-error").textContent = ""; return; }
+    const where = FIELD_LABEL[err.field] ? FIELD_LABEL[err.field] + (err.col ? ", column " + err.col : "") + ": " : "";
+    $("material-error").textContent = where + err.msg;
+  }
+
+  // underline marks the character at 1-based column col of an input (past the end: the place after it);
+  // col 0 marks the field as wrong without a column, and a negative col clears the mark.
+  function underline(input, col) {
+    const field = input.closest(".field");
+    if (!field) { input.classList.toggle("bad", col >= 0); return; }
+    const mirror = field.querySelector(".mirror");
+    field.classList.toggle("bad", col >= 0);
+    if (col <= 0) { mirror.textContent = ""; return; }
+    const chars = Array.from(input.value);
+    const i = Math.min(col - 1, chars.length);
+    const mark = document.createElement("mark");
+    mark.textContent = i < chars.length && chars[i] !== " " ? chars[i] : "\u00a0";
+    const text = document.createElement("span");
+    text.append(chars.slice(0, i).join(""), mark, chars.slice(i + 1).join(""));
+    mirror.replaceChildren(text);
+    mirror.scrollLeft = input.scrollLeft;
+  }
+
+  // lengthMM reads the thickness forms the hint can show in both units: "3", "3 mm", "0.125 in",
+  // "1/8 in", "1 1/4 in", "16 ga". It returns NaN for anything else (a formula, say); the app decides.
+  function lengthMM(text) {
+    const t = text.trim().toLowerCase();
+    const ga = /^(\d+)\s*(ga|gauge|gage)\b/.exec(t);
+    if (ga) {
+      const g = (presets.gauges[materialKey()] || []).find((x) => x.n === Number(ga[1]));
+      return g ? g.mm : NaN;
+    }
+    const m = /^(\d+(?:\.\d*)?|\.\d+)?\s*(?:(\d+)\s*\/\s*(\d+))?\s*(mm|cm|in|"|inch|inches)?$/.exec(t);
+    if (!m || (m[1] === undefined && m[2] === undefined)) return NaN;
+    let v = m[1] !== undefined ? Number(m[1]) : 0;
+    if (m[2] !== undefined) v += Number(m[2]) / Number(m[3]);
+    const unit = m[4] || "mm";
+    return v * (unit === "mm" ? 1 : unit === "cm" ? 10 : 25.4); // 1 in = 25.4 mm exactly
+  }
+
+  function materialKey() {
+    const v = $("material").value.trim().toLowerCase();
+    const m = presets.materials.find((x) => x.key.toLowerCase() === v || x.name.toLowerCase() === v);
+    return m ? m.key : "";
+  }
+
+  function showThickness() {
+    const mm = lengthMM($("thickness").value);
+    $("thickness-both").textContent = Number.isFinite(mm) && mm > 0
+      ? mm.toFixed(2) + " mm = " + (mm / 25.4).toFixed(4) + " in" : "";
+  }
+
+  function fillThicknessList() {
+    const options = presets.thicknesses.map((t) => [t.text, t.mm.toFixed(2) + " mm / " + t.in.toFixed(3) + " in"]);
+    for (const g of presets.gauges[materialKey()] || []) {
+      options.push([g.n + " ga", g.n + " gauge: " + g.mm.toFixed(2) + " mm / " + g.in.toFixed(4) + " in"]);
+    }
+    $("thickness-list").replaceChildren(...options.map(([value, label]) => new Option(label, value)));
+  }
+
+  // ---- the answers ----
+
+  function render() {
+    if (!state) return;
+    const u = unitName();
+    for (const el of document.querySelectorAll(".unit-name")) el.textContent = u;
+    for (const b of document.querySelectorAll("[data-units]")) b.setAttribute("aria-pressed", String(b.dataset.units === u));
+    if (state.tool) for (const b of document.querySelectorAll("[data-tool]")) b.setAttribute("aria-pressed", String(b.dataset.tool === state.tool));
+    if (state.target) for (const b of document.querySelectorAll("[data-target]")) b.setAttribute("aria-pressed", String(b.dataset.target === state.target));
+    $("material-desc").textContent = state.material || "";
+    $("recompute").textContent = Number.isFinite(state.recompute_ms) ? "computed in " + state.recompute_ms.toFixed(1) + " ms" : "";
+    $("part-error").textContent = state.error || "";
+    if (state.error) {
+      for (const id of ["weight", "balance", "hang"]) $(id).textContent = "—";
+      for (const id of ["weight-sub", "balance-sub", "hang-sub"]) $(id).textContent = "";
+      $("details-rows").replaceChildren();
+    } else {
+      renderAnswers(u);
+      renderDetails(u);
+    }
+    renderWarnings();
+  }
+
+  function renderAnswers(u) {
+    $("weight").textContent = fmtSig(state.mass) + " kg";
+    const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
+    $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
+    $("balance-sub").textContent = "x, y in " + u + " from the drawing's origin";
+    const h = state.hang;
+    const level = state.level;
+    if (h) {
+      $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
+      const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
+        (h.angle_deg > 0 ? " counter-clockwise" : " clockwise");
+      const parts = [tilt, "Ø " + fmtLen(h.hole) + " " + u];
+      if (Number.isFinite(h.tilt_per_mm_deg)) parts.push(h.tilt_per_mm_deg.toFixed(2) + "° per mm off the line");
+      if (Number.isFinite(h.period_s)) parts.push("swings in " + h.period_s.toFixed(2) + " s");
+      $("hang-sub").textContent = parts.join(" · ") + (level ? "\nLevel hang: " + fmtLen(level.x) + ", " + fmtLen(level.y) : "");
+    } else {
+      $("hang").textContent = "—";
+      $("hang-sub").textContent = (level ? "Level hang: " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + ". " : "") +
+        "Place a hole with the Hole tool.";
+    }
+  }
+
+  function renderDetails(u) {
+    const kgu2 = "kg·" + u + "²";
+    const rows = [
+      ["Area", fmtSig(state.area) + " " + u + "²"],
+      ["Mass", fmtSig(state.mass, 6) + " kg"],
+      ["Ixx (about the balance point)", fmtSig(state.inertia.ixx) + " " + kgu2],
+      ["Iyy", fmtSig(state.inertia.iyy) + " " + kgu2],
+      ["Ixy", fmtSig(state.inertia.ixy) + " " + kgu2],
+      ["Principal I1", fmtSig(state.principal.i1) + " " + kgu2],
+      ["Principal I2", fmtSig(state.principal.i2) + " " + kgu2],
+      ["Axis of I1 from x", fmtDeg(state.principal.angle_deg)],
+      ["Error estimate", state.error_estimate > 0 ? state.error_estimate.toExponential(1) + " (relative)" : "exact"],
+    ];
+    $("details-rows").replaceChildren(...rows.map(([k, v]) => {
+      const tr = document.createElement("tr");
+      const a = document.createElement("td");
+      const b = document.createElement("td");
+      a.textContent = k;
+      b.textContent = v;
+      tr.append(a, b);
+      return tr;
+    }));
+  }
+
+  function renderWarnings() {
+    const list = state.warnings || [];
+    $("warnings").replaceChildren(...list.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; }));
+    $("warnings-box").hidden = list.length === 0;
+  }
+
+  // ---- overlays ----
+
+  function showHelp() {
+    const keys = app && typeof app.shortcuts === "function" ? Array.from(app.shortcuts()) : [];
+    keys.push({ key: "?", action: "Show or hide this list" }, { key: "Ctrl O", action: "Open a part or drawing" },
+      { key: "Ctrl S", action: "Save the part" }, { key: "Esc", action: "Close this list" });
+    $("help-keys").replaceChildren(...keys.map((k) => {
+      const tr = document.createElement("tr");
+      const a = document.createElement("td");
+      const b = document.createElement("td");
+      for (const part of String(k.key).split(" ")) {
+        const kbd = document.createElement("kbd");
+        kbd.textContent = part;
+        a.append(kbd, " ");
+      }
+      b.textContent = k.action;
+      tr.append(a, b);
+      return tr;
+    }));
+    $("help").hidden = false;
+  }
+
+  function showCautions() {
+    const list = (state && state.cautions && state.cautions.length) ? state.cautions : [
+      "Plumb's results are geometry estimates. Hardware ratings, fixings and overhead signs follow local codes and the judgement of a licensed engineer.",
+    ];
+    $("cautions-list").replaceChildren(...list.map((c) => { const li = document.createElement("li"); li.textContent = c; return li; }));
+    $("cautions").hidden = false;
+  }
+
+  function closeOverlays() {
+    let closed = false;
+    for (const o of document.querySelectorAll(".overlay")) { closed = closed || !o.hidden; o.hidden = true; }
+    return closed;
+  }
+
+  // ---- wiring ----
+
+  const ACTIONS = {
+    undo: () => app.undo(),
+    redo: () => app.redo(),
+    fit: () => app.fit(),
+    new: () => { materialFromUser = false; app.newPart(); },
+    open: () => $("file").click(),
+    save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
+    svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
+    report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    copy: () => copyText(resultsText()),
+    help: showHelp,
+    cautions: showCautions,
+    close: closeOverlays,
+    "restore-previous": () => {
+      const prev = readStore(PREVIOUS);
+      if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
+    },
+  };
+
+  function onClick(e) {
+    const b = e.target.closest("button");
+    if (!b || b.disabled) return;
+    const d = b.dataset;
+    if (d.action) {
+      if (!app && !["help", "cautions", "close"].includes(d.action)) return;
+      ACTIONS[d.action]();
+    } else if (d.tool) {
+      app.setTool(d.tool);
+      for (const x of document.querySelectorAll("[data-tool]")) x.setAttribute("aria-pressed", String(x === b));
+    } else if (d.target) {
+      app.setTarget(d.target);
+      for (const x of document.querySelectorAll("[data-target]")) x.setAttribute("aria-pressed", String(x === b));
+    } else if (d.units) {
+      app.setUnits(d.units);
+    } else if (d.mode) {
+      setMode(d.mode);
+      sendMaterial();
+    } else if (b.id === "fold") {
+      const folded = $("panel").classList.toggle("folded");
+      b.setAttribute("aria-expanded", String(!folded));
+      b.textContent = folded ? "+" : "–";
+      writeStore(FOLDED, folded ? "1" : "");
+      return;
+    } else {
+      return;
+    }
+    if (app && !["help", "cautions", "open"].includes(d.action)) refresh();
+    if (!b.closest(".overlay") && d.action !== "help" && d.action !== "cautions") giveCanvasKeys();
+  }
+
+  function onKey(e) {
+    const typing = e.target.matches("input, select, textarea");
+    if (e.key === "Escape" && closeOverlays()) { e.preventDefault(); return; }
+    if ((e.ctrlKey || e.metaKey) && !e.altKey && (e.key === "o" || e.key === "s")) {
+      e.preventDefault();
+      if (app) ACTIONS[e.key === "o" ? "open" : "save"]();
+      return;
+    }
+    if (!typing && e.key === "?") {
+      e.preventDefault();
+      if ($("help").hidden) showHelp(); else closeOverlays();
+    }
+  }
+
+  function wireDrop() {
+    const hint = $("drop-hint");
+    const hasFiles = (e) => e.dataTransfer && Array.from(e.dataTransfer.types).includes("Files");
+    // Capture on window: every drop anywhere is ours, and the browser never navigates to a dropped file.
+    for (const type of ["dragenter", "dragover"]) {
+      window.addEventListener(type, (e) => {
+        e.preventDefault();
+        e.stopPropagation();
+        if (hasFiles(e)) { e.dataTransfer.dropEffect = "copy"; hint.hidden = false; }
+      }, true);
+    }
+    window.addEventListener("dragleave", (e) => { if (e.relatedTarget === null) hint.hidden = true; }, true);
+    window.addEventListener("drop", (e) => {
+      e.preventDefault();
+      e.stopPropagation();
+      hint.hidden = true;
+      const file = e.dataTransfer && e.dataTransfer.files[0];
+      if (file) openFile(file);
+    }, true);
+  }
+
+  function wire() {
+    document.addEventListener("click", onClick);
+    document.addEventListener("keydown", onKey);
+    for (const o of document.querySelectorAll(".overlay")) o.addEventListener("click", (e) => { if (e.target === o) closeOverlays(); });
+    $("file").addEventListener("change", (e) => {
+      const f = e.target.files[0];
+      e.target.value = "";
+      if (f) openFile(f);
+    });
+    for (const id of ["material", "thickness", "formula", "params"]) {
+      const input = $(id);
+      input.addEventListener("input", sendMaterial);
+      input.addEventListener("scroll", () => { input.closest(".field").querySelector(".mirror").scrollLeft = input.scrollLeft; });
+    }
+    $("material").addEventListener("change", fillThicknessList);
+    $("density-unit").addEventListener("change", sendMaterial);
+    $("hole-dia").addEventListener("change", () => {
+      const d = Number($("hole-dia").value);
+      if (!app || !(d >= 0)) return;
+      app.setHoleDiameter(d);
+      refresh();
+    });
+    $("material-list").replaceChildren(...presets.materials.map((m) => new Option(m.name + " · " + m.density + " kg/m³", m.key)));
+    fillThicknessList();
+    wireDrop();
+    if (readStore(FOLDED)) $("fold").click();
+  }
+
+  window.plumbUI = { ready, onChange, timing };
+  setMode("sheet");
+  setEnabled(false);
+  wire();
+  startApp().catch((e) => failed("Plumb could not start in this browser: " + e.message +
+    ". It needs WebAssembly, WebGL 2 and a browser from 2023 or later."));
+})();
