@@ -1,0 +1,76 @@
+package density
+
+import (
+	"fmt"
+	"sort"
+	"strings"
+)
+
+// suggest returns a hint for an unknown word, such as `; did you mean "sqrt"?`, or "" when no
+// candidate is close. A word made of two known names (kx) suggests their product.
+func suggest(word string, known []string, product bool) string {
+	if product {
+		for i := 1; i < len(word); i++ {
+			if contains(known, word[:i]) && contains(known, word[i:]) {
+				return fmt.Sprintf("; did you mean %q?", word[:i]+"*"+word[i:])
+			}
+		}
+	}
+	if best := nearest(word, known); best != "" {
+		return fmt.Sprintf("; did you mean %q?", best)
+	}
+	return ""
+}
+
+// nearest returns the candidate with the smallest edit distance to word, if that distance is small
+// for the word's length (at most one edit per three characters, and at least one); ties go to the
+// candidate first in sorted order.
+func nearest(word string, candidates []string) string {
+	sorted := append([]string(nil), candidates...)
+	sort.Strings(sorted)
+	limit := max(1, len([]rune(word))/3)
+	best, bestDist := "", limit+1
+	lw := strings.ToLower(word)
+	for _, c := range sorted {
+		if d := editDistance(lw, strings.ToLower(c)); d < bestDist {
+			best, bestDist = c, d
+		}
+	}
+	return best
+}
+
+func contains(list []string, s string) bool {
+	for _, v := range list {
+		if v == s {
+			return true
+		}
+	}
+	return false
+}
+
+// editDistance is the optimal string alignment distance between a and b: insertions, deletions,
+// substitutions and transpositions of neighbours each cost 1.
+func editDistance(a, b string) int {
+	ra, rb := []rune(a), []rune(b)
+	prev2 := make([]int, len(rb)+1)
+	prev := make([]int, len(rb)+1)
+	cur := make([]int, len(rb)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(ra); i++ {
+		cur[0] = i
+		for j := 1; j <= len(rb); j++ {
+			cost := 1
+			if ra[i-1] == rb[j-1] {
+				cost = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+			if i > 1 && j > 1 && ra[i-1] == rb[j-2] && ra[i-2] == rb[j-1] {
+				cur[j] = min(cur[j], prev2[j-2]+1)
+			}
+		}
+		prev2, prev, cur = prev, cur, prev2
+	}
+	return prev[len(rb)]
+}
