@@ -1,0 +1,254 @@
+package geom
+
+import (
+	"cmp"
+	"math"
+	"slices"
+)
+
+// Boundary returns the oriented boundary of r: the pieces of its loops (cut where they cross) that
+// separate inside from outside under r's fill rule, each with the inside on its left.
+func (r Region) Boundary() Boundary {
+	return Combine(func(in []bool) bool { return in[0] }, r)
+}
+
+// Disk returns the region of the disk about c of radius r (a drilled hole, for example).
+func Disk(c Point, r float64) Region { return Region{Loops: []Loop{Circle(c, r)}} }
+
+// Difference returns the boundary of base with every one of cuts removed.
+func Difference(base Region, cuts ...Region) Boundary {
+	keep := func(in []bool) bool { return in[0] && !slices.Contains(in[1:], true) }
+	return Combine(keep, append([]Region{base}, cuts...)...)
+}
+
+// sideTolerance is the distance, in units of the coincidence tolerance, at which Combine probes either
+// side of a piece: far enough that rounding in the probe cannot put it on the wrong side of a curve
+// within the tolerance of the piece, near enough to stay inside all but hairline features.
+const sideTolerance = 64
+
+// Combine returns the boundary of {p : keep(in)}, where in[i] reports whether p lies in regions[i]
+// (each by its own fill rule); keep must be false when all in[i] are false.
+//
+// Every segment is cut where it meets another (of any region, its own loop included), at exact
+// intersections of the true curves. A piece between cuts separates the set from its outside exactly
+// when keep differs on its two sides, which Combine decides from the winding numbers at two points
+// just beside the piece's midpoint; such pieces are kept, turned so that the set lies on their left.
+// Where pieces of several regions run along one another (shared edges), one copy is kept. The result
+// is a set of exact curves, never flattened, not assembled into loops: Green's theorem needs only
+// the oriented pieces.
+func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
+	if keep == nil {
+		panic("geom: Combine needs a keep function")
+	}
+	var ms monos
+	for ri, r := range regions {
+		for _, l := range r.Loops {
+			ms = appendMonos(ms, l, ri)
+		}
+	}
+	if len(ms) == 0 {
+		return Boundary{}
+	}
+	box := EmptyRect()
+	for i := range ms {
+		box = box.Union(ms[i].box)
+	}
+	tol := tolerance(box)
+	c := newClassifier(ms, regions, keep, box, tol)
+	var kept []keptPiece
+	cuts := cutList(findHits(ms, tol, nil))
+	for i := range ms {
+		var here []float64
+		for len(cuts) > 0 && cuts[0].mono == i {
+			here = append(here, cuts[0].t)
+			cuts = cuts[1:]
+		}
+		kept = c.pieces(i, here, kept)
+	}
+	return Boundary{Pieces: dedupe(kept, c.side)}
+}
+
+// cut is a parameter at which a piece must be cut.
+type cut struct {
+	mono int
+	t    float64
+}
+
+// cutList returns the cuts the hits call for, ordered by piece and parameter.
+func cutList(hits []hit) []cut {
+	cs := make([]cut, 0, 2*len(hits))
+	for _, h := range hits {
+		cs = append(cs, cut{h.i, h.ti}, cut{h.j, h.tj})
+	}
+	slices.SortFunc(cs, func(a, b cut) int {
+		return cmp.Or(cmp.Compare(a.mono, b.mono), cmp.Compare(a.t, b.t))
+	})
+	return cs
+}
+
+// classifier decides which pieces of a set of regions bound the set that keep selects.
+type classifier struct {
+	ms    monos
+	rules []FillRule
+	keep  func([]bool) bool
+	index yIndex
+	w     []int
+	in    []bool
+	tol   float64
+	side  float64
+}
+
+func newClassifier(ms monos, regions []Region, keep func([]bool) bool, box Rect, tol float64) *classifier {
+	c := &classifier{ms: ms, keep: keep, index: newYIndex(ms, box), tol: tol, side: sideTolerance * tol,
+		rules: make([]FillRule, len(regions)), w: make([]int, len(regions)), in: make([]bool, len(regions))}
+	for i, r := range regions {
+		c.rules[i] = r.Rule
+	}
+	return c
+}
+
+// keptPiece is a piece of the result with its midpoint (for finding duplicates).
+type keptPiece struct {
+	s   Segment
+	mid Point
+}
+
+// pieces appends the pieces of mono i, cut at ts (sorted), that bound the set. Cuts within the
+// tolerance of the previous one or of the end are skipped.
+func (c *classifier) pieces(i int, ts []float64, dst []keptPiece) []keptPiece {
+	m := &c.ms[i]
+	u0, q0 := m.t0, m.a
+	for k := 0; k <= len(ts); k++ {
+		u1, q1 := m.t1, m.b
+		if k < len(ts) {
+			u1, q1 = ts[k], m.s.At(ts[k])
+			if u1 <= u0 || q1.Dist(q0) <= c.tol || q1.Dist(m.b) <= c.tol {
+				continue
+			}
+		}
+		dst = c.piece(m, u0, u1, q0, q1, dst)
+		u0, q0 = u1, q1
+	}
+	return dst
+}
+
+// piece appends the part of m over [u0, u1] (from q0 to q1) if keep differs on its two sides, with the
+// kept side on its left.
+func (c *classifier) piece(m *mono, u0, u1 float64, q0, q1 Point, dst []keptPiece) []keptPiece {
+	um := (u0 + u1) / 2
+	mid, tan := m.s.At(um), m.s.Deriv(um)
+	if tan.Norm() == 0 {
+		tan = q1.Sub(q0) // a cusp at the midpoint
+	}
+	side := math.Max(math.Min(c.side, q0.Dist(q1)/4), 2*c.tol)
+	n := Point{-tan.Y, tan.X}.Mul(side / tan.Norm())
+	left, right := c.kept(mid.Add(n)), c.kept(mid.Sub(n))
+	if left == right {
+		return dst
+	}
+	s := m.s.Sub(u0, u1)
+	if m.s.Kind == KindLine {
+		s = Line(q0, q1)
+	}
+	if right {
+		s = s.Reverse()
+	}
+	return append(dst, keptPiece{s, mid})
+}
+
+// kept reports whether keep holds at p.
+func (c *classifier) kept(p Point) bool {
+	clear(c.w)
+	for _, k := range c.index.at(p.Y) {
+		m := &c.ms[k]
+		c.w[m.region] += monoWinding(m.s, m.t0, m.t1, m.a, m.b, p)
+	}
+	for r, w := range c.w {
+		c.in[r] = c.rules[r].inside(w)
+	}
+	return c.keep(c.in)
+}
+
+// dedupe returns the pieces, dropping those that run along an earlier one within tol (start, end and
+// midpoint): regions sharing an edge each contribute a copy of it.
+func dedupe(ps []keptPiece, tol float64) []Segment {
+	order := make([]int, len(ps))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(ps[i].mid.X, ps[j].mid.X) })
+	dup := make([]bool, len(ps))
+	for k, i := range order {
+		for l := k - 1; l >= 0 && ps[i].mid.X-ps[order[l]].mid.X <= tol; l-- {
+			if j := order[l]; samePiece(ps[i], ps[j], tol) {
+				dup[max(i, j)] = true
+				break
+			}
+		}
+	}
+	out := make([]Segment, 0, len(ps))
+	for i, p := range ps {
+		if !dup[i] {
+			out = append(out, p.s)
+		}
+	}
+	return out
+}
+
+// samePiece reports whether a and b start, end and pass their middle within tol of each other.
+func samePiece(a, b keptPiece, tol float64) bool {
+	return a.mid.Dist(b.mid) <= tol && a.s.Start().Dist(b.s.Start()) <= tol && a.s.End().Dist(b.s.End()) <= tol
+}
+
+// yIndex lists, for each of a number of equal horizontal bands, the pieces whose y range meets the
+// band, so that a ray's crossings are looked for only among the pieces of its band.
+type yIndex struct {
+	y0, h float64
+	start []int32 // band k holds items[start[k]:start[k+1]]
+	items []int32
+}
+
+func newYIndex(ms monos, box Rect) yIndex {
+	n := min(max(1, 2*int(math.Sqrt(float64(len(ms))))), 4096)
+	x := yIndex{y0: box.Min.Y, h: (box.Max.Y - box.Min.Y) / float64(n), start: make([]int32, n+1)}
+	if !(x.h > 0) {
+		x.h, n = 1, 1
+		x.start = x.start[:2]
+	}
+	for i := range ms {
+		for k := x.band(ms[i].box.Min.Y); k <= x.band(ms[i].box.Max.Y); k++ {
+			x.start[k+1]++
+		}
+	}
+	for k := range n {
+		x.start[k+1] += x.start[k]
+	}
+	x.items = make([]int32, x.start[n])
+	fill := slices.Clone(x.start[:n])
+	for i := range ms {
+		for k := x.band(ms[i].box.Min.Y); k <= x.band(ms[i].box.Max.Y); k++ {
+			x.items[fill[k]] = int32(i)
+			fill[k]++
+		}
+	}
+	return x
+}
+
+// band returns the band holding y (the first or last for y outside the index).
+func (x *yIndex) band(y float64) int {
+	last := len(x.start) - 2
+	f := (y - x.y0) / x.h
+	switch {
+	case !(f > 0):
+		return 0
+	case f >= float64(last):
+		return last
+	}
+	return int(f)
+}
+
+// at returns the pieces that may cross the horizontal line at y.
+func (x *yIndex) at(y float64) []int32 {
+	k := x.band(y)
+	return x.items[x.start[k]:x.start[k+1]]
+}

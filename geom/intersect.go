@@ -1,0 +1,626 @@
+package geom
+
+import (
+	"cmp"
+	"math"
+	"slices"
+)
+
+// mono is the piece of a segment over a parameter interval [t0, t1] on which x and y are both
+// monotone, so that its bounding box is the box of its end points a and b and it cannot cross itself.
+// Loops are cut into monos at the extremes of their segments before they are intersected.
+type mono struct {
+	s      Segment
+	t0, t1 float64
+	a, b   Point // s at t0 and t1; a of a segment's first piece is the previous segment's end
+	box    Rect
+	region int // index of the region the piece belongs to
+	seg    int // index of s in its loop
+}
+
+// monos is a list of pieces; the pieces of one loop are consecutive and in order.
+type monos []mono
+
+// hit is a point where monos i and j meet, at parameters ti and tj of their segments.
+type hit struct {
+	i, j   int
+	ti, tj float64
+}
+
+// usable reports whether s has finite data and a proper shape, so that it can take part in winding
+// numbers and intersections (Region.Check reports the others).
+func usable(s Segment) bool {
+	if nonFinite(s) != "" || s.Kind > KindCubic {
+		return false
+	}
+	return s.Kind != KindArc || s.RX > 0 && s.RY > 0 && s.Sweep != 0
+}
+
+// appendMonos appends the monotone pieces of loop l, tagged with region, to dst.
+func appendMonos(dst monos, l Loop, region int) monos {
+	for i, s := range l {
+		if !usable(s) {
+			continue
+		}
+		a := s.Start()
+		if prev := l[(i+len(l)-1)%len(l)]; usable(prev) {
+			a = prev.End()
+		}
+		var buf [8]float64
+		ts := s.extremes(buf[:0])
+		slices.Sort(ts)
+		t0 := 0.0
+		for k := 0; k <= len(ts); k++ {
+			t1, b := 1.0, s.End()
+			if k < len(ts) {
+				t1, b = ts[k], s.At(ts[k])
+			}
+			if t1 > t0 && a != b {
+				dst = append(dst, mono{s: s, t0: t0, t1: t1, a: a, b: b, box: RectFromPoints(a, b),
+					region: region, seg: i})
+			}
+			t0, a = t1, b
+		}
+	}
+	return dst
+}
+
+// boxesMeet reports whether r and s come within tol of each other.
+func boxesMeet(r, s Rect, tol float64) bool {
+	return r.Min.X <= s.Max.X+tol && s.Min.X <= r.Max.X+tol && r.Min.Y <= s.Max.Y+tol && s.Min.Y <= r.Max.Y+tol
+}
+
+// findHits appends to dst every point where two of the pieces meet (cross, touch or overlap, within
+// tol). Only pairs whose boxes meet are intersected: the boxes are swept in order of their left edges,
+// keeping the list of those still open.
+func findHits(ms monos, tol float64, dst []hit) []hit {
+	order := make([]int, len(ms))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(ms[i].box.Min.X, ms[j].box.Min.X) })
+	active := make([]int, 0, 64)
+	for _, i := range order {
+		bi := ms[i].box
+		k := 0
+		for _, j := range active {
+			if ms[j].box.Max.X+tol >= bi.Min.X {
+				active[k] = j
+				k++
+			}
+		}
+		active = active[:k]
+		for _, j := range active {
+			if boxesMeet(ms[j].box, bi, tol) {
+				dst = ms.intersect(j, i, tol, dst)
+			}
+		}
+		active = append(active, i)
+	}
+	return dst
+}
+
+// joined reports whether h is only the vertex where piece h.i ends and the next piece of its loop
+// (h.j) starts, or the other way round. It assumes ms holds a single loop.
+func (ms monos) joined(h hit) bool {
+	next := func(k int) int { return (k + 1) % len(ms) }
+	return h.ti == ms[h.i].t1 && h.tj == ms[h.j].t0 && h.j == next(h.i) ||
+		h.ti == ms[h.i].t0 && h.tj == ms[h.j].t1 && h.i == next(h.j)
+}
+
+// param maps t, a parameter of m.s found by a solver, into m's interval: values within tol (as a
+// distance along the piece) of an end snap to that end; values farther outside are rejected.
+func (m *mono) param(t, tol float64) (float64, bool) {
+	slack := (m.t1 - m.t0) * tol / m.a.Dist(m.b)
+	switch {
+	case !(t >= m.t0-slack && t <= m.t1+slack):
+		return 0, false
+	case t <= m.t0+slack:
+		return m.t0, true
+	case t >= m.t1-slack:
+		return m.t1, true
+	}
+	return t, true
+}
+
+// add appends the hit of pieces i and j at ti and tj, if both lie on their pieces.
+func (ms monos) add(dst []hit, i int, ti float64, j int, tj float64, tol float64) []hit {
+	ti, oki := ms[i].param(ti, tol)
+	tj, okj := ms[j].param(tj, tol)
+	if !oki || !okj {
+		return dst
+	}
+	return append(dst, hit{i, j, ti, tj})
+}
+
+// intersect appends the points where pieces i and j meet. End points lying on the other piece come
+// first; they also bound every stretch where the two pieces overlap (lie on one curve), in which case
+// they are all there is. Otherwise the pieces' crossings are found by closed forms (a line with any
+// curve, two circular arcs) or by subdivision and Newton's method.
+func (ms monos) intersect(i, j int, tol float64, dst []hit) []hit {
+	n := len(dst)
+	dst = ms.endHits(i, j, tol, dst)
+	dst = ms.endHits(j, i, tol, dst)
+	if len(dst)-n >= 2 && ms.overlap(dst[n:], tol) {
+		return dst
+	}
+	m := len(dst)
+	a, b := &ms[i], &ms[j]
+	switch {
+	case a.s.Kind == KindLine:
+		dst = ms.lineCrossings(i, j, tol, dst)
+	case b.s.Kind == KindLine:
+		dst = ms.lineCrossings(j, i, tol, dst)
+	case circular(a.s) && circular(b.s):
+		dst = ms.circleCrossings(i, j, tol, dst)
+	default:
+		leaf := math.Max(4*tol, 1e-4*math.Max(a.a.Dist(a.b), b.a.Dist(b.b)))
+		sd := subdivision{ms: ms, i: i, j: j, from: m, tol: tol, leaf: leaf}
+		dst = sd.crossings(dst)
+	}
+	return ms.dropNearJoint(i, j, dst, m)
+}
+
+// dropNearJoint removes from dst[from:] the crossings that pieces i and j, when consecutive in a loop,
+// report near their shared vertex: where consecutive curves meet tangentially the solvers return
+// points scattered along the contact. Crossings farther than a thousandth of the shorter piece from
+// the vertex are kept (a curve turning back onto its neighbour).
+func (ms monos) dropNearJoint(i, j int, dst []hit, from int) []hit {
+	a, b := &ms[i], &ms[j]
+	var joint Point
+	switch {
+	case a.b == b.a:
+		joint = a.b
+	case b.b == a.a:
+		joint = a.a
+	default:
+		return dst
+	}
+	near := 1e-3 * math.Min(a.a.Dist(a.b), b.a.Dist(b.b))
+	k := from
+	for _, h := range dst[from:] {
+		if a.s.At(h.ti).Dist(joint) > near {
+			dst[k] = h
+			k++
+		}
+	}
+	return dst[:k]
+}
+
+// endHits appends the hits of piece i's end points lying on piece j.
+func (ms monos) endHits(i, j int, tol float64, dst []hit) []hit {
+	a, b := &ms[i], &ms[j]
+	for _, e := range [2]struct {
+		t float64
+		p Point
+	}{{a.t0, a.a}, {a.t1, a.b}} {
+		if !boxesMeet(b.box, Rect{e.p, e.p}, tol) {
+			continue
+		}
+		switch {
+		case e.p.Dist(b.a) <= tol:
+			dst = ms.add(dst, i, e.t, j, b.t0, tol)
+		case e.p.Dist(b.b) <= tol:
+			dst = ms.add(dst, i, e.t, j, b.t1, tol)
+		default:
+			if u, d := nearest(b.s, b.t0, b.t1, e.p); d <= tol {
+				dst = ms.add(dst, i, e.t, j, u, tol)
+			}
+		}
+	}
+	return dst
+}
+
+// overlap reports whether, between two of the end hits hs, the pieces run along one another: the
+// midpoint of one piece between two hits on it lies on the other.
+func (ms monos) overlap(hs []hit, tol float64) bool {
+	for k, h := range hs {
+		a, b := &ms[h.i], &ms[h.j]
+		for _, g := range hs[k+1:] {
+			if g.i != h.i || a.s.At(h.ti).Dist(a.s.At(g.ti)) <= tol {
+				continue
+			}
+			if _, d := nearest(b.s, b.t0, b.t1, a.s.At((h.ti+g.ti)/2)); d <= tol {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// lineCrossings appends the crossings of the line piece i with piece j.
+func (ms monos) lineCrossings(i, j int, tol float64, dst []hit) []hit {
+	l, o := &ms[i], &ms[j]
+	var buf [8][2]float64
+	for _, h := range lineMeets(l.s.P[0], l.s.P[1].Sub(l.s.P[0]), o.s, o.t0, o.t1, tol, buf[:0]) {
+		dst = ms.add(dst, i, h[0], j, h[1], tol)
+	}
+	return dst
+}
+
+// circular reports whether s is an arc of a circle.
+func circular(s Segment) bool {
+	return s.Kind == KindArc && math.Abs(s.RX-s.RY) <= 1e-12*s.RX
+}
+
+// circleCrossings appends the crossings of the circular arcs i and j: with centres d apart, the common
+// chord lies x = (d² + r1² − r2²)/(2d) from the first centre, with half-length √(r1² − x²).
+// Concentric arcs have none (when their radii agree they overlap, which the end hits cover).
+func (ms monos) circleCrossings(i, j int, tol float64, dst []hit) []hit {
+	a, b := ms[i].s, ms[j].s
+	r1, r2 := a.RX, b.RX
+	e := b.C.Sub(a.C)
+	d := e.Norm()
+	if d <= tol || d > r1+r2+tol || d < math.Abs(r1-r2)-tol {
+		return dst
+	}
+	e = e.Mul(1 / d)
+	x := (d*d + r1*r1 - r2*r2) / (2 * d)
+	h := math.Sqrt(math.Max(0, r1*r1-x*x))
+	base, perp := a.C.Add(e.Mul(x)), Point{-e.Y, e.X}.Mul(h)
+	for _, q := range [2]Point{base.Add(perp), base.Sub(perp)} {
+		dst = ms.add(dst, i, arcParamOf(a, q), j, arcParamOf(b, q), tol)
+		if h == 0 {
+			break
+		}
+	}
+	return dst
+}
+
+// span is the part of a mono over [t0, t1], from p0 to p1.
+type span struct {
+	t0, t1 float64
+	p0, p1 Point
+}
+
+// maxCrossings is the most points in which two of our curves can cross without coinciding: by
+// Bézout's theorem, the product of their algebraic degrees (3 for a cubic Bézier, 2 for a quadratic
+// and for an ellipse), at most 9.
+const maxCrossings = 9
+
+// maxSubdivide bounds the depth of subdivision: 2⁻⁶⁰ of a parameter interval is below float64 resolution.
+const maxSubdivide = 60
+
+// subdivision finds the crossings of pieces i and j, appending them after dst[from:].
+type subdivision struct {
+	ms         monos
+	i, j, from int
+	tol, leaf  float64
+}
+
+// crossings appends the crossings of the whole pieces; more than maxCrossings mean the curves run
+// together within tol, and then there are none (the end hits bound the common stretch).
+func (sd *subdivision) crossings(dst []hit) []hit {
+	a, b := &sd.ms[sd.i], &sd.ms[sd.j]
+	dst = sd.run(span{a.t0, a.t1, a.a, a.b}, span{b.t0, b.t1, b.a, b.b}, 0, dst)
+	if len(dst)-sd.from > maxCrossings {
+		return dst[:sd.from]
+	}
+	return dst
+}
+
+// run appends the crossings of spans a (of piece i) and b (of piece j): spans whose boxes are apart
+// cannot meet; larger spans are halved, the larger first; once both are smaller than leaf, Newton's
+// method finds the crossing from their midpoints.
+func (sd *subdivision) run(a, b span, depth int, dst []hit) []hit {
+	ra, rb := RectFromPoints(a.p0, a.p1), RectFromPoints(b.p0, b.p1)
+	if !boxesMeet(ra, rb, sd.tol) || len(dst)-sd.from > maxCrossings {
+		return dst
+	}
+	sa, sb := ra.Size().Norm(), rb.Size().Norm()
+	if sa <= sd.leaf && sb <= sd.leaf || depth >= maxSubdivide {
+		return sd.polish(a, b, dst)
+	}
+	if sa >= sb {
+		l, r := a.halves(sd.ms[sd.i].s)
+		return sd.run(r, b, depth+1, sd.run(l, b, depth+1, dst))
+	}
+	l, r := b.halves(sd.ms[sd.j].s)
+	return sd.run(a, r, depth+1, sd.run(a, l, depth+1, dst))
+}
+
+// halves splits the span of s at its parameter midpoint.
+func (sp span) halves(s Segment) (span, span) {
+	tm := (sp.t0 + sp.t1) / 2
+	pm := s.At(tm)
+	return span{sp.t0, tm, sp.p0, pm}, span{tm, sp.t1, pm, sp.p1}
+}
+
+// polish solves A(s) = B(u) for pieces i and j by Newton's method from the midpoints of spans a and b,
+// with s and u kept within the pieces, and appends the crossing when the curves come within tol there
+// and it is not one found already. Each step solves A'(s)·Δs − B'(u)·Δu = B(u) − A(s) by Cramer's rule.
+func (sd *subdivision) polish(a, b span, dst []hit) []hit {
+	ma, mb := &sd.ms[sd.i], &sd.ms[sd.j]
+	s, u := (a.t0+a.t1)/2, (b.t0+b.t1)/2
+	for range 16 {
+		f := ma.s.At(s).Sub(mb.s.At(u))
+		da, db := ma.s.Deriv(s), mb.s.Deriv(u)
+		det := -da.Cross(db)
+		if det == 0 {
+			break
+		}
+		ds, du := f.Cross(db)/det, f.Cross(da)/det
+		s = math.Min(math.Max(s+ds, ma.t0), ma.t1)
+		u = math.Min(math.Max(u+du, mb.t0), mb.t1)
+		if math.Abs(ds)+math.Abs(du) <= 1e-15 {
+			break
+		}
+	}
+	p := ma.s.At(s)
+	if p.Dist(mb.s.At(u)) > sd.tol {
+		return dst
+	}
+	for _, h := range dst[sd.from:] {
+		if ma.s.At(h.ti).Dist(p) <= sd.tol {
+			return dst
+		}
+	}
+	return sd.ms.add(dst, sd.i, s, sd.j, u, sd.tol)
+}
+
+// lineMeets appends to dst the pairs (u, t) where the line org + u·dir meets s at parameter t, for
+// t in about [t0, t1] (arcs report every crossing of their ellipse, by the reading of the angle nearest
+// the arc). A line piece along the line (within tol) reports its two end points.
+func lineMeets(org, dir Point, s Segment, t0, t1, tol float64, dst [][2]float64) [][2]float64 {
+	dd := dir.Dot(dir)
+	switch s.Kind {
+	case KindLine:
+		e := s.P[1].Sub(s.P[0])
+		w := s.P[0].Sub(org)
+		den := dir.Cross(e)
+		if math.Abs(den) <= 1e-14*math.Sqrt(dd*e.Dot(e)) {
+			if math.Abs(dir.Cross(w))/math.Sqrt(dd) <= tol {
+				dst = append(dst, [2]float64{w.Dot(dir) / dd, 0}, [2]float64{s.P[1].Sub(org).Dot(dir) / dd, 1})
+			}
+			return dst
+		}
+		return append(dst, [2]float64{w.Cross(e) / den, w.Cross(dir) / den})
+	case KindArc:
+		return lineMeetsArc(org, dir, s, dst)
+	}
+	// Signed distances of the control points from the line (times |dir|) form a scalar Bézier.
+	c, n := bezierPower(s)
+	var f [4]float64
+	for k := 0; k <= n; k++ {
+		f[k] = c[k].Cross(dir)
+	}
+	f[0] -= org.Cross(dir)
+	var buf [8]float64
+	for _, t := range polyRoots(f[:n+1], t0, t1, buf[:0]) {
+		dst = append(dst, [2]float64{s.At(t).Sub(org).Dot(dir) / dd, t})
+	}
+	return dst
+}
+
+// lineMeetsArc is lineMeets for an arc: in the frame where the arc's ellipse is the unit circle the
+// line stays a line, o + u·d, and |o + u·d|² = 1 is a quadratic in u.
+func lineMeetsArc(org, dir Point, s Segment, dst [][2]float64) [][2]float64 {
+	o := toArcFrame(s, org)
+	d := dir.Rotate(-s.Rot)
+	d = Point{d.X / s.RX, d.Y / s.RY}
+	qa, qb, qc := d.Dot(d), 2*o.Dot(d), o.Dot(o)-1
+	disc := qb*qb - 4*qa*qc
+	if qa == 0 || disc < 0 {
+		return dst
+	}
+	// Numerically stable pair (Press et al., Numerical Recipes, 3rd ed., §5.6).
+	q := -(qb + math.Copysign(math.Sqrt(disc), qb)) / 2
+	us := [2]float64{q / qa, qc / q}
+	if q == 0 {
+		us[1] = us[0]
+	}
+	for k, u := range us {
+		if k == 1 && (disc == 0 || u == us[0]) {
+			break
+		}
+		w := o.Add(d.Mul(u))
+		dst = append(dst, [2]float64{u, arcParam(s, math.Atan2(w.Y, w.X))})
+	}
+	return dst
+}
+
+// toArcFrame returns q in the frame where the ellipse of arc s is the unit circle about the origin,
+// so that the arc's point at angle θ maps to (cos θ, sin θ).
+func toArcFrame(s Segment, q Point) Point {
+	d := q.Sub(s.C).Rotate(-s.Rot)
+	return Point{d.X / s.RX, d.Y / s.RY}
+}
+
+// arcParamOf returns the parameter of the point of arc s's ellipse in the direction of q (exact for q on
+// the ellipse), by the reading of its angle nearest [0, 1].
+func arcParamOf(s Segment, q Point) float64 {
+	w := toArcFrame(s, q)
+	return arcParam(s, math.Atan2(w.Y, w.X))
+}
+
+// arcParam returns the parameter t with θ = Theta + t·Sweep for the angle theta (mod 2π): the reading
+// in [0, 1] if there is one, otherwise whichever is nearer to [0, 1].
+func arcParam(s Segment, theta float64) float64 {
+	sw := math.Abs(s.Sweep)
+	d := theta - s.Theta
+	if s.Sweep < 0 {
+		d = -d
+	}
+	d = math.Mod(d, 2*math.Pi)
+	if d < 0 {
+		d += 2 * math.Pi
+	}
+	if d > sw && d-sw > 2*math.Pi-d {
+		d -= 2 * math.Pi
+	}
+	return d / sw
+}
+
+// bezierPower returns the power-basis coefficients c of a line or Bézier s, s(t) = Σ c[k]·t^k, and its
+// degree.
+func bezierPower(s Segment) (c [4]Point, n int) {
+	p := s.P
+	switch n = s.Degree(); n {
+	case 1:
+		c[0], c[1] = p[0], p[1].Sub(p[0])
+	case 2:
+		c[0], c[1], c[2] = p[0], p[1].Sub(p[0]).Mul(2), p[0].Sub(p[1].Mul(2)).Add(p[2])
+	case 3:
+		c[0] = p[0]
+		c[1] = p[1].Sub(p[0]).Mul(3)
+		c[2] = p[0].Sub(p[1].Mul(2)).Add(p[2]).Mul(3)
+		c[3] = p[3].Sub(p[0]).Add(p[1].Sub(p[2]).Mul(3))
+	}
+	return c, n
+}
+
+// nearest returns the parameter in [t0, t1] of the point of s nearest to p, and its distance. Lines
+// and circular arcs use closed forms; for a Bézier the nearest point is an end or a root of the
+// polynomial (s(t) − p)·s'(t); for an elliptical arc, a root of the same expression, bracketed by
+// sampling.
+func nearest(s Segment, t0, t1 float64, p Point) (float64, float64) {
+	best, bd := t0, s.At(t0).Dist(p)
+	try := func(t float64) {
+		if d := s.At(t).Dist(p); d < bd {
+			best, bd = t, d
+		}
+	}
+	try(t1)
+	switch s.Kind {
+	case KindLine:
+		if e := s.P[1].Sub(s.P[0]); e.Dot(e) > 0 {
+			try(math.Min(math.Max(p.Sub(s.P[0]).Dot(e)/e.Dot(e), t0), t1))
+		}
+	case KindQuad, KindCubic:
+		var buf [8]float64
+		for _, t := range polyRoots(nearestPoly(s, p), t0, t1, buf[:0]) {
+			try(t)
+		}
+	case KindArc:
+		if circular(s) {
+			if t := arcParamOf(s, p); t > t0 && t < t1 {
+				try(t)
+			}
+			break
+		}
+		for _, t := range ellipseFeet(s, t0, t1, p) {
+			try(t)
+		}
+	}
+	return best, bd
+}
+
+// nearestPoly returns the coefficients of (s(t) − p)·s'(t) for a Bézier s, of degree 2n − 1.
+func nearestPoly(s Segment, p Point) []float64 {
+	c, n := bezierPower(s)
+	c[0] = c[0].Sub(p)
+	var g [6]float64
+	for i := 0; i <= n; i++ {
+		for k := 1; k <= n; k++ {
+			g[i+k-1] += float64(k) * c[i].Dot(c[k])
+		}
+	}
+	return g[:2*n]
+}
+
+// ellipseFeet returns the parameters in (t0, t1) where g(t) = (s(t) − p)·s'(t) changes sign from
+// negative to positive: the local minima of the distance from p to the elliptical arc s. Samples every
+// π/16 of sweep bracket them; each is then solved with g'(t) = |s'|² + (s − p)·s” where
+// s”(t) = −Sweep²·(s(t) − C).
+func ellipseFeet(s Segment, t0, t1 float64, p Point) []float64 {
+	g := func(t float64) (float64, float64) {
+		q, d := s.At(t), s.Deriv(t)
+		return q.Sub(p).Dot(d), d.Dot(d) - s.Sweep*s.Sweep*q.Sub(p).Dot(q.Sub(s.C))
+	}
+	n := 2 + int(math.Abs(s.Sweep)*(t1-t0)*16/math.Pi)
+	var feet []float64
+	prev := t0
+	gp, _ := g(t0)
+	for k := 1; k <= n; k++ {
+		t := t0 + (t1-t0)*float64(k)/float64(n)
+		gt, _ := g(t)
+		if gp < 0 && gt >= 0 {
+			feet = append(feet, solveBracketed(g, prev, t, true))
+		}
+		prev, gp = t, gt
+	}
+	return feet
+}
+
+// polyRoots appends to dst, in increasing order, the real roots in [lo, hi] of the polynomial
+// Σ c[k]·x^k (at most degree 7). The roots of the derivative, found the same way, cut [lo, hi] into
+// intervals on which the polynomial is monotone; each sign change there brackets one root. Double
+// roots without a sign change (tangencies) are not reported.
+func polyRoots(c []float64, lo, hi float64, dst []float64) []float64 {
+	scale := 0.0
+	for _, v := range c {
+		scale = math.Max(scale, math.Abs(v))
+	}
+	n := len(c) - 1
+	for n > 0 && math.Abs(c[n]) <= 1e-14*scale {
+		n--
+	}
+	if n <= 0 {
+		return dst
+	}
+	c = c[:n+1]
+	var d, cb [8]float64
+	for k := 1; k <= n; k++ {
+		d[k-1] = float64(k) * c[k]
+	}
+	var crit []float64
+	if n > 1 {
+		crit = polyRoots(d[:n], lo, hi, cb[:0])
+	}
+	f := func(x float64) (float64, float64) { return horner(c, x), horner(d[:n], x) }
+	x0, f0 := lo, horner(c, lo)
+	if f0 == 0 {
+		dst = append(dst, lo)
+	}
+	for k := 0; k <= len(crit); k++ {
+		x1 := hi
+		if k < len(crit) {
+			x1 = crit[k]
+		}
+		f1 := horner(c, x1)
+		switch {
+		case f1 == 0 && x1 > x0:
+			dst = append(dst, x1)
+		case f0 != 0 && f1 != 0 && (f0 < 0) != (f1 < 0):
+			dst = append(dst, solveBracketed(f, x0, x1, f0 < 0))
+		}
+		x0, f0 = x1, f1
+	}
+	return dst
+}
+
+// horner returns Σ c[k]·x^k.
+func horner(c []float64, x float64) float64 {
+	v := 0.0
+	for k := len(c) - 1; k >= 0; k-- {
+		v = v*x + c[k]
+	}
+	return v
+}
+
+// solveBracketed returns a root of f in [lo, hi], where f changes sign (negLo: f(lo) < 0); f returns
+// the value and the derivative. Newton steps that leave the bracket are replaced by bisection, so it
+// converges quadratically near a simple root and never diverges.
+func solveBracketed(f func(float64) (float64, float64), lo, hi float64, negLo bool) float64 {
+	x := (lo + hi) / 2
+	for range 100 {
+		v, d := f(x)
+		if v == 0 {
+			return x
+		}
+		if (v < 0) == negLo {
+			lo = x
+		} else {
+			hi = x
+		}
+		next := x - v/d
+		if !(next > lo && next < hi) {
+			next = (lo + hi) / 2
+		}
+		if math.Abs(next-x) <= 1e-16*math.Max(1, math.Abs(x)) || hi-lo <= 1e-16*math.Max(1, math.Abs(x)) {
+			return next
+		}
+		x = next
+	}
+	return x
+}

@@ -1,0 +1,99 @@
+package geom
+
+import (
+	"math"
+	"slices"
+)
+
+// Contains reports whether p lies in the material b bounds: whether the pieces wind around p. Points
+// on the boundary may go either way.
+func (b Boundary) Contains(p Point) bool {
+	w := 0
+	for _, s := range b.Pieces {
+		if usable(s) {
+			w += segmentWinding(s, s.Start(), p)
+		}
+	}
+	return w != 0
+}
+
+// Distance returns the distance from p to the nearest point of b's pieces (the true curves), or +Inf
+// when b is empty.
+func (b Boundary) Distance(p Point) float64 {
+	best := math.Inf(1)
+	for _, s := range b.Pieces {
+		if !usable(s) || boxDistance(s.Bounds(), p) >= best {
+			continue
+		}
+		_, d := nearest(s, 0, 1, p)
+		best = math.Min(best, d)
+	}
+	return best
+}
+
+// boxDistance returns the distance from p to the rectangle r (0 inside it).
+func boxDistance(r Rect, p Point) float64 {
+	dx := math.Max(0, math.Max(r.Min.X-p.X, p.X-r.Max.X))
+	dy := math.Max(0, math.Max(r.Min.Y-p.Y, p.Y-r.Max.Y))
+	return math.Hypot(dx, dy)
+}
+
+// LineHits returns, in increasing order, the parameters t at which the line p + t·dir meets b's pieces.
+// Meetings within the boundary's coincidence tolerance of each other (where pieces join, or at a
+// tangent) are reported once; a piece lying along the line reports its two ends. It panics if dir
+// is zero.
+func (b Boundary) LineHits(p, dir Point) []float64 {
+	if dir == (Point{}) {
+		panic("geom: LineHits needs a non-zero direction")
+	}
+	tol := tolerance(b.Bounds())
+	var ts []float64
+	var buf [8][2]float64
+	for _, s := range b.Pieces {
+		if !usable(s) {
+			continue
+		}
+		slack := tol / math.Max(s.Start().Dist(s.End()), tol)
+		for _, h := range lineMeets(p, dir, s, 0, 1, tol, buf[:0]) {
+			if h[1] >= -slack && h[1] <= 1+slack {
+				ts = append(ts, h[0])
+			}
+		}
+	}
+	slices.Sort(ts)
+	gap := tol / dir.Norm()
+	out := ts[:0]
+	for _, t := range ts {
+		if len(out) == 0 || t-out[len(out)-1] > gap {
+			out = append(out, t)
+		}
+	}
+	return out
+}
+
+// Transform returns the image of b under m. Under a reflecting m every piece is reversed, so that the
+// material stays on the left.
+func (b Boundary) Transform(m Affine) Boundary {
+	out := Boundary{Pieces: make([]Segment, len(b.Pieces))}
+	flip := m.Det() < 0
+	for i, s := range b.Pieces {
+		s = s.Transform(m)
+		if flip {
+			s = s.Reverse()
+		}
+		out.Pieces[i] = s
+	}
+	return out
+}
+
+// Bounds returns the tightest axis-aligned rectangle holding b's pieces.
+func (b Boundary) Bounds() Rect {
+	r := EmptyRect()
+	for _, s := range b.Pieces {
+		r = r.Union(s.Bounds())
+	}
+	return r
+}
+
+// IsEmpty reports whether b has no pieces (it bounds no material).
+func (b Boundary) IsEmpty() bool { return len(b.Pieces) == 0 }

@@ -1,0 +1,214 @@
+package geom
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+)
+
+// pentagram returns the star polygon {5/2} with circumradius r about the origin, drawn as one
+// self-crossing loop of five lines.
+func pentagram(r float64) Loop {
+	pts := make([]Point, 5)
+	for k := range pts {
+		pts[k] = Pt(0, r).Rotate(float64(2*k) * 2 * math.Pi / 5)
+	}
+	return Polygon(pts...)
+}
+
+// teardrop is a loop of one cubic Bézier from the origin back to it, counter-clockwise: x = 12t(1−t)(1−2t),
+// y = 12t(1−t).
+func teardrop() Loop {
+	return Loop{Cubic(Pt(0, 0), Pt(4, 4), Pt(-4, 4), Pt(0, 0))}
+}
+
+// polylineWinding is the winding number about p of the closed polyline pts (half-open crossing rule),
+// an independent reference for curves flattened finely.
+func polylineWinding(pts []Point, p Point) int {
+	w := 0
+	for i, a := range pts {
+		b := pts[(i+1)%len(pts)]
+		if (a.Y <= p.Y) != (b.Y <= p.Y) {
+			x := a.X + (p.Y-a.Y)*(b.X-a.X)/(b.Y-a.Y)
+			if x > p.X {
+				if b.Y > a.Y {
+					w++
+				} else {
+					w--
+				}
+			}
+		}
+	}
+	return w
+}
+
+func TestWindingNumbers(t *testing.T) {
+	square := RectLoop(Pt(0, 0), Pt(2, 2))
+	cases := []struct {
+		name string
+		r    Region
+		p    Point
+		want int
+	}{
+		{"inside a counter-clockwise square", Region{Loops: []Loop{square}}, Pt(1, 1), 1},
+		{"inside a clockwise square", Region{Loops: []Loop{square.Reverse()}}, Pt(1, 1), -1},
+		{"outside a square", Region{Loops: []Loop{square}}, Pt(3, 1), 0},
+		{"left of a square", Region{Loops: []Loop{square}}, Pt(-1, 1), 0},
+		{"ray through two vertices", Region{Loops: []Loop{square}}, Pt(-1, 0), 0},
+		{"ray through a diamond's vertex", Region{Loops: []Loop{Polygon(Pt(1, 0), Pt(2, 1), Pt(1, 2), Pt(0, 1))}}, Pt(0.5, 1), 1},
+		{"twice around", Region{Loops: []Loop{square, square}}, Pt(1, 1), 2},
+		{"inside a circle", Disk(Pt(1, 1), 1), Pt(1.5, 1.8), 1},
+		{"outside a circle near its edge", Disk(Pt(1, 1), 1), Pt(1.71, 1.71), 0},
+		{"inside a circle near its edge", Disk(Pt(1, 1), 1), Pt(1.70, 1.70), 1},
+		{"ray along a circle's top tangent", Disk(Pt(0, 0), 1), Pt(-2, 1), 0},
+		{"rotated ellipse", Region{Loops: []Loop{{EllipticalArc(Pt(0, 0), 3, 1, math.Pi/4, 0, 2*math.Pi)}}}, Pt(1.5, 1.5), 1},
+		{"off a rotated ellipse", Region{Loops: []Loop{{EllipticalArc(Pt(0, 0), 3, 1, math.Pi/4, 0, 2*math.Pi)}}}, Pt(1.5, -1.5), 0},
+		{"inside a cubic loop", Region{Loops: []Loop{teardrop()}}, Pt(0, 2), 1},
+		{"below a cubic loop", Region{Loops: []Loop{teardrop()}}, Pt(0, -0.5), 0},
+		{"pentagram centre", Region{Loops: []Loop{pentagram(1)}}, Pt(0, 0), 2},
+		{"pentagram point", Region{Loops: []Loop{pentagram(1)}}, Pt(0, 0.8), 1},
+	}
+	for _, c := range cases {
+		if got := c.r.Winding(c.p); got != c.want {
+			t.Errorf("%s: winding %d, want %d", c.name, got, c.want)
+		}
+	}
+}
+
+// TestWindingMatchesPolyline compares the exact winding number with that of a fine flattening on a
+// grid of points, for shapes with every kind of segment.
+func TestWindingMatchesPolyline(t *testing.T) {
+	shapes := map[string]Loop{
+		"rounded rectangle": RoundedRect(Pt(-2, -1), Pt(2, 1.5), 0.7),
+		"teardrop":          teardrop(),
+		"quad lens":         {Quad(Pt(-2, 0), Pt(0, 3), Pt(2, 0)), Quad(Pt(2, 0), Pt(0, -1), Pt(-2, 0))},
+		"elliptical arcs":   {EllipticalArc(Pt(0, 0), 2, 1, 0.3, 0, math.Pi), Line(EllipticalArc(Pt(0, 0), 2, 1, 0.3, 0, math.Pi).End(), EllipticalArc(Pt(0, 0), 2, 1, 0.3, 0, math.Pi).Start())},
+	}
+	for name, l := range shapes {
+		r := Region{Loops: []Loop{l}}
+		pts := l.Flatten(1e-7)
+		for i := range 26 {
+			for j := range 21 {
+				p := Pt(-2.5+float64(i)*0.2+0.01, -1.5+float64(j)*0.2+0.003)
+				if got, want := r.Winding(p), polylineWinding(pts, p); got != want {
+					t.Errorf("%s at %v: winding %d, flattened %d", name, p, got, want)
+				}
+			}
+		}
+	}
+}
+
+func TestContainsFillRules(t *testing.T) {
+	star := pentagram(1)
+	nonzero := Region{Loops: []Loop{star}, Rule: NonZero}
+	evenodd := Region{Loops: []Loop{star}, Rule: EvenOdd}
+	if !nonzero.Contains(Pt(0, 0)) || evenodd.Contains(Pt(0, 0)) {
+		t.Error("pentagram centre: want inside under nonzero, outside under evenodd")
+	}
+	if !nonzero.Contains(Pt(0, 0.8)) || !evenodd.Contains(Pt(0, 0.8)) {
+		t.Error("pentagram point: want inside under both rules")
+	}
+	if NonZero.String() != "nonzero" || EvenOdd.String() != "evenodd" {
+		t.Error("fill rule names differ from SVG's")
+	}
+}
+
+func TestCheck(t *testing.T) {
+	square := RectLoop(Pt(0, 0), Pt(1, 1))
+	badArc := Circle(Pt(0, 0), 1)
+	badArc[2].RX = 0
+	moved := Circle(Pt(0, 0), 1)
+	moved[1].P[1] = Pt(-1, 0.1)
+	moved[2].P[0] = Pt(-1, 0.1)
+	cases := []struct {
+		name          string
+		r             Region
+		loop, segment int
+		msg           string
+	}{
+		{"no loops", Region{}, -1, -1, "region has no loops"},
+		{"empty loop", Region{Loops: []Loop{square, {}}}, 1, -1, "no segments"},
+		{"NaN point", Region{Loops: []Loop{{Line(Pt(0, 0), Pt(1, 0)), Line(Pt(1, 0), Pt(math.NaN(), 1)), Line(Pt(math.NaN(), 1), Pt(0, 0))}}}, 0, 1, "NaN or infinite"},
+		{"infinite radius", Region{Loops: []Loop{{Arc(Pt(0, 0), math.Inf(1), 0, 1)}}}, 0, 0, "NaN or infinite"},
+		{"zero-length line", Region{Loops: []Loop{square, Polygon(Pt(2, 2), Pt(3, 2), Pt(3, 3)), {Line(Pt(5, 5), Pt(5, 5))}}}, 2, 0, "line has zero length"},
+		{"zero radius", Region{Loops: []Loop{badArc}}, 0, 2, "radius is 0"},
+		{"arc end points off its circle", Region{Loops: []Loop{moved}}, 0, 1, "do not match"},
+		{"zero-sweep arc", Region{Loops: []Loop{{Arc(Pt(0, 0), 1, 0, 0), Line(Pt(1, 0), Pt(1, 0))}}}, 0, 0, "zero sweep"},
+		{"open loop", Region{Loops: []Loop{square[:3]}}, 0, 0, "not closed"},
+		{"collapsed cubic", Region{Loops: []Loop{square, {Cubic(Pt(4, 4), Pt(4, 4), Pt(4, 4), Pt(4, 4))}}}, 1, 0, "cubic has zero length"},
+	}
+	for _, c := range cases {
+		_, err := c.r.Check()
+		var ve *ValidationError
+		if !errors.As(err, &ve) {
+			t.Errorf("%s: error %v, want a *ValidationError", c.name, err)
+			continue
+		}
+		if ve.Loop != c.loop || ve.Segment != c.segment || !strings.Contains(ve.Msg, c.msg) || ve.Warning {
+			t.Errorf("%s: got %+v, want loop %d, segment %d, %q", c.name, ve, c.loop, c.segment, c.msg)
+		}
+	}
+}
+
+func TestCheckWarnsOfSelfCrossing(t *testing.T) {
+	cases := []struct {
+		name  string
+		r     Region
+		warns int
+	}{
+		{"square", Region{Loops: []Loop{RectLoop(Pt(0, 0), Pt(1, 1))}}, 0},
+		{"circle", Disk(Pt(0, 0), 1), 0},
+		{"rounded rectangle", Region{Loops: []Loop{RoundedRect(Pt(0, 0), Pt(3, 2), 0.5)}}, 0},
+		{"smooth Bézier blob", Region{Loops: []Loop{{Cubic(Pt(0, 0), Pt(1, -1), Pt(3, 1), Pt(2, 2)), Cubic(Pt(2, 2), Pt(1, 3), Pt(-1, 1), Pt(0, 0))}}}, 0},
+		{"teardrop", Region{Loops: []Loop{teardrop()}}, 0},
+		{"two crossing squares", Region{Loops: []Loop{RectLoop(Pt(0, 0), Pt(2, 2)), RectLoop(Pt(1, 1), Pt(3, 3))}}, 0},
+		{"pentagram", Region{Loops: []Loop{pentagram(1)}}, 1},
+		{"bow tie", Region{Loops: []Loop{Polygon(Pt(0, 0), Pt(2, 2), Pt(2, 0), Pt(0, 2))}}, 1},
+		{"loop doubling back", Region{Loops: []Loop{{Line(Pt(0, 0), Pt(2, 0)), Line(Pt(2, 0), Pt(1, 0)), Line(Pt(1, 0), Pt(1, 1)), Line(Pt(1, 1), Pt(0, 0))}}}, 1},
+		{"cubic with a loop", Region{Loops: []Loop{{Cubic(Pt(0, 0), Pt(3, 2), Pt(-1, 2), Pt(2, 0)), Line(Pt(2, 0), Pt(0, 0))}}}, 1},
+	}
+	for _, c := range cases {
+		warns, err := c.r.Check()
+		if err != nil {
+			t.Errorf("%s: unexpected error %v", c.name, err)
+			continue
+		}
+		if len(warns) != c.warns {
+			t.Errorf("%s: %d warnings %v, want %d", c.name, len(warns), warns, c.warns)
+		}
+		for _, w := range warns {
+			if !w.Warning || !strings.Contains(w.Error(), "crosses or touches itself") {
+				t.Errorf("%s: warning %+v", c.name, w)
+			}
+		}
+	}
+}
+
+func TestValidationErrorText(t *testing.T) {
+	cases := []struct {
+		e    ValidationError
+		want string
+	}{
+		{ValidationError{Loop: 2, Segment: 5, Msg: "arc radius is 0"}, "loop 2, segment 5: arc radius is 0"},
+		{ValidationError{Loop: 1, Segment: -1, Msg: "loop has no segments"}, "loop 1: loop has no segments"},
+		{ValidationError{Loop: -1, Segment: -1, Msg: "region has no loops"}, "region has no loops"},
+	}
+	for _, c := range cases {
+		if got := c.e.Error(); got != c.want {
+			t.Errorf("Error() = %q, want %q", got, c.want)
+		}
+	}
+}
+
+func TestRegionTransformAndBounds(t *testing.T) {
+	r := Region{Loops: []Loop{Circle(Pt(1, 2), 1)}, Rule: EvenOdd}
+	m := RotateAbout(Pt(0, 0), math.Pi/2).Then(Scale(-1, 1))
+	got := r.Transform(m)
+	if got.Rule != EvenOdd || !got.Contains(Pt(2, 1)) || got.Contains(Pt(-2, 1)) {
+		t.Errorf("transformed circle: rule %v, contains (2,1) %v, (−2,1) %v", got.Rule, got.Contains(Pt(2, 1)), got.Contains(Pt(-2, 1)))
+	}
+	if b := got.Bounds(); b.Min.Dist(Pt(1, 0)) > 1e-12 || b.Max.Dist(Pt(3, 2)) > 1e-12 {
+		t.Errorf("bounds %v, want (1,0)–(3,2)", b)
+	}
+}
