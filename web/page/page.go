@@ -43,14 +43,16 @@ type Assets struct {
 type Presets struct {
 	Materials   []Material         `json:"materials"`
 	Thicknesses []Thickness        `json:"thicknesses"`
-	Gauges      map[string][]Gauge `json:"gauges"` // by material key
+	GaugeTables map[string][]Gauge `json:"gauge_tables"` // by gauge system key
 }
 
 // Material is one sheet material in the panel's list.
 type Material struct {
 	Key     string  `json:"key"`
 	Name    string  `json:"name"`
-	Density float64 `json:"density"` // kg/m³
+	Density float64 `json:"density"` // kg/m³, or kg/m² per mm of thickness when Areal
+	Areal   bool    `json:"areal,omitempty"`
+	Gauges  string  `json:"gauges,omitempty"` // key of its gauge table in Presets.GaugeTables
 }
 
 // Thickness is a common sheet thickness, written the way a user would type it ("3 mm", "1/8 in").
@@ -60,7 +62,7 @@ type Thickness struct {
 	In   float64 `json:"in"`
 }
 
-// Gauge is one gauge number of a material's gauge system.
+// Gauge is one row of a gauge table.
 type Gauge struct {
 	Number int     `json:"n"`
 	MM     float64 `json:"mm"`

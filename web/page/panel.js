@@ -15,7 +15,7 @@
   const KG_PER_LB = 0.45359237; // exact, by definition of the international pound
 
   const $ = (id) => document.getElementById(id);
-  const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauges: {} };
+  const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
   const timing = {}; // milliseconds since navigation: readyMs, firstChangeMs
   let app = null; // window.plumb once the app is ready
   let state = null; // the app's last state
@@ -317,7 +317,7 @@
     const t = text.trim().toLowerCase();
     const ga = /^(\d+)\s*(ga|gauge|gage)\b/.exec(t);
     if (ga) {
-      const g = (presets.gauges[materialKey()] || []).find((x) => x.n === Number(ga[1]));
+      const g = gauges().find((x) => x.n === Number(ga[1]));
       return g ? g.mm : NaN;
     }
     const m = /^(\d+(?:\.\d*)?|\.\d+)?\s*(?:(\d+)\s*\/\s*(\d+))?\s*(mm|cm|in|"|inch|inches)?$/.exec(t);
@@ -328,10 +328,11 @@
     return v * (unit === "mm" ? 1 : unit === "cm" ? 10 : 25.4); // 1 in = 25.4 mm exactly
   }
 
-  function materialKey() {
+  // gauges returns the gauge table of the material in the field, or none.
+  function gauges() {
     const v = $("material").value.trim().toLowerCase();
     const m = presets.materials.find((x) => x.key.toLowerCase() === v || x.name.toLowerCase() === v);
-    return m ? m.key : "";
+    return (m && presets.gauge_tables[m.gauges]) || [];
   }
 
   function showThickness() {
@@ -342,7 +343,7 @@
 
   function fillThicknessList() {
     const options = presets.thicknesses.map((t) => [t.text, t.mm.toFixed(2) + " mm / " + t.in.toFixed(3) + " in"]);
-    for (const g of presets.gauges[materialKey()] || []) {
+    for (const g of gauges()) {
       options.push([g.n + " ga", g.n + " gauge: " + g.mm.toFixed(2) + " mm / " + g.in.toFixed(4) + " in"]);
     }
     $("thickness-list").replaceChildren(...options.map(([value, label]) => new Option(label, value)));
@@ -569,7 +570,8 @@
       app.setHoleDiameter(d);
       refresh();
     });
-    $("material-list").replaceChildren(...presets.materials.map((m) => new Option(m.name + " · " + m.density + " kg/m³", m.key)));
+    $("material-list").replaceChildren(...presets.materials.map((m) =>
+      new Option(m.name + " · " + m.density + (m.areal ? " kg/m² per mm" : " kg/m³"), m.name)));
     fillThicknessList();
     wireDrop();
     if (readStore(FOLDED)) $("fold").click();
