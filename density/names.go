@@ -22,21 +22,45 @@ func suggest(word string, known []string, product bool) string {
 	return ""
 }
 
-// nearest returns the candidate with the smallest edit distance to word, if that distance is small
-// for the word's length (at most one edit per three characters, and at least one); ties go to the
-// candidate first in sorted order.
+// nearest returns the candidate closest to word by edit distance, if that distance is small for the
+// word's length (at most one edit per three characters, and at least one). Ties go to a candidate
+// of the same length (a mistyped letter rather than a missing one), then to one with the same first
+// letter, then to the first in sorted order.
 func nearest(word string, candidates []string) string {
 	sorted := append([]string(nil), candidates...)
 	sort.Strings(sorted)
-	limit := max(1, len([]rune(word))/3)
-	best, bestDist := "", limit+1
 	lw := strings.ToLower(word)
+	rank := func(c string) [3]int {
+		lc := strings.ToLower(c)
+		return [3]int{editDistance(lw, lc), boolInt(len(lc) != len(lw)), boolInt(lc[0] != lw[0])}
+	}
+	best, bestRank := "", [3]int{max(1, len([]rune(word))/3) + 1}
 	for _, c := range sorted {
-		if d := editDistance(lw, strings.ToLower(c)); d < bestDist {
-			best, bestDist = c, d
+		if c == "" || lw == "" {
+			continue
+		}
+		if r := rank(c); less(r, bestRank) {
+			best, bestRank = c, r
 		}
 	}
 	return best
+}
+
+func boolInt(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+// less compares ranks lexicographically.
+func less(a, b [3]int) bool {
+	for i := range a {
+		if a[i] != b[i] {
+			return a[i] < b[i]
+		}
+	}
+	return false
 }
 
 func contains(list []string, s string) bool {

@@ -40,7 +40,7 @@ func (t token) describe() string {
 	case tokNum:
 		return "number " + t.text
 	case tokName:
-		return strconv.Quote(t.text)
+		return quoteShort(t.text)
 	case tokSup:
 		return "superscript " + t.text
 	}
@@ -249,6 +249,15 @@ func (s *scanner) superscript() (token, error) {
 func hasSuperscript(r rune) bool {
 	_, ok := superscripts[r]
 	return ok
+}
+
+// quoteShort quotes s for a message, shortening a long word to its first 24 characters and "…".
+func quoteShort(s string) string {
+	const keep = 24
+	if utf8.RuneCountInString(s) <= keep {
+		return strconv.Quote(s)
+	}
+	return strconv.Quote(string([]rune(s)[:keep]) + "…")
 }
 
 func isDigit(r rune) bool     { return '0' <= r && r <= '9' }
