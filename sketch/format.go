@@ -1,0 +1,1050 @@
+package sketch
+
+// The part file format
+//
+// A part file is one JSON object:
+//
+//	{
+//	  "format": "plumb-part",
+//	  "version": 1,
+//	  "name": "bakery blade sign",
+//	  "units": "mm",
+//	  "material": {"material": "aluminium 5052", "thickness": "3 mm"},
+//	  "outline": {"rule": "nonzero", "loops": [{"segments": [ ... ]}]},
+//	  "cutouts": [{"rule": "nonzero", "loops": [ ... ]}],
+//	  "overlays": [{"name": "doubler", "material": { ... }, "region": { ... }}],
+//	  "holes": [{"at": [300, 410], "diameter": 8}],
+//	  "notes": "free text"
+//	}
+//
+// "format" and "version" are required; a file with a newer version than FormatVersion is refused.
+// "units" is a length unit ("mm" when absent). A material is either {"material", "thickness"} or
+// {"formula", "unit", "params"}, optionally with "custom" materials; it may be left out, in which case
+// the material is given when the part is analysed. A region has a fill rule ("nonzero", the default,
+// or "evenodd") and closed loops. A loop lists its segments in order, each with its own end points, so
+// every segment reads on its own:
+//
+//	{"line": [[0, 0], [120, 0]]}                          from, to
+//	{"quad": [[0, 0], [60, 40], [120, 0]]}                from, control, to
+//	{"cubic": [[0, 0], [40, 40], [80, 40], [120, 0]]}     from, two controls, to
+//	{"arc": {"center": [0, 0], "radius": 50, "start_deg": 0, "sweep_deg": 90,
+//	         "from": [50, 0], "to": [0, 50]}}
+//
+// An arc is the curve center + Rot(rotation)·(rx cos θ, ry sin θ) for θ from start to start+sweep,
+// angles counter-clockwise (y up). A circular arc gives "radius"; an elliptical one gives "rx", "ry"
+// and "rotation_deg". Angles are given in degrees ("_deg") or, where a value in degrees would not read
+// back to the same number, in radians ("_rad"); Save picks degrees whenever they are exact. "from" and
+// "to" may be left out of hand-written files; when present they must lie on the arc, and they are kept
+// exactly so that consecutive segments join without a gap.
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// FormatName and FormatVersion identify the part file format that Save writes.
+const (
+	FormatName    = "plumb-part"
+	FormatVersion = 1
+)
+
+// arcEndTol is the largest distance, relative to the arc's reach (|centre| + radius), between an
+// arc's stated "from" or "to" and the point its centre form gives: points computed in double precision
+// agree to about 1e-15 of that, and geom's region check allows 1e-9 of the drawing's size.
+const arcEndTol = 1e-9
+
+// Load reads a part file. Errors are *PathError values naming the JSON path of the bad value, as in
+// "cutouts[2].loops[0].segments[5]: arc radius is 0".
+func Load(data []byte) (*Document, error) {
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.UseNumber()
+	var v any
+	if err := dec.Decode(&v); err != nil {
+		return nil, &PathError{Msg: "not valid JSON: " + jsonErrorText(err, data)}
+	}
+	if dec.More() {
+		return nil, &PathError{Msg: "not valid JSON: extra data after the part object"}
+	}
+	root, err := node{v: v}.object()
+	if err != nil {
+		return nil, err
+	}
+	if err := checkFormat(root); err != nil {
+		return nil, err
+	}
+	if err := root.only("format", "version", "name", "units", "material", "outline", "cutouts",
+		"overlays", "holes", "notes"); err != nil {
+		return nil, err
+	}
+	d := NewDocument()
+	if err := loadDocument(root, d); err != nil {
+		return nil, err
+	}
+	return d, nil
+}
+
+// jsonErrorText describes a JSON syntax error with its line and column.
+func jsonErrorText(err error, data []byte) string {
+	if errors.Is(err, io.ErrUnexpectedEOF) {
+		return "the text ends in the middle of a value"
+	}
+	var se *json.SyntaxError
+	if !errors.As(err, &se) {
+		return err.Error()
+	}
+	// Offset counts the bytes read up to and including the offending one.
+	line, col := 1, 1
+	for _, c := range data[:max(0, min(int(se.Offset)-1, len(data)))] {
+		if c == '\n' {
+			line, col = line+1, 1
+		} else {
+			col++
+		}
+	}
+	return fmt.Sprintf("line %d, col %d: %v", line, col, err)
+}
+
+func checkFormat(root object) error {
+	f, ok := root.get("format")
+	if !ok {
+		return &PathError{Msg: `not a Plumb part file (no "format": "` + FormatName + `")`}
+	}
+	name, err := f.str()
+	if err != nil {
+		return err
+	}
+	if name != FormatName {
+		return f.fail("expected %q, found %q", FormatName, name)
+	}
+	vn, ok := root.get("version")
+	if !ok {
+		return vn.fail("missing")
+	}
+	ver, err := vn.integer()
+	if err != nil {
+		return err
+	}
+	if ver > FormatVersion {
+		return vn.fail("this part file has format version %d, newer than the version %d this Plumb "+
+			"reads; update Plumb to open it", ver, FormatVersion)
+	}
+	if ver < 1 {
+		return vn.fail("must be at least 1, found %d", ver)
+	}
+	return nil
+}
+
+func loadDocument(root object, d *Document) error {
+	var err error
+	if n, ok := root.get("name"); ok {
+		if d.Name, err = n.str(); err != nil {
+			return err
+		}
+	}
+	if n, ok := root.get("notes"); ok {
+		if d.Notes, err = n.str(); err != nil {
+			return err
+		}
+	}
+	unit := density.Length{Name: "mm", MM: 1}
+	if n, ok := root.get("units"); ok {
+		if d.Units, err = n.str(); err != nil {
+			return err
+		}
+		if unit, err = density.LengthUnit(d.Units); err != nil {
+			return n.fail("%v", err)
+		}
+	}
+	if n, ok := root.get("material"); ok {
+		if d.Material, err = loadSpec(n, unit); err != nil {
+			return err
+		}
+	}
+	if n, ok := root.get("outline"); ok {
+		if d.Outline, err = loadRegion(n, true); err != nil {
+			return err
+		}
+	}
+	if n, ok := root.get("cutouts"); ok {
+		if d.Cutouts, err = loadList(n, func(e node) (geom.Region, error) { return loadRegion(e, false) }); err != nil {
+			return err
+		}
+	}
+	if n, ok := root.get("overlays"); ok {
+		load := func(e node) (Overlay, error) { return loadOverlay(e, unit) }
+		if d.Overlays, err = loadList(n, load); err != nil {
+			return err
+		}
+	}
+	if n, ok := root.get("holes"); ok {
+		if d.Holes, err = loadList(n, loadHole); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// loadList loads every element of the array n with load; an empty array gives nil.
+func loadList[T any](n node, load func(node) (T, error)) ([]T, error) {
+	elems, err := n.array()
+	if err != nil || len(elems) == 0 {
+		return nil, err
+	}
+	out := make([]T, len(elems))
+	for i, e := range elems {
+		if out[i], err = load(e); err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
+}
+
+func loadOverlay(n node, unit density.Length) (Overlay, error) {
+	var o Overlay
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("name", "region", "material")
+	}
+	if err != nil {
+		return o, err
+	}
+	if nn, ok := obj.get("name"); ok {
+		if o.Name, err = nn.str(); err != nil {
+			return o, err
+		}
+	}
+	rn, err := obj.need("region")
+	if err != nil {
+		return o, err
+	}
+	if o.Region, err = loadRegion(rn, false); err != nil {
+		return o, err
+	}
+	if mn, ok := obj.get("material"); ok {
+		o.Material, err = loadSpec(mn, unit)
+	}
+	return o, err
+}
+
+func loadHole(n node) (Hole, error) {
+	var h Hole
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("at", "diameter")
+	}
+	if err != nil {
+		return h, err
+	}
+	an, err := obj.need("at")
+	if err != nil {
+		return h, err
+	}
+	if h.At, err = an.point(); err != nil {
+		return h, err
+	}
+	dn, ok := obj.get("diameter")
+	if !ok {
+		return h, nil
+	}
+	if h.Diameter, err = dn.number(); err != nil {
+		return h, err
+	}
+	if h.Diameter < 0 {
+		return h, dn.fail("hole diameter is negative")
+	}
+	return h, nil
+}
+
+// loadSpec reads a material and checks it by building its density field. An empty object stands for
+// a material not chosen yet.
+func loadSpec(n node, unit density.Length) (density.Spec, error) {
+	var s density.Spec
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("material", "thickness", "formula", "unit", "params", "custom")
+	}
+	if err != nil {
+		return s, err
+	}
+	for _, f := range []struct {
+		key string
+		dst *string
+	}{{"material", &s.Material}, {"thickness", &s.Thickness}, {"formula", &s.Formula}, {"unit", &s.Unit}} {
+		if fn, ok := obj.get(f.key); ok {
+			if *f.dst, err = fn.str(); err != nil {
+				return s, err
+			}
+		}
+	}
+	if pn, ok := obj.get("params"); ok {
+		if s.Params, err = loadParams(pn); err != nil {
+			return s, err
+		}
+	}
+	if cn, ok := obj.get("custom"); ok {
+		if s.Custom, err = loadList(cn, loadMaterial); err != nil {
+			return s, err
+		}
+	}
+	if isEmptySpec(s) {
+		return s, nil
+	}
+	if _, err := s.Field(unit); err != nil {
+		var fe *density.FieldError
+		if errors.As(err, &fe) && fe.Field != "" {
+			return s, n.child(fe.Field).fail("%s", strings.TrimPrefix(fe.Error(), fe.Field+": "))
+		}
+		return s, n.fail("%v", err)
+	}
+	return s, nil
+}
+
+func loadParams(n node) (map[string]float64, error) {
+	obj, err := n.object()
+	if err != nil || len(obj.m) == 0 {
+		return nil, err
+	}
+	params := make(map[string]float64, len(obj.m))
+	for _, k := range obj.keys() {
+		if params[k], err = obj.child(k).number(); err != nil {
+			return nil, err
+		}
+	}
+	return params, nil
+}
+
+func loadMaterial(n node) (density.Material, error) {
+	var m density.Material
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("key", "name", "density_kg_m3", "approx", "areal", "source")
+	}
+	if err != nil {
+		return m, err
+	}
+	for _, f := range []struct {
+		key string
+		dst *string
+	}{{"key", &m.Key}, {"name", &m.Name}, {"source", &m.Source}} {
+		if fn, ok := obj.get(f.key); ok {
+			if *f.dst, err = fn.str(); err != nil {
+				return m, err
+			}
+		}
+	}
+	for _, f := range []struct {
+		key string
+		dst *bool
+	}{{"approx", &m.Approx}, {"areal", &m.Areal}} {
+		if fn, ok := obj.get(f.key); ok {
+			if *f.dst, err = fn.boolean(); err != nil {
+				return m, err
+			}
+		}
+	}
+	dn, err := obj.need("density_kg_m3")
+	if err != nil {
+		return m, err
+	}
+	if m.Density, err = dn.number(); err != nil {
+		return m, err
+	}
+	if m.Density <= 0 {
+		return m, dn.fail("density must be positive")
+	}
+	return m, nil
+}
+
+// loadRegion reads a region and validates its geometry. Only the outline may be empty (a part being
+// started); a cut-out or an overlay needs at least one loop.
+func loadRegion(n node, mayBeEmpty bool) (geom.Region, error) {
+	var r geom.Region
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("rule", "loops")
+	}
+	if err != nil {
+		return r, err
+	}
+	if rn, ok := obj.get("rule"); ok {
+		if r.Rule, err = loadRule(rn); err != nil {
+			return r, err
+		}
+	}
+	ln, ok := obj.get("loops")
+	if !ok {
+		if mayBeEmpty {
+			return r, nil
+		}
+		return r, ln.fail("missing")
+	}
+	if r.Loops, err = loadList(ln, loadLoop); err != nil {
+		return r, err
+	}
+	if len(r.Loops) == 0 {
+		if mayBeEmpty {
+			return r, nil
+		}
+		return r, ln.fail("no loops")
+	}
+	if _, err := r.Check(); err != nil {
+		return r, regionError(n, err)
+	}
+	return r, nil
+}
+
+// regionError turns a geom validation error into a *PathError inside region n.
+func regionError(n node, err error) error {
+	var ve *geom.ValidationError
+	if !errors.As(err, &ve) {
+		return n.fail("%v", err)
+	}
+	at := n
+	if ve.Loop >= 0 {
+		at = at.child("loops").index(ve.Loop)
+		if ve.Segment >= 0 {
+			at = at.child("segments").index(ve.Segment)
+		}
+	}
+	return at.fail("%s", ve.Msg)
+}
+
+func loadRule(n node) (geom.FillRule, error) {
+	s, err := n.str()
+	if err != nil {
+		return 0, err
+	}
+	switch s {
+	case "nonzero":
+		return geom.NonZero, nil
+	case "evenodd":
+		return geom.EvenOdd, nil
+	}
+	return 0, n.fail(`fill rule must be "nonzero" or "evenodd", found %q`, s)
+}
+
+func loadLoop(n node) (geom.Loop, error) {
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("segments")
+	}
+	if err != nil {
+		return nil, err
+	}
+	sn, err := obj.need("segments")
+	if err != nil {
+		return nil, err
+	}
+	l, err := loadList(sn, loadSegment)
+	if err == nil && len(l) == 0 {
+		err = sn.fail("loop has no segments")
+	}
+	return l, err
+}
+
+func loadSegment(n node) (geom.Segment, error) {
+	obj, err := n.object()
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	if len(obj.m) != 1 {
+		return geom.Segment{}, n.fail(`a segment has exactly one of "line", "quad", "cubic", "arc"`)
+	}
+	kind := obj.keys()[0]
+	v := obj.child(kind)
+	switch kind {
+	case "line":
+		p, err := v.points(2)
+		if err != nil {
+			return geom.Segment{}, err
+		}
+		return geom.Line(p[0], p[1]), nil
+	case "quad":
+		p, err := v.points(3)
+		if err != nil {
+			return geom.Segment{}, err
+		}
+		return geom.Quad(p[0], p[1], p[2]), nil
+	case "cubic":
+		p, err := v.points(4)
+		if err != nil {
+			return geom.Segment{}, err
+		}
+		return geom.Cubic(p[0], p[1], p[2], p[3]), nil
+	case "arc":
+		return loadArc(v)
+	}
+	return geom.Segment{}, v.fail(`unknown segment kind (expected "line", "quad", "cubic" or "arc")`)
+}
+
+func loadArc(n node) (geom.Segment, error) {
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only("center", "radius", "rx", "ry", "rotation_deg", "rotation_rad", "start_deg",
+			"start_rad", "sweep_deg", "sweep_rad", "from", "to")
+	}
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	cn, err := obj.need("center")
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	c, err := cn.point()
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	rx, ry, err := arcRadii(obj)
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	rot, _, err := obj.angle("rotation", false)
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	theta, _, err := obj.angle("start", true)
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	sweep, sn, err := obj.angle("sweep", true)
+	if err != nil {
+		return geom.Segment{}, err
+	}
+	switch {
+	case sweep == 0:
+		return geom.Segment{}, sn.fail("arc sweep is 0")
+	case math.Abs(sweep) > 2*math.Pi*(1+1e-12):
+		return geom.Segment{}, sn.fail("arc sweeps more than a full turn")
+	}
+	s := geom.EllipticalArc(c, rx, ry, rot, theta, sweep)
+	tol := arcEndTol * (c.Norm() + max(rx, ry))
+	for i, key := range []string{"from", "to"} {
+		pn, ok := obj.get(key)
+		if !ok {
+			continue
+		}
+		p, err := pn.point()
+		if err != nil {
+			return geom.Segment{}, err
+		}
+		if d := p.Dist(s.P[i]); d > tol {
+			return geom.Segment{}, pn.fail("point [%g, %g] is %.3g away from the arc, which passes "+
+				"through [%g, %g]", p.X, p.Y, d, s.P[i].X, s.P[i].Y)
+		}
+		s.P[i] = p
+	}
+	return s, nil
+}
+
+// arcRadii reads "radius", or "rx" and "ry".
+func arcRadii(obj object) (rx, ry float64, err error) {
+	if rn, ok := obj.get("radius"); ok {
+		if _, dup := obj.get("rx"); dup {
+			return 0, 0, rn.fail(`give "radius" or "rx" and "ry", not both`)
+		}
+		r, err := radius(rn)
+		return r, r, err
+	}
+	xn, ok := obj.get("rx")
+	if !ok {
+		return 0, 0, obj.fail(`missing "radius" (or "rx" and "ry")`)
+	}
+	yn, err := obj.need("ry")
+	if err != nil {
+		return 0, 0, err
+	}
+	if rx, err = radius(xn); err != nil {
+		return 0, 0, err
+	}
+	ry, err = radius(yn)
+	return rx, ry, err
+}
+
+func radius(n node) (float64, error) {
+	r, err := n.number()
+	switch {
+	case err != nil:
+		return 0, err
+	case r == 0:
+		return 0, n.fail("arc radius is 0")
+	case r < 0:
+		return 0, n.fail("arc radius is negative")
+	}
+	return r, nil
+}
+
+// degToRad converts degrees to radians; Save relies on it being the exact inverse direction Load uses.
+func degToRad(deg float64) float64 { return deg * math.Pi / 180 }
+
+// angle reads the angle name+"_deg" or name+"_rad" in radians, with the node it came from.
+func (o object) angle(name string, required bool) (float64, node, error) {
+	dn, hasDeg := o.get(name + "_deg")
+	rn, hasRad := o.get(name + "_rad")
+	switch {
+	case hasDeg && hasRad:
+		return 0, dn, dn.fail("give %s_deg or %s_rad, not both", name, name)
+	case hasDeg:
+		v, err := dn.number()
+		return degToRad(v), dn, err
+	case hasRad:
+		v, err := rn.number()
+		return v, rn, err
+	case required:
+		return 0, dn, dn.fail("missing")
+	}
+	return 0, dn, nil
+}
+
+// node is a decoded JSON value with its path from the root of the file.
+type node struct {
+	path string
+	v    any
+}
+
+func (n node) fail(format string, args ...any) error {
+	return &PathError{Path: n.path, Msg: fmt.Sprintf(format, args...)}
+}
+
+// child is the (possibly absent) member key of object n.
+func (n node) child(key string) node {
+	p := key
+	if n.path != "" {
+		p = n.path + "." + key
+	}
+	m, _ := n.v.(map[string]any)
+	return node{path: p, v: m[key]}
+}
+
+func (n node) index(i int) node {
+	a, _ := n.v.([]any)
+	var v any
+	if i < len(a) {
+		v = a[i]
+	}
+	return node{path: n.path + "[" + strconv.Itoa(i) + "]", v: v}
+}
+
+// describe names the JSON type of v for error messages.
+func describe(v any) string {
+	switch v := v.(type) {
+	case nil:
+		return "null"
+	case map[string]any:
+		return "an object"
+	case []any:
+		return "an array"
+	case string:
+		return strconv.Quote(v)
+	case bool:
+		return strconv.FormatBool(v)
+	case json.Number:
+		return "the number " + v.String()
+	}
+	return fmt.Sprintf("%T", v)
+}
+
+func (n node) str() (string, error) {
+	s, ok := n.v.(string)
+	if !ok {
+		return "", n.fail("expected a string, found %s", describe(n.v))
+	}
+	return s, nil
+}
+
+func (n node) boolean() (bool, error) {
+	b, ok := n.v.(bool)
+	if !ok {
+		return false, n.fail("expected true or false, found %s", describe(n.v))
+	}
+	return b, nil
+}
+
+func (n node) number() (float64, error) {
+	num, ok := n.v.(json.Number)
+	if !ok {
+		return 0, n.fail("expected a number, found %s", describe(n.v))
+	}
+	f, err := strconv.ParseFloat(string(num), 64)
+	if err != nil {
+		return 0, n.fail("number %s is out of range", num)
+	}
+	return f, nil
+}
+
+func (n node) integer() (int, error) {
+	num, ok := n.v.(json.Number)
+	if !ok {
+		return 0, n.fail("expected a whole number, found %s", describe(n.v))
+	}
+	i, err := strconv.Atoi(string(num))
+	if err != nil {
+		return 0, n.fail("expected a whole number, found %s", num)
+	}
+	return i, nil
+}
+
+func (n node) array() ([]node, error) {
+	a, ok := n.v.([]any)
+	if !ok {
+		return nil, n.fail("expected an array, found %s", describe(n.v))
+	}
+	out := make([]node, len(a))
+	for i := range a {
+		out[i] = n.index(i)
+	}
+	return out, nil
+}
+
+// point reads [x, y].
+func (n node) point() (geom.Point, error) {
+	a, ok := n.v.([]any)
+	if !ok || len(a) != 2 {
+		return geom.Point{}, n.fail("expected a point [x, y], found %s", describe(n.v))
+	}
+	x, err := n.index(0).number()
+	if err != nil {
+		return geom.Point{}, err
+	}
+	y, err := n.index(1).number()
+	return geom.Pt(x, y), err
+}
+
+// points reads an array of exactly count points.
+func (n node) points(count int) ([]geom.Point, error) {
+	elems, err := n.array()
+	if err != nil {
+		return nil, err
+	}
+	if len(elems) != count {
+		return nil, n.fail("expected %d points, found %d", count, len(elems))
+	}
+	out := make([]geom.Point, count)
+	for i, e := range elems {
+		if out[i], err = e.point(); err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
+}
+
+// object is a node holding a JSON object.
+type object struct {
+	node
+	m map[string]any
+}
+
+func (n node) object() (object, error) {
+	m, ok := n.v.(map[string]any)
+	if !ok {
+		return object{}, n.fail("expected an object, found %s", describe(n.v))
+	}
+	return object{node: n, m: m}, nil
+}
+
+// keys returns the object's keys in sorted order, so that errors come out the same every time.
+func (o object) keys() []string {
+	ks := make([]string, 0, len(o.m))
+	for k := range o.m {
+		ks = append(ks, k)
+	}
+	slices.Sort(ks)
+	return ks
+}
+
+// only reports the first key of o not in known.
+func (o object) only(known ...string) error {
+	for _, k := range o.keys() {
+		if !slices.Contains(known, k) {
+			return o.child(k).fail("unknown key (expected one of: %s)", quoteList(known))
+		}
+	}
+	return nil
+}
+
+func quoteList(ks []string) string {
+	var b bytes.Buffer
+	for i, k := range ks {
+		if i > 0 {
+			b.WriteString(", ")
+		}
+		b.WriteString(strconv.Quote(k))
+	}
+	return b.String()
+}
+
+// get returns member key and whether it is present (JSON null counts as absent).
+func (o object) get(key string) (node, bool) {
+	n := o.child(key)
+	return n, n.v != nil
+}
+
+// need returns member key or a "missing" error at its path.
+func (o object) need(key string) (node, error) {
+	n, ok := o.get(key)
+	if !ok {
+		return n, n.fail("missing")
+	}
+	return n, nil
+}
+
+// Save writes d as a part file of version FormatVersion. Load(Save(d)) returns a document equal to d
+// (an empty Units reads back as "mm", empty lists and maps as nil).
+func (d *Document) Save() ([]byte, error) {
+	f := fileDoc{Format: FormatName, Version: FormatVersion, Name: d.Name, Units: d.Units,
+		Material: saveSpec(d.Material), Outline: saveRegion(d.Outline), Notes: d.Notes}
+	for _, c := range d.Cutouts {
+		f.Cutouts = append(f.Cutouts, saveRegion(c))
+	}
+	for _, o := range d.Overlays {
+		f.Overlays = append(f.Overlays, fileOverlay{Name: o.Name, Material: saveSpec(o.Material),
+			Region: saveRegion(o.Region)})
+	}
+	for _, h := range d.Holes {
+		f.Holes = append(f.Holes, fileHole{At: ptOf(h.At), Diameter: h.Diameter})
+	}
+	var compact bytes.Buffer
+	enc := json.NewEncoder(&compact)
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(f); err != nil {
+		return nil, fmt.Errorf("save part: %w", err)
+	}
+	var out bytes.Buffer
+	writeJSON(&out, bytes.TrimSpace(compact.Bytes()), 0, 0)
+	out.WriteByte('\n')
+	return out.Bytes(), nil
+}
+
+// The file types below fix the key order of saved files.
+type (
+	fileDoc struct {
+		Format   string        `json:"format"`
+		Version  int           `json:"version"`
+		Name     string        `json:"name,omitempty"`
+		Units    string        `json:"units,omitempty"`
+		Material *fileSpec     `json:"material,omitempty"`
+		Outline  fileRegion    `json:"outline"`
+		Cutouts  []fileRegion  `json:"cutouts,omitempty"`
+		Overlays []fileOverlay `json:"overlays,omitempty"`
+		Holes    []fileHole    `json:"holes,omitempty"`
+		Notes    string        `json:"notes,omitempty"`
+	}
+	fileSpec struct {
+		Material  string             `json:"material,omitempty"`
+		Thickness string             `json:"thickness,omitempty"`
+		Formula   string             `json:"formula,omitempty"`
+		Unit      string             `json:"unit,omitempty"`
+		Params    map[string]float64 `json:"params,omitempty"`
+		Custom    []fileMaterial     `json:"custom,omitempty"`
+	}
+	fileMaterial struct {
+		Key     string  `json:"key,omitempty"`
+		Name    string  `json:"name,omitempty"`
+		Density float64 `json:"density_kg_m3"`
+		Approx  bool    `json:"approx,omitempty"`
+		Areal   bool    `json:"areal,omitempty"`
+		Source  string  `json:"source,omitempty"`
+	}
+	fileOverlay struct {
+		Name     string     `json:"name,omitempty"`
+		Material *fileSpec  `json:"material,omitempty"`
+		Region   fileRegion `json:"region"`
+	}
+	fileHole struct {
+		At       pt      `json:"at"`
+		Diameter float64 `json:"diameter"`
+	}
+	fileRegion struct {
+		Rule  string     `json:"rule"`
+		Loops []fileLoop `json:"loops,omitempty"`
+	}
+	fileLoop struct {
+		Segments []fileSegment `json:"segments"`
+	}
+	fileSegment struct {
+		Line  *[2]pt   `json:"line,omitempty"`
+		Quad  *[3]pt   `json:"quad,omitempty"`
+		Cubic *[4]pt   `json:"cubic,omitempty"`
+		Arc   *fileArc `json:"arc,omitempty"`
+	}
+	fileArc struct {
+		Center      pt       `json:"center"`
+		Radius      *float64 `json:"radius,omitempty"`
+		RX          *float64 `json:"rx,omitempty"`
+		RY          *float64 `json:"ry,omitempty"`
+		RotationDeg *float64 `json:"rotation_deg,omitempty"`
+		RotationRad *float64 `json:"rotation_rad,omitempty"`
+		StartDeg    *float64 `json:"start_deg,omitempty"`
+		StartRad    *float64 `json:"start_rad,omitempty"`
+		SweepDeg    *float64 `json:"sweep_deg,omitempty"`
+		SweepRad    *float64 `json:"sweep_rad,omitempty"`
+		From        pt       `json:"from"`
+		To          pt       `json:"to"`
+	}
+	pt [2]float64
+)
+
+func saveSpec(s density.Spec) *fileSpec {
+	f := &fileSpec{Material: s.Material, Thickness: s.Thickness, Formula: s.Formula, Unit: s.Unit,
+		Params: s.Params}
+	for _, m := range s.Custom {
+		f.Custom = append(f.Custom, fileMaterial{Key: m.Key, Name: m.Name, Density: m.Density,
+			Approx: m.Approx, Areal: m.Areal, Source: m.Source})
+	}
+	if isEmptySpec(s) {
+		return nil
+	}
+	return f
+}
+
+// isEmptySpec reports whether no material has been given yet.
+func isEmptySpec(s density.Spec) bool {
+	return s.Material == "" && s.Thickness == "" && s.Formula == "" && s.Unit == "" &&
+		len(s.Params) == 0 && len(s.Custom) == 0
+}
+
+func saveRegion(r geom.Region) fileRegion {
+	f := fileRegion{Rule: "nonzero"}
+	if r.Rule == geom.EvenOdd {
+		f.Rule = "evenodd"
+	}
+	for _, l := range r.Loops {
+		fl := fileLoop{Segments: make([]fileSegment, len(l))}
+		for i, s := range l {
+			fl.Segments[i] = saveSegment(s)
+		}
+		f.Loops = append(f.Loops, fl)
+	}
+	return f
+}
+
+func saveSegment(s geom.Segment) fileSegment {
+	p := s.P
+	switch s.Kind {
+	case geom.KindQuad:
+		return fileSegment{Quad: &[3]pt{ptOf(p[0]), ptOf(p[1]), ptOf(p[2])}}
+	case geom.KindCubic:
+		return fileSegment{Cubic: &[4]pt{ptOf(p[0]), ptOf(p[1]), ptOf(p[2]), ptOf(p[3])}}
+	case geom.KindArc:
+		a := &fileArc{Center: ptOf(s.C), From: ptOf(p[0]), To: ptOf(p[1])}
+		if s.RX == s.RY && s.Rot == 0 {
+			a.Radius = &s.RX
+		} else {
+			a.RX, a.RY = &s.RX, &s.RY
+			a.RotationDeg, a.RotationRad = saveAngle(s.Rot)
+		}
+		a.StartDeg, a.StartRad = saveAngle(s.Theta)
+		a.SweepDeg, a.SweepRad = saveAngle(s.Sweep)
+		return fileSegment{Arc: a}
+	}
+	return fileSegment{Line: &[2]pt{ptOf(p[0]), ptOf(p[1])}}
+}
+
+// saveAngle returns rad in degrees when degrees read back to exactly rad (trying a value rounded to
+// nine decimals first, for readable files), and otherwise in radians.
+func saveAngle(rad float64) (deg, radians *float64) {
+	exact := rad * 180 / math.Pi
+	for _, d := range []float64{math.Round(exact*1e9) / 1e9, exact} {
+		if degToRad(d) == rad {
+			return &d, nil
+		}
+	}
+	return nil, &rad
+}
+
+// saveWidth is the line width within which Save keeps a JSON value on one line.
+const saveWidth = 100
+
+// writeJSON writes the compact JSON value v, starting at column col and nesting depth depth: a value
+// that fits in saveWidth stays on one line (with a space after each comma and colon), a longer object
+// or array puts each member on its own line.
+func writeJSON(b *bytes.Buffer, v []byte, col, depth int) {
+	inline := spaceJSON(v)
+	if col+len(inline) <= saveWidth || (v[0] != '{' && v[0] != '[') {
+		b.Write(inline)
+		return
+	}
+	pad := bytes.Repeat([]byte("  "), depth+1)
+	b.WriteByte(v[0])
+	members := splitTop(v[1:len(v)-1], ',')
+	for i, m := range members {
+		b.WriteByte('\n')
+		b.Write(pad)
+		if v[0] == '{' {
+			kv := splitTop(m, ':')
+			b.Write(kv[0])
+			b.WriteString(": ")
+			writeJSON(b, kv[1], len(pad)+len(kv[0])+2, depth+1)
+		} else {
+			writeJSON(b, m, len(pad), depth+1)
+		}
+		if i < len(members)-1 {
+			b.WriteByte(',')
+		}
+	}
+	b.WriteByte('\n')
+	b.Write(pad[2:])
+	b.WriteByte(v[len(v)-1])
+}
+
+// splitTop splits compact JSON text at the separator sep where it stands outside strings and
+// brackets; for ':' it splits only at the first such place (an object member's key).
+func splitTop(v []byte, sep byte) [][]byte {
+	var parts [][]byte
+	depth, start, inString := 0, 0, false
+	for i := 0; i < len(v); i++ {
+		c := v[i]
+		switch {
+		case inString && c == '\\':
+			i++
+		case c == '"':
+			inString = !inString
+		case inString:
+		case c == '{' || c == '[':
+			depth++
+		case c == '}' || c == ']':
+			depth--
+		case c == sep && depth == 0:
+			parts = append(parts, v[start:i])
+			start = i + 1
+			if sep == ':' {
+				return append(parts, v[start:])
+			}
+		}
+	}
+	if len(v) == 0 {
+		return parts
+	}
+	return append(parts, v[start:])
+}
+
+// spaceJSON returns compact JSON text with a space after every comma and colon outside strings.
+func spaceJSON(v []byte) []byte {
+	out := make([]byte, 0, len(v)+len(v)/4)
+	inString := false
+	for i := 0; i < len(v); i++ {
+		c := v[i]
+		out = append(out, c)
+		switch {
+		case inString && c == '\\':
+			i++
+			out = append(out, v[i])
+		case c == '"':
+			inString = !inString
+		case !inString && (c == ',' || c == ':'):
+			out = append(out, ' ')
+		}
+	}
+	return out
+}
+
+func ptOf(p geom.Point) pt { return pt{p.X, p.Y} }
