@@ -55,7 +55,7 @@ func Compile(src string, params map[string]float64) (*Program, error) {
 func newProgram(root *node, names []string) *Program {
 	p := &Program{root: root, names: names}
 	p.poly, p.isPol = polynomialOf(root)
-	g := codegen{free: nil, cached: map[opcode]int{}, next: firstScratch}
+	g := codegen{cached: map[opcode]int{}, next: firstScratch}
 	g.emitRoot(root)
 	p.code, p.regs = g.code, g.next
 	return p

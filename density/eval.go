@@ -176,10 +176,40 @@ func constForm(op opcode, args []operand) (instr, bool) {
 	return instr{}, false
 }
 
-// frame holds the registers of one Eval call.
+// frame holds the registers of one evaluation, and a spare column for results that are checked
+// rather than kept.
 type frame struct {
-	regs [][]float64
-	buf  []float64
+	regs  [][]float64
+	buf   []float64
+	spare []float64
+}
+
+func (p *Program) getFrame() *frame {
+	if f, ok := p.pool.Get().(*frame); ok {
+		return f
+	}
+	return &frame{
+		regs:  make([][]float64, p.regs),
+		buf:   make([]float64, (p.regs-firstScratch)*evalChunk),
+		spare: make([]float64, evalChunk),
+	}
+}
+
+func (p *Program) putFrame(f *frame) {
+	f.regs[regX], f.regs[regY], f.regs[regOut] = nil, nil, nil
+	p.pool.Put(f)
+}
+
+// runChunk evaluates the formula at up to evalChunk points.
+func (p *Program) runChunk(f *frame, xs, ys, out []float64) {
+	f.regs[regX], f.regs[regY], f.regs[regOut] = xs, ys, out
+	for r := firstScratch; r < p.regs; r++ {
+		i := (r - firstScratch) * evalChunk
+		f.regs[r] = f.buf[i : i+len(out)]
+	}
+	for i := range p.code {
+		p.code[i].run(f.regs)
+	}
 }
 
 // Eval sets out[i] to the formula's value at (xs[i], ys[i]). out may be xs or ys itself but must not
@@ -188,23 +218,33 @@ func (p *Program) Eval(xs, ys, out []float64) {
 	if len(xs) != len(ys) || len(xs) != len(out) {
 		panic(fmt.Sprintf("density: Eval: lengths differ: %d xs, %d ys, %d out", len(xs), len(ys), len(out)))
 	}
-	f, _ := p.pool.Get().(*frame)
-	if f == nil {
-		f = &frame{regs: make([][]float64, p.regs), buf: make([]float64, (p.regs-firstScratch)*evalChunk)}
-	}
+	f := p.getFrame()
 	for lo := 0; lo < len(xs); lo += evalChunk {
 		hi := min(lo+evalChunk, len(xs))
-		f.regs[regX], f.regs[regY], f.regs[regOut] = xs[lo:hi], ys[lo:hi], out[lo:hi]
-		for r := firstScratch; r < p.regs; r++ {
-			i := (r - firstScratch) * evalChunk
-			f.regs[r] = f.buf[i : i+hi-lo]
-		}
-		for i := range p.code {
-			p.code[i].run(f.regs)
+		p.runChunk(f, xs[lo:hi], ys[lo:hi], out[lo:hi])
+	}
+	p.putFrame(f)
+}
+
+// firstInvalid returns the index of the first point where the value is negative, +Inf or NaN, and
+// that value; or -1. It panics if the lengths differ.
+func (p *Program) firstInvalid(xs, ys []float64) (int, float64) {
+	if len(xs) != len(ys) {
+		panic(fmt.Sprintf("density: lengths differ: %d xs, %d ys", len(xs), len(ys)))
+	}
+	f := p.getFrame()
+	defer p.putFrame(f)
+	for lo := 0; lo < len(xs); lo += evalChunk {
+		hi := min(lo+evalChunk, len(xs))
+		out := f.spare[:hi-lo]
+		p.runChunk(f, xs[lo:hi], ys[lo:hi], out)
+		for i, v := range out {
+			if !(v >= 0) || math.IsInf(v, 1) {
+				return lo + i, v
+			}
 		}
 	}
-	f.regs[regX], f.regs[regY], f.regs[regOut] = nil, nil, nil
-	p.pool.Put(f)
+	return -1, 0
 }
 
 // run executes one instruction over a chunk.

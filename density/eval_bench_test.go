@@ -56,3 +56,31 @@ func BenchmarkTranscendental(b *testing.B) {
 		}
 	})
 }
+
+// BenchmarkCompile measures the work done each time the user edits a formula.
+func BenchmarkCompile(b *testing.B) {
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Compile("k*x^2*y + 8*blend(0, 300, x) + 2*(1 - blend(0, 300, x))", map[string]float64{"k": 2e-6}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkCheckDomain measures the domain check over a batch of points, as geom's nodes arrive.
+func BenchmarkCheckDomain(b *testing.B) {
+	f, err := Spec{Material: "steel", Thickness: "6 - 4*x/1200 mm"}.Field(Length{"mm", 1})
+	if err != nil {
+		b.Fatal(err)
+	}
+	xs, ys := grid(benchPoints)
+	for i := range xs {
+		xs[i] = 600 + xs[i] // keep the thickness positive
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := f.CheckDomain(xs, ys); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

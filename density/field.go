@@ -181,21 +181,10 @@ func (f *Field) DomainError(x, y, value float64) *DomainError {
 
 // CheckDomain evaluates the density at the points (xs[i], ys[i]) and reports the first one where it
 // is negative, infinite or not a number as a *DomainError. Zero is allowed (a cut-away area of a
-// field).
+// field). It panics if the lengths differ.
 func (f *Field) CheckDomain(xs, ys []float64) error {
-	if len(xs) != len(ys) {
-		panic(fmt.Sprintf("density: CheckDomain: lengths differ: %d xs, %d ys", len(xs), len(ys)))
-	}
-	var buf [evalChunk]float64
-	for lo := 0; lo < len(xs); lo += evalChunk {
-		hi := min(lo+evalChunk, len(xs))
-		out := buf[:hi-lo]
-		f.prog.Eval(xs[lo:hi], ys[lo:hi], out)
-		for i, v := range out {
-			if !(v >= 0) || math.IsInf(v, 1) {
-				return f.DomainError(xs[lo+i], ys[lo+i], v)
-			}
-		}
+	if i, v := f.prog.firstInvalid(xs, ys); i >= 0 {
+		return f.DomainError(xs[i], ys[i], v)
 	}
 	return nil
 }

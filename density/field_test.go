@@ -188,3 +188,15 @@ func ExampleSpec_Field() {
 	// formula: col 16: expected ')' to close the '(' at col 5, found end of input
 	// aluminium 5052, 3 mm: 8.04 kg/m²
 }
+
+func TestCheckDomainDoesNotAllocate(t *testing.T) {
+	f, err := Spec{Material: "steel", Thickness: "6 - 4*x/1200 mm"}.Field(docMM)
+	if err != nil {
+		t.Fatal(err)
+	}
+	xs, ys := grid(1000)
+	f.CheckDomain(xs, ys) // warm the pool
+	if n := testing.AllocsPerRun(20, func() { f.CheckDomain(xs, ys) }); n != 0 {
+		t.Errorf("CheckDomain allocates %v times per call", n)
+	}
+}
