@@ -520,8 +520,8 @@ func nearestPoly(s Segment, p Point) []float64 {
 
 // ellipseFeet returns the parameters in (t0, t1) where g(t) = (s(t) − p)·s'(t) changes sign from
 // negative to positive: the local minima of the distance from p to the elliptical arc s. Samples every
-// π/16 of sweep bracket them; each is then solved with g'(t) = |s'|² + (s − p)·s” where
-// s”(t) = −Sweep²·(s(t) − C).
+// π/16 of sweep bracket them; each is then solved with g'(t) = |s'|² + (s − p)·s″ where
+// s″(t) = −Sweep²·(s(t) − C).
 func ellipseFeet(s Segment, t0, t1 float64, p Point) []float64 {
 	g := func(t float64) (float64, float64) {
 		q, d := s.At(t), s.Deriv(t)
