@@ -145,7 +145,8 @@ var (
 		opPow: opPowK, opMin: opMinK, opMax: opMaxK}
 	constLeft = map[opcode]opcode{opAdd: opAddK, opSub: opKSub, opMul: opMulK, opDiv: opKDiv,
 		opPow: opKPow, opMin: opMinK, opMax: opMaxK}
-	// powForms are powers whose special forms give the same values as math.Pow.
+	// powForms are powers with a faster special form that agrees with math.Pow (apart from the
+	// sign of a zero result and rounding in underflow).
 	powForms = map[float64]opcode{2: opSquare, 3: opCube, 0.5: opSqrt, -1: opRecip, 1: opCopy}
 )
 

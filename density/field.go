@@ -53,6 +53,7 @@ type Field struct {
 	unit     string   // unit of the value as given: "kg/m²", "mm", ...
 	doc      Length
 	desc     string
+	thick    float64 // constant thickness in mm, or 0
 }
 
 // Field builds the density for coordinates in the document length unit doc. Errors are *FieldError,
@@ -124,6 +125,7 @@ func (s Spec) materialField(doc Length) (*Field, error) {
 	}
 	switch {
 	case isConst:
+		f.thick = v * q.unit.MM
 		f.desc = fmt.Sprintf("%s, %s: %s kg/m²", mat.label(), thickness, formatValue(v*perUnit))
 	default:
 		f.desc = fmt.Sprintf("%s, thickness %s (x, y in %s)", mat.label(), thickness, doc.Name)
@@ -147,6 +149,9 @@ func (f *Field) Polynomial() (Polynomial, bool) { return f.prog.Polynomial() }
 
 // Constant returns the density in kg per square document unit when it does not vary.
 func (f *Field) Constant() (float64, bool) { return f.prog.Constant() }
+
+// Thickness returns the sheet thickness in mm of a material field whose thickness does not vary.
+func (f *Field) Thickness() (mm float64, ok bool) { return f.thick, f.thick > 0 }
 
 // Describe describes the density for reports: "aluminium 5052, 3 mm: 8.04 kg/m²".
 func (f *Field) Describe() string { return f.desc }

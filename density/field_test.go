@@ -50,6 +50,9 @@ func TestFieldConstant(t *testing.T) {
 			if !ok || !closeTo(got, want, 1e-9) {
 				t.Errorf("Constant() = %v, %v; want %v", got, ok, want)
 			}
+			if mm, ok := f.Thickness(); ok != (tt.spec.Formula == "") || ok && !closeTo(mm*mat(t, tt.spec).ArealDensity(1), tt.kgM2, 1e-12) {
+				t.Errorf("Thickness() = %v mm, %v", mm, ok)
+			}
 			if d := f.Describe(); d != tt.desc {
 				t.Errorf("Describe() = %q, want %q", d, tt.desc)
 			}
@@ -60,6 +63,14 @@ func TestFieldConstant(t *testing.T) {
 			}
 		})
 	}
+}
+
+func mat(t *testing.T, s Spec) Material {
+	m, err := lookupMaterial(s.Material, s.Custom)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return m
 }
 
 func TestFieldVarying(t *testing.T) {
@@ -75,6 +86,9 @@ func TestFieldVarying(t *testing.T) {
 		if want := mm * 7.85 / 1e6; !closeTo(out[i], want, 1e-12) {
 			t.Errorf("density at x = %v = %v kg/mm², want %v", xs[i], out[i], want)
 		}
+	}
+	if mm, ok := f.Thickness(); ok {
+		t.Errorf("a tapering sheet has a constant Thickness() = %v mm", mm)
 	}
 	p, ok := f.Polynomial()
 	if !ok || p.Deg != 1 {

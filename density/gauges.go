@@ -97,6 +97,21 @@ func brownSharpeGauges(first, last int) []Gauge {
 	return rows
 }
 
+// GaugeTable names a gauge system: Key (as in Material.GaugeSystem), Name, and Source, the
+// definition the table is built from.
+type GaugeTable struct {
+	Key, Name, Source string
+}
+
+// GaugeTables lists the gauge systems.
+func GaugeTables() []GaugeTable {
+	tables := make([]GaugeTable, len(gaugeSystems))
+	for i, s := range gaugeSystems {
+		tables[i] = GaugeTable{Key: s.key, Name: s.name, Source: s.source}
+	}
+	return tables
+}
+
 func findGaugeSystem(system string) (gaugeSystem, bool) {
 	key := strings.ToLower(strings.TrimSpace(system))
 	for _, s := range gaugeSystems {

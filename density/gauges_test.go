@@ -113,6 +113,11 @@ func TestGaugeErrors(t *testing.T) {
 			t.Errorf("LookupGauge(%q, %d) error = %v\nwant %s", tt.material, tt.n, err, tt.msg)
 		}
 	}
+	for _, table := range GaugeTables() {
+		if len(Gauges(table.Key)) == 0 || table.Name == "" || table.Source == "" {
+			t.Errorf("gauge table %+v: no rows, name or source", table)
+		}
+	}
 	if rows := Gauges("birmingham"); rows != nil {
 		t.Errorf("Gauges(birmingham) = %v, want nil", rows)
 	}
