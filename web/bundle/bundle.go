@@ -59,6 +59,7 @@ func Build(ctx context.Context, opt Options) ([]byte, error) {
 		WasmExec: wasmExec,
 		Module:   packed.Bytes(),
 		Demo:     demo.Part(),
+		Presets:  Presets(),
 	})
 }
 

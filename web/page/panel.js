@@ -20,7 +20,6 @@
   let app = null; // window.plumb once the app is ready
   let state = null; // the app's last state
   let mode = "sheet"; // "sheet" (material and thickness) or "formula"
-  let materialFromUser = false; // the material fields hold the user's edit, not the part's
 
   // ---- small helpers ----
 
@@ -150,14 +149,12 @@
 
   function loadText(text, name, quiet) {
     if (!app) { toast("Still loading; try again in a moment."); return false; }
-    materialFromUser = false;
     const r = app.load(text, name);
     if (!r.ok) {
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
       return false;
     }
     refresh();
-    app.fit();
     const warnings = r.warnings || [];
     if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
     else if (!quiet) toast("Opened " + name);
@@ -217,13 +214,19 @@
 
   // ---- the part's material, shown in the fields ----
 
+  // editingMaterial reports whether the user is typing in the material fields or has an error to fix
+  // there; the part's material must not overwrite either.
+  function editingMaterial() {
+    return $("material-error").textContent !== "" || document.activeElement.closest(".material") !== null;
+  }
+
   // showPart fills the name and, unless the user is editing them, the material fields from a part file.
   function showPart(partJSON) {
     let doc;
     try { doc = JSON.parse(partJSON); } catch { return; }
-    if (doc.name) $("part-name").textContent = doc.name;
+    $("part-name").textContent = doc.name || "Untitled part";
     const spec = doc.material;
-    if (!spec || materialFromUser) return;
+    if (!spec || editingMaterial()) return;
     if (spec.formula) {
       setMode("formula");
       $("formula").value = spec.formula;
@@ -267,7 +270,6 @@
 
   function sendMaterial() {
     if (!app) return;
-    materialFromUser = true;
     let spec;
     let err = null;
     if (mode === "sheet") {
@@ -358,6 +360,9 @@
     for (const b of document.querySelectorAll("[data-units]")) b.setAttribute("aria-pressed", String(b.dataset.units === u));
     if (state.tool) for (const b of document.querySelectorAll("[data-tool]")) b.setAttribute("aria-pressed", String(b.dataset.tool === state.tool));
     if (state.target) for (const b of document.querySelectorAll("[data-target]")) b.setAttribute("aria-pressed", String(b.dataset.target === state.target));
+    if (typeof state.can_undo === "boolean") document.querySelector('[data-action="undo"]').disabled = !state.can_undo;
+    if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
+    if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = String(state.hole_diameter);
     $("material-desc").textContent = state.material || "";
     $("recompute").textContent = Number.isFinite(state.recompute_ms) ? "computed in " + state.recompute_ms.toFixed(1) + " ms" : "";
     $("part-error").textContent = state.error || "";
@@ -467,7 +472,7 @@
     undo: () => app.undo(),
     redo: () => app.redo(),
     fit: () => app.fit(),
-    new: () => { materialFromUser = false; app.newPart(); },
+    new: () => app.newPart(),
     open: () => $("file").click(),
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
@@ -499,7 +504,9 @@
       app.setUnits(d.units);
     } else if (d.mode) {
       setMode(d.mode);
-      sendMaterial();
+      // Switching to an empty field waits for the user to type; otherwise the part takes the other kind.
+      if ($(d.mode === "sheet" ? "material" : "formula").value.trim() === "") showMaterialError(null);
+      else sendMaterial();
     } else if (b.id === "fold") {
       const folded = $("panel").classList.toggle("folded");
       b.setAttribute("aria-expanded", String(!folded));
