@@ -83,7 +83,7 @@
 //
 // ParseLength and Spec.Thickness read a number or constant expression followed by a unit: "3 mm",
 // "3mm", "0.125 in", "1/8 in", `0.5"`, "2'", "2 ft". A whole number and a fraction, "1 1/2 in" or
-// "1-1/2 in", is 1½ in as rules are marked (not 1 − ½). A gauge is "16 ga" or "16 gauge" followed
+// "1-1/2 in", is 1½ in as rules are marked; written with spaces, "1 - 1/2 in", it is 1 − ½. A gauge is "16 ga" or "16 gauge" followed
 // by a material or gauge system name ("16 ga steel", "18 ga aluminium"), or, in a Spec, the Spec's
 // material. A thickness may also be a formula in x and y and the Spec's parameters, ending with
 // its unit: "6 - 4*x/1200 mm".

@@ -6,6 +6,7 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+	"unicode"
 	"unicode/utf8"
 )
 
@@ -114,7 +115,8 @@ func ArealUnit(name string) (Areal, error) {
 }
 
 // ParseLength parses a length with its unit and returns it in millimetres: "3 mm", "0.125 in",
-// "1/8 in", "1 1/2 in" or "1-1/2 in" (a whole number and a fraction), "3mm", `0.5"`, or a gauge
+// "1/8 in", "1 1/2 in" or "1-1/2 in" (a whole number and a fraction; with spaces around the
+// hyphen it is a subtraction), "3mm", `0.5"`, or a gauge
 // with its material, "16 ga steel". The number may be any constant expression of the formula
 // language. Errors are *SyntaxError with the column of the problem.
 func ParseLength(s string) (mm float64, err error) {
@@ -141,7 +143,7 @@ type quantity struct {
 
 var (
 	gaugePattern = regexp.MustCompile(`(?i)^\s*(\d{1,3})\s*(?:ga|gauge)\b\s*(.*?)\s*$`)
-	mixedPattern = regexp.MustCompile(`^\s*(\d+)(?:\s+|\s*-\s*)(\d+)\s*/\s*(\d+)\s*$`)
+	mixedPattern = regexp.MustCompile(`^\s*(\d+)(?:\s+|-)(\d+)/(\d+)\s*$`) // 1 1/2, 1-1/2
 )
 
 // parseQuantity parses a length: a gauge ("16 ga", with the material named after it or given as
@@ -197,7 +199,7 @@ func constProgram(v float64) *Program { return newProgram(&node{op: opConst, k: 
 // splitUnit splits "1/8 in" into the number or formula "1/8 " and its unit. The unit is the word (or
 // inch or foot mark) at the end; a word that names a variable or parameter is not a unit.
 func splitUnit(s string, params map[string]float64) (string, Length, error) {
-	trimmed := strings.TrimRightFunc(s, func(r rune) bool { return r == ' ' || r == '\t' })
+	trimmed := strings.TrimRightFunc(s, unicode.IsSpace)
 	end := utf8.RuneCountInString(trimmed) + 1
 	if last, size := utf8.DecodeLastRuneInString(trimmed); strings.ContainsRune(`"″'′`, last) {
 		u, _ := LengthUnit(string(last))

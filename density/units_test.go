@@ -79,10 +79,13 @@ func TestParseLength(t *testing.T) {
 		{"3 mm", 3},
 		{"3mm", 3},
 		{" 3 MM ", 3},
+		{"3\u00a0mm\u00a0", 3},
 		{"0.125 in", 3.175},
 		{"1/8 in", 3.175},
 		{"1 1/2 in", 38.1}, // a whole number and a fraction, as rules are marked
 		{"1-1/2 in", 38.1},
+		{"1 - 1/2 in", 12.7},
+		{"10 - 1/2 mm", 9.5},
 		{`0.5"`, 12.7},
 		{"2'", 609.6},
 		{"2 ft", 609.6},
