@@ -1,0 +1,376 @@
+package geom
+
+import (
+	"container/heap"
+	"fmt"
+	"math"
+)
+
+// Field is an areal density evaluated in batches: out[i] = ρ(xs[i], ys[i]). len(xs)==len(ys)==len(out).
+// Integrate calls it with slices it reuses, a few hundred points at a time.
+type Field interface{ Eval(xs, ys, out []float64) }
+
+// Options control Boundary.Integrate.
+type Options struct {
+	Tol      float64 // requested relative accuracy; 0 means DefaultTol
+	MaxEvals int     // work limit in density evaluations; 0 means DefaultMaxEvals
+}
+
+// The defaults for Options.
+const (
+	DefaultTol      = 1e-10
+	DefaultMaxEvals = 1 << 22 // about 4 million evaluations: well under a second for compiled formulas
+)
+
+// Result is the outcome of Boundary.Integrate.
+type Result struct {
+	Moments
+	RelErr   float64 // estimated relative error (largest over the moments, each against its natural scale)
+	LimitHit bool    // the work limit stopped refinement before Tol was met
+	Evals    int     // density evaluations used
+}
+
+// DensityError reports a density that is NaN, infinite or negative at a point geom evaluated.
+// Integrate evaluates the density on the region's bounding box, so the point may lie outside the
+// region itself.
+type DensityError struct{ X, Y, Value float64 }
+
+func (e *DensityError) Error() string {
+	what := "negative"
+	switch {
+	case math.IsNaN(e.Value):
+		what = "not a number"
+	case math.IsInf(e.Value, 0):
+		what = "infinite"
+	}
+	return fmt.Sprintf("density is %s (%g) at (%g, %g)", what, e.Value, e.X, e.Y)
+}
+
+// Integrate returns the moments of the density f over the region that b bounds, by adaptive
+// Gauss–Green product cubature (see the package documentation): ∬f dA = ∮ F dy with
+// F(x, y) = ∫_ξ^x f(s, y) ds, ξ the left edge of the bounding box, an outer Gauss–Legendre rule along each
+// piece and an inner one along each horizontal from ξ. Every node lies in the bounding box.
+//
+// Each piece is integrated twice, the second time with higher outer and inner orders; the second value
+// is kept and the difference is its (conservative) error estimate. While the summed estimate exceeds
+// opt.Tol relative to a moment's natural scale (M·L^k, L half the larger side of the bounding box), the
+// piece with the largest estimate is refined: a third rule, with only the inner order raised, tells
+// whether the outer or the inner error dominates; the piece is then cut in half or given a higher inner
+// order (beyond innerMax, more inner panels). Refinement stops early when it would pass opt.MaxEvals
+// (Result.LimitHit). The density is evaluated in batches into reused buffers; a NaN, infinite or negative
+// value stops the integration with a *DensityError.
+func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
+	tol, maxEvals := opt.Tol, opt.MaxEvals
+	if tol < 0 || maxEvals < 0 || math.IsNaN(tol) {
+		panic("geom: negative Integrate option")
+	}
+	if tol == 0 {
+		tol = DefaultTol
+	}
+	if maxEvals == 0 {
+		maxEvals = DefaultMaxEvals
+	}
+	if len(b.Pieces) == 0 {
+		return Result{}, nil
+	}
+	box := Loop(b.Pieces).Bounds()
+	cb := &cubature{f: f, c: box.Center(), base: box.Min.X - box.Center().X,
+		half: math.Max(box.Size().X, box.Size().Y) / 2}
+	return cb.run(b, tol, maxEvals)
+}
+
+// Cubature orders. A piece starts with outerStart outer nodes on a line and one more on a Bézier or
+// an arc, plus on an arc one per two thirds of a radian of sweep; it starts with innerStart inner nodes.
+// Its second rule has outerStep more outer nodes and innerHigher(ni) inner ones. Refinement raises the
+// outer order by two up to outerMax and then cuts the piece in half; it raises the inner order by half
+// up to innerMax and then cuts the inner interval into more panels.
+const (
+	outerStart = 2
+	outerStep  = 1
+	outerMax   = 8
+	innerStart = 6
+	innerMax   = 40
+)
+
+// innerHigher returns the inner order of a piece's second rule.
+func innerHigher(ni int) int { return ni + 2 + ni/8 }
+
+// outerOrder returns the starting outer order for s.
+func outerOrder(s Segment) int {
+	switch s.Kind {
+	case KindLine:
+		return outerStart
+	case KindArc:
+		return outerStart + 1 + int(math.Ceil(1.5*math.Abs(s.Sweep)))
+	}
+	return outerStart + 1
+}
+
+// cubature holds the state of one Integrate call: the density, the local frame and the reused buffers.
+type cubature struct {
+	f           Field
+	c           Point     // local origin (bounding-box centre)
+	base        float64   // ξ − c.X: the base line in local coordinates
+	half        float64   // L: half the larger side of the bounding box
+	xs, ys, out []float64 // density nodes and values
+	us          []float64 // local abscissae of the nodes
+	vs, ws      []float64 // per outer node: local ordinate and weight W·y'·(panel length)
+	evals       int
+}
+
+// cubPiece is part of a boundary segment (in local coordinates) with its orders, its estimates lo at
+// (no, ni) and hi at (no+outerStep, innerHigher(ni)), all over np inner panels, and its priority.
+type cubPiece struct {
+	s          Segment
+	no, ni, np int
+	lo, hi     rawMoments
+	priority   float64
+}
+
+// err returns the piece's error estimate |hi − lo|, moment by moment.
+func (p *cubPiece) err() rawMoments { return absRaw(p.hi.add(p.lo.scale(-1))) }
+
+func absRaw(r rawMoments) rawMoments {
+	return rawMoments{math.Abs(r.m), math.Abs(r.sx), math.Abs(r.sy), math.Abs(r.sxx), math.Abs(r.sxy), math.Abs(r.syy)}
+}
+
+// cost returns the evaluations that estimate(p) makes.
+func (p *cubPiece) cost() int { return p.np * (p.no*p.ni + (p.no+outerStep)*innerHigher(p.ni)) }
+
+func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
+	pieces, err := c.initialPieces(b)
+	if err != nil {
+		return Result{Evals: c.evals}, err
+	}
+	total, errSum := sumPieces(pieces)
+	scale := c.scale(total)
+	for _, p := range pieces {
+		p.priority = c.norm(p.err(), scale)
+	}
+	heap.Init(&pieces)
+	limitHit := false
+	for c.norm(errSum, scale) > tol {
+		p := pieces[0]
+		next, err := c.refine(p, scale, maxEvals)
+		if err != nil {
+			return Result{Evals: c.evals}, err
+		}
+		if next == nil {
+			limitHit = true
+			break
+		}
+		heap.Pop(&pieces)
+		total, errSum = total.add(p.hi.scale(-1)), errSum.add(p.err().scale(-1))
+		for _, q := range next {
+			total, errSum = total.add(q.hi), errSum.add(q.err())
+			q.priority = c.norm(q.err(), scale)
+			heap.Push(&pieces, q)
+		}
+	}
+	// Re-sum: the running totals above carry the rounding of many additions and removals.
+	total, errSum = sumPieces(pieces)
+	return Result{Moments: momentsAbout(c.c, total), RelErr: c.norm(errSum, c.scale(total)),
+		LimitHit: limitHit, Evals: c.evals}, nil
+}
+
+// initialPieces returns the boundary's segments in local coordinates, arcs cut to at most 90°, each
+// with its first estimates. Horizontal lines and Béziers (dy ≡ 0) contribute nothing and are left out.
+func (c *cubature) initialPieces(b Boundary) (pieceHeap, error) {
+	store := make([]cubPiece, 0, len(b.Pieces))
+	for _, s := range b.Pieces {
+		if s.isHorizontal() {
+			continue
+		}
+		s = s.translated(c.c.Mul(-1))
+		k := 1
+		if s.Kind == KindArc {
+			k = max(1, int(math.Ceil(math.Abs(s.Sweep)/(math.Pi/2))))
+		}
+		for i := range k {
+			p := cubPiece{s: s, ni: innerStart, np: 1}
+			if s.Kind == KindArc {
+				p.s = arcPiece(s, i, k)
+			}
+			p.no = outerOrder(p.s)
+			if err := c.estimate(&p); err != nil {
+				return nil, err
+			}
+			store = append(store, p)
+		}
+	}
+	pieces := make(pieceHeap, len(store))
+	for i := range store {
+		pieces[i] = &store[i]
+	}
+	return pieces, nil
+}
+
+// refine returns the refined replacement(s) of p, or nil if the work limit forbids it. A rule with
+// only the inner order raised, mid, splits the estimate: |hi − mid| is the outer error and |mid − lo| the
+// inner one. When the outer error dominates, p gets a higher outer order or, past outerMax, is cut in
+// half; otherwise its inner rule is refined.
+func (c *cubature) refine(p *cubPiece, scale rawMoments, maxEvals int) ([]*cubPiece, error) {
+	midCost := p.np * p.no * innerHigher(p.ni)
+	if c.evals+midCost > maxEvals {
+		return nil, nil
+	}
+	mid, err := c.grid(p.s, p.no, innerHigher(p.ni), p.np)
+	if err != nil {
+		return nil, err
+	}
+	outerErr := c.norm(absRaw(p.hi.add(mid.scale(-1))), scale)
+	innerErr := c.norm(absRaw(mid.add(p.lo.scale(-1))), scale)
+	var next []*cubPiece
+	switch {
+	case outerErr >= innerErr && p.no+2 <= outerMax:
+		q := *p
+		q.no += 2
+		next = []*cubPiece{&q}
+	case outerErr >= innerErr:
+		a, b := *p, *p
+		a.s, b.s = p.s.Split(0.5)
+		a.no, b.no = outerOrder(a.s), outerOrder(b.s)
+		next = []*cubPiece{&a, &b}
+	default:
+		q := *p
+		if q.ni < innerMax {
+			q.ni = min(innerMax, q.ni+q.ni/2)
+		} else {
+			q.np *= 2
+		}
+		next = []*cubPiece{&q}
+	}
+	cost := 0
+	for _, q := range next {
+		cost += q.cost()
+	}
+	if c.evals+cost > maxEvals {
+		return nil, nil
+	}
+	for _, q := range next {
+		if err := c.estimate(q); err != nil {
+			return nil, err
+		}
+	}
+	return next, nil
+}
+
+// scale returns each moment's natural scale M·L^k for the current total.
+func (c *cubature) scale(total rawMoments) rawMoments {
+	m, l := math.Abs(total.m), c.half
+	return rawMoments{m, m * l, m * l, m * l * l, m * l * l, m * l * l}
+}
+
+// norm returns the largest ratio of e to scale over the moments (0 where the scale is 0 and e is 0).
+func (c *cubature) norm(e, scale rawMoments) float64 {
+	r := 0.0
+	for _, q := range [6][2]float64{{e.m, scale.m}, {e.sx, scale.sx}, {e.sy, scale.sy},
+		{e.sxx, scale.sxx}, {e.sxy, scale.sxy}, {e.syy, scale.syy}} {
+		if q[0] != 0 {
+			r = math.Max(r, q[0]/q[1])
+		}
+	}
+	return r
+}
+
+// sumPieces returns the summed values and error estimates.
+func sumPieces(pieces []*cubPiece) (total, errSum rawMoments) {
+	for _, p := range pieces {
+		total, errSum = total.add(p.hi), errSum.add(p.err())
+	}
+	return total, errSum
+}
+
+// estimate computes p's two estimates.
+func (c *cubature) estimate(p *cubPiece) error {
+	var err error
+	if p.lo, err = c.grid(p.s, p.no, p.ni, p.np); err != nil {
+		return err
+	}
+	p.hi, err = c.grid(p.s, p.no+outerStep, innerHigher(p.ni), p.np)
+	return err
+}
+
+// grid applies the product rule on s: outer order no along s, inner order ni on each of np equal
+// panels of the horizontal from the base line to the outer node. It evaluates the density once for all
+// nodes, then forms Σ_outer W·y'·Σ_inner w·ρ·{1, u, v, u², uv, v²}·(panel length).
+func (c *cubature) grid(s Segment, no, ni, np int) (rawMoments, error) {
+	outer, inner := gaussLegendre(no), gaussLegendre(ni)
+	n := no * ni * np
+	c.grow(n, no)
+	i := 0
+	for k, t := range outer.t {
+		p := s.At(t)
+		span := (p.X - c.base) / float64(np)
+		c.vs[k], c.ws[k] = p.Y, outer.w[k]*s.Deriv(t).Y*span
+		for panel := range np {
+			left := c.base + span*float64(panel)
+			for _, tau := range inner.t {
+				u := left + span*tau
+				c.us[i], c.xs[i], c.ys[i] = u, c.c.X+u, c.c.Y+p.Y
+				i++
+			}
+		}
+	}
+	out := c.out[:n]
+	c.f.Eval(c.xs[:n], c.ys[:n], out)
+	c.evals += n
+	for i, v := range out {
+		if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+			return rawMoments{}, &DensityError{X: c.xs[i], Y: c.ys[i], Value: v}
+		}
+	}
+	var r rawMoments
+	i = 0
+	for k := range no {
+		var m, su, suu float64
+		for range np {
+			for j := range ni {
+				u, f := c.us[i], inner.w[j]*out[i]
+				m, su, suu = m+f, su+f*u, suu+f*u*u
+				i++
+			}
+		}
+		w, v := c.ws[k], c.vs[k]
+		m, su, suu = w*m, w*su, w*suu
+		r = r.add(rawMoments{m, su, m * v, suu, su * v, m * v * v})
+	}
+	return r, nil
+}
+
+// isHorizontal reports whether s is a line or Bézier whose control points share one y.
+func (s Segment) isHorizontal() bool {
+	if s.Kind == KindArc {
+		return false
+	}
+	for _, p := range s.P[1 : s.Degree()+1] {
+		if p.Y != s.P[0].Y {
+			return false
+		}
+	}
+	return true
+}
+
+// grow makes the buffers hold at least n nodes and no outer nodes.
+func (c *cubature) grow(n, no int) {
+	if len(c.xs) < n {
+		c.xs, c.ys, c.us, c.out = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
+	}
+	if len(c.vs) < no {
+		c.vs, c.ws = make([]float64, no), make([]float64, no)
+	}
+}
+
+// pieceHeap is a max-heap of pieces by priority.
+type pieceHeap []*cubPiece
+
+func (h pieceHeap) Len() int           { return len(h) }
+func (h pieceHeap) Less(i, j int) bool { return h[i].priority > h[j].priority }
+func (h pieceHeap) Swap(i, j int)      { h[i], h[j] = h[j], h[i] }
+func (h *pieceHeap) Push(x any)        { *h = append(*h, x.(*cubPiece)) }
+func (h *pieceHeap) Pop() any {
+	old := *h
+	p := old[len(old)-1]
+	*h = old[:len(old)-1]
+	return p
+}

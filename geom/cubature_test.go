@@ -1,0 +1,171 @@
+package geom
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+)
+
+// funcField is a density given point by point.
+type funcField func(x, y float64) float64
+
+func (f funcField) Eval(xs, ys, out []float64) {
+	for i := range out {
+		out[i] = f(xs[i], ys[i])
+	}
+}
+
+// rawNearScaled compares moments against their natural scales M·L^k.
+func rawNearScaled(got, want rawMoments, rel, l float64) bool {
+	m := math.Abs(want.m)
+	return near(got.m, want.m, rel, m) && near(got.sx, want.sx, rel, m*l) && near(got.sy, want.sy, rel, m*l) &&
+		near(got.sxx, want.sxx, rel, m*l*l) && near(got.sxy, want.sxy, rel, m*l*l) && near(got.syy, want.syy, rel, m*l*l)
+}
+
+func mustIntegrate(t *testing.T, b Boundary, f Field, opt Options) Result {
+	t.Helper()
+	r, err := b.Integrate(f, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.LimitHit || r.RelErr > max(opt.Tol, DefaultTol) || r.Evals <= 0 {
+		t.Fatalf("limit hit %v, relative error %.2g, %d evaluations", r.LimitHit, r.RelErr, r.Evals)
+	}
+	return r
+}
+
+func TestIntegrateClosedForms(t *testing.T) {
+	for _, f := range closedFormShapes() {
+		checkShape(t, f, mustIntegrate(t, f.b, ConstPoly(1), Options{}).Moments, 1e-10)
+	}
+}
+
+// TestIntegrateMatchesIntegratePoly: for a polynomial density the cubature must agree with the exact
+// Green integration.
+func TestIntegrateMatchesIntegratePoly(t *testing.T) {
+	p := NewPoly(3)
+	for i, c := range []float64{1, 2e-3, -1e-3, 1e-5, 2e-6, 1e-6, 1e-8, -2e-9, 3e-9, 1e-9} {
+		p.C[i] = c
+	}
+	b := compoundPart()
+	want := b.IntegratePoly(p)
+	for _, tol := range []float64{1e-6, 1e-10, 1e-13} {
+		got := mustIntegrate(t, b, p, Options{Tol: tol})
+		if !rawNearScaled(got.origin(), want.origin(), math.Max(tol, 1e-13), 0) ||
+			!nearPt(got.Centroid(), want.Centroid(), math.Max(tol, 1e-13)*300) {
+			t.Errorf("tol %g: %+v, want %+v", tol, got.origin(), want.origin())
+		}
+	}
+}
+
+// TestIntegrateAgainstNestedQuadrature compares non-polynomial densities with gonum's nested
+// Gauss–Legendre quadrature over regions between two curves.
+func TestIntegrateAgainstNestedQuadrature(t *testing.T) {
+	densities := []struct {
+		name string
+		f    func(x, y float64) float64
+	}{
+		{"exp·(2+sin)", func(x, y float64) float64 { return math.Exp(0.3*x) * (2 + math.Sin(1.5*y)) }},
+		{"1+sin·cos", func(x, y float64) float64 { return 1 + 0.5*math.Sin(x)*math.Cos(2*y) }},
+		{"1/(1+r²)", func(x, y float64) float64 { return 1 / (1 + x*x + y*y) }},
+	}
+	for _, r := range betweenCurvesRegions() {
+		for _, d := range densities {
+			got := mustIntegrate(t, r.b, funcField(d.f), Options{})
+			want := nestedMoments(r, d.f, 60)
+			if !rawNearScaled(got.local.shift(got.ref), want, 1e-10, 3) {
+				t.Errorf("%s, %s: %+v, want %+v", r.name, d.name, got.origin(), want)
+			}
+		}
+	}
+}
+
+func TestIntegrateFarFromOrigin(t *testing.T) {
+	b := compoundPart()
+	uniform := funcField(func(x, y float64) float64 { return 7.85e-6 })
+	near := mustIntegrate(t, b, uniform, Options{}).Moments
+	for _, d := range []Point{Pt(5e9, 0), Pt(-5e9, 5e9)} {
+		far := mustIntegrate(t, translatedBoundary(b, d), uniform, Options{}).Moments
+		momentsAgree(t, "far part", far, near, d, 1e-12)
+	}
+	// A density that varies slowly with position, carried with the part.
+	wave := func(d Point) funcField {
+		return func(x, y float64) float64 { return 2 + math.Sin((x-d.X)/1000)*math.Cos((y-d.Y)/700) }
+	}
+	want := mustIntegrate(t, b, wave(Point{}), Options{}).Moments
+	d := Pt(5e9, -5e9)
+	momentsAgree(t, "far part, varying density", mustIntegrate(t, translatedBoundary(b, d), wave(d), Options{}).Moments, want, d, 1e-9)
+}
+
+func TestIntegrateLimitHit(t *testing.T) {
+	wild := funcField(func(x, y float64) float64 { return 2 + math.Sin(60*x)*math.Sin(45*y) })
+	b := bnd(Circle(Pt(0, 0), 3))
+	r, err := b.Integrate(wild, Options{MaxEvals: 3000})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !r.LimitHit || r.Evals > 3000 || r.RelErr <= DefaultTol {
+		t.Errorf("limit hit %v, %d evaluations, relative error %.2g", r.LimitHit, r.Evals, r.RelErr)
+	}
+	// With room to work the same density converges.
+	full := mustIntegrate(t, b, wild, Options{Tol: 1e-9})
+	if full.Evals <= 3000 {
+		t.Errorf("converged in %d evaluations; the limit test is too easy", full.Evals)
+	}
+}
+
+func TestIntegrateDensityError(t *testing.T) {
+	b := bnd(RectLoop(Pt(0, 0), Pt(2, 1)))
+	tests := []struct {
+		name string
+		f    funcField
+		msg  string
+	}{
+		{"negative", func(x, y float64) float64 { return 1 - x }, "negative"},
+		{"NaN", func(x, y float64) float64 { return math.Log(x - 1) }, "not a number"},
+		{"infinite", func(x, y float64) float64 { return math.Inf(1) }, "infinite"},
+	}
+	for _, tt := range tests {
+		_, err := b.Integrate(tt.f, Options{})
+		var de *DensityError
+		if !errors.As(err, &de) {
+			t.Fatalf("%s: error %v, want *DensityError", tt.name, err)
+		}
+		if v := tt.f(de.X, de.Y); !(v < 0 || math.IsNaN(v) || math.IsInf(v, 0)) || !strings.Contains(de.Error(), tt.msg) {
+			t.Errorf("%s: %v (value there %v)", tt.name, de, v)
+		}
+		if !(Rect{Pt(0, 0), Pt(2, 1)}).Contains(Pt(de.X, de.Y)) {
+			t.Errorf("%s: evaluated outside the bounding box at (%v, %v)", tt.name, de.X, de.Y)
+		}
+	}
+}
+
+// TestIntegrateNodesInBoundingBox records every evaluated point of a non-convex region.
+func TestIntegrateNodesInBoundingBox(t *testing.T) {
+	b := compoundPart()
+	box := Loop(b.Pieces).Bounds()
+	var outside int
+	f := funcField(func(x, y float64) float64 {
+		if !box.Contains(Pt(x, y)) {
+			outside++
+		}
+		return 1 + x*y*1e-4
+	})
+	mustIntegrate(t, b, f, Options{})
+	if outside > 0 {
+		t.Errorf("%d nodes outside the bounding box", outside)
+	}
+}
+
+func TestIntegrateEmptyAndMisuse(t *testing.T) {
+	if r, err := (Boundary{}).Integrate(ConstPoly(1), Options{}); err != nil || r != (Result{}) {
+		t.Errorf("empty: %+v %v", r, err)
+	}
+	defer func() {
+		if recover() == nil {
+			t.Error("negative tolerance: no panic")
+		}
+	}()
+	bnd(Circle(Pt(0, 0), 1)).Integrate(ConstPoly(1), Options{Tol: -1})
+}
