@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 )
 
@@ -91,7 +92,7 @@ func (s Spec) formulaField(doc Length) (*Field, error) {
 	if v, ok := prog.Constant(); ok {
 		f.desc = fmt.Sprintf("areal density %s %s", formatValue(v), unit.Name)
 	} else {
-		f.desc = fmt.Sprintf("areal density %s %s (x, y in %s)", strings.TrimSpace(s.Formula), unit.Name, doc.Name)
+		f.desc = fmt.Sprintf("areal density %s %s (x, y in %s%s)", strings.TrimSpace(s.Formula), unit.Name, doc.Name, paramText(prog, s.Params))
 	}
 	return f, nil
 }
@@ -128,12 +129,26 @@ func (s Spec) materialField(doc Length) (*Field, error) {
 		f.thick = v * q.unit.MM
 		f.desc = fmt.Sprintf("%s, %s: %s kg/m²", mat.label(), thickness, formatValue(v*perUnit))
 	default:
-		f.desc = fmt.Sprintf("%s, thickness %s (x, y in %s)", mat.label(), thickness, doc.Name)
+		f.desc = fmt.Sprintf("%s, thickness %s (x, y in %s%s)", mat.label(), thickness, doc.Name, paramText(q.prog, s.Params))
 	}
 	if mat.Approx {
 		f.desc += " (approximate density)"
 	}
 	return f, nil
+}
+
+// paramText lists the parameters a formula uses with their values: "; k = 2e-06, w = 1200".
+func paramText(p *Program, params map[string]float64) string {
+	var b strings.Builder
+	for _, n := range p.Names() {
+		if v, ok := params[n]; ok {
+			b.WriteString(", " + n + " = " + strconv.FormatFloat(v, 'g', -1, 64))
+		}
+	}
+	if b.Len() == 0 {
+		return ""
+	}
+	return "; " + b.String()[2:]
 }
 
 func newField(p *Program, scale float64, quantity, unit string, doc Length) *Field {

@@ -94,7 +94,7 @@ func TestFieldVarying(t *testing.T) {
 	if !ok || p.Deg != 1 {
 		t.Errorf("Polynomial() = %+v, %v; want degree 1", p, ok)
 	}
-	if got, want := f.Describe(), "carbon steel, thickness t0 + (t1 - t0)*x/1200 mm (x, y in mm)"; got != want {
+	if got, want := f.Describe(), "carbon steel, thickness t0 + (t1 - t0)*x/1200 mm (x, y in mm; t0 = 6, t1 = 2)"; got != want {
 		t.Errorf("Describe() = %q, want %q", got, want)
 	}
 
@@ -103,6 +103,9 @@ func TestFieldVarying(t *testing.T) {
 	g, err := poly.Field(docInch)
 	if err != nil {
 		t.Fatal(err)
+	}
+	if got, want := g.Describe(), "areal density k x² y lb/ft² (x, y in in; k = 2e-06)"; got != want {
+		t.Errorf("Describe() = %q, want %q", got, want)
 	}
 	gp, ok := g.Polynomial()
 	want := 2e-6 * (Pound / (Foot * Foot / 1e6)) * Inch * Inch / 1e6

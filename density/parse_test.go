@@ -33,6 +33,7 @@ func TestParseErrors(t *testing.T) {
 		{"extra close", "x + 1@)", "expected an operator or the end, found ')'"},
 		{"number after operand", "(x + 1) @2", "expected an operator or the end, found number 2"},
 		{"bad character", "x @$ 2", "unexpected character '$'"},
+		{"not UTF-8", "x·y + @\xff", "input is not valid UTF-8 text"},
 		{"columns count characters", "x·y × 2 − @)", "expected operand, found ')'"},
 		{"lone dot", "x * @.", "'.' must be part of a number such as 0.5"},
 		{"out of range", "@1e999 * x", "number 1e999 is out of range"},

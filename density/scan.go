@@ -3,6 +3,7 @@ package density
 import (
 	"fmt"
 	"strconv"
+	"strings"
 	"unicode"
 	"unicode/utf8"
 )
@@ -90,7 +91,14 @@ const maxSuperDigits = 3
 // scan splits src into tokens ending with a tokEOF token.
 func scan(src string) ([]token, error) {
 	if !utf8.ValidString(src) {
-		return nil, errorAt(0, "input is not valid UTF-8 text")
+		col := 1
+		for i, r := range src {
+			if r == utf8.RuneError && !strings.HasPrefix(src[i:], "\uFFFD") {
+				break
+			}
+			col++
+		}
+		return nil, errorAt(col, "input is not valid UTF-8 text")
 	}
 	if n := utf8.RuneCountInString(src); n > maxSourceLen {
 		return nil, errorAt(maxSourceLen+1, "input is %d characters long; the limit is %d", n, maxSourceLen)
