@@ -1,0 +1,338 @@
+package edit
+
+import (
+	"fmt"
+
+	"plumb/density"
+	"plumb/geom"
+	"plumb/sketch"
+)
+
+// Tool is what the primary pointer button does on the canvas.
+type Tool uint8
+
+// The tools.
+const (
+	ToolSelect  Tool = iota // pick and move points, Bézier handles, shapes and holes
+	ToolOutline             // click points; drag while pressing to pull Bézier handles
+	ToolRect                // two corners, with the corner radius
+	ToolCircle              // centre, then a point on the rim
+	ToolSlot                // the two end centres, then the width
+	ToolHole                // place a hang hole, or drag one
+	ToolMeasure             // distance between two points
+)
+
+var toolNames = [...]string{"select", "outline", "rect", "circle", "slot", "hole", "measure"}
+
+// String returns the tool's name as the bridge spells it ("select", "rect", ...).
+func (t Tool) String() string { return toolNames[t] }
+
+// ParseTool returns the tool with the given name.
+func ParseTool(name string) (Tool, error) {
+	for i, n := range toolNames {
+		if n == name {
+			return Tool(i), nil
+		}
+	}
+	return 0, fmt.Errorf("unknown tool %q (want one of %v)", name, toolNames)
+}
+
+// Target is the layer that new shapes go to.
+type Target uint8
+
+// The targets.
+const (
+	TargetOutline Target = iota // the part's outline
+	TargetCutout                // a cut-out
+	TargetDoubler               // an overlay of the part's material
+)
+
+var targetNames = [...]string{"outline", "cutout", "doubler"}
+
+// String returns the target's name as the bridge spells it.
+func (t Target) String() string { return targetNames[t] }
+
+// ParseTarget returns the target with the given name.
+func ParseTarget(name string) (Target, error) {
+	for i, n := range targetNames {
+		if n == name {
+			return Target(i), nil
+		}
+	}
+	return 0, fmt.Errorf("unknown target %q (want one of %v)", name, targetNames)
+}
+
+// Mods are the modifier keys held during an event.
+type Mods uint8
+
+// The modifier keys. Alt turns snapping off for the moment.
+const (
+	ModShift Mods = 1 << iota
+	ModAlt
+	ModCtrl
+)
+
+// Distances on the screen, in CSS pixels (times Editor.PixelRatio).
+const (
+	pickPixels    = 8  // how near a point the pointer must be to pick it
+	snapPixels    = 10 // how near a point the pointer must be to snap to it
+	dragPixels    = 4  // movement that makes a press a drag rather than a click
+	GridPixels    = 12 // the closest that minor grid lines come on the screen
+	marginPixels  = 40 // space around the part after Fit
+	defaultHoleMM = 6  // a hang hole for an S-hook or a small shackle pin (common practice)
+)
+
+// Insets are the screen pixels along each edge of the canvas that other controls cover.
+type Insets struct{ Left, Top, Right, Bottom float64 }
+
+// Editor is the state of the part editor. The zero value is not ready: use New.
+type Editor struct {
+	View       View
+	Snap       SnapSettings
+	PixelRatio float64 // device pixels per CSS pixel: scales pick and snap distances
+	Insets     Insets  // canvas edges covered by other controls, kept clear by Fit
+
+	doc        *sketch.Document
+	undo, redo []*sketch.Document
+	rev        int
+
+	tool         Tool
+	target       Target
+	arc          bool
+	holeDia      float64
+	cornerRadius float64
+	width        float64
+	height       float64
+
+	sel     Selection
+	hover   Selection
+	cursor  geom.Point // screen
+	snap    Snap
+	drag    *drag
+	draw    drawing
+	typed   string
+	message string
+	measure *Measurement
+	guides  []geom.Point
+}
+
+// New returns an editor holding an empty part in millimetres, with the select tool and every kind of
+// snapping on.
+func New() *Editor {
+	e := &Editor{
+		Snap:       SnapSettings{Grid: true, Points: true, Align: true},
+		PixelRatio: 1,
+		doc:        sketch.NewDocument(),
+		holeDia:    defaultHoleMM,
+		View:       View{Scale: 1},
+		width:      800,
+		height:     600,
+	}
+	e.sel.Hole, e.hover.Hole = -1, -1
+	return e
+}
+
+// Document returns the current part. It must not be modified: every change builds a new one.
+func (e *Editor) Document() *sketch.Document { return e.doc }
+
+// Rev counts changes to the document, drags included: analyse again whenever it moves.
+func (e *Editor) Rev() int { return e.rev }
+
+// Tool returns the active tool.
+func (e *Editor) Tool() Tool { return e.tool }
+
+// SetTool switches tools, dropping any shape half drawn.
+func (e *Editor) SetTool(t Tool) {
+	e.cancelDrawing()
+	e.tool = t
+	e.measure = nil
+}
+
+// Target returns the layer new shapes go to.
+func (e *Editor) Target() Target { return e.target }
+
+// SetTarget chooses the layer new shapes go to.
+func (e *Editor) SetTarget(t Target) { e.target = t }
+
+// ArcMode reports whether the outline tool draws tangent arcs instead of straight segments.
+func (e *Editor) ArcMode() bool { return e.arc }
+
+// SetArcMode chooses tangent arcs (true) or straight segments for the outline tool's next points.
+func (e *Editor) SetArcMode(on bool) { e.arc = on }
+
+// HoleDiameter returns the diameter new hang holes get, in document units.
+func (e *Editor) HoleDiameter() float64 { return e.holeDia }
+
+// SetHoleDiameter sets the diameter for new hang holes and gives it to the selected hole, or else to
+// the first hole (the one the part hangs from).
+func (e *Editor) SetHoleDiameter(d float64) error {
+	if !(d >= 0) || d > 1e9 {
+		return fmt.Errorf("hole diameter must be 0 or more, got %g", d)
+	}
+	e.holeDia = d
+	i := e.sel.Hole
+	if e.sel.Kind != SelHole {
+		i = 0
+	}
+	if i < len(e.doc.Holes) && e.doc.Holes[i].Diameter != d {
+		nd := Clone(e.doc)
+		nd.Holes[i].Diameter = d
+		e.commit(nd)
+	}
+	return nil
+}
+
+// SetGuides gives the editor points found by the analysis (the balance point, the level hole) for
+// the pointer to snap to, as it does to centres.
+func (e *Editor) SetGuides(pts []geom.Point) { e.guides = append([]geom.Point(nil), pts...) }
+
+// CornerRadius returns the corner radius of new rectangles.
+func (e *Editor) CornerRadius() float64 { return e.cornerRadius }
+
+// SetCornerRadius sets the corner radius of new rectangles (0 for square corners).
+func (e *Editor) SetCornerRadius(r float64) { e.cornerRadius = max(r, 0) }
+
+// Resize tells the editor the canvas size in screen pixels.
+func (e *Editor) Resize(w, h float64) { e.width, e.height = w, h }
+
+// GridStep returns the spacing of the minor grid on the screen now, in document units: the grid
+// drawn and snapped to.
+func (e *Editor) GridStep() float64 { return e.View.GridStep(GridPixels * e.PixelRatio) }
+
+// Message returns feedback for the user about the last action (a typed value that did not parse, a
+// shape too small to keep), or "".
+func (e *Editor) Message() string { return e.message }
+
+// Typed returns the value being typed, shown beside the pointer.
+func (e *Editor) Typed() string { return e.typed }
+
+// Cursor returns the pointer's snapped position and what it snapped to.
+func (e *Editor) Cursor() Snap { return e.snap }
+
+// Fit sets the view to show the whole part inside the canvas, clear of the insets.
+func (e *Editor) Fit() {
+	in := e.Insets
+	e.View.Fit(docBounds(e.doc), e.width-in.Left-in.Right, e.height-in.Top-in.Bottom, marginPixels*e.PixelRatio)
+	e.View.Pan(geom.Pt(in.Left, in.Top))
+}
+
+func docBounds(d *sketch.Document) geom.Rect {
+	r := d.Outline.Bounds()
+	for _, c := range d.Cutouts {
+		r = r.Union(c.Bounds())
+	}
+	for _, o := range d.Overlays {
+		r = r.Union(o.Region.Bounds())
+	}
+	for _, h := range d.Holes {
+		r = r.Union(geom.Rect{Min: h.At, Max: h.At})
+	}
+	return r
+}
+
+// commit makes nd the current document as one undoable step.
+func (e *Editor) commit(nd *sketch.Document) {
+	e.undo = append(e.undo, e.doc)
+	e.redo = nil
+	e.doc = nd
+	e.rev++
+	e.validateSelection()
+}
+
+// CanUndo and CanRedo report whether there is a step to undo or redo.
+func (e *Editor) CanUndo() bool { return len(e.undo) > 0 }
+
+// CanRedo reports whether there is an undone step to redo.
+func (e *Editor) CanRedo() bool { return len(e.redo) > 0 }
+
+// Undo steps back one change; a shape half drawn is dropped first. It reports whether anything
+// changed.
+func (e *Editor) Undo() bool {
+	if e.cancelDrawing() {
+		return true
+	}
+	if len(e.undo) == 0 {
+		return false
+	}
+	e.redo = append(e.redo, e.doc)
+	e.doc = e.undo[len(e.undo)-1]
+	e.undo = e.undo[:len(e.undo)-1]
+	e.rev++
+	e.validateSelection()
+	return true
+}
+
+// Redo takes again the step last undone and reports whether there was one.
+func (e *Editor) Redo() bool {
+	e.cancelDrawing()
+	if len(e.redo) == 0 {
+		return false
+	}
+	e.undo = append(e.undo, e.doc)
+	e.doc = e.redo[len(e.redo)-1]
+	e.redo = e.redo[:len(e.redo)-1]
+	e.rev++
+	e.validateSelection()
+	return true
+}
+
+// Load replaces the part with d (an undoable step) and fits it to the canvas. The editor keeps d: the
+// caller must not modify it afterwards.
+func (e *Editor) Load(d *sketch.Document) {
+	e.cancelDrawing()
+	e.sel, e.hover = Selection{Hole: -1}, Selection{Hole: -1}
+	e.commit(d)
+	switch u, err := density.LengthUnit(d.Units); {
+	case len(d.Holes) > 0:
+		e.holeDia = d.Holes[0].Diameter
+	case err == nil:
+		e.holeDia = defaultHoleMM / u.MM
+	}
+	e.Fit()
+}
+
+// NewPart starts an empty part (an undoable step) in the same unit and material as the current one.
+func (e *Editor) NewPart() {
+	d := sketch.NewDocument()
+	d.Units = e.doc.Units
+	d.Material = cloneSpec(e.doc.Material)
+	e.Load(d)
+}
+
+// SetMaterial gives the part the base material spec (an undoable step). Checking the spec is the
+// caller's business: the editor stores what it is given.
+func (e *Editor) SetMaterial(spec density.Spec) {
+	nd := Clone(e.doc)
+	nd.Material = cloneSpec(spec)
+	e.commit(nd)
+}
+
+// SetUnits converts the part to the length unit name ("mm", "in", ...): coordinates and hole sizes
+// are rescaled so that the part keeps its real size, and the view so that it stays where it is.
+// A density formula written in x and y keeps its text: it now reads coordinates in the new unit.
+func (e *Editor) SetUnits(name string) error {
+	to, err := density.LengthUnit(name)
+	if err != nil {
+		return err
+	}
+	fromName := e.doc.Units
+	if fromName == "" {
+		fromName = "mm"
+	}
+	from, err := density.LengthUnit(fromName)
+	if err != nil {
+		return err
+	}
+	if from.MM == to.MM && e.doc.Units == name {
+		return nil
+	}
+	k := from.MM / to.MM
+	nd := Clone(e.doc)
+	nd.Units = name
+	transformDoc(nd, geom.Scale(k, k))
+	e.commit(nd)
+	e.holeDia *= k
+	e.cornerRadius *= k
+	e.View.Scale /= k
+	return nil
+}
