@@ -175,7 +175,7 @@ func (c *resolver) name(e *Expr) (*node, error) {
 	if e.callLike {
 		known = append(known, keys(builtins)...)
 	}
-	return nil, errorAt(e.col, "unknown name %s%s", quoteShort(e.name), suggest(e.name, known, true))
+	return nil, errorAt(e.col, "unknown name %s%s", quoteShort(e.name), nameHint(e.name, known))
 }
 
 // mk builds a node, folding it to a constant when all its operands are constants. A power of e is

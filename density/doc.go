@@ -62,7 +62,7 @@
 //
 // Errors give the 1-based column counted in characters, what was found and what was expected:
 // "col 7: expected operand, found ')'". An unknown name suggests the nearest known one
-// ("did you mean \"sqrt\"?"), or a product when it is two known names run together (kx → k*x).
+// ("did you mean \"sqrt\"?"), or what two names run together stand for (kx → k*x, sinx → sin(x)).
 // Input is limited to 2000 characters and to 64 levels of nesting (parentheses, signs and powers),
 // which bounds the work done on hostile input.
 //

@@ -157,5 +157,5 @@ func lookupMaterial(name string, custom []Material) (Material, error) {
 		}
 		return Material{}, fmt.Errorf("%q could be %s: say which", name, strings.Join(labels, " or "))
 	}
-	return Material{}, fmt.Errorf("unknown material %q%s", name, suggest(name, names, false))
+	return Material{}, fmt.Errorf("unknown material %q%s", name, suggest(name, names))
 }

@@ -7,19 +7,30 @@ import (
 )
 
 // suggest returns a hint for an unknown word, such as `; did you mean "sqrt"?`, or "" when no
-// candidate is close. A word made of two known names (kx) suggests their product.
-func suggest(word string, known []string, product bool) string {
-	if product {
-		for i := 1; i < len(word); i++ {
-			if contains(known, word[:i]) && contains(known, word[i:]) {
-				return fmt.Sprintf("; did you mean %q?", word[:i]+"*"+word[i:])
-			}
-		}
-	}
+// candidate is close.
+func suggest(word string, known []string) string {
 	if best := nearest(word, known); best != "" {
 		return fmt.Sprintf("; did you mean %q?", best)
 	}
 	return ""
+}
+
+// nameHint returns a hint for an unknown name in a formula: a function and a name run together
+// (sinx: sin(x)), two names run together (kx: k*x), or the nearest known name.
+func nameHint(word string, known []string) string {
+	for i := 1; i < len(word); i++ {
+		head, tail := word[:i], word[i:]
+		if !contains(known, tail) {
+			continue
+		}
+		if _, ok := builtins[head]; ok {
+			return fmt.Sprintf("; did you mean %q?", head+"("+tail+")")
+		}
+		if contains(known, head) {
+			return fmt.Sprintf("; did you mean %q?", head+"*"+tail)
+		}
+	}
+	return suggest(word, known)
 }
 
 // nearest returns the candidate closest to word by edit distance, if that distance is small for the

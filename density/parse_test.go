@@ -75,6 +75,7 @@ func TestCompileErrors(t *testing.T) {
 		{"misspelt function", "@sqr(x)", `unknown name "sqr"; did you mean "sqrt"?`},
 		{"misspelt parameter", "2*@widht", `unknown name "widht"; did you mean "width"?`},
 		{"two names run together", "@kx^2", `unknown name "kx"; did you mean "k*x"?`},
+		{"function run into its argument", "2@sinx", `unknown name "sinx"; did you mean "sin(x)"?`},
 		{"unknown, nothing near", "x + @zzzzzz", `unknown name "zzzzzz"`},
 		{"misspelt variable", "@thta", `unknown name "thta"; did you mean "theta"?`},
 		{"syntax first", "x + @)", "expected operand, found ')'"},

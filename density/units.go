@@ -89,7 +89,7 @@ func findUnit[U any](kind, name string, units []U, nameOf func(U) string) (U, er
 		}
 	}
 	var zero U
-	return zero, errorAt(0, "unknown %s unit %q%s (use %s)", kind, name, suggest(key, names, false), strings.Join(names, ", "))
+	return zero, errorAt(0, "unknown %s unit %q%s (use %s)", kind, name, suggest(key, names), strings.Join(names, ", "))
 }
 
 // LengthUnit returns the length unit with the given name: mm, cm, m, in, ft (also px, pt, pc, and
