@@ -58,6 +58,9 @@ func TestEvalMatchesGo(t *testing.T) {
 				math.Tan(x/1000) + math.Cos(y)
 		}},
 		{"(x - y)/(x + y)", func(x, y float64) float64 { return (x - y) / (x + y) }},
+		{"x^-1 + (5 - x) + (abs(x)/100)^(abs(y)/100) - -y", func(x, y float64) float64 {
+			return 1/x + (5 - x) + math.Pow(math.Abs(x)/100, math.Abs(y)/100) + y
+		}},
 		{"2^3^0.5 * x", func(x, y float64) float64 { return math.Pow(2, math.Pow(3, 0.5)) * x }},
 	}
 	xs, ys := grid(1000) // not a multiple of evalChunk: the last chunk is short
