@@ -1,0 +1,891 @@
+package sketch
+
+import (
+	"bytes"
+	"encoding/xml"
+	"errors"
+	"fmt"
+	"io"
+	"maps"
+	"math"
+	"slices"
+	"strings"
+
+	"plumb/geom"
+)
+
+// Reading chooses how ReadSVG turns the shapes of a drawing into a part.
+type Reading uint8
+
+const (
+	// ReadAuto reads a drawing with no filled shape as a cut file, and any other as a filled drawing.
+	ReadAuto Reading = iota
+	// ReadFilled takes the part to be the painted region: the union of the filled shapes, each by its
+	// own fill-rule. Shapes that are only stroked are left out.
+	ReadFilled
+	// ReadCutFile takes every contour of every visible shape as a cut line: contours nest even-odd, so a
+	// contour inside the outline is a hole and one inside a hole is an island of material. Every
+	// contour must be closed.
+	ReadCutFile
+)
+
+func (r Reading) String() string {
+	switch r {
+	case ReadFilled:
+		return "filled drawing"
+	case ReadCutFile:
+		return "cut file"
+	}
+	return "automatic"
+}
+
+// DefaultSVGMaxBytes is the largest SVG file ReadSVG reads when SVGOptions.MaxBytes is 0.
+const DefaultSVGMaxBytes = 16 << 20
+
+// SVGOptions control ReadSVG.
+type SVGOptions struct {
+	Reading  Reading
+	Name     string // the part's name
+	MaxBytes int    // larger files are refused; 0 means DefaultSVGMaxBytes
+}
+
+// SVGError reports an SVG file that cannot be read, naming the element (as in
+// "path#bracket (element 4)", counting elements from 1 in document order) and the attribute.
+type SVGError struct {
+	Element string
+	Attr    string
+	Msg     string
+}
+
+func (e *SVGError) Error() string {
+	switch {
+	case e.Element == "":
+		return e.Msg
+	case e.Attr == "":
+		return e.Element + ": " + e.Msg
+	}
+	return e.Element + ", attribute " + e.Attr + ": " + e.Msg
+}
+
+const (
+	svgNamespace   = "http://www.w3.org/2000/svg"
+	xlinkNamespace = "http://www.w3.org/1999/xlink"
+	// maxSVGDepth bounds the nesting of elements and of use references.
+	maxSVGDepth = 256
+	// maxSVGWarnings is the number of warnings ReadSVG lists before summing up the rest.
+	maxSVGWarnings = 20
+	// closeTolMM is the largest gap (in mm) between the ends of a contour for a cut file to count it as
+	// closed; the gap is then closed exactly. It is far below any cutting kerf and covers end points
+	// rounded to a few decimals by the program that wrote the file.
+	closeTolMM = 0.01
+)
+
+// ReadSVG reads a part from an SVG drawing (W3C SVG 1.1 and SVG 2): path, rect, circle, ellipse,
+// line, polyline and polygon, grouped by g (and a, use, nested svg), with transforms, fill, fill-rule,
+// stroke, display and visibility from attributes, style attributes and simple style sheets. The part
+// is in millimetres with y up: document x = SVG x and document y = −SVG y after the viewBox and all
+// transforms. Shapes in other namespaces, defs and other non-rendered elements are skipped; other
+// unknown elements are skipped with a warning. Text must be converted to paths first. Nothing outside
+// the file is ever fetched, and entities are never expanded.
+func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
+	limit := opt.MaxBytes
+	if limit == 0 {
+		limit = DefaultSVGMaxBytes
+	}
+	if len(data) > limit {
+		return nil, nil, &SVGError{Msg: fmt.Sprintf("the file is %d bytes, more than the limit of %d", len(data), limit)}
+	}
+	root, err := parseXML(data)
+	if err != nil {
+		return nil, nil, err
+	}
+	r := &svgReader{ids: map[string]*element{}}
+	r.index(root)
+	base, err := r.rootTransform(root)
+	if err != nil {
+		return nil, nil, err
+	}
+	ctx := context{ctm: base}
+	ctx.paint, _ = r.paint(root, paint{fill: true})
+	if err := r.children(root, ctx, 0); err != nil {
+		return nil, nil, err
+	}
+	d := NewDocument()
+	d.Name = opt.Name
+	if err := r.build(d, opt.Reading); err != nil {
+		return nil, nil, err
+	}
+	return d, r.warningList(), nil
+}
+
+// element is one XML element of the drawing.
+type element struct {
+	name  string            // local name
+	svg   bool              // in the SVG namespace (or in none)
+	attrs map[string]string // attributes in no namespace, and xlink:href as "href"
+	kids  []*element
+	index int    // position in document order, from 1
+	text  string // character data, kept for style elements
+}
+
+// String names e for messages: its name, its id and its position, as in "path#bracket (element 4)".
+func (e *element) String() string {
+	id := ""
+	if v := e.attrs["id"]; v != "" {
+		id = "#" + v
+	}
+	return fmt.Sprintf("%s%s (element %d)", e.name, id, e.index)
+}
+
+func (e *element) fail(attr string, err error) error {
+	return &SVGError{Element: e.String(), Attr: attr, Msg: err.Error()}
+}
+
+// parseXML reads the element tree. The decoder is strict and knows only XML's predefined entities; a
+// document type that declares entities is refused outright.
+func parseXML(data []byte) (*element, error) {
+	dec := xml.NewDecoder(bytes.NewReader(data))
+	dec.Strict = true
+	var stack []*element
+	var root *element
+	count := 0
+	for {
+		tok, err := dec.Token()
+		if errors.Is(err, io.EOF) {
+			break
+		}
+		if err != nil {
+			return nil, &SVGError{Msg: "not well-formed XML: " + err.Error()}
+		}
+		switch t := tok.(type) {
+		case xml.Directive:
+			if bytes.Contains(t, []byte("ENTITY")) {
+				return nil, &SVGError{Msg: "the document type declares entities; Plumb does not expand entities"}
+			}
+		case xml.StartElement:
+			count++
+			e := newElement(t, count)
+			switch {
+			case len(stack) >= maxSVGDepth:
+				return nil, &SVGError{Element: e.String(), Msg: fmt.Sprintf("elements nest more than %d deep", maxSVGDepth)}
+			case len(stack) > 0:
+				parent := stack[len(stack)-1]
+				parent.kids = append(parent.kids, e)
+			case root != nil:
+				return nil, &SVGError{Element: e.String(), Msg: "a second root element"}
+			default:
+				root = e
+			}
+			stack = append(stack, e)
+		case xml.EndElement:
+			stack = stack[:len(stack)-1]
+		case xml.CharData:
+			if len(stack) > 0 && stack[len(stack)-1].name == "style" {
+				stack[len(stack)-1].text += string(t)
+			}
+		}
+	}
+	if root == nil {
+		return nil, &SVGError{Msg: "not an SVG file: no root element"}
+	}
+	if root.name != "svg" || !root.svg {
+		return nil, &SVGError{Element: root.String(), Msg: "not an SVG file: the root element is not svg"}
+	}
+	return root, nil
+}
+
+func newElement(t xml.StartElement, index int) *element {
+	e := &element{name: t.Name.Local, svg: t.Name.Space == "" || t.Name.Space == svgNamespace,
+		attrs: map[string]string{}, index: index}
+	for _, a := range t.Attr {
+		switch {
+		case a.Name.Space == "":
+			e.attrs[a.Name.Local] = a.Value
+		case a.Name.Space == xlinkNamespace && a.Name.Local == "href":
+			if _, ok := e.attrs["href"]; !ok {
+				e.attrs["href"] = a.Value
+			}
+		}
+	}
+	return e
+}
+
+// paint holds the inherited properties that decide whether and how a shape is painted.
+type paint struct {
+	fill, stroke bool
+	evenOdd      bool // fill-rule: evenodd
+	hidden       bool // visibility: hidden or collapse
+}
+
+// context is what an element inherits: its paint and the map from its user space to the document.
+type context struct {
+	paint
+	ctm geom.Affine
+}
+
+// shape is one painted element's contours, in document coordinates.
+type shape struct {
+	el   *element
+	subs []subpath
+	paint
+}
+
+// svgReader walks the element tree, collecting shapes and warnings.
+type svgReader struct {
+	ids      map[string]*element
+	rules    []cssRule
+	shapes   []shape
+	warnings []string
+}
+
+func (r *svgReader) warn(format string, args ...any) {
+	r.warnings = append(r.warnings, fmt.Sprintf(format, args...))
+}
+
+func (r *svgReader) warningList() []string {
+	if n := len(r.warnings); n > maxSVGWarnings {
+		return append(r.warnings[:maxSVGWarnings], fmt.Sprintf("... and %d more warnings", n-maxSVGWarnings))
+	}
+	return r.warnings
+}
+
+// index records the elements by id and reads the style sheets.
+func (r *svgReader) index(e *element) {
+	if id := e.attrs["id"]; id != "" {
+		if _, dup := r.ids[id]; !dup {
+			r.ids[id] = e
+		}
+	}
+	if e.name == "style" && e.svg {
+		r.rules = append(r.rules, parseStyleSheet(e.text, len(r.rules), r)...)
+	}
+	for _, k := range e.kids {
+		r.index(k)
+	}
+}
+
+// rootTransform maps the root's user space to the document: through the viewBox onto the viewport
+// of the root's width and height in millimetres, then y up. Without a viewBox, user units are px;
+// without width and height, the viewBox's units are px.
+func (r *svgReader) rootTransform(root *element) (geom.Affine, error) {
+	flip := geom.Scale(1, -1)
+	own, err := transformAttr(root)
+	if err != nil {
+		return geom.Affine{}, err
+	}
+	px := mmPer["px"]
+	vbText, ok := root.attrs["viewBox"]
+	if !ok {
+		return own.Then(geom.Scale(px, px)).Then(flip), nil
+	}
+	vb, err := parseViewBox(vbText)
+	if err != nil {
+		return geom.Affine{}, root.fail("viewBox", err)
+	}
+	var size [2]float64
+	var given [2]bool
+	for i, name := range []string{"width", "height"} {
+		v, ok := root.attrs[name]
+		if !ok || strings.HasSuffix(strings.TrimSpace(v), "%") {
+			if ok {
+				r.warn("%s: %s=%q is relative to a page; the viewBox is read in px", root, name, v)
+			}
+			continue
+		}
+		mm, err := parseLength(v)
+		if err != nil {
+			return geom.Affine{}, root.fail(name, err)
+		}
+		if mm <= 0 {
+			return geom.Affine{}, root.fail(name, errors.New("must be positive"))
+		}
+		size[i], given[i] = mm, true
+	}
+	switch {
+	case !given[0] && !given[1]:
+		size = [2]float64{vb.W * px, vb.H * px}
+	case !given[0]:
+		size[0] = size[1] * vb.W / vb.H
+	case !given[1]:
+		size[1] = size[0] * vb.H / vb.W
+	}
+	asp, err := aspectAttr(root)
+	if err != nil {
+		return geom.Affine{}, err
+	}
+	return own.Then(viewportTransform(vb, size[0], size[1], asp)).Then(flip), nil
+}
+
+func transformAttr(e *element) (geom.Affine, error) {
+	s, ok := e.attrs["transform"]
+	if !ok {
+		return geom.Identity(), nil
+	}
+	m, err := parseTransform(s)
+	if err != nil {
+		return m, e.fail("transform", err)
+	}
+	return m, nil
+}
+
+func aspectAttr(e *element) (aspect, error) {
+	s, ok := e.attrs["preserveAspectRatio"]
+	if !ok {
+		return aspect{ax: 0.5, ay: 0.5}, nil
+	}
+	a, err := parseAspect(s)
+	if err != nil {
+		return a, e.fail("preserveAspectRatio", err)
+	}
+	return a, nil
+}
+
+// lengths reads length attributes of e in user units; absent ones are 0.
+func (e *element) lengths(names ...string) ([]float64, error) {
+	out := make([]float64, len(names))
+	for i, name := range names {
+		s, ok := e.attrs[name]
+		if !ok || strings.TrimSpace(s) == "auto" {
+			continue
+		}
+		v, err := parseUserLength(s)
+		if err != nil {
+			return nil, e.fail(name, err)
+		}
+		out[i] = v
+	}
+	return out, nil
+}
+
+// nonRendered lists elements that are never drawn themselves; their content is skipped silently.
+var nonRendered = []string{"defs", "symbol", "clipPath", "mask", "marker", "pattern", "linearGradient",
+	"radialGradient", "filter", "title", "desc", "metadata", "style", "script", "font", "font-face",
+	"cursor", "view"}
+
+// textElements cannot be read: glyph outlines depend on fonts.
+var textElements = []string{"text", "tspan", "textPath", "tref", "flowRoot", "flowPara"}
+
+func (r *svgReader) children(e *element, ctx context, uses int) error {
+	for _, k := range e.kids {
+		if err := r.visit(k, ctx, uses); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// visit reads element e in the inherited context ctx; uses counts the use references followed to
+// reach it.
+func (r *svgReader) visit(e *element, ctx context, uses int) error {
+	if !e.svg || slices.Contains(nonRendered, e.name) {
+		return nil
+	}
+	p, shown := r.paint(e, ctx.paint)
+	if !shown {
+		return nil
+	}
+	if slices.Contains(textElements, e.name) {
+		return &SVGError{Element: e.String(), Msg: "text is not read: convert text to paths first"}
+	}
+	own, err := transformAttr(e)
+	if err != nil {
+		return err
+	}
+	ctx = context{paint: p, ctm: own.Then(ctx.ctm)}
+	for _, a := range []string{"clip-path", "mask"} {
+		if v, ok := e.attrs[a]; ok && v != "none" {
+			r.warn("%s: %s is not applied; the shapes are read unclipped", e, a)
+		}
+	}
+	switch e.name {
+	case "g", "a":
+		return r.children(e, ctx, uses)
+	case "svg":
+		vp, err := nestedViewport(e)
+		if err != nil {
+			return err
+		}
+		ctx.ctm = vp.Then(ctx.ctm)
+		return r.children(e, ctx, uses)
+	case "use":
+		return r.use(e, ctx, uses)
+	case "path", "rect", "circle", "ellipse", "line", "polyline", "polygon":
+		subs, err := shapeSubpaths(e)
+		if err != nil {
+			return err
+		}
+		r.addShape(e, ctx, subs)
+		return nil
+	}
+	r.warn("%s: not a shape Plumb reads; skipped", e)
+	return nil
+}
+
+// nestedViewport maps the user space of a nested svg element into its parent's (SVG 2, section 8.2).
+func nestedViewport(e *element) (geom.Affine, error) {
+	at, err := e.lengths("x", "y")
+	if err != nil {
+		return geom.Affine{}, err
+	}
+	m := geom.Identity()
+	if s, ok := e.attrs["viewBox"]; ok {
+		vb, err := parseViewBox(s)
+		if err != nil {
+			return m, e.fail("viewBox", err)
+		}
+		size, err := e.lengths("width", "height")
+		if err != nil {
+			return m, err
+		}
+		for i, def := range []float64{vb.W, vb.H} {
+			if size[i] == 0 {
+				size[i] = def
+			}
+		}
+		asp, err := aspectAttr(e)
+		if err != nil {
+			return m, err
+		}
+		m = viewportTransform(vb, size[0], size[1], asp)
+	}
+	return m.Then(geom.Translate(at[0], at[1])), nil
+}
+
+// use draws the element a use element refers to, moved by the use's x and y (SVG 1.1, section 5.6).
+// Only references into the same file ("#id") are followed.
+func (r *svgReader) use(e *element, ctx context, uses int) error {
+	href := strings.TrimSpace(e.attrs["href"])
+	id, internal := strings.CutPrefix(href, "#")
+	target := r.ids[id]
+	switch {
+	case !internal:
+		r.warn("%s: reference %q outside the file is not followed", e, href)
+		return nil
+	case target == nil:
+		r.warn("%s: no element with id %q; skipped", e, id)
+		return nil
+	case uses >= maxSVGDepth:
+		return &SVGError{Element: e.String(), Attr: "href", Msg: "use references nest too deep (or refer to themselves)"}
+	case target.name == "symbol" || target.name == "svg":
+		r.warn("%s: use of a %s is not read; skipped", e, target.name)
+		return nil
+	}
+	at, err := e.lengths("x", "y")
+	if err != nil {
+		return err
+	}
+	ctx.ctm = geom.Translate(at[0], at[1]).Then(ctx.ctm)
+	return r.visit(target, ctx, uses+1)
+}
+
+// shapeSubpaths reads the contours of a shape element in its user space. Basic shapes become the
+// path data SVG defines them by (SVG 2, section 10).
+func shapeSubpaths(e *element) ([]subpath, error) {
+	if e.name == "path" {
+		subs, err := parsePath(e.attrs["d"])
+		if err != nil {
+			return nil, e.fail("d", err)
+		}
+		return subs, nil
+	}
+	if e.name == "polyline" || e.name == "polygon" {
+		return polySubpaths(e)
+	}
+	var b pathBuilder
+	var err error
+	switch e.name {
+	case "rect":
+		err = rectPath(e, &b)
+	case "circle":
+		err = ellipsePath(e, &b, "r", "r")
+	case "ellipse":
+		err = ellipsePath(e, &b, "rx", "ry")
+	case "line":
+		var v []float64
+		if v, err = e.lengths("x1", "y1", "x2", "y2"); err == nil {
+			b.command('M', v[:2])
+			b.command('L', v[2:])
+		}
+	}
+	return b.subs, err
+}
+
+func polySubpaths(e *element) ([]subpath, error) {
+	sc := &scanner{s: e.attrs["points"]}
+	v, err := sc.numbers()
+	if err != nil {
+		return nil, e.fail("points", err)
+	}
+	if len(v)%2 != 0 {
+		return nil, e.fail("points", fmt.Errorf("odd number of coordinates (%d)", len(v)))
+	}
+	var b pathBuilder
+	cmd := byte('M')
+	for i := 0; i < len(v); i += 2 {
+		b.command(cmd, v[i:i+2])
+		cmd = 'L'
+	}
+	if e.name == "polygon" && len(v) > 0 {
+		b.command('Z', nil)
+	}
+	return b.subs, nil
+}
+
+// rectPath draws a rect, its corners rounded by rx and ry as SVG 1.1, section 9.2 defines: a missing
+// one of rx, ry takes the other's value, and each is at most half the side.
+func rectPath(e *element, b *pathBuilder) error {
+	names := []string{"x", "y", "width", "height", "rx", "ry"}
+	v, err := e.lengths(names...)
+	if err != nil {
+		return err
+	}
+	x, y, w, h, rx, ry := v[0], v[1], v[2], v[3], v[4], v[5]
+	if err := nonNegative(e, names[2:], v[2:]); err != nil || w == 0 || h == 0 {
+		return err
+	}
+	if !hasLength(e, "rx") {
+		rx = ry
+	}
+	if !hasLength(e, "ry") {
+		ry = rx
+	}
+	rx, ry = min(rx, w/2), min(ry, h/2)
+	corner := func(tx, ty float64) {
+		if rx > 0 && ry > 0 {
+			b.command('A', []float64{rx, ry, 0, 0, 1, tx, ty})
+		} else {
+			b.command('L', []float64{tx, ty})
+		}
+	}
+	b.command('M', []float64{x + rx, y})
+	b.command('L', []float64{x + w - rx, y})
+	corner(x+w, y+ry)
+	b.command('L', []float64{x + w, y + h - ry})
+	corner(x+w-rx, y+h)
+	b.command('L', []float64{x + rx, y + h})
+	corner(x, y+h-ry)
+	b.command('L', []float64{x, y + ry})
+	corner(x+rx, y)
+	b.command('Z', nil)
+	return nil
+}
+
+func hasLength(e *element, name string) bool {
+	v, ok := e.attrs[name]
+	return ok && strings.TrimSpace(v) != "auto"
+}
+
+// nonNegative reports the first negative value of v as an error in the attribute of the same index
+// in names.
+func nonNegative(e *element, names []string, v []float64) error {
+	for i, name := range names {
+		if v[i] < 0 {
+			return e.fail(name, errors.New("must not be negative"))
+		}
+	}
+	return nil
+}
+
+// ellipsePath draws a circle or ellipse as four arcs starting at its rightmost point (SVG 2, section
+// 10.4 and 10.5). A zero radius draws nothing.
+func ellipsePath(e *element, b *pathBuilder, rxName, ryName string) error {
+	names := []string{"cx", "cy", rxName, ryName}
+	v, err := e.lengths(names...)
+	if err != nil {
+		return err
+	}
+	if err := nonNegative(e, names[2:], v[2:]); err != nil {
+		return err
+	}
+	cx, cy, rx, ry := v[0], v[1], v[2], v[3]
+	if e.name == "ellipse" && !hasLength(e, "rx") {
+		rx = ry
+	}
+	if e.name == "ellipse" && !hasLength(e, "ry") {
+		ry = rx
+	}
+	if rx == 0 || ry == 0 {
+		return nil
+	}
+	b.command('M', []float64{cx + rx, cy})
+	for _, p := range [][2]float64{{cx, cy + ry}, {cx - rx, cy}, {cx, cy - ry}, {cx + rx, cy}} {
+		b.command('A', []float64{rx, ry, 0, 0, 1, p[0], p[1]})
+	}
+	b.command('Z', nil)
+	return nil
+}
+
+// addShape keeps the contours of a visible shape, mapped to document coordinates.
+func (r *svgReader) addShape(e *element, ctx context, subs []subpath) {
+	if ctx.hidden || !ctx.fill && !ctx.stroke || len(subs) == 0 {
+		return
+	}
+	if ctx.ctm.Det() == 0 {
+		r.warn("%s: a transform flattens it to a line; skipped", e)
+		return
+	}
+	for i, sub := range subs {
+		segs := make([]geom.Segment, len(sub.segs))
+		for j, s := range sub.segs {
+			segs[j] = s.Transform(ctx.ctm)
+		}
+		subs[i].segs = segs
+	}
+	r.shapes = append(r.shapes, shape{el: e, subs: subs, paint: ctx.paint})
+}
+
+// build makes the part from the shapes, by the reading asked for or chosen.
+func (r *svgReader) build(d *Document, reading Reading) error {
+	if len(r.shapes) == 0 {
+		return &SVGError{Msg: "no visible shapes in the drawing"}
+	}
+	if reading == ReadAuto {
+		reading = ReadCutFile
+		if slices.ContainsFunc(r.shapes, func(s shape) bool { return s.fill }) {
+			reading = ReadFilled
+		}
+	}
+	box := geom.EmptyRect()
+	for _, s := range r.shapes {
+		for _, sub := range s.subs {
+			for _, seg := range sub.segs {
+				box = box.Union(seg.Bounds())
+			}
+		}
+	}
+	tol := regionTol(box)
+	var err error
+	if reading == ReadFilled {
+		d.Outline, err = r.filled(tol)
+		d.Notes = fmt.Sprintf("Read from SVG as a filled drawing: the union of %d filled shapes.", r.filledCount())
+	} else {
+		d.Outline, err = r.cutFile(tol)
+		d.Notes = fmt.Sprintf("Read from SVG as a cut file: %d closed contours, nested even-odd.", len(d.Outline.Loops))
+	}
+	return err
+}
+
+func (r *svgReader) filledCount() int {
+	n := 0
+	for _, s := range r.shapes {
+		if s.fill {
+			n++
+		}
+	}
+	return n
+}
+
+// regionTol is the distance below which geom's region check takes two points as one (1e-9 of the
+// drawing's size, plus 1e-13 of its distance from the origin); segments shorter than this are
+// dropped rather than kept as degenerate.
+func regionTol(box geom.Rect) float64 {
+	size := box.Size()
+	far := max(-box.Min.X, box.Max.X, -box.Min.Y, box.Max.Y)
+	return 1e-9*max(size.X, size.Y) + 1e-13*far
+}
+
+// filled makes the painted region: each filled shape by its own fill rule (open contours closed by a
+// straight line, as filling does), and the union of them all.
+func (r *svgReader) filled(tol float64) (geom.Region, error) {
+	var regions []geom.Region
+	strokedOnly := 0
+	for _, s := range r.shapes {
+		if !s.fill {
+			strokedOnly++
+			continue
+		}
+		reg := geom.Region{Rule: geom.NonZero}
+		if s.evenOdd {
+			reg.Rule = geom.EvenOdd
+		}
+		for _, sub := range s.subs {
+			if l := closeLoop(sub.segs, tol); fillable(l) {
+				reg.Loops = append(reg.Loops, l)
+			}
+		}
+		if len(reg.Loops) == 0 {
+			continue
+		}
+		if _, err := reg.Check(); err != nil {
+			return reg, loopError(s.el, err)
+		}
+		regions = append(regions, reg)
+	}
+	if strokedOnly > 0 {
+		r.warn("%d stroked shapes without fill are left out of the filled drawing", strokedOnly)
+	}
+	switch len(regions) {
+	case 0:
+		return geom.Region{}, &SVGError{Msg: "no filled shape encloses any area"}
+	case 1:
+		return regions[0], nil
+	}
+	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, regions...)
+	loops, err := chainLoops(union.Pieces, tol)
+	if err != nil {
+		return geom.Region{}, err
+	}
+	return geom.Region{Loops: loops}, nil
+}
+
+// fillable reports whether a loop can enclose area: not a single segment and its way back.
+func fillable(l geom.Loop) bool {
+	return len(l) > 2 || slices.ContainsFunc(l, func(s geom.Segment) bool { return s.Kind != geom.KindLine })
+}
+
+// cutFile makes the region enclosed by every contour, nested even-odd. Open contours are errors.
+func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
+	reg := geom.Region{Rule: geom.EvenOdd}
+	var owners []*element
+	for _, s := range r.shapes {
+		for i, sub := range s.subs {
+			first, last := sub.segs[0].Start(), sub.segs[len(sub.segs)-1].End()
+			if gap := first.Dist(last); gap > closeTolMM+tol {
+				return reg, &SVGError{Element: s.el.String(), Msg: fmt.Sprintf("contour %d is open (its ends are "+
+					"%.3g mm apart); a cut file needs closed contours", i+1, gap)}
+			}
+			reg.Loops = append(reg.Loops, closeLoop(sub.segs, tol))
+			owners = append(owners, s.el)
+		}
+	}
+	warnings, err := reg.Check()
+	if err != nil {
+		var ve *geom.ValidationError
+		if errors.As(err, &ve) && ve.Loop >= 0 {
+			return reg, loopError(owners[ve.Loop], err)
+		}
+		return reg, &SVGError{Msg: err.Error()}
+	}
+	for _, w := range warnings {
+		r.warn("%s: contour crosses itself; its parts nest even-odd", owners[w.Loop])
+	}
+	return reg, nil
+}
+
+func loopError(e *element, err error) error {
+	return &SVGError{Element: e.String(), Msg: err.Error()}
+}
+
+// closeLoop returns segs as a closed loop without degenerate segments: segments no longer than tol are
+// dropped and the ends they leave apart are joined, and the loop's last end is joined to its start,
+// by moving a line or curve end point when the gap is within closeTolMM+tol, else by a straight line.
+func closeLoop(segs []geom.Segment, tol float64) geom.Loop {
+	var l geom.Loop
+	for _, s := range segs {
+		if extent(s) <= tol {
+			continue
+		}
+		if len(l) > 0 {
+			l[len(l)-1], s = join(l[len(l)-1], s)
+		}
+		l = append(l, s)
+	}
+	if len(l) == 0 {
+		return nil
+	}
+	if gap := l[len(l)-1].End().Dist(l[0].Start()); gap > closeTolMM+tol {
+		l = append(l, geom.Line(l[len(l)-1].End(), l[0].Start()))
+	}
+	l[len(l)-1], l[0] = join(l[len(l)-1], l[0])
+	return l
+}
+
+// extent is how far the control points of s reach from its start.
+func extent(s geom.Segment) float64 {
+	if s.Kind == geom.KindArc {
+		return max(s.RX, s.RY) * math.Abs(s.Sweep)
+	}
+	d := 0.0
+	for _, p := range s.P[1 : s.Degree()+1] {
+		d = max(d, p.Dist(s.P[0]))
+	}
+	return d
+}
+
+// join makes b start exactly where a ends, moving an end point of a line or Bézier (arcs keep theirs,
+// which must match their centre form); a gap between two arcs is left for the region check to judge.
+func join(a, b geom.Segment) (geom.Segment, geom.Segment) {
+	end := a.End()
+	switch {
+	case end == b.Start():
+	case b.Kind != geom.KindArc:
+		b.P[0] = end
+	case a.Kind != geom.KindArc:
+		a.P[a.Degree()] = b.Start()
+	}
+	return a, b
+}
+
+// chainLoops links boundary pieces end to start into closed loops, leaving out slivers no longer
+// than tol that splitting at intersections can produce.
+func chainLoops(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
+	used := make([]bool, len(pieces))
+	var loops []geom.Loop
+	for i := range pieces {
+		if used[i] {
+			continue
+		}
+		used[i] = true
+		l := geom.Loop{pieces[i]}
+		for last := i; l[len(l)-1].End().Dist(l[0].Start()) > tol; {
+			if last = nextPiece(pieces, used, l[len(l)-1].End(), last+1, tol); last < 0 {
+				return nil, &SVGError{Msg: "the union of the filled shapes does not close into loops"}
+			}
+			used[last] = true
+			l = append(l, pieces[last])
+		}
+		if l = closeLoop(l, tol); len(l) > 0 {
+			loops = append(loops, l)
+		}
+	}
+	return loops, nil
+}
+
+// nextPiece returns the first unused piece that starts within tol of p, trying hint first (pieces
+// usually come in order), or -1.
+func nextPiece(pieces []geom.Segment, used []bool, p geom.Point, hint int, tol float64) int {
+	if hint < len(pieces) && !used[hint] && pieces[hint].Start().Dist(p) <= tol {
+		return hint
+	}
+	for k, s := range pieces {
+		if !used[k] && s.Start().Dist(p) <= tol {
+			return k
+		}
+	}
+	return -1
+}
+
+// paint computes e's paint properties from its parent's p: presentation attributes, then matching
+// style sheet rules, then the style attribute, each overriding the one before (CSS cascade as SVG 2,
+// section 6.4 describes it). shown is false for display: none.
+func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
+	props := map[string]string{}
+	for _, name := range paintProperties {
+		if v, ok := e.attrs[name]; ok {
+			props[name] = v
+		}
+	}
+	for _, rule := range r.matching(e) {
+		maps.Copy(props, rule.decls)
+	}
+	maps.Copy(props, parseDeclarations(e.attrs["style"]))
+	for name, v := range props {
+		v = strings.ToLower(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(v), "!important")))
+		switch {
+		case v == "inherit":
+		case name == "fill":
+			p.fill = v != "none" && v != "transparent"
+		case name == "stroke":
+			p.stroke = v != "none" && v != "transparent"
+		case name == "fill-rule":
+			p.evenOdd = v == "evenodd"
+		case name == "visibility":
+			p.hidden = v == "hidden" || v == "collapse"
+		case name == "display" && v == "none":
+			return p, false
+		}
+	}
+	return p, true
+}
+
+var paintProperties = []string{"fill", "stroke", "fill-rule", "visibility", "display"}

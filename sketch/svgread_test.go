@@ -1,0 +1,311 @@
+package sketch
+
+import (
+	"errors"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"plumb/geom"
+)
+
+// mmSVG wraps SVG content in a root whose user unit is 1 mm.
+func mmSVG(content string) string {
+	return `<svg xmlns="http://www.w3.org/2000/svg" width="200mm" height="200mm" viewBox="0 0 200 200">` +
+		content + `</svg>`
+}
+
+func readSVG(t *testing.T, svg string, reading Reading) (*Document, []string) {
+	t.Helper()
+	d, warnings, err := ReadSVG([]byte(svg), SVGOptions{Reading: reading})
+	if err != nil {
+		t.Fatalf("ReadSVG: %v", err)
+	}
+	return d, warnings
+}
+
+// outlineArea is the area of the part's outline.
+func outlineArea(d *Document) float64 {
+	return d.Outline.Boundary().IntegratePoly(geom.ConstPoly(1)).M
+}
+
+func relClose(a, b, tol float64) bool { return math.Abs(a-b) <= tol*max(1, math.Abs(b)) }
+
+// TestReadSVGUnits reads a unit square of known size in each unit; the expected sizes follow from
+// CSS Values and Units Level 3, section 6.2 (1in = 25.4mm = 96px = 72pt = 6pc), and the viewBox
+// mapping of SVG 2, section 8.2.
+func TestReadSVGUnits(t *testing.T) {
+	tests := []struct {
+		name, root, rect string
+		min, max         geom.Point // mm, y up
+	}{
+		{"inches and viewBox", `width="2in" height="1in" viewBox="0 0 200 100"`, `width="200" height="100"`,
+			geom.Pt(0, -25.4), geom.Pt(50.8, 0)},
+		{"viewBox without size is px", `viewBox="0 0 96 48"`, `width="96" height="48"`,
+			geom.Pt(0, -12.7), geom.Pt(25.4, 0)},
+		{"no viewBox means px", `width="100mm" height="100mm"`, `width="96" height="96"`,
+			geom.Pt(0, -25.4), geom.Pt(25.4, 0)},
+		{"points", `width="72pt" height="72pt" viewBox="0 0 1 1"`, `width="1" height="1"`,
+			geom.Pt(0, -25.4), geom.Pt(25.4, 0)},
+		{"picas", `width="6pc" height="12pc" viewBox="0 0 1 2"`, `width="1" height="2"`,
+			geom.Pt(0, -50.8), geom.Pt(25.4, 0)},
+		{"centimetres, height from the aspect", `width="10cm" viewBox="0 0 10 5"`, `width="10" height="5"`,
+			geom.Pt(0, -50), geom.Pt(100, 0)},
+		{"px lengths", `width="96px" height="96px" viewBox="0 0 96 96"`, `width="48" height="96"`,
+			geom.Pt(0, -25.4), geom.Pt(12.7, 0)},
+		{"lengths with units on the shape", `width="100mm" height="100mm"`, `width="1in" height="10mm"`,
+			geom.Pt(0, -10), geom.Pt(25.4, 0)},
+		{"y flips", `width="200mm" height="200mm" viewBox="0 0 200 200"`, `x="10" y="20" width="30" height="40"`,
+			geom.Pt(10, -60), geom.Pt(40, -20)},
+		{"viewBox origin", `width="20mm" height="20mm" viewBox="-10 -10 20 20"`, `x="-10" y="-10" width="20" height="20"`,
+			geom.Pt(0, -20), geom.Pt(20, 0)},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			svg := `<svg xmlns="http://www.w3.org/2000/svg" ` + tt.root + `><rect ` + tt.rect + `/></svg>`
+			d, _ := readSVG(t, svg, ReadAuto)
+			b := d.Outline.Bounds()
+			if b.Min.Dist(tt.min) > 1e-9 || b.Max.Dist(tt.max) > 1e-9 {
+				t.Errorf("bounds %v – %v, want %v – %v", b.Min, b.Max, tt.min, tt.max)
+			}
+			if d.Units != "mm" {
+				t.Errorf("units %q", d.Units)
+			}
+		})
+	}
+}
+
+// TestReadSVGTransforms checks transforms on groups and shapes, composed from the outermost in
+// (SVG 1.1, section 7.5).
+func TestReadSVGTransforms(t *testing.T) {
+	tests := []struct {
+		name, content string
+		min, max      geom.Point
+	}{
+		{"nested groups", `<g transform="translate(10 0)"><g transform="scale(2)"><rect width="5" height="5"/></g></g>`,
+			geom.Pt(10, -10), geom.Pt(20, 0)},
+		{"rotate about a centre", `<rect width="10" height="2" transform="rotate(90 5 0)"/>`,
+			geom.Pt(3, -5), geom.Pt(5, 5)},
+		{"matrix", `<rect width="10" height="10" transform="matrix(1 0 0 1 30 40)"/>`,
+			geom.Pt(30, -50), geom.Pt(40, -40)},
+		{"skewX", `<rect width="10" height="10" transform="skewX(45)"/>`, geom.Pt(0, -10), geom.Pt(20, 0)},
+		{"skewY", `<rect width="10" height="10" transform="skewY(45)"/>`, geom.Pt(0, -20), geom.Pt(10, 0)},
+		{"group and shape", `<g transform="translate(0 100)"><circle r="10" transform="scale(1 0.5)"/></g>`,
+			geom.Pt(-10, -105), geom.Pt(10, -95)},
+		{"nested svg", `<svg x="10" y="10" width="20" height="20" viewBox="0 0 2 2"><rect width="2" height="1"/></svg>`,
+			geom.Pt(10, -20), geom.Pt(30, -10)},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			d, _ := readSVG(t, mmSVG(tt.content), ReadAuto)
+			b := d.Outline.Bounds()
+			if b.Min.Dist(tt.min) > 1e-9 || b.Max.Dist(tt.max) > 1e-9 {
+				t.Errorf("bounds %v – %v, want %v – %v", b.Min, b.Max, tt.min, tt.max)
+			}
+		})
+	}
+}
+
+// TestReadSVGShapes checks each basic shape by its area (closed forms: rectangle wh; rounded
+// rectangle wh − (4 − π)·rx·ry; circle πr²; ellipse π·rx·ry; triangle bh/2).
+func TestReadSVGShapes(t *testing.T) {
+	tests := []struct {
+		name, content string
+		area          float64
+	}{
+		{"rect", `<rect x="5" y="5" width="10" height="20"/>`, 200},
+		{"rounded rect", `<rect width="10" height="20" rx="2" ry="3"/>`, 200 - (4-math.Pi)*6},
+		{"rounded rect, ry from rx", `<rect width="10" height="20" rx="2"/>`, 200 - (4-math.Pi)*4},
+		{"rounded rect, radii clamped to half the side", `<rect width="10" height="20" rx="8" ry="50"/>`,
+			200 - (4-math.Pi)*50},
+		{"circle", `<circle cx="50" cy="50" r="5"/>`, 25 * math.Pi},
+		{"ellipse", `<ellipse cx="50" cy="50" rx="4" ry="2"/>`, 8 * math.Pi},
+		{"polygon", `<polygon points="0,0 10,0 0,10"/>`, 50},
+		{"polyline is closed for filling", `<polyline points="0 0 10 0 0 10"/>`, 50},
+		{"path with arcs", `<path d="M0 0h20a10 10 0 0 1 -20 0z"/>`, 50 * math.Pi},
+		// The cubic's signed area by ½∮(x dy − y dx) = (1/20)[6 P0×P1 + 3 P0×P2 + P0×P3 + 3 P1×P2 +
+		// 3 P1×P3 + 6 P2×P3] with P0 = 0: (3·(−100) + 3·(−100) + 6·(−100))/20 = −60; the chord adds 0.
+		{"path with cubic", `<path d="M0 0C0 10 10 10 10 0z"/>`, 60},
+		{"zero-size shapes draw nothing", `<rect width="10" height="10"/><rect width="0" height="5"/>` +
+			`<circle r="0"/><line x1="0" y1="0" x2="5" y2="5"/>`, 100},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			d, _ := readSVG(t, mmSVG(tt.content), ReadFilled)
+			if got := outlineArea(d); !relClose(got, tt.area, 1e-9) {
+				t.Errorf("area %v, want %v", got, tt.area)
+			}
+		})
+	}
+}
+
+func TestReadSVGReadings(t *testing.T) {
+	nested := `<path d="M0 0h10v10h-10z M2 2h6v6h-6z" %s/>`
+	nestedReversed := `<path d="M0 0h10v10h-10z M2 2v6h6v-6z"/>`
+	cut := `<g fill="none" stroke="#000">` +
+		`<rect width="100" height="60"/>` + // outline: 6000
+		`<circle cx="50" cy="30" r="20"/>` + // a hole: −400π
+		`<rect x="45" y="25" width="10" height="10"/>` + // an island in the hole: +100
+		`</g>`
+	tests := []struct {
+		name, content string
+		reading       Reading
+		area          float64
+		notes         string
+	}{
+		{"union of filled shapes", `<rect width="20" height="10"/><rect x="10" width="20" height="10"/>`,
+			ReadAuto, 300, "filled drawing"},
+		{"union with a disjoint shape", `<rect width="20" height="10"/><rect x="50" width="10" height="10"/>`,
+			ReadAuto, 300, "filled drawing"},
+		{"evenodd", strings.Replace(nested, "%s", `fill-rule="evenodd"`, 1), ReadAuto, 64, "filled drawing"},
+		{"nonzero, same direction", strings.Replace(nested, "%s", "", 1), ReadAuto, 100, "filled drawing"},
+		{"nonzero, opposite directions", nestedReversed, ReadAuto, 64, "filled drawing"},
+		{"cut file chosen for unfilled strokes", cut, ReadAuto, 6000 - 400*math.Pi + 100, "cut file"},
+		{"cut file forced on a filled drawing", strings.Replace(nested, "%s", "", 1), ReadCutFile, 64, "cut file"},
+		{"style sheet classes", `<style>/* cut lines */ .cut { fill: none; stroke: red } rect.big{stroke-width:1}</style>` +
+			`<rect class="cut" width="10" height="10"/><rect class="cut big" x="2" y="2" width="6" height="6"/>`,
+			ReadAuto, 64, "cut file"},
+		{"style attribute beats presentation attribute", `<rect fill="#000" style="fill:none;stroke:#000" width="10" height="10"/>` +
+			`<rect fill="none" stroke="#000" x="2" y="2" width="6" height="6"/>`, ReadAuto, 64, "cut file"},
+		{"id rule beats class rule", `<style>#a{fill:black} .c{fill:none}</style><rect id="a" class="c" stroke="#000" width="10" height="10"/>` +
+			`<rect class="c" stroke="#000" x="2" y="2" width="6" height="6"/>`, ReadAuto, 100, "filled drawing"},
+		{"hidden shapes skipped", `<rect width="10" height="10"/><rect display="none" x="50" width="10" height="10"/>` +
+			`<g style="visibility:hidden"><rect x="80" width="10" height="10"/></g>`, ReadAuto, 100, "filled drawing"},
+		{"fill inherit", `<g fill="none" stroke="blue"><rect fill="inherit" width="10" height="10"/></g>`, ReadAuto, 100, "cut file"},
+		{"use of a shape", `<defs><rect id="r" width="10" height="10"/></defs><use href="#r"/><use href="#r" x="20"/>`,
+			ReadAuto, 200, "filled drawing"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			d, _ := readSVG(t, mmSVG(tt.content), tt.reading)
+			if got := outlineArea(d); !relClose(got, tt.area, 1e-9) {
+				t.Errorf("area %v, want %v", got, tt.area)
+			}
+			if !strings.Contains(d.Notes, tt.notes) {
+				t.Errorf("notes %q do not mention %q", d.Notes, tt.notes)
+			}
+		})
+	}
+}
+
+func TestReadSVGWarnings(t *testing.T) {
+	svg := mmSVG(`<rect width="10" height="10"/>` +
+		`<image id="logo" href="http://example.com/logo.png" width="5" height="5"/>` +
+		`<inkscape:thing xmlns:inkscape="http://www.inkscape.org/namespaces/inkscape"/>` +
+		`<use href="other.svg#part"/>` +
+		`<path d="M0 50h10" stroke="#000" fill="none"/>` +
+		`<rect clip-path="url(#c)" x="50" width="1" height="1"/>`)
+	_, warnings := readSVG(t, svg, ReadAuto)
+	want := []string{
+		`image#logo (element 3): not a shape Plumb reads; skipped`,
+		`use (element 5): reference "other.svg#part" outside the file is not followed`,
+		`rect (element 7): clip-path is not applied; the shapes are read unclipped`,
+		`1 stroked shapes without fill are left out of the filled drawing`,
+	}
+	if strings.Join(warnings, "\n") != strings.Join(want, "\n") {
+		t.Errorf("warnings\n%s\nwant\n%s", strings.Join(warnings, "\n"), strings.Join(want, "\n"))
+	}
+}
+
+func TestReadSVGErrors(t *testing.T) {
+	tests := []struct {
+		name, svg, want string
+		opt             SVGOptions
+	}{
+		{"open contour in a cut file", mmSVG(`<g fill="none" stroke="#000"><rect width="80" height="50"/>` +
+			`<path id="bracket" d="M10 10 L30 10 L30 30"/></g>`),
+			"path#bracket (element 4): contour 1 is open (its ends are 28.3 mm apart); a cut file needs closed contours",
+			SVGOptions{}},
+		{"text", mmSVG(`<rect width="8" height="8"/><text id="name" x="1" y="1">Bakery</text>`),
+			"text#name (element 3): text is not read: convert text to paths first", SVGOptions{}},
+		{"entities declared", `<?xml version="1.0"?><!DOCTYPE svg [<!ENTITY a "aaaaaaaaaa">]>` + mmSVG(`<rect/>`),
+			"the document type declares entities; Plumb does not expand entities", SVGOptions{}},
+		{"entity used", mmSVG(`<rect id="&a;"/>`), "not well-formed XML: XML syntax error on line 1: invalid character entity &a;",
+			SVGOptions{}},
+		{"size limit", mmSVG(`<rect/>`), "the file is 104 bytes, more than the limit of 50", SVGOptions{MaxBytes: 50}},
+		{"not svg", `<html><body/></html>`, "html (element 1): not an SVG file: the root element is not svg", SVGOptions{}},
+		{"not xml", `{"format": "plumb-part"}`, "not an SVG file: no root element", SVGOptions{}},
+		{"bad path", mmSVG(`<path id="p" d="M0 0 L x"/>`),
+			"path#p (element 2), attribute d: col 8: expected a number, found 'x'", SVGOptions{}},
+		{"bad transform", mmSVG(`<g transform="rotate(1 2)"><rect width="1" height="1"/></g>`),
+			"g (element 2), attribute transform: col 8: rotate takes 1 or 3 numbers, found 2", SVGOptions{}},
+		{"negative width", mmSVG(`<rect width="-1" height="2"/>`),
+			"rect (element 2), attribute width: must not be negative", SVGOptions{}},
+		{"odd points", mmSVG(`<polygon points="0 0 1 1 2"/>`),
+			"polygon (element 2), attribute points: odd number of coordinates (5)", SVGOptions{}},
+		{"relative length", mmSVG(`<rect width="50%" height="2"/>`),
+			`rect (element 2), attribute width: col 3: unit "%" is not an absolute length (use mm, cm, in, pt, pc or px)`,
+			SVGOptions{}},
+		{"bad viewBox", `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 0 10"><rect/></svg>`,
+			"svg (element 1), attribute viewBox: col 1: width and height must be positive", SVGOptions{}},
+		{"nothing visible", mmSVG(`<rect fill="none" width="5" height="5"/>`), "no visible shapes in the drawing", SVGOptions{}},
+		{"filled reading of strokes", mmSVG(`<rect fill="none" stroke="#000" width="5" height="5"/>`),
+			"no filled shape encloses any area", SVGOptions{Reading: ReadFilled}},
+		{"self reference", mmSVG(`<use id="u" href="#u"/>`),
+			"use#u (element 2), attribute href: use references nest too deep (or refer to themselves)", SVGOptions{}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, _, err := ReadSVG([]byte(tt.svg), tt.opt)
+			var se *SVGError
+			if !errors.As(err, &se) {
+				t.Fatalf("error %v is not an *SVGError", err)
+			}
+			if err.Error() != tt.want {
+				t.Errorf("error\n%q\nwant\n%q", err, tt.want)
+			}
+		})
+	}
+}
+
+// TestReadSVGTestdata reads every SVG in the repository's testdata and checks that each part has
+// material, and that the filled and cut-file drawings of one part agree on its area.
+func TestReadSVGTestdata(t *testing.T) {
+	files, err := filepath.Glob("../testdata/*.svg")
+	if err != nil {
+		t.Fatal(err)
+	}
+	areas := map[string]float64{}
+	for _, f := range files {
+		data, err := os.ReadFile(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		d, _, err := ReadSVG(data, SVGOptions{Name: filepath.Base(f)})
+		if err != nil {
+			t.Errorf("%s: %v", f, err)
+			continue
+		}
+		a := outlineArea(d)
+		if !(a > 0) {
+			t.Errorf("%s: area %v", f, a)
+		}
+		base := strings.TrimSuffix(strings.TrimSuffix(strings.TrimSuffix(filepath.Base(f), ".svg"), "-filled"), "-cut")
+		if prev, ok := areas[base]; ok && !relClose(a, prev, 1e-6) {
+			t.Errorf("%s: area %v differs from the other drawing's %v", f, a, prev)
+		}
+		areas[base] = a
+	}
+}
+
+func FuzzReadSVG(f *testing.F) {
+	f.Add([]byte(mmSVG(`<path d="M0 0h20a10 10 0 0 1 -20 0z"/><rect x="30" width="10" height="10" rx="2"/>`)))
+	f.Add([]byte(mmSVG(`<g fill="none" stroke="#000" transform="rotate(30) skewX(10)"><circle r="20"/>` +
+		`<ellipse rx="5" ry="3"/><polygon points="-2,-2 2,-2 0,2"/></g>`)))
+	f.Add([]byte(mmSVG(`<style>.a{fill:none;stroke:#000}</style><path class="a" d="M0 0Q5 5 10 0T20 0C25 5 30 5 30 0S35 -5 40 0z"/>`)))
+	f.Fuzz(func(t *testing.T, data []byte) {
+		d, _, err := ReadSVG(data, SVGOptions{})
+		if err != nil {
+			var se *SVGError
+			if !errors.As(err, &se) {
+				t.Fatalf("error %v is not an *SVGError", err)
+			}
+			return
+		}
+		if _, err := d.Outline.Check(); err != nil {
+			t.Fatalf("ReadSVG returned an invalid outline: %v", err)
+		}
+	})
+}
