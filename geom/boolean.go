@@ -40,7 +40,13 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	if keep == nil {
 		panic("geom: Combine needs a keep function")
 	}
-	var ms monos
+	n := 0
+	for _, r := range regions {
+		for _, l := range r.Loops {
+			n += len(l)
+		}
+	}
+	ms := make(monos, 0, 2*n) // most segments have at most one turning point
 	for ri, r := range regions {
 		for _, l := range r.Loops {
 			ms = appendMonos(ms, l, ri)
@@ -55,10 +61,11 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	}
 	tol := tolerance(box)
 	c := newClassifier(ms, regions, keep, box, tol)
-	var kept []keptPiece
-	cuts := cutList(findHits(ms, tol, nil))
+	kept := make([]keptPiece, 0, len(ms))
+	cuts := cutList(ms, findHits(ms, tol, nil))
+	var here []float64
 	for i := range ms {
-		var here []float64
+		here = here[:0]
 		for len(cuts) > 0 && cuts[0].mono == i {
 			here = append(here, cuts[0].t)
 			cuts = cuts[1:]
@@ -74,11 +81,15 @@ type cut struct {
 	t    float64
 }
 
-// cutList returns the cuts the hits call for, ordered by piece and parameter.
-func cutList(hits []hit) []cut {
-	cs := make([]cut, 0, 2*len(hits))
+// cutList returns the cuts the hits call for inside the pieces, ordered by piece and parameter.
+func cutList(ms monos, hits []hit) []cut {
+	var cs []cut
 	for _, h := range hits {
-		cs = append(cs, cut{h.i, h.ti}, cut{h.j, h.tj})
+		for _, c := range [2]cut{{h.i, h.ti}, {h.j, h.tj}} {
+			if m := &ms[c.mono]; c.t != m.t0 && c.t != m.t1 {
+				cs = append(cs, c)
+			}
+		}
 	}
 	slices.SortFunc(cs, func(a, b cut) int {
 		return cmp.Or(cmp.Compare(a.mono, b.mono), cmp.Compare(a.t, b.t))
@@ -92,10 +103,12 @@ type classifier struct {
 	rules []FillRule
 	keep  func([]bool) bool
 	index yIndex
-	w     []int
-	in    []bool
-	tol   float64
-	side  float64
+	w     []int  // winding number by region, zero outside kept
+	in    []bool // membership by region, false outside kept
+	// touched lists the regions whose winding kept has changed.
+	touched []int
+	tol     float64
+	side    float64
 }
 
 func newClassifier(ms monos, regions []Region, keep func([]bool) bool, box Rect, tol float64) *classifier {
@@ -126,15 +139,21 @@ func (c *classifier) pieces(i int, ts []float64, dst []keptPiece) []keptPiece {
 				continue
 			}
 		}
-		dst = c.piece(m, u0, u1, q0, q1, dst)
+		dst = c.piece(i, u0, u1, q0, q1, dst)
 		u0, q0 = u1, q1
 	}
 	return dst
 }
 
-// piece appends the part of m over [u0, u1] (from q0 to q1) if keep differs on its two sides, with the
-// kept side on its left.
-func (c *classifier) piece(m *mono, u0, u1 float64, q0, q1 Point, dst []keptPiece) []keptPiece {
+// piece appends the part of mono i over [u0, u1] (from q0 to q1) if keep differs on its two sides,
+// with the kept side on its left.
+//
+// The probes lie a distance h beside the midpoint, along the normal n = (−T.y, T.x)/|T| to the tangent
+// T. The piece's own crossing of the probe's ray needs no root: to first order in h the piece meets
+// the horizontal through the left probe at x − x_mid = h·T.x²/(T.y·|T|), right of the probe
+// (at −h·T.y/|T|) exactly when T.y > 0, an upward crossing; the right probe is mirrored.
+func (c *classifier) piece(i int, u0, u1 float64, q0, q1 Point, dst []keptPiece) []keptPiece {
+	m := &c.ms[i]
 	um := (u0 + u1) / 2
 	mid, tan := m.s.At(um), m.s.Deriv(um)
 	if tan.Norm() == 0 {
@@ -142,7 +161,13 @@ func (c *classifier) piece(m *mono, u0, u1 float64, q0, q1 Point, dst []keptPiec
 	}
 	side := math.Max(math.Min(c.side, q0.Dist(q1)/4), 2*c.tol)
 	n := Point{-tan.Y, tan.X}.Mul(side / tan.Norm())
-	left, right := c.kept(mid.Add(n)), c.kept(mid.Sub(n))
+	up, down := 0, 0
+	if tan.Y > 0 {
+		up = 1
+	} else if tan.Y < 0 {
+		down = -1
+	}
+	left, right := c.kept(mid.Add(n), i, up), c.kept(mid.Sub(n), i, down)
 	if left == right {
 		return dst
 	}
@@ -156,17 +181,39 @@ func (c *classifier) piece(m *mono, u0, u1 float64, q0, q1 Point, dst []keptPiec
 	return append(dst, keptPiece{s, mid})
 }
 
-// kept reports whether keep holds at p.
-func (c *classifier) kept(p Point) bool {
-	clear(c.w)
+// kept reports whether keep holds at p, a probe beside mono own whose crossing of p's ray, if p is
+// within its y range, is ownCross.
+func (c *classifier) kept(p Point, own, ownCross int) bool {
+	c.touched = c.touched[:0]
 	for _, k := range c.index.at(p.Y) {
 		m := &c.ms[k]
-		c.w[m.region] += monoWinding(m.s, m.t0, m.t1, m.a, m.b, p)
+		if p.Y < m.box.Min.Y || p.Y > m.box.Max.Y || p.X > m.box.Max.X {
+			continue // the ray misses m, or both its ends lie on one side (step 0)
+		}
+		var w int
+		switch {
+		case p.X < m.box.Min.X:
+			w = step(m.a, m.b, p)
+		case int(k) != own:
+			w = monoWinding(m.s, m.t0, m.t1, m.a, m.b, p)
+		case step(m.a, m.b, p) != 0:
+			w = ownCross
+		}
+		if w != 0 {
+			if c.w[m.region] == 0 {
+				c.touched = append(c.touched, m.region)
+			}
+			c.w[m.region] += w
+		}
 	}
-	for r, w := range c.w {
-		c.in[r] = c.rules[r].inside(w)
+	for _, r := range c.touched {
+		c.in[r] = c.rules[r].inside(c.w[r])
 	}
-	return c.keep(c.in)
+	k := c.keep(c.in)
+	for _, r := range c.touched {
+		c.w[r], c.in[r] = 0, false
+	}
+	return k
 }
 
 // dedupe returns the pieces, dropping those that run along an earlier one within tol (start, end and
@@ -209,7 +256,7 @@ type yIndex struct {
 }
 
 func newYIndex(ms monos, box Rect) yIndex {
-	n := min(max(1, 2*int(math.Sqrt(float64(len(ms))))), 4096)
+	n := min(max(1, 4*int(math.Sqrt(float64(len(ms))))), 4096)
 	x := yIndex{y0: box.Min.Y, h: (box.Max.Y - box.Min.Y) / float64(n), start: make([]int32, n+1)}
 	if !(x.h > 0) {
 		x.h, n = 1, 1

@@ -2,6 +2,8 @@ package geom
 
 import (
 	"math"
+	"math/rand/v2"
+	"slices"
 	"testing"
 )
 
@@ -211,4 +213,55 @@ func TestCombineNeedsKeep(t *testing.T) {
 		}
 	}()
 	Combine(nil, Disk(Pt(0, 0), 1))
+}
+
+// signPlate returns a 1200 × 800 rounded plate and n cut-outs on a jittered grid: round holes and
+// slots, some crossing the plate's edge, some overlapping their neighbours (a perforated sign panel).
+func signPlate(n int) (Region, []Region) {
+	rng := rand.New(rand.NewPCG(1, 2))
+	plate := loopRegion(RoundedRect(Pt(0, 0), Pt(1200, 800), 60))
+	cuts := make([]Region, n)
+	for k := range cuts {
+		c := Pt(float64(k%20)*62+15+rng.Float64()*20, float64(k/20)*85+10+rng.Float64()*20)
+		if k%7 == 3 {
+			cuts[k] = loopRegion(RoundedRect(c.Sub(Pt(20, 8)), c.Add(Pt(20, 8)), 8))
+			continue
+		}
+		cuts[k] = Disk(c, 18+rng.Float64()*14)
+	}
+	return plate, cuts
+}
+
+// TestManyCutOutsPartition checks the sign plate: the plate minus its cut-outs and the plate's part
+// under the cut-outs add up to the plate, in area and every moment.
+func TestManyCutOutsPartition(t *testing.T) {
+	plate, cuts := signPlate(200)
+	all := append([]Region{plate}, cuts...)
+	under := func(in []bool) bool { return in[0] && slices.Contains(in[1:], true) }
+	rest := unitMoments(Difference(plate, cuts...))
+	cut := unitMoments(Combine(under, all...))
+	whole := unitMoments(plate.Boundary())
+	if !momentsNear(rest.Add(cut), whole, 1200, 1e-12) {
+		t.Errorf("rest + cut = %+v, plate = %+v", rest.Add(cut), whole)
+	}
+	if rest.M > 0.9*whole.M || rest.M < 0.5*whole.M {
+		t.Errorf("cut-outs remove %.1f%% of the plate; the fixture should remove 10–50%%", 100*(1-rest.M/whole.M))
+	}
+}
+
+// BenchmarkManyCutOuts combines the sign plate with 200 cut-outs (goal: under 5 ms with the moments).
+func BenchmarkManyCutOuts(b *testing.B) {
+	plate, cuts := signPlate(200)
+	b.Run("Combine", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			Difference(plate, cuts...)
+		}
+	})
+	b.Run("Combine+IntegratePoly", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			unitMoments(Difference(plate, cuts...))
+		}
+	})
 }
