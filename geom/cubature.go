@@ -298,16 +298,17 @@ func (c *cubature) grid(s Segment, no, ni, np int) (rawMoments, error) {
 	outer, inner := gaussLegendre(no), gaussLegendre(ni)
 	n := no * ni * np
 	c.grow(n, no)
+	e := s.evaluator()
 	i := 0
 	for k, t := range outer.t {
-		p := s.At(t)
-		span := (p.X - c.base) / float64(np)
-		c.vs[k], c.ws[k] = p.Y, outer.w[k]*s.Deriv(t).Y*span
+		x, y, dy := e.at(t)
+		span := (x - c.base) / float64(np)
+		c.vs[k], c.ws[k] = y, outer.w[k]*dy*span
 		for panel := range np {
 			left := c.base + span*float64(panel)
 			for _, tau := range inner.t {
 				u := left + span*tau
-				c.us[i], c.xs[i], c.ys[i] = u, c.c.X+u, c.c.Y+p.Y
+				c.us[i], c.xs[i], c.ys[i] = u, c.c.X+u, c.c.Y+y
 				i++
 			}
 		}

@@ -44,7 +44,8 @@
 //
 // Far from the origin the moments about the origin lose digits to cancellation (C. Steger, "On the
 // calculation of arbitrary moments of polygons", TR FGBV-96-05, 1996). The integrators therefore work about
-// a local origin (the centre of the bounding box) and move the result back with the parallel-axis terms
-// (Moments.Translate), so a part 5·10⁹ units away keeps its centroid offset and central moments to about
-// 1e-9 relative.
+// a local origin near the body (the first boundary point for the exact integration, the bounding-box
+// centre for the cubature) and move the result back with the parallel-axis terms; Moments keeps the local
+// values too, so a part 5·10⁹ units away keeps its centroid offset (Moments.CentroidFrom) and central
+// moments to about 1e-12 relative.
 package geom

@@ -5,37 +5,80 @@ import "math"
 // IntegratePoly returns the moments of the polynomial density p over the region that b bounds, exact
 // up to rounding. Each piece contributes ∫ x^(i+1)/(i+1)·y^j·y'(t) dt per monomial (Green's theorem, see
 // the package documentation), integrated by Gauss–Legendre rules that are exact for Béziers and below
-// rounding for arcs. The work is done about the centre of the pieces' control-point box and shifted back.
+// rounding for arcs. For a constant density, lines use the closed-form triangle-fan terms instead (see
+// fanSums), the fastest exact form, and the other pieces are converted to the same form.
+//
+// The work is done about a local origin, the start of the first piece, and shifted back (Moments keeps
+// the local values). Any point within the part's extent serves: it bounds the local coordinates by the
+// part's size, so rounding does not grow with the part's distance from the origin, and unlike the
+// bounding-box centre it needs no extra pass over the pieces.
 func (b Boundary) IntegratePoly(p Poly) Moments {
 	p.check()
 	if len(b.Pieces) == 0 {
 		return Moments{}
 	}
-	c := b.controlBox().Center()
+	c := b.Pieces[0].Start()
 	acc := newGreenSums(p.Deg + 2)
-	for _, s := range b.Pieces {
-		acc.segment(s.translated(c.Mul(-1)))
+	var fan fanSums
+	for i := range b.Pieces {
+		s := &b.Pieces[i]
+		if acc.deg > 2 {
+			acc.segment(s.translated(c.Mul(-1)))
+			continue
+		}
+		if s.Kind == KindLine {
+			fan.add(s.P[0].Sub(c), s.P[1].Sub(c))
+			continue
+		}
+		local := s.translated(c.Mul(-1))
+		acc.segment(local)
+		acc.fanCorrection(local.Start(), local.End())
 	}
+	fan.addTo(acc)
 	return momentsAbout(c, acc.moments(p.Shift(c)))
 }
 
-// controlBox returns a box holding every piece: the box of the Bézier control points, and of each
-// arc's ellipse.
-func (b Boundary) controlBox() Rect {
-	r := EmptyRect()
-	for _, s := range b.Pieces {
-		r = r.Union(s.controlBox())
+// PolygonMoments returns the moments of the uniform unit density over the polygon through pts (closed
+// automatically; counter-clockwise for positive area). It equals IntegratePoly(ConstPoly(1)) on
+// Polygon(pts...) without building segments; the local origin is pts[0].
+func PolygonMoments(pts []Point) Moments {
+	if len(pts) == 0 {
+		return Moments{}
 	}
-	return r
+	c := pts[0]
+	var fan fanSums
+	prev := Point{}
+	for _, q := range pts[1:] {
+		q = q.Sub(c)
+		fan.add(prev, q)
+		prev = q
+	}
+	acc := newGreenSums(2)
+	fan.addTo(acc)
+	return momentsAbout(c, acc.moments(ConstPoly(1)))
 }
 
-// controlBox returns a box holding s: its control points' box, or its whole ellipse's.
-func (s Segment) controlBox() Rect {
-	if s.Kind == KindArc {
-		rad := math.Max(math.Abs(s.RX), math.Abs(s.RY))
-		return Rect{s.C.Sub(Pt(rad, rad)), s.C.Add(Pt(rad, rad))}
+// fanSums accumulates the moments of the triangles (O, P0, P1) over straight edges, O the local origin
+// (C. Steger, "On the calculation of arbitrary moments of polygons", TR FGBV-96-05, 1996): with
+// k = x0·y1 − x1·y0, A = Σk/2, ∬x = Σk(x0+x1)/6, ∬y = Σk(y0+y1)/6, ∬x² = Σk(x0²+x0x1+x1²)/12,
+// ∬xy = Σk(2x0y0+x0y1+x1y0+2x1y1)/24, ∬y² = Σk(y0²+y0y1+y1²)/12. The fields hold the sums before division.
+type fanSums struct{ a, x, y, xx, xy, yy float64 }
+
+func (f *fanSums) add(p, q Point) {
+	k := p.X*q.Y - q.X*p.Y
+	f.a += k
+	f.x += k * (p.X + q.X)
+	f.y += k * (p.Y + q.Y)
+	f.xx += k * (p.X*p.X + p.X*q.X + q.X*q.X)
+	f.xy += k * (2*p.X*p.Y + p.X*q.Y + q.X*p.Y + 2*q.X*q.Y)
+	f.yy += k * (p.Y*p.Y + p.Y*q.Y + q.Y*q.Y)
+}
+
+// addTo adds the triangle-fan moments to g (degree 2) as its (a+1)·∬u^a·v^b sums.
+func (f *fanSums) addTo(g *greenSums) {
+	for i, v := range [6]float64{f.a / 2, f.x / 3, f.y / 6, f.xx / 4, f.xy / 12, f.yy / 12} {
+		g.sums[i] += v
 	}
-	return RectFromPoints(s.P[:s.Degree()+1]...)
 }
 
 // translated returns s moved by d. Unlike Transform it keeps the arc's radii and angles bit for bit;
@@ -64,38 +107,68 @@ func newGreenSums(deg int) *greenSums {
 
 // segment adds the contribution of s.
 func (g *greenSums) segment(s Segment) {
+	e := s.evaluator()
 	if s.Kind != KindArc {
-		g.rule(s, gaussLegendre((s.Degree()*(g.deg+2)+1)/2))
+		g.rule(&e, gaussLegendre((s.Degree()*(g.deg+2)+1)/2))
 		return
 	}
 	k, n := arcPieces(s, g.deg+2)
+	e.sweep = s.Sweep / float64(k)
 	for i := range k {
-		g.rule(arcPiece(s, i, k), gaussLegendre(n))
+		e.theta = s.Theta + float64(i)*e.sweep
+		g.rule(&e, gaussLegendre(n))
 	}
 }
 
-// rule adds Σ w_k·u^(a+1)·v^b·v'(t_k) over the nodes of r on s.
-func (g *greenSums) rule(s Segment, r glRule) {
+// rule adds Σ w_k·u^(a+1)·v^b·v'(t_k) over the nodes of r on the curve e.
+func (g *greenSums) rule(e *evaluator, r glRule) {
 	for k, t := range r.t {
-		p := s.At(t)
-		g.node(p.X, p.Y, r.w[k]*s.Deriv(t).Y)
+		u, v, dv := e.at(t)
+		g.node(u, v, r.w[k]*dv)
 	}
 }
 
 // node adds w·u^(a+1)·v^b for every monomial.
 func (g *greenSums) node(u, v, w float64) {
-	g.up[0], g.vp[0] = u*w, 1
-	for k := 1; k < len(g.up); k++ {
-		g.up[k] = g.up[k-1] * u
-	}
-	for k := 1; k < len(g.vp); k++ {
-		g.vp[k] = g.vp[k-1] * v
-	}
+	g.powers(u, v, w)
+	up, vp, sums := g.up, g.vp, g.sums
 	i := 0
-	for d := 0; d <= g.deg; d++ {
-		for b := 0; b <= d; b++ {
-			g.sums[i] += g.up[d-b] * g.vp[b]
+	for d := range vp {
+		for b, vb := range vp[:d+1] {
+			sums[i] += up[d-b+1] * vb
 			i++
+		}
+	}
+}
+
+// powers sets up[k] = w·u^k and vp[k] = v^k.
+func (g *greenSums) powers(u, v, w float64) {
+	up, vp := g.up, g.vp
+	up[0], vp[0] = w, 1
+	for k := 1; k < len(up); k++ {
+		up[k] = up[k-1] * u
+	}
+	for k := 1; k < len(vp); k++ {
+		vp[k] = vp[k-1] * v
+	}
+}
+
+// fanCorrection turns the Green sums of a piece from start to end into its triangle-fan sums (over
+// the region swept from the local origin O), so that pieces of both kinds add up: the fan of a piece is
+// its Green integral plus those of the straight edges O→start and end→O, and along O→P the integral
+// ∫ u^(a+1)·v^b dv is Px^(a+1)·Py^(b+1)/(a+b+2).
+func (g *greenSums) fanCorrection(start, end Point) {
+	for _, e := range [2]struct {
+		p    Point
+		sign float64
+	}{{start, 1}, {end, -1}} {
+		g.powers(e.p.X, e.p.Y, e.sign*e.p.Y)
+		i := 0
+		for d := range g.vp {
+			for b, vb := range g.vp[:d+1] {
+				g.sums[i] += g.up[d-b+1] * vb / float64(d+2)
+				i++
+			}
 		}
 	}
 }

@@ -305,11 +305,15 @@ func TestIntegratePolyAgainstOrb(t *testing.T) {
 	rng := rand.New(rand.NewPCG(5, 6))
 	for trial := range 50 {
 		pts, ring := randomStarPolygon(rng, 3+rng.IntN(60), Pt(rng.Float64()*1e4, rng.Float64()*1e4))
-		m := bnd(Polygon(pts...)).IntegratePoly(ConstPoly(1))
 		c, a := planar.CentroidArea(orb.Polygon{ring})
 		size := math.Sqrt(a)
-		if !near(m.M, a, 1e-12, 0) || m.Centroid().Dist(Pt(c[0], c[1])) > 1e-12*size {
-			t.Errorf("trial %d: area %v centroid %v, orb %v %v", trial, m.M, m.Centroid(), a, c)
+		for name, m := range map[string]Moments{
+			"IntegratePoly":  bnd(Polygon(pts...)).IntegratePoly(ConstPoly(1)),
+			"PolygonMoments": PolygonMoments(pts),
+		} {
+			if !near(m.M, a, 1e-12, 0) || m.Centroid().Dist(Pt(c[0], c[1])) > 1e-12*size {
+				t.Errorf("trial %d, %s: area %v centroid %v, orb %v %v", trial, name, m.M, m.Centroid(), a, c)
+			}
 		}
 	}
 }
@@ -332,6 +336,19 @@ func randomStarPolygon(rng *rand.Rand, n int, c Point) ([]Point, orb.Ring) {
 func TestIntegratePolyEmpty(t *testing.T) {
 	if m := (Boundary{}).IntegratePoly(ConstPoly(1)); m != (Moments{}) {
 		t.Errorf("empty boundary gives %+v", m)
+	}
+	if m := PolygonMoments(nil); m != (Moments{}) {
+		t.Errorf("empty polygon gives %+v", m)
+	}
+}
+
+// TestPolygonMomentsMatchesIntegratePoly checks all six moments, far from the origin too.
+func TestPolygonMomentsMatchesIntegratePoly(t *testing.T) {
+	rng := rand.New(rand.NewPCG(11, 12))
+	for _, c := range []Point{Pt(0, 0), Pt(-300, 40), Pt(5e9, -5e9)} {
+		pts, _ := randomStarPolygon(rng, 40, c)
+		got, want := PolygonMoments(pts), bnd(Polygon(pts...)).IntegratePoly(ConstPoly(1))
+		momentsAgree(t, "polygon", got, want.Translate(c.Mul(-1)), c, 1e-13)
 	}
 }
 

@@ -27,10 +27,7 @@ func (r Rect) IsEmpty() bool { return r.Min.X > r.Max.X || r.Min.Y > r.Max.Y }
 
 // Extend returns the smallest rectangle holding r and p.
 func (r Rect) Extend(p Point) Rect {
-	return Rect{
-		Point{math.Min(r.Min.X, p.X), math.Min(r.Min.Y, p.Y)},
-		Point{math.Max(r.Max.X, p.X), math.Max(r.Max.Y, p.Y)},
-	}
+	return Rect{Point{min(r.Min.X, p.X), min(r.Min.Y, p.Y)}, Point{max(r.Max.X, p.X), max(r.Max.Y, p.Y)}}
 }
 
 // Union returns the smallest rectangle holding r and s.

@@ -396,3 +396,49 @@ func SVGArc(from Point, rx, ry, phiDeg float64, largeArc, sweep bool, to Point) 
 	s.P[0], s.P[1] = from, to
 	return s, true
 }
+
+// evaluator gives a segment's point and y-derivative at many parameters cheaply, for the integrators:
+// lines and Béziers in power form x(t) = Σ cx[k]·t^k, arcs as P(θ) = c + ax·cos θ + ay·sin θ.
+type evaluator struct {
+	arc          bool
+	cx, cy       [4]float64
+	c, ax, ay    Point
+	theta, sweep float64
+}
+
+// evaluator returns the evaluator of s.
+func (s Segment) evaluator() evaluator {
+	if s.Kind == KindArc {
+		sp, cp := math.Sincos(s.Rot)
+		return evaluator{arc: true, c: s.C, ax: Pt(s.RX*cp, s.RX*sp), ay: Pt(-s.RY*sp, s.RY*cp),
+			theta: s.Theta, sweep: s.Sweep}
+	}
+	var e evaluator
+	p := s.P
+	switch s.Kind {
+	case KindLine:
+		e.cx = [4]float64{p[0].X, p[1].X - p[0].X}
+		e.cy = [4]float64{p[0].Y, p[1].Y - p[0].Y}
+	case KindQuad:
+		e.cx = [4]float64{p[0].X, 2 * (p[1].X - p[0].X), p[0].X - 2*p[1].X + p[2].X}
+		e.cy = [4]float64{p[0].Y, 2 * (p[1].Y - p[0].Y), p[0].Y - 2*p[1].Y + p[2].Y}
+	case KindCubic:
+		e.cx = [4]float64{p[0].X, 3 * (p[1].X - p[0].X), 3 * (p[0].X - 2*p[1].X + p[2].X),
+			p[3].X - 3*p[2].X + 3*p[1].X - p[0].X}
+		e.cy = [4]float64{p[0].Y, 3 * (p[1].Y - p[0].Y), 3 * (p[0].Y - 2*p[1].Y + p[2].Y),
+			p[3].Y - 3*p[2].Y + 3*p[1].Y - p[0].Y}
+	}
+	return e
+}
+
+// at returns x(t), y(t) and y'(t).
+func (e *evaluator) at(t float64) (x, y, dy float64) {
+	if e.arc {
+		sn, cs := math.Sincos(e.theta + t*e.sweep)
+		return e.c.X + e.ax.X*cs + e.ay.X*sn, e.c.Y + e.ax.Y*cs + e.ay.Y*sn, e.sweep * (e.ay.Y*cs - e.ax.Y*sn)
+	}
+	x = e.cx[0] + t*(e.cx[1]+t*(e.cx[2]+t*e.cx[3]))
+	y = e.cy[0] + t*(e.cy[1]+t*(e.cy[2]+t*e.cy[3]))
+	dy = e.cy[1] + t*(2*e.cy[2]+t*3*e.cy[3])
+	return x, y, dy
+}

@@ -267,3 +267,16 @@ func TestKindString(t *testing.T) {
 		t.Error(KindCubic.String(), Kind(9).String())
 	}
 }
+
+func TestSegmentEvaluator(t *testing.T) {
+	for _, tt := range testSegments {
+		e := tt.s.evaluator()
+		for _, u := range []float64{0, 0.21, 0.5, 0.93, 1} {
+			x, y, dy := e.at(u)
+			p, d := tt.s.At(u), tt.s.Deriv(u)
+			if !nearPt(Pt(x, y), p, 1e-13) || !near(dy, d.Y, 1e-13, d.Norm()) {
+				t.Errorf("%s at %v: (%v, %v, %v), want %v, %v", tt.name, u, x, y, dy, p, d.Y)
+			}
+		}
+	}
+}
