@@ -1,0 +1,297 @@
+package sketch
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// AnalyzeOptions tune the integration of densities that are not polynomials.
+type AnalyzeOptions struct {
+	Tol      float64 // requested relative accuracy; 0 means geom's default (1e-10)
+	MaxEvals int     // work limit in density evaluations per region; 0 means geom's default
+}
+
+// Analysis holds the mass properties of a part. Lengths are in the document unit, masses in kg.
+type Analysis struct {
+	Area, Mass, WeightN, WeightLbf float64
+	Centroid                       geom.Point
+	Origin                         geom.Moments // mass moments about the document origin (kg, kg·unit, kg·unit²)
+	Ixx, Iyy, Ixy                  float64      // about the centroid, kg·unit²
+	I1, I2, AngleDeg               float64      // central principal moments; axis of I1 from +x, degrees in (−90, 90]
+	Kx, Ky                         float64      // radii of gyration, sqrt(Ixx/Mass), sqrt(Iyy/Mass)
+	RelErr                         float64      // estimated relative error of the integrals (0 when exact)
+	LimitHit                       bool         // the work limit stopped refinement before Tol was met
+	Materials                      []string     // the base density, then each overlay's, described for reports
+	Warnings                       []string
+	Cautions                       []string
+	Body                           geom.Boundary // the material of the part (outline minus cut-outs)
+}
+
+// Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
+// pound-force, 1 lbf = 0.45359237 kg × g0 = 4.4482216152605 N (NIST SP 811, appendix B).
+const (
+	standardGravity = 9.80665
+	newtonsPerLbf   = 4.4482216152605
+)
+
+// Cautions returns the statements every report of Plumb's results carries.
+func Cautions() []string {
+	return []string{
+		"Results are geometry estimates from the drawing and the stated material; real parts vary with " +
+			"sheet tolerance, cut quality, coatings and fixings.",
+		"Hardware ratings, fixings and overhead signs follow local codes and the judgement of a licensed " +
+			"engineer. Never hang a part over people on the strength of a computed number alone.",
+	}
+}
+
+// Body returns the boundary of the part's material: the outline minus every cut-out.
+func (d *Document) Body() geom.Boundary {
+	return geom.Combine(outlineMinusCutouts, d.regions()...)
+}
+
+// regions lists the outline followed by the cut-outs, the order outlineMinusCutouts expects.
+func (d *Document) regions() []geom.Region {
+	return append([]geom.Region{d.Outline}, d.Cutouts...)
+}
+
+// outlineMinusCutouts keeps the points in the outline (in[0]) and in no cut-out (in[1:]).
+func outlineMinusCutouts(in []bool) bool {
+	if !in[0] {
+		return false
+	}
+	for _, c := range in[1:] {
+		if c {
+			return false
+		}
+	}
+	return true
+}
+
+// onOverlay keeps the points of the part's material that the overlay (the last region) covers.
+func onOverlay(in []bool) bool {
+	n := len(in) - 1
+	return in[n] && outlineMinusCutouts(in[:n])
+}
+
+// lengthUnit returns the document's length unit (millimetres when unset).
+func (d *Document) lengthUnit() (density.Length, error) {
+	name := d.Units
+	if name == "" {
+		name = "mm"
+	}
+	u, err := density.LengthUnit(name)
+	if err != nil {
+		return density.Length{}, &PathError{Path: "units", Msg: err.Error()}
+	}
+	return u, nil
+}
+
+// Analyze computes the mass properties of the part: its material is the outline minus the cut-outs
+// with the base density, and each overlay adds its own density where it lies on that material.
+// Constant and polynomial densities are integrated exactly; any other density adaptively, with the
+// error estimate reported in RelErr. A density that is negative, infinite or NaN on the part is an
+// error naming the point in document units.
+func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return nil, err
+	}
+	a := &Analysis{Cautions: Cautions()}
+	if err := a.checkRegions(d); err != nil {
+		return nil, err
+	}
+	regions := d.regions()
+	a.Body = geom.Combine(outlineMinusCutouts, regions...)
+	a.Area = a.Body.IntegratePoly(geom.ConstPoly(1)).M
+	if a.Body.IsEmpty() || a.Area <= 0 {
+		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
+	}
+	total, err := a.addDensity(a.Body, d.Material, "material", unit, opt)
+	if err != nil {
+		return nil, err
+	}
+	for i, ov := range d.Overlays {
+		path := fmt.Sprintf("overlays[%d]", i)
+		b := geom.Combine(onOverlay, append(regions, ov.Region)...)
+		if b.IsEmpty() {
+			a.Warnings = append(a.Warnings, fmt.Sprintf("%s (%s) does not lie on the part's material", path, overlayName(ov, i)))
+			continue
+		}
+		m, err := a.addDensity(b, ov.Material, path+".material", unit, opt)
+		if err != nil {
+			return nil, err
+		}
+		total = total.Add(m)
+	}
+	if err := a.setMoments(total); err != nil {
+		return nil, err
+	}
+	return a, nil
+}
+
+// checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings. Problems
+// are reported at their JSON path, as in "cutouts[1].loops[0].segments[3]: arc radius is 0 or negative".
+func (a *Analysis) checkRegions(d *Document) error {
+	check := func(path string, r geom.Region) error {
+		warnings, err := r.Check()
+		for _, w := range warnings {
+			a.Warnings = append(a.Warnings, validationPath(path, w)+": "+w.Msg)
+		}
+		var ve *geom.ValidationError
+		if errors.As(err, &ve) {
+			return &PathError{Path: validationPath(path, ve), Msg: ve.Msg}
+		}
+		if err != nil {
+			return &PathError{Path: path, Msg: err.Error()}
+		}
+		return nil
+	}
+	if err := check("outline", d.Outline); err != nil {
+		return err
+	}
+	for i, c := range d.Cutouts {
+		if err := check(fmt.Sprintf("cutouts[%d]", i), c); err != nil {
+			return err
+		}
+	}
+	for i, ov := range d.Overlays {
+		if err := check(fmt.Sprintf("overlays[%d].region", i), ov.Region); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// validationPath extends a region's path with the loop and segment a validation problem names.
+func validationPath(path string, ve *geom.ValidationError) string {
+	if ve.Loop >= 0 {
+		path += fmt.Sprintf(".loops[%d]", ve.Loop)
+	}
+	if ve.Segment >= 0 {
+		path += fmt.Sprintf(".segments[%d]", ve.Segment)
+	}
+	return path
+}
+
+func overlayName(ov Overlay, i int) string {
+	if ov.Name != "" {
+		return fmt.Sprintf("%q", ov.Name)
+	}
+	return fmt.Sprintf("overlay %d", i+1)
+}
+
+// addDensity integrates the density spec over b and records its description and error estimate.
+func (a *Analysis) addDensity(b geom.Boundary, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, error) {
+	if spec.Material == "" && spec.Formula == "" {
+		return geom.Moments{}, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
+	}
+	f, err := spec.Field(unit)
+	var fe *density.FieldError
+	if errors.As(err, &fe) {
+		msg := fe.Msg
+		if fe.Col > 0 {
+			msg = fmt.Sprintf("col %d: %s", fe.Col, fe.Msg)
+		}
+		return geom.Moments{}, &PathError{Path: path + "." + fe.Field, Msg: msg}
+	}
+	if err != nil {
+		return geom.Moments{}, &PathError{Path: path, Msg: err.Error()}
+	}
+	a.Materials = append(a.Materials, f.Describe())
+	r, err := integrateField(b, f, opt)
+	if err != nil {
+		return geom.Moments{}, &PathError{Path: path, Msg: err.Error()}
+	}
+	a.RelErr = math.Max(a.RelErr, r.RelErr)
+	if r.LimitHit && !a.LimitHit {
+		a.LimitHit = true
+		a.Warnings = append(a.Warnings, fmt.Sprintf("%s: the integration stopped at its work limit (%d density evaluations) before reaching the requested accuracy; estimated relative error %.1e", path, r.Evals, r.RelErr))
+	}
+	return r.Moments, nil
+}
+
+// integrateField integrates f over b: exactly when f is a polynomial (after checking its sign on the
+// part), adaptively otherwise.
+func integrateField(b geom.Boundary, f *density.Field, opt AnalyzeOptions) (geom.Result, error) {
+	if p, ok := f.Polynomial(); ok {
+		if err := checkPolynomialDensity(b, f); err != nil {
+			return geom.Result{}, err
+		}
+		return geom.Result{Moments: b.IntegratePoly(toGeomPoly(p))}, nil
+	}
+	r, err := b.Integrate(f, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
+	var de *geom.DensityError
+	if errors.As(err, &de) {
+		return r, f.DomainError(de.X, de.Y, de.Value)
+	}
+	return r, err
+}
+
+// toGeomPoly converts density's term list to geom's coefficient layout.
+func toGeomPoly(p density.Polynomial) geom.Poly {
+	g := geom.NewPoly(p.Deg)
+	for _, t := range p.Terms {
+		g.C[geom.PolyIndex(t.I, t.J)] += t.C
+	}
+	return g
+}
+
+// densityGrid is the number of grid lines each way at which a polynomial density's sign is sampled.
+const densityGrid = 33
+
+// checkPolynomialDensity samples a polynomial density at the boundary pieces' ends and midpoints and
+// on a densityGrid × densityGrid grid of points inside the part, and reports the first point where it
+// is negative or not finite. The exact integral never evaluates the density, so this is the check.
+func checkPolynomialDensity(b geom.Boundary, f *density.Field) error {
+	if _, ok := f.Constant(); ok {
+		p := b.Bounds().Center()
+		return f.CheckDomain([]float64{p.X}, []float64{p.Y})
+	}
+	var xs, ys []float64
+	for _, s := range b.Pieces {
+		for _, t := range [...]float64{0, 0.5} {
+			p := s.At(t)
+			xs, ys = append(xs, p.X), append(ys, p.Y)
+		}
+	}
+	box := b.Bounds()
+	size := box.Size()
+	for i := range densityGrid {
+		for j := range densityGrid {
+			p := geom.Pt(box.Min.X+size.X*(float64(i)+0.5)/densityGrid, box.Min.Y+size.Y*(float64(j)+0.5)/densityGrid)
+			if b.Contains(p) {
+				xs, ys = append(xs, p.X), append(ys, p.Y)
+			}
+		}
+	}
+	return f.CheckDomain(xs, ys)
+}
+
+// roundingIxy is the size, relative to ixx + iyy, below which a product of inertia is rounding error:
+// the central moments are differences of moments about the origin, which lose about as many digits
+// as the centroid's offset from the origin is large against the part (1e-12 leaves 4 digits for that).
+const roundingIxy = 1e-12
+
+// setMoments derives the centroid, central and principal moments and weights from the total moments.
+func (a *Analysis) setMoments(m geom.Moments) error {
+	if !(m.M > 0) {
+		return &PathError{Path: "material", Msg: "the part's mass is zero: the density is zero over the whole part"}
+	}
+	a.Origin = m
+	a.Mass = m.M
+	a.WeightN = m.M * standardGravity
+	a.WeightLbf = a.WeightN / newtonsPerLbf
+	a.Centroid = m.Centroid()
+	a.Ixx, a.Iyy, a.Ixy = m.Central()
+	if math.Abs(a.Ixy) <= roundingIxy*(a.Ixx+a.Iyy) {
+		a.Ixy = 0 // a part symmetric about an axis parallel to x or y: what is left is rounding
+	}
+	i1, i2, angle := m.Principal()
+	a.I1, a.I2, a.AngleDeg = i1, i2, angle*180/math.Pi
+	a.Kx, a.Ky = m.Gyration()
+	return nil
+}

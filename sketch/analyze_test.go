@@ -1,0 +1,238 @@
+package sketch
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// rectRegion is the axis-aligned rectangle [x0, x1] × [y0, y1].
+func rectRegion(x0, y0, x1, y1 float64) geom.Region {
+	return geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(x0, y0), geom.Pt(x1, y1))}}
+}
+
+func diskRegion(c geom.Point, r float64) geom.Region {
+	return geom.Region{Loops: []geom.Loop{geom.Circle(c, r)}}
+}
+
+// areal returns a constant areal density of rho kg/m².
+func areal(rho string) density.Spec { return density.Spec{Formula: rho, Unit: "kg/m2"} }
+
+// plate returns a w × h mm plate at the origin with a constant areal density of rho kg/m².
+func plate(w, h float64, rho string) *Document {
+	d := NewDocument()
+	d.Outline = rectRegion(0, 0, w, h)
+	d.Material = areal(rho)
+	return d
+}
+
+// near reports whether got is within rel of want, relative to scale.
+func near(got, want, rel, scale float64) bool {
+	return math.Abs(got-want) <= rel*math.Max(scale, math.Abs(want))
+}
+
+func checkNear(t *testing.T, name string, got, want, rel, scale float64) {
+	t.Helper()
+	if !near(got, want, rel, scale) {
+		t.Errorf("%s = %.15g, want %.15g (rel %g)", name, got, want, rel)
+	}
+}
+
+func mustAnalyze(t *testing.T, d *Document) *Analysis {
+	t.Helper()
+	a, err := Analyze(d, AnalyzeOptions{})
+	if err != nil {
+		t.Fatalf("Analyze: %v", err)
+	}
+	return a
+}
+
+// kgPerMM2 converts kg/m² to kg/mm².
+const kgPerMM2 = 1e-6
+
+// TestAnalyzePlateWithHole checks a 200 × 100 mm plate with a 40 mm round hole centred at (150, 50)
+// by the composite-area method (Beer & Johnston, Vector Mechanics for Engineers: Statics, ch. 5 and
+// 9): the hole is a negative area. Rectangle about its centroid: bh³/12; disk: πr⁴/4; parallel-axis
+// theorem I = I_c + A d² (the "List of second moments of area" tables).
+func TestAnalyzePlateWithHole(t *testing.T) {
+	d := plate(200, 100, "10")
+	d.Cutouts = []geom.Region{diskRegion(geom.Pt(150, 50), 20)}
+	a := mustAnalyze(t, d)
+
+	rectA, diskA := 200.0*100, math.Pi*20*20
+	area := rectA - diskA
+	xbar := (rectA*100 - diskA*150) / area
+	rho := 10 * kgPerMM2
+	// Second moments of area about the composite centroid, then times ρ.
+	ixx := 200*math.Pow(100, 3)/12 - math.Pi*math.Pow(20, 4)/4
+	iyy := 100*math.Pow(200, 3)/12 + rectA*math.Pow(100-xbar, 2) - (math.Pi*math.Pow(20, 4)/4 + diskA*math.Pow(150-xbar, 2))
+
+	checkNear(t, "area", a.Area, area, 1e-12, 0)
+	checkNear(t, "mass", a.Mass, area*rho, 1e-12, 0)
+	checkNear(t, "centroid x", a.Centroid.X, xbar, 1e-12, 0)
+	checkNear(t, "centroid y", a.Centroid.Y, 50, 1e-12, 0)
+	checkNear(t, "ixx", a.Ixx, ixx*rho, 1e-10, 0)
+	checkNear(t, "iyy", a.Iyy, iyy*rho, 1e-10, 0)
+	checkNear(t, "ixy", a.Ixy, 0, 1e-10, a.Iyy)
+	// Principal axes of a shape symmetric about y = 50: the axes are x and y; iyy is the larger.
+	checkNear(t, "i1", a.I1, iyy*rho, 1e-10, 0)
+	checkNear(t, "i2", a.I2, ixx*rho, 1e-10, 0)
+	checkNear(t, "principal angle", a.AngleDeg, 90, 1e-9, 0)
+	checkNear(t, "kx", a.Kx, math.Sqrt(ixx/area), 1e-10, 0)
+	if a.RelErr != 0 {
+		t.Errorf("RelErr = %g for a constant density, want 0 (exact)", a.RelErr)
+	}
+	if len(a.Cautions) == 0 {
+		t.Error("no cautions")
+	}
+}
+
+// TestAnalyzeWeight checks the weight from the unit definitions: g0 = 9.80665 m/s² (3rd CGPM, 1901)
+// and 1 lbf = 4.4482216152605 N (NIST SP 811).
+func TestAnalyzeWeight(t *testing.T) {
+	a := mustAnalyze(t, plate(1000, 500, "20")) // 0.5 m² at 20 kg/m² = 10 kg
+	checkNear(t, "mass", a.Mass, 10, 1e-13, 0)
+	checkNear(t, "weight N", a.WeightN, 98.0665, 1e-13, 0)
+	checkNear(t, "weight lbf", a.WeightLbf, 98.0665/4.4482216152605, 1e-13, 0)
+	// 10 kg is 22.0462 lb (1 lb = 0.45359237 kg), so it weighs 22.0462 lbf.
+	checkNear(t, "weight lbf vs lb", a.WeightLbf, 10/0.45359237, 1e-12, 0)
+}
+
+// TestAnalyzeTriangle checks the centroidal second moments of the triangle (0,0), (b,0), (c,h)
+// against the "List of second moments of area" table: Ix = bh³/36, Iy = bh(b² − bc + c²)/36,
+// Ixy = bh²(2c − b)/72, centroid ((b+c)/3, h/3).
+func TestAnalyzeTriangle(t *testing.T) {
+	b, c, h := 120.0, 30.0, 90.0
+	d := NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.Polygon(geom.Pt(0, 0), geom.Pt(b, 0), geom.Pt(c, h))}}
+	d.Material = areal("1")
+	a := mustAnalyze(t, d)
+	rho := kgPerMM2
+	checkNear(t, "area", a.Area, b*h/2, 1e-12, 0)
+	checkNear(t, "centroid x", a.Centroid.X, (b+c)/3, 1e-12, 0)
+	checkNear(t, "centroid y", a.Centroid.Y, h/3, 1e-12, 0)
+	checkNear(t, "ixx", a.Ixx, rho*b*h*h*h/36, 1e-11, 0)
+	checkNear(t, "iyy", a.Iyy, rho*b*h*(b*b-b*c+c*c)/36, 1e-11, 0)
+	checkNear(t, "ixy", a.Ixy, rho*b*h*h*(2*c-b)/72, 1e-11, 0)
+	// The principal moments are the eigenvalues of [[ixx, −ixy], [−ixy, iyy]] (Mohr's circle).
+	mean, radius := (a.Ixx+a.Iyy)/2, math.Hypot((a.Ixx-a.Iyy)/2, a.Ixy)
+	checkNear(t, "i1", a.I1, mean+radius, 1e-12, 0)
+	checkNear(t, "i2", a.I2, mean-radius, 1e-12, 0)
+}
+
+// TestAnalyzeOverlay checks a doubler on a 300 × 200 mm plate by composite bodies: plate 8 kg/m²
+// with an overlay of 8 kg/m² over x in [0, 100]. The overlay reaches past the part's edge (to
+// x = −50) and over a cut-out; only the part under it counts.
+func TestAnalyzeOverlay(t *testing.T) {
+	d := plate(300, 200, "8")
+	d.Overlays = []Overlay{{Name: "doubler", Region: rectRegion(-50, 0, 100, 200), Material: areal("8")}}
+	a := mustAnalyze(t, d)
+	m1, m2 := 300*200*8*kgPerMM2, 100*200*8*kgPerMM2
+	checkNear(t, "mass", a.Mass, m1+m2, 1e-12, 0)
+	checkNear(t, "centroid x", a.Centroid.X, (m1*150+m2*50)/(m1+m2), 1e-12, 0) // 125
+	checkNear(t, "centroid y", a.Centroid.Y, 100, 1e-12, 0)
+	if len(a.Materials) != 2 {
+		t.Errorf("Materials = %q, want the base and the overlay", a.Materials)
+	}
+
+	// A 40 × 40 cut-out under the doubler removes both layers there.
+	d.Cutouts = []geom.Region{rectRegion(30, 80, 70, 120)}
+	a = mustAnalyze(t, d)
+	hole := 40 * 40 * 16 * kgPerMM2
+	checkNear(t, "mass with cut-out", a.Mass, m1+m2-hole, 1e-12, 0)
+	checkNear(t, "centroid x with cut-out", a.Centroid.X, (m1*150+m2*50-hole*50)/(m1+m2-hole), 1e-12, 0)
+}
+
+func TestAnalyzeOverlayOffPart(t *testing.T) {
+	d := plate(100, 100, "8")
+	d.Overlays = []Overlay{{Name: "stray", Region: rectRegion(200, 0, 300, 100), Material: areal("8")}}
+	a := mustAnalyze(t, d)
+	if len(a.Warnings) != 1 || !strings.Contains(a.Warnings[0], "overlays[0]") {
+		t.Errorf("warnings = %q, want one naming overlays[0]", a.Warnings)
+	}
+}
+
+// TestAnalyzeLinearDensity checks ρ = k·x on [0, a] × [0, b]: M = k a² b / 2, x̄ = 2a/3 (the first
+// moment ∫x·kx dx = k a³/3 over ∫kx dx = k a²/2).
+func TestAnalyzeLinearDensity(t *testing.T) {
+	d := plate(300, 100, "")
+	d.Material = density.Spec{Formula: "k*x", Unit: "kg/m2", Params: map[string]float64{"k": 0.1}}
+	a := mustAnalyze(t, d)
+	checkNear(t, "mass", a.Mass, 0.1*kgPerMM2*300*300*100/2, 1e-12, 0)
+	checkNear(t, "centroid x", a.Centroid.X, 200, 1e-12, 0)
+	checkNear(t, "centroid y", a.Centroid.Y, 50, 1e-12, 0)
+}
+
+// TestAnalyzeExpDensity integrates a density that is not a polynomial, ρ = exp(x/100) on
+// [0, 200] × [0, 50]: M = 50 · 100 (e² − 1), x̄ = ∫x eˣ/¹⁰⁰ / ∫eˣ/¹⁰⁰ = 100 (e² + 1)/(e² − 1).
+func TestAnalyzeExpDensity(t *testing.T) {
+	a := mustAnalyze(t, plate(200, 50, "exp(x/100)"))
+	e2 := math.Exp(2)
+	checkNear(t, "mass", a.Mass, kgPerMM2*50*100*(e2-1), 1e-9, 0)
+	checkNear(t, "centroid x", a.Centroid.X, 100*(e2+1)/(e2-1), 1e-9, 0)
+	if a.RelErr <= 0 || a.RelErr > 1e-8 {
+		t.Errorf("RelErr = %g, want a small positive estimate", a.RelErr)
+	}
+}
+
+func TestAnalyzeErrors(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		doc  func() *Document
+		want []string
+	}{
+		{"negative polynomial", func() *Document { return plate(100, 100, "x - 50") }, []string{"material", "density is −", "at x = ", "mm"}},
+		{"negative constant", func() *Document { return plate(100, 100, "-2") }, []string{"material", "density is −2 kg/m²"}},
+		{"negative elsewhere", func() *Document { return plate(100, 100, "sqrt(x) - 5") }, []string{"material", "density is −", "at x = "}},
+		{"no material", func() *Document { d := plate(100, 100, ""); d.Material = density.Spec{}; return d }, []string{"material", "no material"}},
+		{"bad formula", func() *Document { return plate(100, 100, "2 * (x") }, []string{"material.formula", "col 7"}},
+		{"cut away", func() *Document {
+			d := plate(100, 100, "1")
+			d.Cutouts = []geom.Region{rectRegion(-10, -10, 110, 110)}
+			return d
+		}, []string{"outline", "no material"}},
+		{"bad overlay", func() *Document {
+			d := plate(100, 100, "1")
+			d.Overlays = []Overlay{{Region: rectRegion(0, 0, 50, 50), Material: areal("-1")}}
+			return d
+		}, []string{"overlays[0].material", "density is −1"}},
+		{"bad units", func() *Document { d := plate(100, 100, "1"); d.Units = "furlong"; return d }, []string{"units"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			_, err := Analyze(tc.doc(), AnalyzeOptions{})
+			if err == nil {
+				t.Fatal("no error")
+			}
+			for _, w := range tc.want {
+				if !strings.Contains(err.Error(), w) {
+					t.Errorf("error %q does not mention %q", err, w)
+				}
+			}
+		})
+	}
+}
+
+// TestAnalyzeUnits checks that a part drawn in inches gives the same mass as in millimetres
+// (1 in = 25.4 mm exactly).
+func TestAnalyzeUnits(t *testing.T) {
+	mm := mustAnalyze(t, plate(254, 127, "10"))
+	d := plate(10, 5, "10")
+	d.Units = "in"
+	in := mustAnalyze(t, d)
+	checkNear(t, "mass", in.Mass, mm.Mass, 1e-13, 0)
+	checkNear(t, "ixx (kg·in²)", in.Ixx*25.4*25.4, mm.Ixx, 1e-12, 0)
+}
+
+func BenchmarkAnalyzePlateWithHole(b *testing.B) {
+	d := plate(200, 100, "10")
+	d.Cutouts = []geom.Region{diskRegion(geom.Pt(150, 50), 20)}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -1,0 +1,486 @@
+package sketch
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"slices"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// Hanging statics. A body hung from a pivot comes to rest with its centre of mass straight below the
+// pivot (any statics text, e.g. Beer & Johnston, Vector Mechanics for Engineers: Statics, ch. 4). With a
+// pin in a round hole the part rests on the top of the hole, so the hole's centre sits straight above
+// the centroid as well. All positions are in the document's length unit and drawn orientation (y up).
+
+// HangOptions tune the hanging calculations.
+type HangOptions struct {
+	// Edge is the least distance from a hole's edge to any edge of the part. Zero means the common
+	// practice max(1.5 × thickness, D) (hole diameter D), or D alone when the thickness is not known.
+	Edge float64
+	// MaxTiltDeg and DrillTol (document units), when both are set, ask whether a lateral drilling error
+	// of DrillTol keeps the tilt under MaxTiltDeg; a hole too close above the centroid is warned about.
+	MaxTiltDeg, DrillTol float64
+	Analyze              AnalyzeOptions
+}
+
+// Hang is a part hung from one hole.
+type Hang struct {
+	At        geom.Point
+	Diameter  float64
+	AngleDeg  float64       // rotation from drawn to hanging orientation about At, CCW positive, (−180, 180]
+	Centroid  geom.Point    // of the part with the hole removed, drawn orientation
+	Arm       float64       // distance from the hole centre to the centroid
+	TiltPerMM float64       // degrees of tilt per millimetre of lateral drilling error, atan(1 mm / Arm)
+	PeriodS   float64       // small-swing period about the hole centre (a pin filling the hole), seconds; 0 when Arm is 0
+	Pose      geom.Affine   // drawn → hanging: rotation by AngleDeg about At
+	Hanging   geom.Boundary // the part's material (hole removed) in hanging orientation
+	Part      *Analysis     // the part with the hole removed, drawn orientation
+	Warnings  []string
+}
+
+// Level is the hole that hangs a part as drawn.
+type Level struct {
+	At       geom.Point
+	Diameter float64
+	// Hang is the part hung from At, or nil when no hole on the vertical through the balance point
+	// can hang the part level; Warnings then say why and Alternatives hold the least-tilt positions.
+	Hang         *Hang
+	Alternatives []*Hang
+	Iterations   int // rounds of the fixed-point search for the hole's own removed material
+	Warnings     []string
+}
+
+// Chain is one of two chains a part hangs from.
+type Chain struct {
+	At       geom.Point
+	Vertical float64 // N, the chain's share of the weight by the lever rule
+	Tension  float64 // N, along the chain: Vertical / sin(leg angle)
+}
+
+// Lift is a part hung from two holes by two chains whose legs make the same angle with the horizontal.
+type Lift struct {
+	Chains   [2]Chain // left hole first
+	Diameter float64
+	LegDeg   float64 // angle of each leg to the horizontal, degrees (90 = vertical chains)
+	Factor   float64 // sling-angle factor 1/sin(LegDeg)
+	Centroid geom.Point
+	WeightN  float64
+	Part     *Analysis // the part with both holes removed
+	Warnings []string
+}
+
+const (
+	// levelTol is the fixed-point tolerance of LevelHole, relative to the part size.
+	levelTol = 1e-9
+	// levelRounds caps the fixed-point rounds; the hole's own material moves the centroid by a small
+	// fraction of its offset, so a handful of rounds settles in practice.
+	levelRounds = 50
+	// minLegDeg is the leg angle below which rigging guidance (ASME B30.9, slings) advises against a lift.
+	minLegDeg = 30
+	// tiltColumns is the number of verticals searched for least-tilt hole positions.
+	tiltColumns = 64
+)
+
+// HangFrom hangs the part from a hole of diameter dia (0 for a pin) centred at at: the part with the
+// hole removed turns about at until its centroid is straight below. A hole off the material or one
+// that breaks the edge is an error; one closer to an edge than the edge-distance rule is a warning.
+func HangFrom(d *Document, at geom.Point, dia float64, opt HangOptions) (*Hang, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return nil, err
+	}
+	rule := d.edgeRule(dia, opt, unit)
+	warning, err := checkHole(d.Body(), at, dia, rule, unit)
+	if err != nil {
+		return nil, err
+	}
+	part, err := Analyze(d.withHoles(Hole{At: at, Diameter: dia}), opt.Analyze)
+	if err != nil {
+		return nil, err
+	}
+	h := newHang(part, at, dia, unit, opt)
+	if warning != "" {
+		h.Warnings = append([]string{warning}, h.Warnings...)
+	}
+	return h, nil
+}
+
+// newHang derives the hanging pose and its figures from the analysis of the part with the hole removed.
+func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, opt HangOptions) *Hang {
+	h := &Hang{At: at, Diameter: dia, Centroid: part.Centroid, Part: part}
+	v := part.Centroid.Sub(at)
+	h.Arm = v.Norm()
+	h.TiltPerMM = tiltDeg(h.Arm, 1/unit.MM)
+	if h.Arm <= levelTol*partSize(part.Body) {
+		h.Warnings = append(h.Warnings, "the hole is at the balance point: the part rests at any angle")
+	} else {
+		h.AngleDeg = halfTurnDeg(-math.Pi/2 - math.Atan2(v.Y, v.X))
+		h.PeriodS = swingPeriod(part.Origin.Polar(at), part.Mass, h.Arm, unit)
+	}
+	h.Pose = geom.RotateAbout(at, h.AngleDeg*math.Pi/180)
+	h.Hanging = part.Body.Transform(h.Pose)
+	if opt.MaxTiltDeg > 0 && opt.DrillTol > 0 {
+		if need := ArmForTilt(opt.MaxTiltDeg, opt.DrillTol); h.Arm < need {
+			h.Warnings = append(h.Warnings, fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° the hole needs to be at least %s %s from the balance point (it is %s)",
+				formatNumber(opt.DrillTol), unit.Name, formatNumber(tiltDeg(h.Arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg), formatNumber(need), unit.Name, formatNumber(h.Arm)))
+		}
+	}
+	return h
+}
+
+// halfTurnDeg converts an angle in radians to degrees in (−180, 180].
+func halfTurnDeg(rad float64) float64 {
+	deg := math.Remainder(rad*180/math.Pi, 360)
+	if deg <= -180 {
+		deg += 360
+	}
+	return deg
+}
+
+// tiltDeg is the tilt, in degrees, of a part whose hole is off the vertical through the centroid by e
+// at a distance arm from it: atan(e / arm).
+func tiltDeg(arm, e float64) float64 { return math.Atan2(e, arm) * 180 / math.Pi }
+
+// ArmForTilt returns how far above the centroid a hole must be for a lateral drilling error of
+// drillTol to tilt the part by at most maxTiltDeg: d = e / tan(θ), from tilt = atan(e/d).
+func ArmForTilt(maxTiltDeg, drillTol float64) float64 {
+	return drillTol / math.Tan(maxTiltDeg*math.Pi/180)
+}
+
+// swingPeriod is the small-oscillation period of a compound pendulum, T = 2π √(I_P / (m g d)), with
+// I_P (kg·unit²) about the pivot and d (unit) from the pivot to the centroid (e.g. Halliday, Resnick &
+// Walker, Fundamentals of Physics, "physical pendulum").
+func swingPeriod(polar, mass, arm float64, unit density.Length) float64 {
+	mPerUnit := unit.MM / 1000
+	ip := polar * mPerUnit * mPerUnit
+	return 2 * math.Pi * math.Sqrt(ip/(mass*standardGravity*arm*mPerUnit))
+}
+
+// partSize is the larger side of the bounding box, the scale for relative tolerances.
+func partSize(b geom.Boundary) float64 {
+	s := b.Bounds().Size()
+	return math.Max(s.X, s.Y)
+}
+
+// withHoles returns a shallow copy of d with round holes (diameter > 0) added as cut-outs.
+func (d *Document) withHoles(holes ...Hole) *Document {
+	c := *d
+	c.Cutouts = slices.Clip(d.Cutouts)
+	for _, h := range holes {
+		if h.Diameter > 0 {
+			c.Cutouts = append(c.Cutouts, geom.Disk(h.At, h.Diameter/2))
+		}
+	}
+	return &c
+}
+
+// edgeRule is the least distance from a hole's edge to the part's edges, with where it comes from.
+type edgeRule struct {
+	min    float64
+	source string
+}
+
+// edgeRule returns the edge distance for a hole of diameter dia: the one asked for, else
+// max(1.5 × thickness, D) (common practice), else D when the thickness is unknown.
+func (d *Document) edgeRule(dia float64, opt HangOptions, unit density.Length) edgeRule {
+	if opt.Edge > 0 {
+		return edgeRule{opt.Edge, "as asked"}
+	}
+	t, ok := d.thickness(unit)
+	switch {
+	case !ok:
+		return edgeRule{dia, "one hole diameter, common practice; the thickness is not known"}
+	case 1.5*t >= dia:
+		return edgeRule{1.5 * t, "1.5 × thickness, common practice"}
+	default:
+		return edgeRule{dia, "one hole diameter, common practice"}
+	}
+}
+
+// thickness returns the base material's thickness in document units, when it is a plain length or gauge.
+func (d *Document) thickness(unit density.Length) (float64, bool) {
+	s := d.Material.Thickness
+	if s == "" {
+		return 0, false
+	}
+	mm, err := density.ParseLength(s)
+	if err != nil && d.Material.Material != "" {
+		mm, err = density.ParseLength(s + " " + d.Material.Material)
+	}
+	if err != nil || !(mm > 0) {
+		return 0, false
+	}
+	return mm / unit.MM, true
+}
+
+// checkHole reports a hole off the material or breaking an edge as an error, and one nearer an edge
+// than the rule allows as a warning.
+func checkHole(body geom.Boundary, at geom.Point, dia float64, rule edgeRule, unit density.Length) (string, error) {
+	where := fmt.Sprintf("the hole at (%s, %s) %s", formatNumber(at.X), formatNumber(at.Y), unit.Name)
+	if !at.IsFinite() || !(dia >= 0) || math.IsInf(dia, 0) {
+		return "", fmt.Errorf("%s: position and diameter must be finite, diameter ≥ 0", where)
+	}
+	if !body.Contains(at) {
+		return "", fmt.Errorf("%s is not on the part's material", where)
+	}
+	dist := body.Distance(at)
+	if dist <= dia/2 {
+		return "", fmt.Errorf("%s breaks the edge: its centre is %s %s from the nearest edge and its radius is %s",
+			where, formatNumber(dist), unit.Name, formatNumber(dia/2))
+	}
+	if edge := dist - dia/2; edge < rule.min*(1-1e-9) {
+		return fmt.Sprintf("%s is %s %s from the nearest edge; keep at least %s %s (%s)",
+			where, formatNumber(edge), unit.Name, formatNumber(rule.min), unit.Name, rule.source), nil
+	}
+	return "", nil
+}
+
+// LevelHole finds the hole of diameter dia that hangs the part as drawn: on the vertical through the
+// centroid, above it, as high as the edge distance allows. Removing the hole's own material moves the
+// centroid, so the position is iterated to a fixed point, |x_hole − x̄| < 1e-9 of the part size.
+// Where no such hole exists (no material above the centroid, as in a U, or too little for the edge
+// distance), Level.Hang is nil and Alternatives hold the least-tilt positions.
+func LevelHole(d *Document, dia float64, opt HangOptions) (*Level, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return nil, err
+	}
+	if !(dia >= 0) || math.IsInf(dia, 0) {
+		return nil, fmt.Errorf("hole diameter %s: must be finite and ≥ 0", formatNumber(dia))
+	}
+	whole, err := Analyze(d, opt.Analyze)
+	if err != nil {
+		return nil, err
+	}
+	s := newHoleSearch(d, whole, dia, opt, unit)
+	lv := &Level{Diameter: dia}
+	if s.rule.min == 0 {
+		lv.Warnings = append(lv.Warnings, "no edge distance is kept (the thickness is not known and the hole is a pin): give one")
+	}
+	x, floor := whole.Centroid.X, whole.Centroid.Y
+	for lv.Iterations = 1; ; lv.Iterations++ {
+		y, found, material := s.highest(x, floor)
+		if !found {
+			return s.noLevel(lv, x, material)
+		}
+		at := geom.Pt(x, y)
+		part, err := Analyze(d.withHoles(Hole{At: at, Diameter: dia}), opt.Analyze)
+		if err != nil {
+			return nil, err
+		}
+		next := part.Centroid.X
+		settled := math.Abs(next-x) < levelTol*s.size
+		if settled || lv.Iterations == levelRounds {
+			if !settled {
+				lv.Warnings = append(lv.Warnings, fmt.Sprintf("the level-hole search stopped after %d rounds %s %s off the balance point",
+					levelRounds, formatNumber(math.Abs(next-x)), unit.Name))
+			}
+			lv.At = at
+			lv.Hang = newHang(part, at, dia, unit, opt)
+			return lv, nil
+		}
+		x = next
+	}
+}
+
+// holeSearch finds hole positions that keep the edge distance on a part's material.
+type holeSearch struct {
+	d        *Document
+	whole    *Analysis
+	body     geom.Boundary
+	dia      float64
+	rule     edgeRule
+	clear    float64 // least distance from the hole centre to any boundary
+	size     float64
+	unit     density.Length
+	opt      HangOptions
+	minRaise float64 // least height of a level hole above the centroid
+}
+
+func newHoleSearch(d *Document, whole *Analysis, dia float64, opt HangOptions, unit density.Length) *holeSearch {
+	s := &holeSearch{d: d, whole: whole, body: whole.Body, dia: dia, size: partSize(whole.Body), unit: unit, opt: opt}
+	s.rule = d.edgeRule(dia, opt, unit)
+	s.minRaise = 1e-6 * s.size
+	s.clear = math.Max(dia/2+s.rule.min, s.minRaise)
+	return s
+}
+
+// highest returns the highest y above floor on the vertical through x where a hole keeps its edge
+// distance; material reports whether the vertical crosses any material above floor at all.
+func (s *holeSearch) highest(x, floor float64) (y float64, found, material bool) {
+	base := geom.Pt(x, floor)
+	hits := s.body.LineHits(base, geom.Pt(0, 1))
+	for i := len(hits) - 1; i > 0; i-- {
+		lo, hi := hits[i-1], hits[i]
+		if hi <= s.minRaise {
+			break
+		}
+		if hi-lo <= 0 || !s.body.Contains(geom.Pt(x, floor+(lo+hi)/2)) {
+			continue
+		}
+		material = true
+		if t, ok := s.descend(x, floor, hi-s.clear, math.Max(lo, s.minRaise)); ok {
+			return floor + t, true, true
+		}
+	}
+	return 0, false, material
+}
+
+// descend walks down the vertical through x from floor+top to floor+bottom and returns the first t
+// where the distance to the boundary reaches the clearance. The distance is 1-Lipschitz, so stepping
+// by the shortfall never skips a clear point (sphere tracing); a floor on the step of 1e-4 of the part
+// size bounds the work near grazing walls.
+func (s *holeSearch) descend(x, floor, top, bottom float64) (float64, bool) {
+	minStep := 1e-4 * s.size
+	for t := top; t >= bottom; {
+		gap := s.body.Distance(geom.Pt(x, floor+t)) - s.clear
+		if gap >= -levelTol*s.size {
+			return t, true
+		}
+		t -= math.Max(-gap, minStep)
+	}
+	return 0, false
+}
+
+// noLevel explains why no level hole exists and fills in the least-tilt alternatives.
+func (s *holeSearch) noLevel(lv *Level, x float64, material bool) (*Level, error) {
+	g := s.whole.Centroid
+	u := s.unit.Name
+	if material {
+		lv.Warnings = append(lv.Warnings, fmt.Sprintf("the material above the balance point (%s, %s) %s is too narrow for a %s %s hole with %s %s edge distance (%s)",
+			formatNumber(x), formatNumber(g.Y), u, formatNumber(s.dia), u, formatNumber(s.rule.min), u, s.rule.source))
+	} else {
+		lv.Warnings = append(lv.Warnings, fmt.Sprintf("there is no material above the balance point (%s, %s) %s (an open shape such as a U): no single hole hangs this part level",
+			formatNumber(x), formatNumber(g.Y), u))
+	}
+	alts, err := s.leastTilt()
+	if err != nil {
+		return nil, err
+	}
+	lv.Alternatives = alts
+	lv.Warnings = append(lv.Warnings, fmt.Sprintf("use a least-tilt position, hang from two holes, or add a tab reaching above the balance point at x = %s %s",
+		formatNumber(x), u))
+	return lv, nil
+}
+
+// candidate is a hole position with its approximate tilt (ignoring the hole's own material).
+type candidate struct {
+	at   geom.Point
+	tilt float64 // radians from straight above the centroid
+}
+
+// leastTilt returns, for each side of the balance point that has room for the hole, the position
+// with the least tilt, hung exactly; the best first.
+func (s *holeSearch) leastTilt() ([]*Hang, error) {
+	box := s.body.Bounds()
+	var best [2]*candidate // left and right of the centroid
+	column := box.Size().X / tiltColumns
+	for i := range tiltColumns {
+		s.consider(&best, box.Min.X+(float64(i)+0.5)*column)
+	}
+	var hangs []*Hang
+	for side := range best {
+		if best[side] == nil {
+			continue
+		}
+		for step := column / 8; step > column/1000; step /= 8 { // refine around the best column
+			x0 := best[side].at.X
+			for k := -8; k <= 8; k++ {
+				s.consider(&best, x0+float64(k)*step)
+			}
+		}
+		h, err := HangFrom(s.d, best[side].at, s.dia, s.opt)
+		if err != nil {
+			return nil, err
+		}
+		hangs = append(hangs, h)
+	}
+	slices.SortFunc(hangs, func(a, b *Hang) int { return cmp.Compare(math.Abs(a.AngleDeg), math.Abs(b.AngleDeg)) })
+	return hangs, nil
+}
+
+// consider finds the highest clear point on the vertical through x and keeps it if it tilts the part
+// less than the best so far on its side of the centroid.
+func (s *holeSearch) consider(best *[2]*candidate, x float64) {
+	g := s.whole.Centroid
+	y, found, _ := s.highest(x, s.body.Bounds().Min.Y-s.size)
+	if !found {
+		return
+	}
+	c := &candidate{at: geom.Pt(x, y), tilt: math.Atan2(math.Abs(x-g.X), y-g.Y)}
+	side := 0
+	if x > g.X {
+		side = 1
+	}
+	if best[side] == nil || c.tilt < best[side].tilt {
+		best[side] = c
+	}
+}
+
+// TwoChains hangs the part from two holes of diameter dia by two chains, each leg at legDeg to the
+// horizontal (90 for vertical chains). The vertical shares follow the lever rule,
+// V_A = W (x_B − x_G) / (x_B − x_A), and each leg's tension is V / sin θ (for a centred load
+// W / (2 sin θ): factors 1.155 at 60°, 1.414 at 45°, 2 at 30°). Warnings: the centroid outside the
+// span between the holes (the part tips), a leg below 30° (ASME B30.9 guidance), holes near an edge.
+func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOptions) (*Lift, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return nil, err
+	}
+	if !(legDeg > 0 && legDeg <= 90) {
+		return nil, fmt.Errorf("leg angle %s°: must be above 0° and at most 90° to the horizontal", formatNumber(legDeg))
+	}
+	if b.X < a.X {
+		a, b = b, a
+	}
+	body := d.Body()
+	size := partSize(body)
+	if b.X-a.X <= levelTol*size {
+		return nil, fmt.Errorf("the two holes are on one vertical (x = %s %s): chains need them apart across the part", formatNumber(a.X), unit.Name)
+	}
+	if a.Dist(b) <= dia {
+		return nil, fmt.Errorf("the two holes overlap")
+	}
+	lift := &Lift{Diameter: dia, LegDeg: legDeg}
+	rule := d.edgeRule(dia, opt, unit)
+	for _, p := range [2]geom.Point{a, b} {
+		warning, err := checkHole(body, p, dia, rule, unit)
+		if err != nil {
+			return nil, err
+		}
+		if warning != "" {
+			lift.Warnings = append(lift.Warnings, warning)
+		}
+	}
+	part, err := Analyze(d.withHoles(Hole{At: a, Diameter: dia}, Hole{At: b, Diameter: dia}), opt.Analyze)
+	if err != nil {
+		return nil, err
+	}
+	lift.Part, lift.Centroid, lift.WeightN = part, part.Centroid, part.WeightN
+	lift.Factor = 1 / math.Sin(legDeg*math.Pi/180)
+	va := part.WeightN * (b.X - part.Centroid.X) / (b.X - a.X)
+	lift.Chains = [2]Chain{
+		{At: a, Vertical: va, Tension: va * lift.Factor},
+		{At: b, Vertical: part.WeightN - va, Tension: (part.WeightN - va) * lift.Factor},
+	}
+	lift.warn(unit)
+	return lift, nil
+}
+
+// warn adds the tipping, leg-angle and uneven-load warnings.
+func (l *Lift) warn(unit density.Length) {
+	a, b, g := l.Chains[0].At, l.Chains[1].At, l.Centroid
+	if g.X < a.X || g.X > b.X {
+		l.Warnings = append(l.Warnings, fmt.Sprintf("the balance point (x = %s %s) lies outside the span between the chains (%s to %s): the part tips and one chain goes slack",
+			formatNumber(g.X), unit.Name, formatNumber(a.X), formatNumber(b.X)))
+	}
+	if l.LegDeg < minLegDeg {
+		l.Warnings = append(l.Warnings, fmt.Sprintf("legs at %s° to the horizontal: rigging guidance (ASME B30.9) advises against legs below 30°", formatNumber(l.LegDeg)))
+	}
+	if l.LegDeg < 90 && math.Abs(l.Chains[0].Vertical-l.Chains[1].Vertical) > 1e-6*l.WeightN {
+		l.Warnings = append(l.Warnings, "the load is off centre: equal leg angles need two anchor points; on one hook the part turns until its balance point is below the hook")
+	}
+}

@@ -1,0 +1,311 @@
+package sketch
+
+import (
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+)
+
+// Summary is the result object that `plumb analyze --format json` prints, one per file, and that the
+// browser app reports. Its keys are fixed: other programs read them. Lengths are in the document unit,
+// mass in kg, second moments in kg·unit² about the centroid:
+// ixx = ∬(y−ȳ)² dm, iyy = ∬(x−x̄)² dm, ixy = ∬(x−x̄)(y−ȳ) dm.
+type Summary struct {
+	File          string    `json:"file"`
+	Units         Units     `json:"units"`
+	Area          float64   `json:"area"`
+	Mass          float64   `json:"mass"`
+	Centroid      XY        `json:"centroid"`
+	Inertia       Inertia   `json:"inertia"`
+	Principal     Principal `json:"principal"`
+	ErrorEstimate float64   `json:"error_estimate"`
+	Warnings      []string  `json:"warnings"`
+	// Hang is set for a part hung from one hole at a given point.
+	Hang *HangSummary `json:"hang,omitempty"`
+	// Hole is set for the level hole, when one exists.
+	Hole *HoleSummary `json:"hole,omitempty"`
+	// Alternatives are the least-tilt positions offered when no level hole exists.
+	Alternatives []HangSummary `json:"alternatives,omitempty"`
+	// Chains are set for a part hung from two holes.
+	Chains []ChainSummary `json:"chains,omitempty"`
+}
+
+// Units names the length and mass units of a Summary.
+type Units struct {
+	Length string `json:"length"`
+	Mass   string `json:"mass"`
+}
+
+// XY is a point in a Summary.
+type XY struct {
+	X float64 `json:"x"`
+	Y float64 `json:"y"`
+}
+
+// Inertia holds the mass second moments about the centroid.
+type Inertia struct {
+	Ixx float64 `json:"ixx"`
+	Iyy float64 `json:"iyy"`
+	Ixy float64 `json:"ixy"`
+}
+
+// Principal holds the central principal moments and the angle of the axis of I1 from +x.
+type Principal struct {
+	I1       float64 `json:"i1"`
+	I2       float64 `json:"i2"`
+	AngleDeg float64 `json:"angle_deg"`
+}
+
+// HangSummary is a part hung from one hole: the hole's centre and diameter and the rotation from the
+// drawn to the hanging orientation (degrees, counter-clockwise positive).
+type HangSummary struct {
+	At       XY      `json:"at"`
+	Hole     float64 `json:"hole"`
+	AngleDeg float64 `json:"angle_deg"`
+}
+
+// HoleSummary is the level hole.
+type HoleSummary struct {
+	X        float64 `json:"x"`
+	Y        float64 `json:"y"`
+	Diameter float64 `json:"diameter"`
+}
+
+// ChainSummary is one chain of a two-chain hang; forces in newtons.
+type ChainSummary struct {
+	At       XY      `json:"at"`
+	Vertical float64 `json:"vertical_n"`
+	Tension  float64 `json:"tension_n"`
+}
+
+// Summarize builds the summary of an analysed part.
+func Summarize(file string, d *Document, a *Analysis) Summary {
+	units := d.Units
+	if units == "" {
+		units = "mm"
+	}
+	return Summary{
+		File:          file,
+		Units:         Units{Length: units, Mass: "kg"},
+		Area:          a.Area,
+		Mass:          a.Mass,
+		Centroid:      xy(a.Centroid.X, a.Centroid.Y),
+		Inertia:       Inertia{Ixx: a.Ixx, Iyy: a.Iyy, Ixy: a.Ixy},
+		Principal:     Principal{I1: a.I1, I2: a.I2, AngleDeg: a.AngleDeg},
+		ErrorEstimate: a.RelErr,
+		Warnings:      append([]string{}, a.Warnings...),
+	}
+}
+
+func xy(x, y float64) XY { return XY{X: x, Y: y} }
+
+func hangSummary(h *Hang) HangSummary {
+	return HangSummary{At: xy(h.At.X, h.At.Y), Hole: h.Diameter, AngleDeg: h.AngleDeg}
+}
+
+// Report is everything known about one file, for the text, JSON and CSV writers. Analysis is the part
+// as analysed; for a hang it is the part with the hole or holes removed. At most one of Hang, Level
+// and Lift is set.
+type Report struct {
+	File     string
+	Doc      *Document
+	Analysis *Analysis
+	Hang     *Hang
+	Level    *Level
+	Lift     *Lift
+	Warnings []string // from reading the file, before the analysis's own
+}
+
+// Summary returns the report's JSON summary, with the hanging results and all warnings.
+func (r *Report) Summary() Summary {
+	s := Summarize(r.File, r.Doc, r.Analysis)
+	s.Warnings = r.warnings()
+	switch {
+	case r.Hang != nil:
+		h := hangSummary(r.Hang)
+		s.Hang = &h
+	case r.Level != nil && r.Level.Hang != nil:
+		s.Hole = &HoleSummary{X: r.Level.At.X, Y: r.Level.At.Y, Diameter: r.Level.Diameter}
+	case r.Level != nil:
+		for _, h := range r.Level.Alternatives {
+			s.Alternatives = append(s.Alternatives, hangSummary(h))
+		}
+	case r.Lift != nil:
+		for _, c := range r.Lift.Chains {
+			s.Chains = append(s.Chains, ChainSummary{At: xy(c.At.X, c.At.Y), Vertical: c.Vertical, Tension: c.Tension})
+		}
+	}
+	return s
+}
+
+// warnings gathers the reading, analysis and hanging warnings in that order, never nil.
+func (r *Report) warnings() []string {
+	w := append([]string{}, r.Warnings...)
+	w = append(w, r.Analysis.Warnings...)
+	switch {
+	case r.Hang != nil:
+		w = append(w, r.Hang.Warnings...)
+	case r.Level != nil:
+		w = append(w, r.Level.Warnings...)
+		if r.Level.Hang != nil {
+			w = append(w, r.Level.Hang.Warnings...)
+		}
+	case r.Lift != nil:
+		w = append(w, r.Lift.Warnings...)
+	}
+	return w
+}
+
+// WriteJSON writes the report's summary as one line of JSON.
+func (r *Report) WriteJSON(w io.Writer) error {
+	b, err := json.Marshal(r.Summary())
+	if err != nil {
+		return err
+	}
+	_, err = w.Write(append(b, '\n'))
+	return err
+}
+
+// CSVHeader is the header row of the CSV format, one row per analysed file.
+func CSVHeader() []string {
+	return []string{"file", "length_unit", "mass_unit", "area", "mass", "weight_n", "weight_lbf",
+		"centroid_x", "centroid_y", "ixx", "iyy", "ixy", "i1", "i2", "angle_deg", "error_estimate", "warnings"}
+}
+
+// WriteCSV writes the report as one CSV row under CSVHeader; warnings are joined by "; ".
+func (r *Report) WriteCSV(w *csv.Writer) error {
+	s := r.Summary()
+	a := r.Analysis
+	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+	return w.Write([]string{s.File, s.Units.Length, s.Units.Mass, g(s.Area), g(s.Mass), g(a.WeightN), g(a.WeightLbf),
+		g(s.Centroid.X), g(s.Centroid.Y), g(s.Inertia.Ixx), g(s.Inertia.Iyy), g(s.Inertia.Ixy),
+		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), strings.Join(s.Warnings, "; ")})
+}
+
+// WriteText writes the report as a readable table with units. The cautions are left to the caller,
+// which prints them once after a batch (WriteCautions).
+func (r *Report) WriteText(w io.Writer) error {
+	t := &table{}
+	a, u := r.Analysis, r.Summary().Units.Length
+	title := r.File
+	if r.Doc.Name != "" && r.Doc.Name != r.File {
+		title += " — " + r.Doc.Name
+	}
+	for i, m := range a.Materials {
+		label := "material"
+		if i > 0 {
+			label = "overlay"
+		}
+		t.row(label, m)
+	}
+	t.row("area", formatNumber(a.Area)+" "+u+"²")
+	t.row("mass", formatNumber(a.Mass)+" kg")
+	t.row("weight", fmt.Sprintf("%s N (%s lbf)", formatNumber(a.WeightN), formatNumber(a.WeightLbf)))
+	t.row("balance point", fmt.Sprintf("x %s, y %s %s (centroid)", formatNumber(a.Centroid.X), formatNumber(a.Centroid.Y), u))
+	t.row("about centroid", fmt.Sprintf("ixx %s, iyy %s, ixy %s kg·%s²", formatNumber(a.Ixx), formatNumber(a.Iyy), formatNumber(a.Ixy), u))
+	t.row("about origin", fmt.Sprintf("∬x² dm %s, ∬y² dm %s, ∬xy dm %s kg·%s²", formatNumber(a.Origin.Sxx), formatNumber(a.Origin.Syy), formatNumber(a.Origin.Sxy), u))
+	t.row("principal", fmt.Sprintf("i1 %s, i2 %s kg·%s², axis of i1 at %s° from x", formatNumber(a.I1), formatNumber(a.I2), u, formatNumber(a.AngleDeg)))
+	t.row("gyration", fmt.Sprintf("kx %s, ky %s %s", formatNumber(a.Kx), formatNumber(a.Ky), u))
+	t.row("error estimate", errorText(a))
+	r.hangRows(t, u)
+	for _, wn := range r.warnings() {
+		t.row("warning", wn)
+	}
+	return t.write(w, title)
+}
+
+func errorText(a *Analysis) string {
+	if a.RelErr == 0 {
+		return "exact to rounding (polynomial density)"
+	}
+	return fmt.Sprintf("%.1e relative", a.RelErr)
+}
+
+// hangRows adds the rows for a hang, a level hole or a two-chain lift.
+func (r *Report) hangRows(t *table, u string) {
+	switch {
+	case r.Hang != nil:
+		hangRows(t, "hang", r.Hang, u)
+	case r.Level != nil && r.Level.Hang != nil:
+		t.row("level hole", fmt.Sprintf("x %s, y %s %s, diameter %s %s", formatNumber(r.Level.At.X), formatNumber(r.Level.At.Y), u, formatNumber(r.Level.Diameter), u))
+		hangRows(t, "hang", r.Level.Hang, u)
+	case r.Level != nil:
+		t.row("level hole", "none (see warnings)")
+		for i, h := range r.Level.Alternatives {
+			hangRows(t, fmt.Sprintf("option %d", i+1), h, u)
+		}
+	case r.Lift != nil:
+		l := r.Lift
+		t.row("chains", fmt.Sprintf("legs at %s° to horizontal, sling-angle factor %s", formatNumber(l.LegDeg), formatNumber(l.Factor)))
+		for i, c := range l.Chains {
+			t.row(fmt.Sprintf("chain %d", i+1), fmt.Sprintf("at (%s, %s) %s: vertical %s N, tension %s N (%s lbf)",
+				formatNumber(c.At.X), formatNumber(c.At.Y), u, formatNumber(c.Vertical), formatNumber(c.Tension), formatNumber(c.Tension/newtonsPerLbf)))
+		}
+	}
+}
+
+func hangRows(t *table, label string, h *Hang, u string) {
+	t.row(label, fmt.Sprintf("from (%s, %s) %s, hole %s %s: turns %s° (counter-clockwise +)",
+		formatNumber(h.At.X), formatNumber(h.At.Y), u, formatNumber(h.Diameter), u, formatNumber(h.AngleDeg)))
+	t.row("", fmt.Sprintf("%s %s to the balance point, tilt %s° per mm of drilling error, swing period %s s",
+		formatNumber(h.Arm), u, formatNumber(h.TiltPerMM), formatNumber(h.PeriodS)))
+}
+
+// WriteCautions writes the cautions that close every text report.
+func WriteCautions(w io.Writer) error {
+	var b strings.Builder
+	b.WriteString("Cautions:\n")
+	for _, c := range Cautions() {
+		b.WriteString("  - " + c + "\n")
+	}
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+// table is a two-column text table: labels padded to a common width.
+type table struct{ labels, values []string }
+
+func (t *table) row(label, value string) {
+	t.labels = append(t.labels, label)
+	t.values = append(t.values, value)
+}
+
+func (t *table) write(w io.Writer, title string) error {
+	width := 0
+	for _, l := range t.labels {
+		width = max(width, len([]rune(l)))
+	}
+	var b strings.Builder
+	b.WriteString(title + "\n")
+	for i, l := range t.labels {
+		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + t.values[i] + "\n")
+	}
+	b.WriteString("\n")
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+// formatNumber prints v with six significant digits, in plain decimals between 0.001 and 1e9 and in
+// exponent form outside, without trailing zeros.
+func formatNumber(v float64) string {
+	a := math.Abs(v)
+	if v == 0 || math.IsNaN(v) || math.IsInf(v, 0) || a < 1e-3 || a >= 1e9 {
+		if v == 0 {
+			return "0"
+		}
+		return strconv.FormatFloat(v, 'g', 6, 64)
+	}
+	digits := max(5-int(math.Floor(math.Log10(a))), 0)
+	s := strconv.FormatFloat(v, 'f', digits, 64)
+	if strings.Contains(s, ".") {
+		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
+	}
+	if s == "-0" {
+		return "0"
+	}
+	return s
+}

@@ -1,0 +1,155 @@
+package sketch
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"slices"
+	"strconv"
+	"strings"
+	"testing"
+
+	"plumb/geom"
+)
+
+// keysOf decodes one JSON object and returns its keys, sorted.
+func keysOf(t *testing.T, data []byte) map[string]json.RawMessage {
+	t.Helper()
+	var m map[string]json.RawMessage
+	if err := json.Unmarshal(data, &m); err != nil {
+		t.Fatalf("%v in %s", err, data)
+	}
+	return m
+}
+
+func checkKeys(t *testing.T, what string, m map[string]json.RawMessage, want ...string) {
+	t.Helper()
+	var got []string
+	for k := range m {
+		got = append(got, k)
+	}
+	slices.Sort(got)
+	slices.Sort(want)
+	if !slices.Equal(got, want) {
+		t.Errorf("%s keys %q, want %q", what, got, want)
+	}
+}
+
+func reportJSON(t *testing.T, r *Report) map[string]json.RawMessage {
+	t.Helper()
+	var b bytes.Buffer
+	if err := r.WriteJSON(&b); err != nil {
+		t.Fatal(err)
+	}
+	if bytes.Count(b.Bytes(), []byte("\n")) != 1 || !bytes.HasSuffix(b.Bytes(), []byte("\n")) {
+		t.Errorf("JSON output is not one line: %q", b.String())
+	}
+	return keysOf(t, b.Bytes())
+}
+
+var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "warnings"}
+
+func TestSummaryKeys(t *testing.T) {
+	d := plate(200, 100, "10")
+	a := mustAnalyze(t, d)
+	m := reportJSON(t, &Report{File: "plate.json", Doc: d, Analysis: a})
+	checkKeys(t, "summary", m, summaryKeys...)
+	for _, sub := range []struct {
+		key  string
+		keys []string
+	}{
+		{"units", []string{"length", "mass"}},
+		{"centroid", []string{"x", "y"}},
+		{"inertia", []string{"ixx", "iyy", "ixy"}},
+		{"principal", []string{"i1", "i2", "angle_deg"}},
+	} {
+		checkKeys(t, sub.key, keysOf(t, m[sub.key]), sub.keys...)
+	}
+	if string(m["warnings"]) != "[]" {
+		t.Errorf("warnings = %s, want []", m["warnings"])
+	}
+	if string(m["units"]) != `{"length":"mm","mass":"kg"}` {
+		t.Errorf("units = %s", m["units"])
+	}
+
+	s := Summarize("plate.json", d, a)
+	if s.Centroid != (XY{a.Centroid.X, a.Centroid.Y}) || s.Mass != a.Mass || s.Inertia != (Inertia{a.Ixx, a.Iyy, a.Ixy}) {
+		t.Errorf("summary %+v does not match the analysis", s)
+	}
+}
+
+func TestSummaryHangKeys(t *testing.T) {
+	d := plate(200, 100, "10")
+	h := mustHang(t, d, geom.Pt(150, 80), 8, HangOptions{Edge: 1})
+	m := reportJSON(t, &Report{File: "p", Doc: d, Analysis: h.Part, Hang: h})
+	checkKeys(t, "hang summary", m, append(summaryKeys, "hang")...)
+	hang := keysOf(t, m["hang"])
+	checkKeys(t, "hang", hang, "at", "hole", "angle_deg")
+	checkKeys(t, "hang.at", keysOf(t, hang["at"]), "x", "y")
+
+	lv, err := LevelHole(d, 8, HangOptions{Edge: 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m = reportJSON(t, &Report{File: "p", Doc: d, Analysis: lv.Hang.Part, Level: lv})
+	checkKeys(t, "level summary", m, append(summaryKeys, "hole")...)
+	checkKeys(t, "hole", keysOf(t, m["hole"]), "x", "y", "diameter")
+}
+
+func TestWriteText(t *testing.T) {
+	d := plate(200, 100, "10")
+	d.Name = "garden gate panel"
+	h := mustHang(t, d, geom.Pt(150, 80), 8, HangOptions{Edge: 30})
+	var b bytes.Buffer
+	if err := (&Report{File: "gate.json", Doc: d, Analysis: h.Part, Hang: h, Warnings: []string{"read note"}}).WriteText(&b); err != nil {
+		t.Fatal(err)
+	}
+	if err := WriteCautions(&b); err != nil {
+		t.Fatal(err)
+	}
+	out := b.String()
+	for _, want := range []string{"gate.json — garden gate panel", "mm²", " kg", " N (", "lbf", "balance point", "kg·mm²",
+		"turns", "swing period", "warning", "read note", "keep at least 30 mm", "licensed engineer"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("text output lacks %q:\n%s", want, out)
+		}
+	}
+}
+
+func TestWriteCSV(t *testing.T) {
+	d := plate(200, 100, "10")
+	a := mustAnalyze(t, d)
+	var b bytes.Buffer
+	w := csv.NewWriter(&b)
+	if err := w.Write(CSVHeader()); err != nil {
+		t.Fatal(err)
+	}
+	if err := (&Report{File: "a,b.json", Doc: d, Analysis: a}).WriteCSV(w); err != nil {
+		t.Fatal(err)
+	}
+	w.Flush()
+	rows, err := csv.NewReader(&b).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != 2 || len(rows[1]) != len(CSVHeader()) || rows[1][0] != "a,b.json" {
+		t.Fatalf("rows %q", rows)
+	}
+	if mass, err := strconv.ParseFloat(rows[1][4], 64); err != nil || mass != a.Mass {
+		t.Errorf("mass column %q, want %v", rows[1][4], a.Mass)
+	}
+}
+
+func TestFormatNumber(t *testing.T) {
+	for _, tc := range []struct {
+		v    float64
+		want string
+	}{
+		{0, "0"}, {1, "1"}, {-2.5, "-2.5"}, {123.456789, "123.457"}, {0.0123456789, "0.0123457"},
+		{98.0665, "98.0665"}, {1234567, "1234567"}, {1e-5, "1e-05"}, {2.5e9, "2.5e+09"}, {-1e-20, "-1e-20"},
+	} {
+		if got := formatNumber(tc.v); got != tc.want {
+			t.Errorf("formatNumber(%g) = %q, want %q", tc.v, got, tc.want)
+		}
+	}
+}
