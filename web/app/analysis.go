@@ -1,0 +1,160 @@
+//go:build js && wasm
+
+package main
+
+import (
+	"encoding/json"
+	"strings"
+	"time"
+
+	"plumb/geom"
+	"plumb/sketch"
+	"plumb/sketch/edit"
+)
+
+// result is the analysis of one revision of the part: what the canvas draws and the page shows.
+type result struct {
+	rev     int
+	doc     *sketch.Document
+	a       *sketch.Analysis
+	err     error         // the part cannot be analysed: this says why
+	body    geom.Boundary // the part's material, when its geometry is sound
+	hang    *sketch.Hang  // hung from the first hole
+	hangErr error
+	ms      float64 // time the analysis and the hang took
+
+	// The level-hole search takes several analyses, so it waits until a drag ends.
+	level     *sketch.Level // the level-hang hole suggestion
+	levelDia  float64       // hole diameter it was found for
+	levelDone bool
+	levelMS   float64
+}
+
+// analyse runs the analysis and the hang from the first hole on doc, and measures how long they took.
+func analyse(doc *sketch.Document, rev int) *result {
+	start := time.Now()
+	r := &result{rev: rev, doc: doc}
+	r.a, r.err = sketch.Analyze(doc, sketch.AnalyzeOptions{})
+	switch {
+	case r.a != nil:
+		r.body = r.a.Body
+	case geometrySound(doc):
+		r.body = doc.Body()
+	}
+	if r.err == nil && len(doc.Holes) > 0 {
+		h := doc.Holes[0]
+		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{})
+	}
+	r.ms = float64(time.Since(start).Microseconds()) / 1000
+	return r
+}
+
+// findLevel searches for the hole of diameter dia that hangs the part level.
+func (r *result) findLevel(dia float64) {
+	start := time.Now()
+	r.level, r.levelDia, r.levelDone = nil, dia, true
+	if r.err == nil {
+		r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{})
+	}
+	r.levelMS = float64(time.Since(start).Microseconds()) / 1000
+}
+
+// geometrySound reports whether every region of doc passes geom's checks, so that its material can
+// be drawn even when the density cannot be evaluated.
+func geometrySound(doc *sketch.Document) bool {
+	regions := append([]geom.Region{doc.Outline}, doc.Cutouts...)
+	for _, r := range regions {
+		if _, err := r.Check(); err != nil {
+			return false
+		}
+	}
+	return len(doc.Outline.Loops) > 0
+}
+
+// xy is a point in the state object.
+type xy struct {
+	X float64 `json:"x"`
+	Y float64 `json:"y"`
+}
+
+// hangState is the state object's "hang": the part hung from its first hole.
+type hangState struct {
+	At        xy      `json:"at"`
+	Hole      float64 `json:"hole"`
+	AngleDeg  float64 `json:"angle_deg"`
+	TiltPerMM float64 `json:"tilt_per_mm_deg"`
+	PeriodS   float64 `json:"period_s"`
+	Arm       float64 `json:"arm"`
+}
+
+// levelState is the state object's "level": where to drill for a level hang.
+type levelState struct {
+	X        float64 `json:"x"`
+	Y        float64 `json:"y"`
+	Diameter float64 `json:"diameter"`
+}
+
+// stateJSON returns the object window.plumb.state() gives: the keys of `plumb analyze --format json`
+// for the part, plus the hang, the level hole, timings, the material, weights, cautions, an error
+// when the part cannot be analysed, and the editor's tool, target and undo state.
+func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
+	m := map[string]any{}
+	if r.err == nil {
+		rep := sketch.Report{File: file, Doc: r.doc, Analysis: r.a, Hang: r.hang}
+		b, _ := json.Marshal(rep.Summary())
+		_ = json.Unmarshal(b, &m)
+		m["weight_n"], m["weight_lbf"] = r.a.WeightN, r.a.WeightLbf
+		if len(r.a.Materials) > 0 {
+			m["material"], m["overlay_materials"] = r.a.Materials[0], r.a.Materials[1:]
+		}
+	} else {
+		m["file"] = file
+		m["error"] = r.err.Error()
+		if len(r.doc.Outline.Loops) == 0 {
+			m["error"] = "no outline yet: draw the part's outline, or open a part or drawing"
+		}
+		m["warnings"] = []string{}
+	}
+	m["hang"], m["level"] = nil, nil
+	if h := r.hang; h != nil {
+		m["hang"] = hangState{xy{h.At.X, h.At.Y}, h.Diameter, h.AngleDeg, h.TiltPerMM, h.PeriodS, h.Arm}
+	}
+	warnings, _ := m["warnings"].([]any)
+	if r.hangErr != nil {
+		warnings = append(warnings, "hang hole: "+r.hangErr.Error())
+	}
+	if lv := r.level; lv != nil {
+		if lv.Hang != nil {
+			m["level"] = levelState{lv.At.X, lv.At.Y, lv.Diameter}
+		}
+		if len(r.doc.Holes) == 0 {
+			for _, w := range lv.Warnings {
+				warnings = append(warnings, w)
+			}
+		}
+	}
+	if warnings == nil {
+		warnings = []any{}
+	}
+	m["warnings"] = warnings
+	m["recompute_ms"], m["level_ms"] = r.ms, r.levelMS
+	m["cautions"] = sketch.Cautions()
+	m["tool"], m["target"] = ed.Tool().String(), ed.Target().String()
+	m["arc"], m["can_undo"], m["can_redo"] = ed.ArcMode(), ed.CanUndo(), ed.CanRedo()
+	m["hole_diameter"] = ed.HoleDiameter()
+	b, _ := json.Marshal(m)
+	return b
+}
+
+// edgeWarning reports whether the hang's warnings say its hole is too near an edge.
+func (r *result) edgeWarning() bool {
+	if r.hang == nil {
+		return false
+	}
+	for _, w := range r.hang.Warnings {
+		if strings.Contains(w, "nearest edge") {
+			return true
+		}
+	}
+	return false
+}

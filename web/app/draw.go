@@ -1,0 +1,686 @@
+//go:build js && wasm
+
+package main
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+	"strconv"
+
+	"github.com/hajimehoshi/ebiten/v2"
+	"github.com/hajimehoshi/ebiten/v2/text/v2"
+	"github.com/hajimehoshi/ebiten/v2/vector"
+
+	"plumb/geom"
+	"plumb/sketch"
+	"plumb/sketch/edit"
+)
+
+// The palette: a calm paper background, the material as a flat teal tint, doublers amber, the
+// balance point in ink, the plumb line red as a chalk line, selection blue, snapping rose.
+var (
+	colBackground  = rgba(0xf3f4f1, 1)
+	colGridMinor   = rgba(0xe3e6e1, 1)
+	colGridMajor   = rgba(0xd0d4ce, 1)
+	colAxis        = rgba(0xaab0a8, 1)
+	colMaterial    = rgba(0xc4dade, 1)
+	colEdge        = rgba(0x1f6470, 1)
+	colOverlay     = rgba(0xd9a441, 0.40)
+	colOverlayEdge = rgba(0x9a5b00, 1)
+	colGhost       = rgba(0x1d2329, 0.07)
+	colGhostEdge   = rgba(0x1d2329, 0.40)
+	colInk         = rgba(0x1d2329, 1)
+	colInkSoft     = rgba(0x5b6670, 1)
+	colWhite       = rgba(0xffffff, 1)
+	colPaper       = rgba(0xffffff, 0.90)
+	colPlumb       = rgba(0xb3261e, 1)
+	colWarn        = rgba(0xe07b00, 1)
+	colWarnGlow    = rgba(0xffa726, 0.35)
+	colSelect      = rgba(0x2f6fd6, 1)
+	colSelectSoft  = rgba(0x2f6fd6, 0.45)
+	colPreviewFill = rgba(0x2f6fd6, 0.08)
+	colSnap        = rgba(0xd2386c, 1)
+	colLevel       = rgba(0x1f6470, 1)
+)
+
+// Canvas furniture sizes in CSS pixels.
+const (
+	rulerLeft   = 40
+	rulerBottom = 22
+	flatten     = 0.25 // how far a drawn curve may stray from the true one, in device pixels
+	levelAngle  = 0.05 // degrees: a part hanging within this is drawn as level
+)
+
+// frame is one Draw call's context.
+type frame struct {
+	g    *Game
+	p    painter
+	v    edit.View
+	u    float64 // device pixels per CSS pixel
+	w, h float64
+	f    *fonts
+	res  *result
+	doc  *sketch.Document
+}
+
+// Draw draws the canvas. It changes nothing.
+func (g *Game) Draw(screen *ebiten.Image) {
+	g.mu.Lock()
+	defer g.mu.Unlock()
+	fr := &frame{g: g, p: painter{dst: screen}, v: g.ed.View, u: g.dpr, w: float64(g.w), h: float64(g.h),
+		f: g.fonts.facesFor(g.dpr), res: g.res, doc: g.ed.Document()}
+	screen.Fill(colBackground)
+	fr.grid()
+	fr.ghost()
+	fr.part()
+	fr.holes()
+	fr.level()
+	fr.plumbLine()
+	fr.balancePoint()
+	fr.edgeWarnings()
+	fr.selection()
+	fr.preview()
+	fr.measure()
+	fr.snap()
+	fr.rulers()
+	fr.scaleBar()
+	fr.status()
+	fr.emptyHint()
+}
+
+func (fr *frame) screen(p geom.Point) geom.Point { return fr.v.ToScreen(p) }
+
+func (fr *frame) tol() float64 { return flatten / fr.v.Scale }
+
+// segPath returns the segments as a path in screen space.
+func (fr *frame) segPath(segs []geom.Segment, closeLoops bool) *vector.Path {
+	var path vector.Path
+	appendSegments(&path, segs, fr.v.Affine(), fr.tol(), closeLoops)
+	return &path
+}
+
+// regionPath returns all loops of a region as one path.
+func (fr *frame) regionPath(r geom.Region) *vector.Path {
+	var path vector.Path
+	for _, l := range r.Loops {
+		appendSegments(&path, l, fr.v.Affine(), fr.tol(), true)
+	}
+	return &path
+}
+
+// dashedSegs draws segments dashed.
+func (fr *frame) dashedSegs(segs []geom.Segment, width, on, off float64, clr color.Color) {
+	var path vector.Path
+	var buf []geom.Point
+	m := fr.v.Affine()
+	for _, s := range segs {
+		pts := []geom.Point{m.Apply(s.Start())}
+		buf = s.Flatten(fr.tol(), buf[:0])
+		for _, q := range buf {
+			pts = append(pts, m.Apply(q))
+		}
+		dashPath(&path, pts, on*fr.u, off*fr.u)
+	}
+	fr.p.stroke(&path, width*fr.u, clr)
+}
+
+// grid draws the minor and major grid lines and the axes through the origin.
+func (fr *frame) grid() {
+	step := fr.g.ed.GridStep()
+	major := fr.v.GridStep(edit.GridPixels * 5 * fr.u)
+	lo, hi := fr.v.ToDoc(geom.Pt(0, fr.h)), fr.v.ToDoc(geom.Pt(fr.w, 0))
+	one := math.Max(1, math.Round(fr.u))
+	for x := math.Ceil(lo.X/step) * step; x <= hi.X; x += step {
+		sx := math.Round(fr.screen(geom.Pt(x, 0)).X)
+		fr.p.rect(sx, 0, one, fr.h, gridColour(x, major, step))
+	}
+	for y := math.Ceil(lo.Y/step) * step; y <= hi.Y; y += step {
+		sy := math.Round(fr.screen(geom.Pt(0, y)).Y)
+		fr.p.rect(0, sy, fr.w, one, gridColour(y, major, step))
+	}
+}
+
+func gridColour(v, major, step float64) color.Color {
+	switch {
+	case math.Abs(v) < step/2:
+		return colAxis
+	case math.Abs(v/major-math.Round(v/major)) < 1e-6:
+		return colGridMajor
+	}
+	return colGridMinor
+}
+
+// tilted reports whether the part hangs visibly off level from its hole.
+func (fr *frame) tilted() bool {
+	h := fr.res.hang
+	return h != nil && math.Abs(h.AngleDeg) > levelAngle && !h.Hanging.IsEmpty()
+}
+
+// ghost draws the part turned to the angle it hangs at, behind the part, with the angle beside it.
+func (fr *frame) ghost() {
+	if !fr.tilted() {
+		return
+	}
+	h := fr.res.hang
+	fr.p.fill(fr.segPath(h.Hanging.Pieces, true), colGhost, ebiten.FillRuleNonZero)
+	fr.dashedSegs(h.Hanging.Pieces, 1.2, 5, 4, colGhostEdge)
+}
+
+// tiltText says which way and how far the part turns when hung.
+func tiltText(deg float64) string {
+	dir := "anticlockwise"
+	if deg < 0 {
+		dir = "clockwise"
+	}
+	return fmt.Sprintf("hangs %s° %s", strconv.FormatFloat(math.Abs(deg), 'f', 1, 64), dir)
+}
+
+// part draws the material, the doublers and every edge.
+func (fr *frame) part() {
+	d := fr.doc
+	switch {
+	case !fr.res.body.IsEmpty() && fr.res.doc == d:
+		fr.p.fill(fr.segPath(fr.res.body.Pieces, true), colMaterial, ebiten.FillRuleNonZero)
+	case len(d.Outline.Loops) > 0:
+		fr.p.fill(fr.regionPath(d.Outline), colMaterial, fillRule(d.Outline.Rule))
+	}
+	for _, o := range d.Overlays {
+		fr.p.fill(fr.regionPath(o.Region), colOverlay, fillRule(o.Region.Rule))
+		for _, l := range o.Region.Loops {
+			fr.dashedSegs(l, 1.4, 7, 4, colOverlayEdge)
+		}
+	}
+	for _, r := range append([]geom.Region{d.Outline}, d.Cutouts...) {
+		fr.p.stroke(fr.regionPath(r), 1.5*fr.u, colEdge)
+	}
+}
+
+func fillRule(r geom.FillRule) ebiten.FillRule {
+	if r == geom.EvenOdd {
+		return ebiten.FillRuleEvenOdd
+	}
+	return ebiten.FillRuleNonZero
+}
+
+// holes draws the hang holes as empty circles with centre marks; the first, which the part hangs
+// from, in the plumb line's colour.
+func (fr *frame) holes() {
+	for i, h := range fr.doc.Holes {
+		c := fr.screen(h.At)
+		r := math.Max(h.Diameter/2*fr.v.Scale, 3*fr.u)
+		clr := colInk
+		if i == 0 {
+			clr = colPlumb
+		}
+		fr.p.circle(c, r, 0, colBackground)
+		fr.p.circle(c, r, 1.6*fr.u, clr)
+		arm := r + 4*fr.u
+		fr.p.line(c.Add(geom.Pt(-arm, 0)), c.Add(geom.Pt(arm, 0)), 0.8*fr.u, clr)
+		fr.p.line(c.Add(geom.Pt(0, -arm)), c.Add(geom.Pt(0, arm)), 0.8*fr.u, clr)
+	}
+}
+
+// level draws the suggested level-hang hole, unless the hang hole is already there.
+func (fr *frame) level() {
+	lv := fr.res.level
+	if lv == nil || lv.Hang == nil {
+		return
+	}
+	if hs := fr.doc.Holes; len(hs) > 0 && hs[0].At.Dist(lv.At)*fr.v.Scale < 1 {
+		return
+	}
+	c := fr.screen(lv.At)
+	r := math.Max(lv.Diameter/2*fr.v.Scale, 5*fr.u)
+	var ring []geom.Point
+	for i := 0; i <= 48; i++ {
+		a := 2 * math.Pi * float64(i) / 48
+		ring = append(ring, c.Add(geom.Pt(r*math.Cos(a), r*math.Sin(a))))
+	}
+	fr.p.dashed(ring, 1.5*fr.u, 3*fr.u, 3*fr.u, colLevel)
+	arm := r + 5*fr.u
+	fr.p.line(c.Add(geom.Pt(-arm, 0)), c.Add(geom.Pt(arm, 0)), fr.u, colLevel)
+	fr.p.line(c.Add(geom.Pt(0, -arm)), c.Add(geom.Pt(0, arm)), fr.u, colLevel)
+	fr.pill("drill here to hang level", fr.f.small, c.X+arm+6*fr.u, c.Y, alignLeftMiddle, colLevel)
+}
+
+// plumbLine draws the plumb line from the hang hole straight down through the balance point of the
+// hanging part, dashed, ending in a small bob below the part.
+func (fr *frame) plumbLine() {
+	h := fr.res.hang
+	if h == nil {
+		return
+	}
+	top := fr.screen(h.At)
+	bottom := fr.screen(fr.res.body.Bounds().Min).Y
+	if !h.Hanging.IsEmpty() {
+		bottom = math.Max(bottom, fr.screen(h.Hanging.Bounds().Min).Y)
+	}
+	end := geom.Pt(top.X, math.Max(bottom, top.Y)+28*fr.u)
+	fr.p.dashed([]geom.Point{top, end}, 1.3*fr.u, 7*fr.u, 4*fr.u, colPlumb)
+	// The bob: a small cone hanging from the line.
+	var bob vector.Path
+	r := 4.5 * fr.u
+	bob.MoveTo(float32(end.X), float32(end.Y))
+	bob.LineTo(float32(end.X+r), float32(end.Y+r))
+	bob.LineTo(float32(end.X), float32(end.Y+3*r))
+	bob.LineTo(float32(end.X-r), float32(end.Y+r))
+	bob.Close()
+	fr.p.fill(&bob, colPlumb, ebiten.FillRuleNonZero)
+	if fr.tilted() {
+		fr.pill(tiltText(h.AngleDeg), fr.f.label, end.X+10*fr.u, end.Y+r, alignLeftMiddle, colInk)
+	}
+}
+
+// balancePoint draws the centroid as a quartered circle, the strongest mark on the canvas, with its
+// coordinates beside it; when the part hangs tilted, a lighter mark shows where it hangs.
+func (fr *frame) balancePoint() {
+	a := fr.res.a
+	if a == nil || fr.res.doc != fr.doc {
+		return
+	}
+	if fr.tilted() {
+		h := fr.res.hang
+		fr.quartered(fr.screen(h.Pose.Apply(h.Centroid)), 6*fr.u, 0.45)
+	}
+	c := fr.screen(a.Centroid)
+	r := 10 * fr.u
+	fr.quartered(c, r, 1)
+	u := fr.doc.Units
+	fr.pill(fmt.Sprintf("balance point  x %s  y %s %s", fr.length(a.Centroid.X), fr.length(a.Centroid.Y), u),
+		fr.f.small, c.X+r+8*fr.u, c.Y+r+4*fr.u, alignLeftMiddle, colInk)
+}
+
+// quartered draws the centre-of-gravity symbol: a circle with opposite quarters filled.
+func (fr *frame) quartered(c geom.Point, r, opacity float64) {
+	ink := rgba(0x1d2329, opacity)
+	fr.p.circle(c, r+3*fr.u, 0, rgba(0xffffff, 0.85*opacity))
+	fr.p.circle(c, r, 0, rgba(0xffffff, opacity))
+	var q vector.Path
+	cx, cy, rr := float32(c.X), float32(c.Y), float32(r)
+	q.MoveTo(cx, cy)
+	q.Arc(cx, cy, rr, -math.Pi/2, 0, vector.Clockwise)
+	q.Close()
+	q.MoveTo(cx, cy)
+	q.Arc(cx, cy, rr, math.Pi/2, math.Pi, vector.Clockwise)
+	q.Close()
+	fr.p.fill(&q, ink, ebiten.FillRuleNonZero)
+	fr.p.circle(c, r, 2*fr.u, ink)
+}
+
+// edgeWarnings marks, where it happens, a hang hole too near an edge or off the material.
+func (fr *frame) edgeWarnings() {
+	if len(fr.doc.Holes) == 0 || fr.res.body.IsEmpty() {
+		return
+	}
+	h := fr.doc.Holes[0]
+	c := fr.screen(h.At)
+	r := math.Max(h.Diameter/2*fr.v.Scale, 3*fr.u)
+	if err := fr.res.hangErr; err != nil {
+		fr.p.circle(c, r+7*fr.u, 0, colWarnGlow)
+		fr.p.circle(c, r+7*fr.u, 2*fr.u, colPlumb)
+		fr.pill("the hang hole must sit on the material, clear of the edge", fr.f.small, c.X, c.Y+r+20*fr.u,
+			alignCentreMiddle, colPlumb)
+		return
+	}
+	if !fr.res.edgeWarning() {
+		return
+	}
+	edge, ok := nearestEdge(fr.res.body, h.At)
+	if !ok {
+		return
+	}
+	e := fr.screen(edge)
+	fr.p.circle(e, 12*fr.u, 0, colWarnGlow)
+	dir := e.Sub(c)
+	from := c.Add(dir.Mul(r / math.Max(dir.Norm(), 1e-9)))
+	fr.p.line(from, e, 2*fr.u, colWarn)
+	clear := edge.Dist(h.At) - h.Diameter/2
+	fr.pill(fmt.Sprintf("%s %s to the edge: too close", fr.length(clear), fr.doc.Units), fr.f.small,
+		e.X+14*fr.u, e.Y, alignLeftMiddle, colWarn)
+}
+
+// nearestEdge returns the point of the boundary nearest to p, found along 180 rays from p.
+func nearestEdge(b geom.Boundary, p geom.Point) (geom.Point, bool) {
+	best, found := math.Inf(1), false
+	var at geom.Point
+	for k := range 180 {
+		dir := geom.Pt(1, 0).Rotate(float64(k) * math.Pi / 90)
+		for _, t := range b.LineHits(p, dir) {
+			if t > 0 && t < best {
+				best, at, found = t, p.Add(dir.Mul(t)), true
+			}
+		}
+	}
+	return at, found
+}
+
+// selection highlights the hovered and selected shapes, points and holes, and shows vertices and
+// Bézier handles to grab.
+func (fr *frame) selection() {
+	ed := fr.g.ed
+	if ed.Tool() != edit.ToolSelect && ed.Tool() != edit.ToolHole {
+		return
+	}
+	fr.highlight(ed.Hover(), colSelectSoft, 1.5)
+	fr.highlight(ed.Selection(), colSelect, 2.5)
+}
+
+func (fr *frame) highlight(s edit.Selection, clr color.Color, width float64) {
+	d := fr.doc
+	switch s.Kind {
+	case edit.SelHole:
+		if s.Hole < len(d.Holes) {
+			h := d.Holes[s.Hole]
+			fr.p.circle(fr.screen(h.At), math.Max(h.Diameter/2*fr.v.Scale, 3*fr.u)+4*fr.u, width*fr.u, clr)
+		}
+	case edit.SelShape, edit.SelPoint:
+		l := shapeLoop(d, s.Point.Shape)
+		if l == nil {
+			return
+		}
+		fr.p.stroke(fr.segPath(l, true), width*fr.u, clr)
+		fr.vertices(l, s, clr)
+	}
+}
+
+// shapeLoop returns the loop a shape reference names, or nil.
+func shapeLoop(d *sketch.Document, s edit.ShapeRef) geom.Loop {
+	var r *geom.Region
+	switch {
+	case s.Layer == edit.LayerOutline:
+		r = &d.Outline
+	case s.Layer == edit.LayerCutout && s.Index < len(d.Cutouts):
+		r = &d.Cutouts[s.Index]
+	case s.Layer == edit.LayerOverlay && s.Index < len(d.Overlays):
+		r = &d.Overlays[s.Index].Region
+	}
+	if r == nil || s.Loop >= len(r.Loops) {
+		return nil
+	}
+	return r.Loops[s.Loop]
+}
+
+// vertices draws a shape's vertices as squares and its Bézier handles as dots on stalks; the point
+// s names is filled.
+func (fr *frame) vertices(l geom.Loop, s edit.Selection, clr color.Color) {
+	k := 3.5 * fr.u
+	for i, seg := range l {
+		for c := 1; c < seg.Degree(); c++ {
+			// A cubic's first handle belongs to its start, the second to its end; a quadratic's
+			// one handle to both.
+			ends := []geom.Point{seg.Start()}
+			switch {
+			case seg.Kind == geom.KindQuad:
+				ends = append(ends, seg.End())
+			case c == 2:
+				ends = []geom.Point{seg.End()}
+			}
+			for _, end := range ends {
+				fr.p.line(fr.screen(end), fr.screen(seg.P[c]), fr.u, clr)
+			}
+			fill := colWhite
+			if s.Kind == edit.SelPoint && s.Point.Seg == i && s.Point.Ctrl == c {
+				fill = clr
+			}
+			fr.p.circle(fr.screen(seg.P[c]), k, 0, fill)
+			fr.p.circle(fr.screen(seg.P[c]), k, fr.u, clr)
+		}
+		q := fr.screen(seg.Start())
+		fill := colWhite
+		if s.Kind == edit.SelPoint && s.Point.Seg == i && s.Point.Ctrl == 0 {
+			fill = clr
+		}
+		fr.p.rect(q.X-k, q.Y-k, 2*k, 2*k, clr)
+		fr.p.rect(q.X-k+fr.u, q.Y-k+fr.u, 2*k-2*fr.u, 2*k-2*fr.u, fill)
+	}
+}
+
+// preview draws the shape being drawn, its points and handles, and its size beside the pointer.
+func (fr *frame) preview() {
+	p, ok := fr.g.ed.Preview()
+	if !ok {
+		return
+	}
+	if p.Closed && len(p.Path) > 0 {
+		fr.p.fill(fr.segPath(p.Path, true), colPreviewFill, ebiten.FillRuleNonZero)
+	}
+	if len(p.Path) > 0 {
+		fr.p.stroke(fr.segPath(p.Path, p.Closed), 1.5*fr.u, colSelect)
+	}
+	for _, hd := range p.Handles {
+		a, b := fr.screen(hd[0]), fr.screen(hd[1])
+		fr.p.line(a, b, fr.u, colSelect)
+		fr.p.circle(b, 3.5*fr.u, 0, colSelect)
+	}
+	for _, q := range p.Points {
+		s := fr.screen(q)
+		fr.p.rect(s.X-3*fr.u, s.Y-3*fr.u, 6*fr.u, 6*fr.u, colSelect)
+	}
+	if p.Label != "" {
+		at := fr.screen(p.LabelAt)
+		fr.pill(p.Label, fr.f.label, at.X+16*fr.u, at.Y+18*fr.u, alignLeftMiddle, colSelect)
+	}
+}
+
+// measure draws the measure tool's line and its reading.
+func (fr *frame) measure() {
+	m := fr.g.ed.Measurement()
+	if m == nil {
+		return
+	}
+	a, b := fr.screen(m.A), fr.screen(m.B)
+	fr.p.line(a, b, 1.5*fr.u, colInk)
+	if d := b.Sub(a); d.Norm() > 0 {
+		n := geom.Pt(-d.Y, d.X).Mul(6 * fr.u / d.Norm())
+		fr.p.line(a.Sub(n), a.Add(n), 1.5*fr.u, colInk)
+		fr.p.line(b.Sub(n), b.Add(n), 1.5*fr.u, colInk)
+	}
+	mid := a.Add(b).Mul(0.5)
+	fr.pill(m.Text, fr.f.label, mid.X, mid.Y-16*fr.u, alignCentreMiddle, colInk)
+}
+
+// snap shows what the pointer snapped to while drawing or dragging: a marker for the kind of point,
+// guides for alignment, and the kind written beside it.
+func (fr *frame) snap() {
+	ed := fr.g.ed
+	if ed.Tool() == edit.ToolSelect && !ed.Dragging() {
+		return
+	}
+	s := ed.Cursor()
+	if s.Kind == edit.SnapNone {
+		return
+	}
+	at := fr.screen(s.At)
+	k := 5 * fr.u
+	if s.H {
+		fr.p.dashed([]geom.Point{fr.screen(s.HRef), at}, fr.u, 4*fr.u, 3*fr.u, colSnap)
+	}
+	if s.V {
+		fr.p.dashed([]geom.Point{fr.screen(s.VRef), at}, fr.u, 4*fr.u, 3*fr.u, colSnap)
+	}
+	switch s.Kind {
+	case edit.SnapEndpoint:
+		var sq vector.Path
+		sq.MoveTo(float32(at.X-k), float32(at.Y-k))
+		sq.LineTo(float32(at.X+k), float32(at.Y-k))
+		sq.LineTo(float32(at.X+k), float32(at.Y+k))
+		sq.LineTo(float32(at.X-k), float32(at.Y+k))
+		sq.Close()
+		fr.p.stroke(&sq, 1.5*fr.u, colSnap)
+	case edit.SnapMidpoint:
+		var tri vector.Path
+		tri.MoveTo(float32(at.X), float32(at.Y-k))
+		tri.LineTo(float32(at.X+k), float32(at.Y+k*0.8))
+		tri.LineTo(float32(at.X-k), float32(at.Y+k*0.8))
+		tri.Close()
+		fr.p.stroke(&tri, 1.5*fr.u, colSnap)
+	case edit.SnapCentre:
+		fr.p.circle(at, k, 1.5*fr.u, colSnap)
+	default:
+		fr.p.line(at.Add(geom.Pt(-k, 0)), at.Add(geom.Pt(k, 0)), 1.2*fr.u, colSnap)
+		fr.p.line(at.Add(geom.Pt(0, -k)), at.Add(geom.Pt(0, k)), 1.2*fr.u, colSnap)
+	}
+	label := s.Kind.String()
+	if s.Kind == edit.SnapAlign {
+		label = map[[2]bool]string{{true, false}: "level", {false, true}: "plumb", {true, true}: "level, plumb"}[[2]bool{s.H, s.V}]
+	}
+	if s.Kind != edit.SnapGrid {
+		drawText(fr.p.dst, label, fr.f.small, at.X+9*fr.u, at.Y-9*fr.u, alignLeftBottom, colSnap)
+	}
+}
+
+// rulers draws the rulers along the left and bottom edges, labelled in the document unit at the
+// major grid lines.
+func (fr *frame) rulers() {
+	u := fr.u
+	lw, bh := rulerLeft*u, rulerBottom*u
+	fr.p.rect(0, 0, lw, fr.h, colPaper)
+	fr.p.rect(0, fr.h-bh, fr.w, bh, colPaper)
+	fr.p.rect(lw-u, 0, u, fr.h-bh, colGridMajor)
+	fr.p.rect(lw, fr.h-bh, fr.w-lw, u, colGridMajor)
+	step := fr.g.ed.GridStep()
+	major := fr.v.GridStep(edit.GridPixels * 5 * u)
+	lo, hi := fr.v.ToDoc(geom.Pt(0, fr.h)), fr.v.ToDoc(geom.Pt(fr.w, 0))
+	for x := math.Ceil(lo.X/step) * step; x <= hi.X; x += step {
+		sx := fr.screen(geom.Pt(x, 0)).X
+		if sx < lw {
+			continue
+		}
+		isMajor := math.Abs(x/major-math.Round(x/major)) < 1e-6
+		tick := 4 * u
+		if isMajor {
+			tick = 8 * u
+			drawText(fr.p.dst, num(snapZero(x)), fr.f.small, sx+3*u, fr.h-bh+2*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
+		}
+		fr.p.rect(math.Round(sx), fr.h-bh, u, tick, colInkSoft)
+	}
+	for y := math.Ceil(lo.Y/step) * step; y <= hi.Y; y += step {
+		sy := fr.screen(geom.Pt(0, y)).Y
+		if sy > fr.h-bh {
+			continue
+		}
+		isMajor := math.Abs(y/major-math.Round(y/major)) < 1e-6
+		tick := 4 * u
+		if isMajor {
+			tick = 8 * u
+			drawText(fr.p.dst, num(snapZero(y)), fr.f.small, lw-10*u, sy-2*u, align{text.AlignEnd, text.AlignEnd}, colInkSoft)
+		}
+		fr.p.rect(lw-tick, math.Round(sy), tick, u, colInkSoft)
+	}
+	fr.p.rect(0, fr.h-bh, lw, bh, colWhite)
+	drawText(fr.p.dst, fr.doc.Units, fr.f.label, lw/2, fr.h-bh/2, alignCentreMiddle, colInk)
+}
+
+func snapZero(v float64) float64 {
+	if math.Abs(v) < 1e-9 {
+		return 0
+	}
+	return v
+}
+
+// scaleBar draws a bar of a round length, in alternating ink and white quarters.
+func (fr *frame) scaleBar() {
+	u := fr.u
+	length := fr.v.GridStep(90 * u)
+	px := length * fr.v.Scale
+	x0, y0 := rulerLeft*u+14*u, fr.h-rulerBottom*u-16*u
+	hgt := 6 * u
+	fr.p.rect(x0-u, y0-u, px+2*u, hgt+2*u, colInk)
+	for i := range 4 {
+		clr := colInk
+		if i%2 == 1 {
+			clr = colWhite
+		}
+		fr.p.rect(x0+px*float64(i)/4, y0, px/4, hgt, clr)
+	}
+	drawText(fr.p.dst, num(length)+" "+fr.doc.Units, fr.f.small, x0+px+8*u, y0+hgt/2, alignLeftMiddle, colInk)
+}
+
+// toolHints describe each tool in a line at the bottom of the canvas.
+var toolHints = map[edit.Tool]string{
+	edit.ToolSelect:  "Select: drag points, curve handles, shapes and holes · Delete removes · type x,y or @dx,dy and Enter to move",
+	edit.ToolOutline: "Outline: click points · drag to pull a curve · A arcs on/off · click the first point or Enter to close · type x,y  @dx,dy  length  length<angle",
+	edit.ToolRect:    "Rectangle: drag, or click two corners · type w,h or w,h,r (corner radius) and Enter",
+	edit.ToolCircle:  "Circle: click the centre, then the rim · type the radius and Enter",
+	edit.ToolSlot:    "Slot: click both end centres, then the width · type a length, then the width",
+	edit.ToolHole:    "Hang hole: click to place · drag a hole to move it · the first hole is the one the part hangs from",
+	edit.ToolMeasure: "Measure: click two points",
+}
+
+var targetWords = map[edit.Target]string{
+	edit.TargetOutline: "part outline", edit.TargetCutout: "cut-out", edit.TargetDoubler: "doubler",
+}
+
+// status writes the tool's hint, what new shapes become, the value being typed and any message.
+func (fr *frame) status() {
+	ed := fr.g.ed
+	u := fr.u
+	x, y := rulerLeft*u+14*u, fr.h-rulerBottom*u-38*u
+	hint := toolHints[ed.Tool()]
+	switch ed.Tool() {
+	case edit.ToolOutline, edit.ToolRect, edit.ToolCircle, edit.ToolSlot:
+		hint = "New " + targetWords[ed.Target()] + " · " + hint
+		if ed.Tool() == edit.ToolOutline && ed.ArcMode() {
+			hint = "Arcs on · " + hint
+		}
+	case edit.ToolHole:
+		hint = "Ø " + num(ed.HoleDiameter()) + " " + fr.doc.Units + " · " + hint
+	}
+	fr.pill(hint, fr.f.small, x, y, alignLeftMiddle, colInkSoft)
+	if t := ed.Typed(); t != "" {
+		c := ed.Cursor().At
+		at := fr.screen(c)
+		fr.pill(t+"|   Enter to use", fr.f.strong, at.X+16*u, at.Y-22*u, alignLeftMiddle, colSelect)
+	}
+	if msg := ed.Message(); msg != "" {
+		fr.pill(msg, fr.f.label, fr.w/2, y-28*u, alignCentreMiddle, colPlumb)
+	}
+}
+
+// emptyHint invites a first shape when the part has no outline.
+func (fr *frame) emptyHint() {
+	if len(fr.doc.Outline.Loops) > 0 {
+		return
+	}
+	if _, drawing := fr.g.ed.Preview(); drawing && fr.g.ed.Tool() != edit.ToolHole {
+		return
+	}
+	u := fr.u
+	cx, cy := fr.w/2-(fr.g.ed.Insets.Right-fr.g.ed.Insets.Left)/2, fr.h/2
+	drawText(fr.p.dst, "Draw the part's outline", fr.f.strong, cx, cy-12*u, alignCentreMiddle, colInk)
+	drawText(fr.p.dst, "O outline · R rectangle · C circle · L slot — or drop a part (.json) or drawing (.svg) here",
+		fr.f.label, cx, cy+12*u, alignCentreMiddle, colInkSoft)
+}
+
+// pill writes s on a white rounded label so it reads over the drawing.
+func (fr *frame) pill(s string, face text.Face, x, y float64, a align, clr color.Color) {
+	w, h := textSize(s, face)
+	pad := 5 * fr.u
+	left := x
+	switch a.h {
+	case text.AlignCenter:
+		left = x - w/2
+	case text.AlignEnd:
+		left = x - w
+	}
+	top := y - h/2
+	fr.p.roundRect(left-pad, top-pad/2, w+2*pad, h+pad, 6*fr.u, colPaper)
+	drawText(fr.p.dst, s, face, left, y, align{text.AlignStart, text.AlignCenter}, clr)
+}
+
+// length formats a coordinate for a label in the document unit, to a tenth of a millimetre or a
+// thousandth of an inch.
+func (fr *frame) length(v float64) string {
+	digits := map[string]int{"mm": 1, "cm": 2, "m": 4, "in": 3, "ft": 4}[fr.doc.Units]
+	return strconv.FormatFloat(snapZero(v), 'f', digits, 64)
+}
+
+// num formats a length or coordinate for labels: up to three decimals, no trailing zeros.
+func num(v float64) string {
+	v = math.Round(v*1000) / 1000
+	if v == 0 {
+		v = 0
+	}
+	return strconv.FormatFloat(v, 'f', -1, 64)
+}

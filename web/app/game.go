@@ -1,0 +1,137 @@
+//go:build js && wasm
+
+package main
+
+import (
+	"math"
+	"sync"
+
+	"github.com/hajimehoshi/ebiten/v2"
+
+	"plumb/geom"
+	"plumb/sketch/edit"
+)
+
+// Game is the Ebiten game: Update turns input into edits and reanalyses the part, Draw draws it,
+// Layout sizes the canvas in device pixels. The bridge calls in from JavaScript, so every access to
+// the editor holds mu; calls out to the page happen with mu released, since the page may call back.
+type Game struct {
+	mu      sync.Mutex
+	ed      *edit.Editor
+	file    string  // the name the part was loaded under
+	res     *result // analysis of the current revision
+	dpr     float64 // device pixels per CSS pixel
+	w, h    int     // canvas size in device pixels
+	in      inputState
+	fonts   fonts
+	needFit bool // fit the part once the canvas has a size
+
+	ready     bool // window.plumbUI.ready has been called
+	toldState uiState
+}
+
+// uiState is what the page shows beside the analysis: it is told again when any of it changes.
+type uiState struct {
+	rev        int
+	tool       edit.Tool
+	target     edit.Target
+	arc        bool
+	undo, redo bool
+	holeDia    float64
+	level      bool // the level-hole search has run
+}
+
+func newGame() *Game {
+	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true}
+	g.res = analyse(g.ed.Document(), g.ed.Rev())
+	return g
+}
+
+// refresh reanalyses the part if it changed since the last analysis, and looks for the level hole
+// once nothing is being dragged.
+func (g *Game) refresh() {
+	if g.res.rev != g.ed.Rev() {
+		g.res = analyse(g.ed.Document(), g.ed.Rev())
+		g.ed.SetGuides(g.guides())
+	}
+	if (!g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter()) && !g.ed.Dragging() {
+		g.res.findLevel(g.ed.HoleDiameter())
+		g.ed.SetGuides(g.guides())
+	}
+}
+
+// guides are the analysis points the pointer snaps to: the balance point and the level hole.
+func (g *Game) guides() []geom.Point {
+	var pts []geom.Point
+	if g.res.a != nil {
+		pts = append(pts, g.res.a.Centroid)
+	}
+	if lv := g.res.level; lv != nil && lv.Hang != nil {
+		pts = append(pts, lv.At)
+	}
+	return pts
+}
+
+// pending returns what the page must be told after this change, if anything: a reanalysis or a
+// change of tool, target or undo state. It marks it told.
+func (g *Game) pending() (state, part []byte, tell bool) {
+	now := uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
+		g.ed.HoleDiameter(), g.res.levelDone}
+	if now == g.toldState {
+		return nil, nil, false
+	}
+	g.toldState = now
+	part, _ = g.ed.Document().Save()
+	return g.res.stateJSON(g.file, g.ed), part, true
+}
+
+// Update handles input and reanalyses the part after changes.
+func (g *Game) Update() error {
+	if !g.ready {
+		// The page loads the autosaved or demo part when told; only then has it anything to be told.
+		g.ready = true
+		callPage("ready")
+	}
+	g.mu.Lock()
+	g.handleInput()
+	if g.needFit && g.w > 0 {
+		g.fit()
+	}
+	g.refresh()
+	state, part, tell := g.pending()
+	g.mu.Unlock()
+
+	if tell {
+		tellChange(state, part)
+	}
+	return nil
+}
+
+// fit shows the whole part clear of the page's panel and toolbar.
+func (g *Game) fit() {
+	g.needFit = false
+	in := pageInsets(g.dpr)
+	g.ed.Insets = in
+	g.ed.Fit()
+}
+
+// Layout sizes the canvas in device pixels so that lines and text are sharp on high-DPI screens.
+func (g *Game) Layout(outsideWidth, outsideHeight int) (int, int) {
+	dpr := ebiten.Monitor().DeviceScaleFactor()
+	if !(dpr > 0) {
+		dpr = 1
+	}
+	w, h := int(math.Ceil(float64(outsideWidth)*dpr)), int(math.Ceil(float64(outsideHeight)*dpr))
+	g.mu.Lock()
+	defer g.mu.Unlock()
+	if w != g.w || h != g.h || dpr != g.dpr {
+		// Keep the picture the same size in CSS pixels when the device scale factor changes.
+		k := dpr / g.dpr
+		g.ed.View.Scale *= k
+		g.ed.View.Offset = g.ed.View.Offset.Mul(k)
+		g.w, g.h, g.dpr = w, h, dpr
+		g.ed.PixelRatio = dpr
+		g.ed.Resize(float64(w), float64(h))
+	}
+	return w, h
+}

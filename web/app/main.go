@@ -1,0 +1,21 @@
+//go:build js && wasm
+
+// Command app is Plumb's browser app: the part editor drawn with Ebiten on a WebGL canvas, built for
+// GOOS=js GOARCH=wasm and packed into one offline HTML page by web/bundle. The editing logic lives in
+// sketch/edit; this package draws, forwards input, runs the analysis after every change and talks to
+// the page through window.plumb (bridge_js.go).
+package main
+
+import (
+	"github.com/hajimehoshi/ebiten/v2"
+)
+
+func main() {
+	g := newGame()
+	installBridge(g)
+	ebiten.SetWindowTitle("Plumb")
+	ebiten.SetRunnableOnUnfocused(true)
+	if err := ebiten.RunGame(g); err != nil {
+		reportFatal(err)
+	}
+}
