@@ -64,14 +64,17 @@ func PolygonMoments(pts []Point) Moments {
 // ∬xy = Σk(2x0y0+x0y1+x1y0+2x1y1)/24, ∬y² = Σk(y0²+y0y1+y1²)/12. The fields hold the sums before division.
 type fanSums struct{ a, x, y, xx, xy, yy float64 }
 
+// add adds the edge p→q, using x0²+x0x1+x1² = (x0+x1)² − x0x1 and
+// 2x0y0+x0y1+x1y0+2x1y1 = (x0+x1)(y0+y1) + x0y0 + x1y1 to save multiplications.
 func (f *fanSums) add(p, q Point) {
 	k := p.X*q.Y - q.X*p.Y
+	sx, sy := p.X+q.X, p.Y+q.Y
 	f.a += k
-	f.x += k * (p.X + q.X)
-	f.y += k * (p.Y + q.Y)
-	f.xx += k * (p.X*p.X + p.X*q.X + q.X*q.X)
-	f.xy += k * (2*p.X*p.Y + p.X*q.Y + q.X*p.Y + 2*q.X*q.Y)
-	f.yy += k * (p.Y*p.Y + p.Y*q.Y + q.Y*q.Y)
+	f.x += k * sx
+	f.y += k * sy
+	f.xx += k * (sx*sx - p.X*q.X)
+	f.xy += k * (sx*sy + p.X*p.Y + q.X*q.Y)
+	f.yy += k * (sy*sy - p.Y*q.Y)
 }
 
 // addTo adds the triangle-fan moments to g (degree 2) as its (a+1)·∬u^a·v^b sums.
