@@ -16,8 +16,9 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  const timing = {}; // milliseconds since navigation: readyMs, firstChangeMs
+  const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
   let app = null; // window.plumb once the app is ready
+  let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let state = null; // the app's last state
   let mode = "sheet"; // "sheet" (material and thickness) or "formula"
 
@@ -85,28 +86,35 @@
     }
   }
 
+  // ready is called by the app from inside its frame. The autosave is read at once, before the app
+  // reports its empty starting part, and loaded after the frame, outside the app's own call.
   function ready() {
     app = window.plumb;
     timing.readyMs = performance.now();
-    $("loading").classList.add("done");
-    setEnabled(true);
-    try {
-      restore();
-    } catch (e) {
-      toast("The part could not be restored: " + e.message, true);
-    }
+    const saved = readStore(AUTOSAVE);
+    setTimeout(() => {
+      try {
+        restore(saved);
+      } catch (e) {
+        toast("The part could not be restored: " + e.message, true);
+      }
+      restored = true;
+      refresh();
+      $("loading").classList.add("done");
+      setEnabled(true);
+      requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
+    });
   }
 
   // restore brings back the autosaved part, or shows the demo part when there is none or the address asks
   // for it (#demo). A part the demo replaces is kept under plumb.previous and offered back.
-  function restore() {
-    const saved = readStore(AUTOSAVE);
+  function restore(saved) {
     if (saved === null || location.hash === "#demo") {
-      if (saved !== null && saved !== window.PLUMB_DEMO) {
+      loadText(window.PLUMB_DEMO, "demo.json", true);
+      if (saved !== null && saved !== app.saveJSON()) {
         writeStore(PREVIOUS, saved);
         $("previous").hidden = false;
       }
-      loadText(window.PLUMB_DEMO, "demo.json", true);
       try { history.replaceState(null, "", location.pathname + location.search); } catch { /* file:// may refuse */ }
       return;
     }
@@ -116,13 +124,10 @@
       loadText(window.PLUMB_DEMO, "demo.json", true);
       toast("Your last part could not be read back (" + r.error + "). Its text is kept in this browser's " +
         "storage under " + UNREADABLE + "; the demo part is shown.", true);
-      return;
     }
-    refresh();
   }
 
   function onChange(s, partJSON) {
-    if (timing.firstChangeMs === undefined) timing.firstChangeMs = performance.now();
     state = s;
     try {
       save(partJSON);
@@ -133,7 +138,7 @@
   }
 
   function save(partJSON) {
-    if (typeof partJSON === "string" && partJSON !== "") {
+    if (restored && typeof partJSON === "string" && partJSON !== "") {
       if (!writeStore(AUTOSAVE, partJSON)) toast("This browser's storage is full: save the part to a file.", true);
       showPart(partJSON);
     }
@@ -364,7 +369,6 @@
     if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
     if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = String(state.hole_diameter);
     $("material-desc").textContent = state.material || "";
-    $("recompute").textContent = Number.isFinite(state.recompute_ms) ? "computed in " + state.recompute_ms.toFixed(1) + " ms" : "";
     $("part-error").textContent = state.error || "";
     if (state.error) {
       for (const id of ["weight", "balance", "hang"]) $(id).textContent = "—";
@@ -388,7 +392,7 @@
     if (h) {
       $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
       const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
-        (h.angle_deg > 0 ? " counter-clockwise" : " clockwise");
+        (h.angle_deg > 0 ? " anticlockwise" : " clockwise");
       const parts = [tilt, "Ø " + fmtLen(h.hole) + " " + u];
       if (Number.isFinite(h.tilt_per_mm_deg)) parts.push(h.tilt_per_mm_deg.toFixed(2) + "° per mm off the line");
       if (Number.isFinite(h.period_s)) parts.push("swings in " + h.period_s.toFixed(2) + " s");
@@ -412,6 +416,7 @@
       ["Principal I2", fmtSig(state.principal.i2) + " " + kgu2],
       ["Axis of I1 from x", fmtDeg(state.principal.angle_deg)],
       ["Error estimate", state.error_estimate > 0 ? state.error_estimate.toExponential(1) + " (relative)" : "exact"],
+      ["Computed in", Number.isFinite(state.recompute_ms) ? state.recompute_ms.toFixed(2) + " ms" : "—"],
     ];
     $("details-rows").replaceChildren(...rows.map(([k, v]) => {
       const tr = document.createElement("tr");
