@@ -19,8 +19,9 @@ package sketch
 //
 // "format" and "version" are required; a file with a newer version than FormatVersion is refused.
 // "units" is a length unit ("mm" when absent). A material is either {"material", "thickness"} or
-// {"formula", "unit", "params"}, optionally with "custom" materials; it may be left out, in which case
-// the material is given when the part is analysed. A region has a fill rule ("nonzero", the default,
+// {"formula", "unit", "params"}, optionally with "custom" materials ({"key", "name", "density",
+// "areal", "approx", "gauge_system", "source"}: density in kg/m³, or for an areal material in kg/m² per
+// mm of thickness); it may be left out, in which case the material is given when the part is analysed. A region has a fill rule ("nonzero", the default,
 // or "evenodd") and closed loops. A loop lists its segments in order, each with its own end points, so
 // every segment reads on its own:
 //
@@ -327,7 +328,7 @@ func loadMaterial(n node) (density.Material, error) {
 	var m density.Material
 	obj, err := n.object()
 	if err == nil {
-		err = obj.only("key", "name", "density_kg_m3", "approx", "areal", "source")
+		err = obj.only("key", "name", "density", "areal", "approx", "gauge_system", "source")
 	}
 	if err != nil {
 		return m, err
@@ -335,7 +336,7 @@ func loadMaterial(n node) (density.Material, error) {
 	for _, f := range []struct {
 		key string
 		dst *string
-	}{{"key", &m.Key}, {"name", &m.Name}, {"source", &m.Source}} {
+	}{{"key", &m.Key}, {"name", &m.Name}, {"gauge_system", &m.GaugeSystem}, {"source", &m.Source}} {
 		if fn, ok := obj.get(f.key); ok {
 			if *f.dst, err = fn.str(); err != nil {
 				return m, err
@@ -352,7 +353,7 @@ func loadMaterial(n node) (density.Material, error) {
 			}
 		}
 	}
-	dn, err := obj.need("density_kg_m3")
+	dn, err := obj.need("density")
 	if err != nil {
 		return m, err
 	}
@@ -849,9 +850,10 @@ type (
 	fileMaterial struct {
 		Key     string  `json:"key,omitempty"`
 		Name    string  `json:"name,omitempty"`
-		Density float64 `json:"density_kg_m3"`
-		Approx  bool    `json:"approx,omitempty"`
+		Density float64 `json:"density"`
 		Areal   bool    `json:"areal,omitempty"`
+		Approx  bool    `json:"approx,omitempty"`
+		Gauges  string  `json:"gauge_system,omitempty"`
 		Source  string  `json:"source,omitempty"`
 	}
 	fileOverlay struct {
@@ -898,7 +900,7 @@ func saveSpec(s density.Spec) *fileSpec {
 		Params: s.Params}
 	for _, m := range s.Custom {
 		f.Custom = append(f.Custom, fileMaterial{Key: m.Key, Name: m.Name, Density: m.Density,
-			Approx: m.Approx, Areal: m.Areal, Source: m.Source})
+			Areal: m.Areal, Approx: m.Approx, Gauges: m.GaugeSystem, Source: m.Source})
 	}
 	if isEmptySpec(s) {
 		return nil

@@ -38,7 +38,8 @@ func sampleDocument() *Document {
 		Name:   "doubler",
 		Region: geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(20, 20), geom.Pt(120, 80))}},
 		Material: density.Spec{Formula: "k*(1+x/1000)", Unit: "kg/m2", Params: map[string]float64{"k": 7.85},
-			Custom: []density.Material{{Key: "cor", Name: "corten", Density: 7850, Approx: true, Source: "mill sheet"}}},
+			Custom: []density.Material{{Key: "cor", Name: "corten", Density: 7850, Approx: true, Source: "mill sheet",
+				GaugeSystem: density.GaugeSteel}}},
 	}}
 	d.Holes = []Hole{{At: geom.Pt(200, 340), Diameter: 8}, {At: geom.Pt(-0.1, 1e-7)}}
 	d.Notes = "line one\nline two"
@@ -204,8 +205,8 @@ func TestLoadErrors(t *testing.T) {
 		{"overlay material", `{` + head + `, "overlays": [{"region": {"loops": [` + square(0, "") +
 			`]}, "material": {"density": 3}}]}`,
 			`overlays[0].material.density: unknown key (expected one of: "material", "thickness", "formula", "unit", "params", "custom")`},
-		{"custom density", `{` + head + `, "material": {"custom": [{"key": "x", "density_kg_m3": 0}]}}`,
-			`material.custom[0].density_kg_m3: density must be positive`},
+		{"custom density", `{` + head + `, "material": {"custom": [{"key": "x", "density": 0}]}}`,
+			`material.custom[0].density: density must be positive`},
 		{"formula", `{` + head + `, "material": {"formula": "2*(x+", "unit": "kg/m2"}}`, `material.formula: col 6: ...`},
 		{"material name", `{` + head + `, "overlays": [{"region": {"loops": [` + square(0, "") +
 			`]}, "material": {"material": "unobtainium", "thickness": "3 mm"}}]}`, `overlays[0].material.material: ...`},

@@ -72,6 +72,9 @@ const (
 	xlinkNamespace = "http://www.w3.org/1999/xlink"
 	// maxSVGDepth bounds the nesting of elements and of use references.
 	maxSVGDepth = 256
+	// maxSVGVisits bounds the elements read, counting each time a use reference repeats one: use
+	// elements that refer to groups of use elements could otherwise multiply without end.
+	maxSVGVisits = 1 << 17
 	// maxSVGWarnings is the number of warnings ReadSVG lists before summing up the rest.
 	maxSVGWarnings = 20
 	// closeTolMM is the largest gap (in mm) between the ends of a contour for a cut file to count it as
@@ -100,12 +103,12 @@ func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
 		return nil, nil, err
 	}
 	r := &svgReader{ids: map[string]*element{}}
-	r.index(root)
+	r.collect(root)
 	base, err := r.rootTransform(root)
 	if err != nil {
 		return nil, nil, err
 	}
-	ctx := context{ctm: base}
+	ctx := inherited{ctm: base}
 	ctx.paint, _ = r.paint(root, paint{fill: true})
 	if err := r.children(root, ctx, 0); err != nil {
 		return nil, nil, err
@@ -217,8 +220,8 @@ type paint struct {
 	hidden       bool // visibility: hidden or collapse
 }
 
-// context is what an element inherits: its paint and the map from its user space to the document.
-type context struct {
+// inherited is what an element inherits: its paint and the map from its user space to the document.
+type inherited struct {
 	paint
 	ctm geom.Affine
 }
@@ -236,6 +239,7 @@ type svgReader struct {
 	rules    []cssRule
 	shapes   []shape
 	warnings []string
+	visits   int
 }
 
 func (r *svgReader) warn(format string, args ...any) {
@@ -249,8 +253,8 @@ func (r *svgReader) warningList() []string {
 	return r.warnings
 }
 
-// index records the elements by id and reads the style sheets.
-func (r *svgReader) index(e *element) {
+// collect records the elements by id and reads the style sheets.
+func (r *svgReader) collect(e *element) {
 	if id := e.attrs["id"]; id != "" {
 		if _, dup := r.ids[id]; !dup {
 			r.ids[id] = e
@@ -260,7 +264,7 @@ func (r *svgReader) index(e *element) {
 		r.rules = append(r.rules, parseStyleSheet(e.text, len(r.rules), r)...)
 	}
 	for _, k := range e.kids {
-		r.index(k)
+		r.collect(k)
 	}
 }
 
@@ -365,7 +369,7 @@ var nonRendered = []string{"defs", "symbol", "clipPath", "mask", "marker", "patt
 // textElements cannot be read: glyph outlines depend on fonts.
 var textElements = []string{"text", "tspan", "textPath", "tref", "flowRoot", "flowPara"}
 
-func (r *svgReader) children(e *element, ctx context, uses int) error {
+func (r *svgReader) children(e *element, ctx inherited, uses int) error {
 	for _, k := range e.kids {
 		if err := r.visit(k, ctx, uses); err != nil {
 			return err
@@ -376,9 +380,13 @@ func (r *svgReader) children(e *element, ctx context, uses int) error {
 
 // visit reads element e in the inherited context ctx; uses counts the use references followed to
 // reach it.
-func (r *svgReader) visit(e *element, ctx context, uses int) error {
+func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	if !e.svg || slices.Contains(nonRendered, e.name) {
 		return nil
+	}
+	if r.visits++; r.visits > maxSVGVisits {
+		return &SVGError{Element: e.String(), Msg: fmt.Sprintf("the drawing expands to more than %d elements "+
+			"through use references", maxSVGVisits)}
 	}
 	p, shown := r.paint(e, ctx.paint)
 	if !shown {
@@ -391,7 +399,7 @@ func (r *svgReader) visit(e *element, ctx context, uses int) error {
 	if err != nil {
 		return err
 	}
-	ctx = context{paint: p, ctm: own.Then(ctx.ctm)}
+	ctx = inherited{paint: p, ctm: own.Then(ctx.ctm)}
 	for _, a := range []string{"clip-path", "mask"} {
 		if v, ok := e.attrs[a]; ok && v != "none" {
 			r.warn("%s: %s is not applied; the shapes are read unclipped", e, a)
@@ -453,7 +461,7 @@ func nestedViewport(e *element) (geom.Affine, error) {
 
 // use draws the element a use element refers to, moved by the use's x and y (SVG 1.1, section 5.6).
 // Only references into the same file ("#id") are followed.
-func (r *svgReader) use(e *element, ctx context, uses int) error {
+func (r *svgReader) use(e *element, ctx inherited, uses int) error {
 	href := strings.TrimSpace(e.attrs["href"])
 	id, internal := strings.CutPrefix(href, "#")
 	target := r.ids[id]
@@ -616,7 +624,7 @@ func ellipsePath(e *element, b *pathBuilder, rxName, ryName string) error {
 }
 
 // addShape keeps the contours of a visible shape, mapped to document coordinates.
-func (r *svgReader) addShape(e *element, ctx context, subs []subpath) {
+func (r *svgReader) addShape(e *element, ctx inherited, subs []subpath) {
 	if ctx.hidden || !ctx.fill && !ctx.stroke || len(subs) == 0 {
 		return
 	}

@@ -2,6 +2,7 @@ package sketch
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -243,6 +244,8 @@ func TestReadSVGErrors(t *testing.T) {
 		{"nothing visible", mmSVG(`<rect fill="none" width="5" height="5"/>`), "no visible shapes in the drawing", SVGOptions{}},
 		{"filled reading of strokes", mmSVG(`<rect fill="none" stroke="#000" width="5" height="5"/>`),
 			"no filled shape encloses any area", SVGOptions{Reading: ReadFilled}},
+		{"use references multiplying", mmSVG(`<rect id="r0" width="1" height="1"/>` + useLadder(24)),
+			"use (element 4): the drawing expands to more than 131072 elements through use references", SVGOptions{}},
 		{"self reference", mmSVG(`<use id="u" href="#u"/>`),
 			"use#u (element 2), attribute href: use references nest too deep (or refer to themselves)", SVGOptions{}},
 	}
@@ -258,6 +261,17 @@ func TestReadSVGErrors(t *testing.T) {
 			}
 		})
 	}
+}
+
+// useLadder returns groups g1 … gn, each using the one before twice, so that gn draws r0 2ⁿ times;
+// then a use of gn.
+func useLadder(n int) string {
+	var b strings.Builder
+	for i := 1; i <= n; i++ {
+		fmt.Fprintf(&b, `<g id="g%d"><use href="#g%d"/><use href="#g%d"/></g>`, i, i-1, i-1)
+	}
+	fmt.Fprintf(&b, `<use id="u%d" href="#g%d"/>`, n, n)
+	return strings.Replace(b.String(), `href="#g0"`, `href="#r0"`, -1)
 }
 
 // TestReadSVGTestdata reads every SVG in the repository's testdata and checks that each part has
@@ -308,4 +322,72 @@ func FuzzReadSVG(f *testing.F) {
 			t.Fatalf("ReadSVG returned an invalid outline: %v", err)
 		}
 	})
+}
+
+// TestBladeSignDrawingsAgree checks that the part file of the blade sign describes the same metal as
+// its SVG drawings: the drawings cut the two hang holes that the part file lists as holes.
+func TestBladeSignDrawingsAgree(t *testing.T) {
+	data, err := os.ReadFile("../testdata/blade-sign.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	d, err := Load(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := d.Body().IntegratePoly(geom.ConstPoly(1)).M
+	for _, h := range d.Holes {
+		want -= math.Pi * h.Diameter * h.Diameter / 4
+	}
+	for _, f := range []string{"blade-sign-cut.svg", "blade-sign-filled.svg"} {
+		data, err := os.ReadFile("../testdata/" + f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s, _, err := ReadSVG(data, SVGOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := outlineArea(s); !relClose(got, want, 1e-9) {
+			t.Errorf("%s: area %v mm², want %v as in blade-sign.json", f, got, want)
+		}
+	}
+}
+
+// starPath returns path data for one closed contour of n segments around a circle of radius 100,
+// cycling through lines, cubics and arcs.
+func starPath(n int) string {
+	var b strings.Builder
+	pt := func(k int) (float64, float64) {
+		r, a := 100+float64(k%2), 2*math.Pi*float64(k)/float64(n)
+		return r * math.Cos(a), r * math.Sin(a)
+	}
+	x, y := pt(0)
+	fmt.Fprintf(&b, "M%.6f %.6f", x, y)
+	for k := 1; k <= n; k++ {
+		px, py := x, y
+		x, y = pt(k % n)
+		switch k % 3 {
+		case 0:
+			fmt.Fprintf(&b, "L%.6f %.6f", x, y)
+		case 1:
+			fmt.Fprintf(&b, "C%.6f %.6f %.6f %.6f %.6f %.6f", px+(x-px)/3, py+(y-py)/3, px+2*(x-px)/3, py+2*(y-py)/3, x, y)
+		default:
+			fmt.Fprintf(&b, "A200 200 0 0 1 %.6f %.6f", x, y)
+		}
+	}
+	b.WriteString("Z")
+	return b.String()
+}
+
+// BenchmarkReadSVG reads a cut file whose one contour has 20,000 segments.
+func BenchmarkReadSVG(b *testing.B) {
+	data := []byte(mmSVG(`<path fill="none" stroke="#000" d="` + starPath(20000) + `"/>`))
+	b.ReportAllocs()
+	b.SetBytes(int64(len(data)))
+	for b.Loop() {
+		if _, _, err := ReadSVG(data, SVGOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
 }

@@ -1,0 +1,288 @@
+package sketch
+
+import (
+	"encoding/xml"
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// Drawing sizes of WriteSVG, in millimetres on paper.
+const (
+	drawMargin   = 10  // around the part
+	drawMinWidth = 150 // room for the label under small parts
+	drawFont     = 3   // label text height
+	drawLine     = 4.5 // label line pitch
+	drawMarkR    = 4   // radius of the centroid mark
+	drawScaleBar = 50  // length of the scale bar
+)
+
+// WriteSVG draws the part at 1:1 for printing at 100 %: width, height and viewBox in millimetres, the
+// material tinted with cut-outs left empty, overlays in a second tint, the hang holes, and a label
+// with the part's name, materials and the cautions, above a 50 mm scale bar to check the print. With
+// an analysis a it marks the balance point (a quartered circle) and gives mass and weight; with a
+// hang it draws that hole and the plumb line from it through the balance point of the part as hung.
+// Either may be nil.
+func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
+	unit := density.Length{Name: "mm", MM: 1}
+	if d.Units != "" {
+		var err error
+		if unit, err = density.LengthUnit(d.Units); err != nil {
+			return nil, err
+		}
+	}
+	var body geom.Boundary
+	if a != nil {
+		body = a.Body
+	} else {
+		body = d.Body()
+	}
+	box := body.Bounds()
+	if box.IsEmpty() {
+		return nil, errors.New("the part has no material to draw")
+	}
+	k := unit.MM
+	size := box.Size().Mul(k)
+	width := max(size.X+2*drawMargin, drawMinWidth)
+	// Document (unit, y up) → paper (mm, y down), the part centred in the width.
+	toPaper := geom.Scale(k, -k).Then(geom.Translate((width-size.X)/2-box.Min.X*k, drawMargin+box.Max.Y*k))
+
+	w := &svgWriter{toPaper: toPaper}
+	w.printf(`<g id="part">`)
+	loops, err := chainLoops(body.Pieces, regionTol(box))
+	if err != nil {
+		return nil, err
+	}
+	w.path(slices.Concat(loops...), `fill="#c9d3dc" stroke="#1d2a36" stroke-width="0.25"`)
+	for _, o := range d.Overlays {
+		w.printf(`<g><title>%s</title>`, escape(o.Name))
+		for _, l := range o.Region.Loops {
+			w.path(l, fmt.Sprintf(`fill="#d9a441" fill-opacity="0.45" fill-rule="%s" stroke="#8a6414" stroke-width="0.2"`,
+				ruleName(o.Region.Rule)))
+		}
+		w.printf(`</g>`)
+	}
+	w.printf(`</g>`)
+	for _, h := range d.Holes {
+		w.hole(h.At, h.Diameter)
+	}
+	if hang != nil {
+		w.plumbLine(hang, box)
+	}
+	if a != nil {
+		w.centroidMark(a.Centroid)
+	}
+	height := w.label(d, a, hang, unit, width, drawMargin+size.Y+drawMargin)
+
+	var out strings.Builder
+	fmt.Fprintf(&out, `<?xml version="1.0" encoding="UTF-8"?>
+<svg xmlns="http://www.w3.org/2000/svg" width="%smm" height="%smm" viewBox="0 0 %s %s">
+`, num(width), num(height), num(width), num(height))
+	fmt.Fprintf(&out, "<title>%s</title>\n", escape(partTitle(d)))
+	out.WriteString(w.b.String())
+	out.WriteString("</svg>\n")
+	return []byte(out.String()), nil
+}
+
+// svgWriter collects the drawing's elements, mapping document coordinates to paper.
+type svgWriter struct {
+	b       strings.Builder
+	toPaper geom.Affine
+}
+
+func (w *svgWriter) printf(format string, args ...any) {
+	fmt.Fprintf(&w.b, format, args...)
+	w.b.WriteByte('\n')
+}
+
+// path writes the segments, in document coordinates, as one path element.
+func (w *svgWriter) path(segs []geom.Segment, attrs string) {
+	if len(segs) == 0 {
+		return
+	}
+	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toPaper), attrs)
+}
+
+// pathData writes segments as SVG path data after mapping them by m, starting a subpath wherever a
+// segment does not begin at the previous one's end, and closing each subpath that returns to its start.
+func pathData(segs []geom.Segment, m geom.Affine) string {
+	var b strings.Builder
+	var start, cur geom.Point
+	for i, s := range segs {
+		s = s.Transform(m)
+		if i == 0 || s.Start().Dist(cur) > 1e-9 {
+			if i > 0 && cur.Dist(start) <= 1e-9 {
+				b.WriteString("Z")
+			}
+			start = s.Start()
+			fmt.Fprintf(&b, "M%s ", pair(start))
+		}
+		writeSegment(&b, s)
+		cur = s.End()
+	}
+	if cur.Dist(start) <= 1e-9 {
+		b.WriteString("Z")
+	}
+	return strings.TrimSpace(b.String())
+}
+
+// writeSegment writes one segment's path command. Arcs are written in pieces of at most a quarter
+// turn: near a half turn, the centre SVG recovers from the end points (W3C SVG 1.1, F.6.5) is
+// ill-conditioned, and rounding the end points would move it.
+func writeSegment(b *strings.Builder, s geom.Segment) {
+	switch s.Kind {
+	case geom.KindLine:
+		fmt.Fprintf(b, "L%s ", pair(s.P[1]))
+	case geom.KindQuad:
+		fmt.Fprintf(b, "Q%s %s ", pair(s.P[1]), pair(s.P[2]))
+	case geom.KindCubic:
+		fmt.Fprintf(b, "C%s %s %s ", pair(s.P[1]), pair(s.P[2]), pair(s.P[3]))
+	case geom.KindArc:
+		if math.Abs(s.Sweep) > math.Pi/2 {
+			h1, h2 := s.Split(0.5)
+			writeSegment(b, h1)
+			writeSegment(b, h2)
+			return
+		}
+		sweep := 0
+		if s.Sweep > 0 {
+			sweep = 1
+		}
+		fmt.Fprintf(b, "A%s %s %s 0 %d %s ", num(s.RX), num(s.RY), num(s.Rot*180/math.Pi), sweep, pair(s.P[1]))
+	}
+}
+
+// hole draws a hole (a pin when dia is 0) with centre lines.
+func (w *svgWriter) hole(at geom.Point, dia float64) {
+	c := w.toPaper.Apply(at)
+	r := dia / 2 * math.Abs(w.toPaper.A)
+	if r > 0 {
+		w.printf(`<circle cx="%s" cy="%s" r="%s" fill="#ffffff" stroke="#1d2a36" stroke-width="0.25"/>`,
+			num(c.X), num(c.Y), num(r))
+	}
+	arm := r + 2
+	w.printf(`<path d="M%s %sH%sM%s %sV%s" stroke="#1d2a36" stroke-width="0.13"/>`,
+		num(c.X-arm), num(c.Y), num(c.X+arm), num(c.X), num(c.Y-arm), num(c.Y+arm))
+}
+
+// plumbLine draws the hang hole and a dashed line from it through the balance point of the part as
+// hung (the direction that ends up straight down), out past the part, ending in a bob.
+func (w *svgWriter) plumbLine(h *Hang, box geom.Rect) {
+	w.hole(h.At, h.Diameter)
+	at, g := w.toPaper.Apply(h.At), w.toPaper.Apply(h.Centroid)
+	dir := g.Sub(at)
+	if dir.Norm() == 0 {
+		return
+	}
+	dir = dir.Mul(1 / dir.Norm())
+	reach := box.Size().Norm()*math.Abs(w.toPaper.A) + drawMargin/2
+	end := at.Add(dir.Mul(reach))
+	w.printf(`<path d="M%s L%s" stroke="#b3261e" stroke-width="0.3" stroke-dasharray="3 1.5"/>`, pair(at), pair(end))
+	w.printf(`<circle cx="%s" cy="%s" r="1.2" fill="#b3261e"/>`, num(end.X), num(end.Y))
+	text := "hangs level"
+	switch {
+	case h.AngleDeg >= 0.05:
+		text = fmt.Sprintf("hangs turned %.1f° counter-clockwise", h.AngleDeg)
+	case h.AngleDeg <= -0.05:
+		text = fmt.Sprintf("hangs turned %.1f° clockwise", -h.AngleDeg)
+	}
+	w.printf(`<text x="%s" y="%s" font-family="sans-serif" font-size="%d" fill="#b3261e">%s</text>`,
+		num(at.X+h.Diameter/2*math.Abs(w.toPaper.A)+2), num(at.Y-2), drawFont, text)
+}
+
+// centroidMark draws the balance point as a quartered circle, two opposite quarters filled.
+func (w *svgWriter) centroidMark(c geom.Point) {
+	p := w.toPaper.Apply(c)
+	r := float64(drawMarkR)
+	w.printf(`<g id="balance-point"><circle cx="%s" cy="%s" r="%s" fill="#ffffff" stroke="#000000" stroke-width="0.3"/>`,
+		num(p.X), num(p.Y), num(r))
+	w.printf(`<path d="M%s L%s A%s %s 0 0 1 %s Z M%s L%s A%s %s 0 0 1 %s Z" fill="#000000"/></g>`,
+		pair(p), pair(p.Add(geom.Pt(r, 0))), num(r), num(r), pair(p.Add(geom.Pt(0, r))),
+		pair(p), pair(p.Add(geom.Pt(-r, 0))), num(r), num(r), pair(p.Add(geom.Pt(0, -r))))
+}
+
+// label writes the text block and scale bar from paper height top down, and returns the page height.
+func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Length, width, top float64) float64 {
+	var lines []string
+	lines = append(lines, partTitle(d))
+	if a != nil {
+		lines = append(lines, fmt.Sprintf("Mass %.4g kg (weight %.4g N, %.4g lbf); balance point x %.5g, y %.5g %s",
+			a.Mass, a.WeightN, a.WeightLbf, a.Centroid.X, a.Centroid.Y, unit.Name))
+		for _, m := range a.Materials {
+			lines = append(lines, "Material: "+m)
+		}
+	}
+	if hang != nil {
+		lines = append(lines, fmt.Sprintf("Hang hole at x %.5g, y %.5g %s, diameter %.4g %s", hang.At.X, hang.At.Y,
+			unit.Name, hang.Diameter, unit.Name))
+	}
+	lines = append(lines, "Print at 100 % (actual size) and check the scale bar before marking metal.")
+	for _, c := range Cautions() {
+		lines = append(lines, wrap("Caution: "+c, width-2*drawMargin)...)
+	}
+	y := top
+	for _, l := range lines {
+		y += drawLine
+		w.printf(`<text x="%s" y="%s" font-family="sans-serif" font-size="%d">%s</text>`, num(drawMargin), num(y),
+			drawFont, escape(l))
+	}
+	y += drawLine
+	w.printf(`<path d="M%s %sh%dm-%d -1.5v3M%s %sv3" stroke="#000000" stroke-width="0.3" fill="none"/>`,
+		num(drawMargin), num(y), drawScaleBar, drawScaleBar, num(drawMargin), num(y-1.5))
+	w.printf(`<text x="%s" y="%s" font-family="sans-serif" font-size="%d">%d mm</text>`,
+		num(drawMargin+drawScaleBar+2), num(y+1), drawFont, drawScaleBar)
+	return y + drawMargin
+}
+
+func partTitle(d *Document) string {
+	if d.Name == "" {
+		return "Part"
+	}
+	return d.Name
+}
+
+// wrap breaks text into lines of at most width millimetres of label text, taking a character to be
+// 0.55 of the font height wide (an estimate for a sans-serif face).
+func wrap(text string, width float64) []string {
+	perLine := max(20, int(width/(0.55*drawFont)))
+	var lines []string
+	line := ""
+	for _, word := range strings.Fields(text) {
+		if line != "" && len(line)+1+len(word) > perLine {
+			lines = append(lines, line)
+			line = ""
+		}
+		line = strings.TrimSpace(line + " " + word)
+	}
+	return append(lines, line)
+}
+
+func ruleName(r geom.FillRule) string {
+	if r == geom.EvenOdd {
+		return "evenodd"
+	}
+	return "nonzero"
+}
+
+// num formats a paper coordinate to 0.1 µm.
+func num(v float64) string {
+	v = math.Round(v*1e4) / 1e4
+	if v == 0 {
+		v = 0 // no "-0"
+	}
+	return strconv.FormatFloat(v, 'f', -1, 64)
+}
+
+func pair(p geom.Point) string { return num(p.X) + " " + num(p.Y) }
+
+func escape(s string) string {
+	var b strings.Builder
+	xml.EscapeText(&b, []byte(s))
+	return b.String()
+}
