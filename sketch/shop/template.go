@@ -1,0 +1,613 @@
+package shop
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"plumb/geom"
+	"plumb/sketch"
+)
+
+// Page geometry of the template, in millimetres.
+const (
+	// margin is the blank border kept on every side of the paper: desktop printers cannot print the
+	// outer 4–6 mm (common practice), and the border leaves room for the neighbour labels.
+	margin = 10.0
+	// bandH is the height of the information band at the foot of every page; bandGap separates it
+	// from the drawing window.
+	bandH   = 40.0
+	bandGap = 4.0
+	// DefaultOverlap is the strip that neighbouring pages share: wide enough for a strip of tape and the
+	// alignment marks on the cut lines.
+	DefaultOverlap = 15.0
+	// pad is the blank space kept around the part's marks in the drawing.
+	pad = 8.0
+)
+
+// TemplateOptions choose the paper and the overlap of a drilling template.
+type TemplateOptions struct {
+	Paper   Paper   // the sheet; the zero Paper is A4
+	Overlap float64 // mm shared by neighbouring pages; 0 means DefaultOverlap
+}
+
+// Layout places a template on pages: a grid of Cols × Rows tiles, each showing one window of the drawing.
+type Layout struct {
+	Paper      Paper // as printed: W and H are swapped from the portrait size when Landscape
+	Landscape  bool
+	Cols, Rows int
+	Overlap    float64 // mm
+	Cover      bool    // a first page with the map of the grid precedes the tiles
+	Tiles      []Tile  // row by row from the top left
+}
+
+// Tile is one page of the grid.
+type Tile struct {
+	Page     int // 1-based page number in the document
+	Col, Row int // 0-based, Row 0 at the top
+	// Window is the part of the drawing the page shows, in mm of the part's drawn frame (y up).
+	Window geom.Rect
+	// Offset is where the frame's origin lies on the page in PDF user space (points, y up from the lower
+	// left of the paper): the frame point (x, y) mm prints at (x·72/25.4 + Offset.X, y·72/25.4 + Offset.Y).
+	Offset geom.Point
+}
+
+// Pages is the number of pages of the template.
+func (l Layout) Pages() int {
+	if l.Cover {
+		return len(l.Tiles) + 1
+	}
+	return len(l.Tiles)
+}
+
+// windowSize is the size of the drawing window of a page, in mm.
+func windowSize(p Paper) (w, h float64) {
+	return p.W - 2*margin, p.H - 2*margin - bandH - bandGap
+}
+
+// Plan lays a drawing whose extent is given in mm (y up) over pages of the paper, upright or turned,
+// whichever needs fewer pages (upright on a tie), the drawing centred on the grid. Overlap must be less
+// than half the smaller window side.
+func Plan(extent geom.Rect, paper Paper, overlap float64) Layout {
+	up := plan(extent, paper, false, overlap)
+	turned := plan(extent, paper.landscape(), true, overlap)
+	if len(turned.Tiles) < len(up.Tiles) {
+		return turned
+	}
+	return up
+}
+
+func plan(e geom.Rect, p Paper, landscape bool, overlap float64) Layout {
+	ww, wh := windowSize(p)
+	if overlap < 0 || 2*overlap >= math.Min(ww, wh) {
+		panic(fmt.Sprintf("shop: overlap %g mm does not fit a %g × %g mm window", overlap, ww, wh))
+	}
+	size := e.Size()
+	cols, rows := tileCount(size.X, ww, overlap), tileCount(size.Y, wh, overlap)
+	stepX, stepY := ww-overlap, wh-overlap
+	x0 := e.Min.X - (float64(cols)*stepX+overlap-size.X)/2
+	top := e.Max.Y + (float64(rows)*stepY+overlap-size.Y)/2
+	l := Layout{Paper: p, Landscape: landscape, Cols: cols, Rows: rows, Overlap: overlap, Cover: cols*rows > 1}
+	page := 1
+	if l.Cover {
+		page = 2
+	}
+	for r := range rows {
+		for c := range cols {
+			left, wtop := x0+float64(c)*stepX, top-float64(r)*stepY
+			l.Tiles = append(l.Tiles, Tile{
+				Page: page, Col: c, Row: r,
+				Window: geom.Rect{Min: geom.Pt(left, wtop-wh), Max: geom.Pt(left+ww, wtop)},
+				// The window's top-left corner prints margin mm in from the paper's left and top edges.
+				Offset: geom.Pt((margin-left)*ptPerMM, (p.H-margin-wtop)*ptPerMM),
+			})
+			page++
+		}
+	}
+	return l
+}
+
+// tileCount is the number of windows of size win, overlapping by overlap, needed to cover size.
+func tileCount(size, win, overlap float64) int {
+	if size <= win {
+		return 1
+	}
+	return int(math.Ceil((size - overlap) / (win - overlap)))
+}
+
+// Template writes a full-size drilling template of the part as PDF: the part at exactly 1:1 with its
+// cut-outs, the hang hole as a centre cross and a circle of its diameter, the balance point, the plumb
+// line, and the distances from two part edges to the hole centre; tiled over as many pages as it needs.
+// Every page carries the scale check, the part's facts and the cautions.
+func Template(w io.Writer, p Part, opt TemplateOptions) error {
+	f, err := p.facts()
+	if err != nil {
+		return err
+	}
+	paper := opt.Paper
+	if paper.W == 0 {
+		paper = Papers()[0]
+	}
+	overlap := opt.Overlap
+	if overlap == 0 {
+		overlap = DefaultOverlap
+	}
+	ww, wh := windowSize(paper)
+	if overlap < 0 || 2*overlap >= math.Min(ww, wh) {
+		return fmt.Errorf("overlap %g mm: must be between 0 and %g mm on %s", overlap, math.Min(ww, wh)/2, paper.Name)
+	}
+	d := newDrawing(p, f)
+	lay := Plan(d.extent(), paper, overlap)
+	s := newSheet(lay.Paper, f.name+" — drilling template")
+	if lay.Cover {
+		s.AddPage()
+		d.cover(s, lay)
+		d.band(s, lay, 1)
+	}
+	for _, t := range lay.Tiles {
+		s.AddPage()
+		d.tile(s, lay, t)
+		d.band(s, lay, t.Page)
+	}
+	return s.Output(w)
+}
+
+// drawing is a part prepared for the template, in document units unless named mm.
+type drawing struct {
+	Part
+	facts
+	mm       float64 // mm per document unit
+	overlays []geom.Boundary // where each overlay lies on the part
+	names    []string        // of the overlays
+	holes    []hole
+	// plumbEnd is where the plumb line from the hang hole ends, beyond the balance point.
+	plumbEnd geom.Point
+}
+
+// hole is a hole to mark with the signed distances from its centre to the chosen part edges along x
+// and y (0 when the line misses the part).
+type hole struct {
+	at         geom.Point
+	dia        float64
+	dimX, dimY float64
+}
+
+func newDrawing(p Part, f facts) *drawing {
+	d := &drawing{Part: p, facts: f, mm: f.unit.MM}
+	regions := append([]geom.Region{p.Doc.Outline}, p.Doc.Cutouts...)
+	for _, o := range p.Doc.Overlays {
+		if b := geom.Combine(onMaterial, append(regions[:len(regions):len(regions)], o.Region)...); !b.IsEmpty() {
+			d.overlays = append(d.overlays, b)
+			d.names = append(d.names, o.Name)
+		}
+	}
+	body := p.Analysis.Body
+	add := func(at geom.Point, dia float64) {
+		d.holes = append(d.holes, hole{at: at, dia: dia,
+			dimX: edgeDistance(body, at, geom.Pt(1, 0)), dimY: edgeDistance(body, at, geom.Pt(0, 1))})
+	}
+	switch {
+	case p.Hang != nil:
+		add(p.Hang.At, p.Hang.Diameter)
+	case p.Lift != nil:
+		for _, c := range p.Lift.Chains {
+			add(c.At, p.Lift.Diameter)
+		}
+	}
+	if p.Hang == nil {
+		return d
+	}
+	h := p.Hang.At
+	down := p.Hang.Centroid.Sub(h)
+	if down.Norm() == 0 {
+		down = geom.Pt(0, -1)
+	}
+	down = down.Mul(1 / down.Norm())
+	reach := p.Hang.Centroid.Sub(h).Norm() + 12/d.mm
+	if hits := body.LineHits(h, down); len(hits) > 0 {
+		reach = math.Max(reach, hits[len(hits)-1]+6/d.mm)
+	}
+	d.plumbEnd = h.Add(down.Mul(reach))
+	return d
+}
+
+// onMaterial keeps the points of an overlay (the last region) that lie on the part: in the outline (the
+// first) and in no cut-out (the others).
+func onMaterial(in []bool) bool {
+	last := len(in) - 1
+	if !in[0] || !in[last] {
+		return false
+	}
+	for _, cut := range in[1:last] {
+		if cut {
+			return false
+		}
+	}
+	return true
+}
+
+// edgeDistance returns the signed distance from p along the unit direction dir (or against it) to the
+// outermost crossing of the boundary on the nearer side: the part edge a rule laid along that line
+// meets; 0 when the line misses the part.
+func edgeDistance(b geom.Boundary, p, dir geom.Point) float64 {
+	hits := b.LineHits(p, dir)
+	if len(hits) == 0 {
+		return 0
+	}
+	lo, hi := hits[0], hits[len(hits)-1]
+	switch {
+	case lo >= 0:
+		return hi
+	case hi <= 0:
+		return lo
+	case -lo < hi:
+		return lo
+	}
+	return hi
+}
+
+// extent is the drawing's bounding box in mm, marks included.
+func (d *drawing) extent() geom.Rect {
+	b := d.Analysis.Body.Bounds()
+	for _, o := range d.overlays {
+		b = b.Union(o.Bounds())
+	}
+	for _, h := range d.holes {
+		r := geom.Pt(h.dia/2, h.dia/2)
+		b = b.Union(geom.Rect{Min: h.at.Sub(r), Max: h.at.Add(r)})
+	}
+	if d.Hang != nil {
+		b = b.Union(geom.Rect{Min: d.plumbEnd, Max: d.plumbEnd})
+	}
+	return geom.Rect{Min: b.Min.Mul(d.mm).Sub(geom.Pt(pad, pad)), Max: b.Max.Mul(d.mm).Add(geom.Pt(pad, pad))}
+}
+
+// tile draws one page of the grid: the drawing clipped to the window, the overlap strips, the frame
+// with its cut lines, and the alignment marks.
+func (d *drawing) tile(s sheet, lay Layout, t Tile) {
+	win := t.Window
+	size := win.Size()
+	// The frame point (x, y) mm sits at (margin + x − left, margin + top − y) mm from the top-left.
+	p := pen{sheet: s, s: d.mm, ox: margin - win.Min.X, oy: margin + win.Max.Y}
+	frame := pen{sheet: s, s: 1, ox: p.ox, oy: p.oy}
+	s.ClipRect(margin, margin, size.X, size.Y, false)
+	p.body(d.Analysis.Body, d.overlays, 0.35)
+	// The strips that a neighbour will cover, shaded over the drawing.
+	s.SetAlpha(0.45, "Multiply")
+	s.fill(stripTint)
+	if t.Col < lay.Cols-1 {
+		s.Rect(margin+size.X-lay.Overlap, margin, lay.Overlap, size.Y, "F")
+	}
+	if t.Row < lay.Rows-1 {
+		s.Rect(margin, margin+size.Y-lay.Overlap, size.X, lay.Overlap, "F")
+	}
+	s.SetAlpha(1, "Normal")
+	d.marks(p, 1)
+	alignmentMarks(frame, lay, win)
+	s.ClipEnd()
+	d.frame(s, lay, t)
+}
+
+// marks draws the plumb line, the balance point, the holes and their dimensions; k scales the symbols,
+// and below 1 leaves out the words.
+func (d *drawing) marks(p pen, k float64) {
+	if d.Hang != nil {
+		hx, hy := p.at(d.Hang.At)
+		ex, ey := p.at(d.plumbEnd)
+		p.plumbLine(hx, hy, ex, ey)
+	}
+	cx, cy := p.at(d.Analysis.Centroid)
+	p.centroidMark(cx, cy, 3*k)
+	if k == 1 {
+		p.font("", 7)
+		p.textInk(ink)
+		p.text(cx+4, cy-3, "L", "balance point")
+		for i, o := range d.overlays {
+			ox, oy := p.at(o.Bounds().Center())
+			p.text(ox, oy+1, "C", d.names[i])
+		}
+	}
+	for _, h := range d.holes {
+		d.hole(p, h, k)
+	}
+}
+
+// hole marks one hole; at full size, with its label and the dimensions from the edges to its centre,
+// each in a quadrant of its own.
+func (d *drawing) hole(p pen, h hole, k float64) {
+	hx, hy := p.at(h.at)
+	dia := h.dia * p.s
+	p.holeMark(hx, hy, dia, 5*k)
+	if k != 1 {
+		return
+	}
+	sx, sy := side(h.dimX), side(h.dimY)
+	p.font("B", 7.5)
+	p.textInk(holeInk)
+	lx, ly := hx-sx*(dia/2+2.5), hy+sy*(dia/2+2.5)
+	if sy < 0 {
+		ly += 2.5
+	}
+	p.text(lx, ly, align(-sx), fmt.Sprintf("Ø %.1f mm hole", h.dia*d.mm))
+	d.dimension(p, h.at, geom.Pt(h.dimX, 0), -sy)
+	d.dimension(p, h.at, geom.Pt(0, h.dimY), -sx)
+}
+
+// side is the sign of v, with 0 counted as positive.
+func side(v float64) float64 {
+	if v < 0 {
+		return -1
+	}
+	return 1
+}
+
+// align is the text alignment that puts a label on the given side (+1 right, −1 left) of a point.
+func align(side float64) string {
+	if side < 0 {
+		return "R"
+	}
+	return "L"
+}
+
+// dimension draws the distance from the part edge at at + v to the hole centre at, arrows at both ends,
+// its label on the given side of the line (+1 right or above the line as the part is drawn, −1 left or
+// below).
+func (d *drawing) dimension(p pen, at, v geom.Point, labelSide float64) {
+	if v.Norm() == 0 {
+		return
+	}
+	hx, hy := p.at(at)
+	ex, ey := p.at(at.Add(v))
+	p.solid()
+	p.draw(ink)
+	p.fill(ink)
+	p.SetLineWidth(0.2)
+	p.Line(ex, ey, hx, hy)
+	p.arrow(ex, ey, ex-hx, ey-hy)
+	p.arrow(hx, hy, hx-ex, hy-ey)
+	p.font("B", 8)
+	p.textInk(ink)
+	label := length(v.Norm() * d.mm)
+	mx, my := (ex+hx)/2, (ey+hy)/2
+	if v.Y == 0 {
+		if labelSide > 0 {
+			p.text(mx, my-1.5, "C", label)
+		} else {
+			p.text(mx, my+3.8, "C", label)
+		}
+		return
+	}
+	p.text(mx+labelSide*1.8, my+1, align(labelSide), label)
+}
+
+// alignmentMarks draws the marks on the cut lines of the grid (see the package comment) that show in
+// the window, through frame, a pen in mm of the drawing frame. Marks sit a quarter window from each
+// window's centre, so each page carries two on each shared edge.
+func alignmentMarks(frame pen, lay Layout, win geom.Rect) {
+	const reach = 8 // mm: a mark and its names reach this far from its centre
+	shows := func(q geom.Point) bool {
+		return q.X > win.Min.X-reach && q.X < win.Max.X+reach && q.Y > win.Min.Y-reach && q.Y < win.Max.Y+reach
+	}
+	first := lay.Tiles[0].Window
+	size := first.Size()
+	label := 0
+	for c := 1; c < lay.Cols; c++ {
+		x := lay.Tiles[c].Window.Min.X
+		for r := range lay.Rows {
+			mid := lay.Tiles[r*lay.Cols].Window.Center().Y
+			for _, y := range []float64{mid + size.Y/4, mid - size.Y/4} {
+				if q := geom.Pt(x, y); shows(q) {
+					registration(frame, q, markName(label), false)
+				}
+				label++
+			}
+		}
+	}
+	for r := 1; r < lay.Rows; r++ {
+		y := lay.Tiles[r*lay.Cols].Window.Max.Y
+		for c := range lay.Cols {
+			mid := lay.Tiles[c].Window.Center().X
+			for _, x := range []float64{mid - size.X/4, mid + size.X/4} {
+				if q := geom.Pt(x, y); shows(q) {
+					registration(frame, q, markName(label), true)
+				}
+				label++
+			}
+		}
+	}
+}
+
+// registration draws one alignment mark (a circle and cross) at q with its name on both sides of the
+// cut line, which runs vertically through q, or horizontally when across.
+func registration(frame pen, q geom.Point, name string, across bool) {
+	x, y := frame.at(q)
+	frame.solid()
+	frame.draw(ink)
+	frame.SetLineWidth(0.2)
+	frame.Circle(x, y, 2.5, "D")
+	frame.Line(x-5, y, x+5, y)
+	frame.Line(x, y-5, x, y+5)
+	frame.font("B", 7)
+	frame.textInk(ink)
+	if across {
+		frame.text(x+3.2, y-1.6, "L", name)
+		frame.text(x+3.2, y+4.1, "L", name)
+		return
+	}
+	frame.text(x-3.4, y-2.8, "R", name)
+	frame.text(x+3.4, y-2.8, "L", name)
+}
+
+// markName names alignment marks A … Z, then AA, AB, ….
+func markName(i int) string {
+	if i < 26 {
+		return string(rune('A' + i))
+	}
+	return markName(i/26-1) + markName(i%26)
+}
+
+// frame outlines a tile's window: dashed cut lines on the sides that go over a neighbour, thin solid
+// lines elsewhere, and the neighbours' page numbers in the margin.
+func (d *drawing) frame(s sheet, lay Layout, t Tile) {
+	size := t.Window.Size()
+	x0, y0, x1, y1 := margin, margin, margin+size.X, margin+size.Y
+	s.SetLineWidth(0.2)
+	s.draw(faint)
+	s.solid()
+	s.Line(x1, y0, x1, y1)
+	s.Line(x0, y1, x1, y1)
+	side := func(cut bool, ax, ay, bx, by float64) {
+		if cut {
+			s.draw(ink)
+			s.dashed(3, 1.5)
+		}
+		s.Line(ax, ay, bx, by)
+		s.solid()
+		s.draw(faint)
+	}
+	side(t.Col > 0, x0, y0, x0, y1)
+	side(t.Row > 0, x0, y0, x1, y0)
+	s.font("", 7)
+	s.textInk(ink)
+	page := func(dc, dr int) int { return t.Page + dr*lay.Cols + dc }
+	if t.Col > 0 {
+		s.TransformBegin()
+		s.TransformRotate(90, x0-2, (y0+y1)/2)
+		s.text(x0-2, (y0+y1)/2, "C", fmt.Sprintf("cut on the dashed line · lay over page %d", page(-1, 0)))
+		s.TransformEnd()
+	}
+	if t.Row > 0 {
+		s.text((x0+x1)/2, y0-2, "C", fmt.Sprintf("cut on the dashed line · lay over page %d", page(0, -1)))
+	}
+	if t.Col < lay.Cols-1 {
+		s.TransformBegin()
+		s.TransformRotate(-90, x1+2, (y0+y1)/2)
+		s.text(x1+2, (y0+y1)/2, "C", fmt.Sprintf("page %d goes over this strip", page(1, 0)))
+		s.TransformEnd()
+	}
+	if t.Row < lay.Rows-1 {
+		s.text((x0+x1)/2, y1+3, "C", fmt.Sprintf("page %d goes over this strip", page(0, 1)))
+	}
+}
+
+// cover draws the first page of a tiled template: the map of the grid and how to put it together.
+func (d *drawing) cover(s sheet, lay Layout) {
+	W := lay.Paper.W
+	s.textInk(ink)
+	s.font("B", 16)
+	s.text(margin, margin+6, "L", s.fit(d.name, W-2*margin))
+	s.font("", 9.5)
+	turned := ""
+	if lay.Landscape {
+		turned = " landscape"
+	}
+	s.text(margin, margin+12, "L", fmt.Sprintf("Drilling template, full size 1:1 · %d pages (%d across × %d down) on %s%s, %g mm overlap",
+		lay.Pages(), lay.Cols, lay.Rows, lay.Paper.Name, turned, lay.Overlap))
+
+	const steps = 48.0
+	boxTop := margin + 18
+	boxW, boxH := W-2*margin, lay.Paper.H-margin-bandH-bandGap-steps-boxTop
+	grid := lay.Tiles[0].Window.Union(lay.Tiles[len(lay.Tiles)-1].Window)
+	gs := grid.Size()
+	k := math.Min(boxW/gs.X, boxH/gs.Y)
+	ox := margin + (boxW-gs.X*k)/2 - grid.Min.X*k
+	oy := boxTop + grid.Max.Y*k
+	p := pen{sheet: s, s: k * d.mm, ox: ox, oy: oy}
+	p.body(d.Analysis.Body, d.overlays, 0.25)
+	d.marks(p, 0.6)
+	s.SetLineWidth(0.3)
+	for _, t := range lay.Tiles {
+		x, y := ox+t.Window.Min.X*k, oy-t.Window.Max.Y*k
+		w, h := t.Window.Size().X*k, t.Window.Size().Y*k
+		s.draw(plumbInk)
+		s.Rect(x, y, w, h, "D")
+		s.font("B", 13)
+		s.textInk(plumbInk)
+		s.text(x+w/2, y+h/2+2, "C", fmt.Sprint(t.Page))
+	}
+
+	y := boxTop + gs.Y*k + 8
+	s.textInk(ink)
+	s.font("B", 9.5)
+	y = s.wrap(margin, y, W-2*margin, 4.6, d.holeSummary()) + 1.5
+	s.font("", 9)
+	items := []string{
+		"Print every page at 100 % / actual size, never “fit to page”; check both scale bars with a rule.",
+		"Trim each page on its dashed cut lines (left and top edges where it has a neighbour).",
+		"Lay each trimmed page over its neighbour so the halves of the marks A, B, … meet; tape it down.",
+		"Tape the template to the part with the outline on the cut edge; centre-punch the hole cross, then drill.",
+	}
+	for i, it := range items {
+		s.text(margin, y, "L", fmt.Sprintf("%d.", i+1))
+		y = s.wrap(margin+5, y, W-2*margin-5, 4.4, it) + 0.8
+	}
+}
+
+// holeSummary describes the holes in one line.
+func (d *drawing) holeSummary() string {
+	switch {
+	case d.Hang != nil:
+		h := d.Hang
+		return fmt.Sprintf("Hang hole Ø %.1f mm at (%.1f, %.1f) mm · %s", h.Diameter*d.mm, h.At.X*d.mm, h.At.Y*d.mm, hangText(h))
+	case d.Lift != nil:
+		a, b := d.Lift.Chains[0].At.Mul(d.mm), d.Lift.Chains[1].At.Mul(d.mm)
+		return fmt.Sprintf("Two chain holes Ø %.1f mm at (%.1f, %.1f) and (%.1f, %.1f) mm", d.Lift.Diameter*d.mm, a.X, a.Y, b.X, b.Y)
+	}
+	return "No hang hole set: the balance point is marked; choose a hole with --level or --at."
+}
+
+// hangText says how the part hangs from its hole.
+func hangText(h *sketch.Hang) string {
+	tilt := fmt.Sprintf("tilt %.2f° per mm of drilling error", h.TiltPerMM)
+	switch {
+	case math.Abs(h.AngleDeg) < 0.05:
+		return "hangs level; " + tilt
+	case h.AngleDeg > 0:
+		return fmt.Sprintf("hangs turned %.1f° anticlockwise from as drawn; %s", h.AngleDeg, tilt)
+	}
+	return fmt.Sprintf("hangs turned %.1f° clockwise from as drawn; %s", -h.AngleDeg, tilt)
+}
+
+// band draws the information strip at the foot of every page: the scale check, the part's facts, the
+// page number and the cautions.
+func (d *drawing) band(s sheet, lay Layout, page int) {
+	W, H := lay.Paper.W, lay.Paper.H
+	y0 := H - margin - bandH
+	s.solid()
+	s.draw(faint)
+	s.SetLineWidth(0.2)
+	s.Line(margin, y0, W-margin, y0)
+	s.textInk(ink)
+	s.font("B", 8)
+	s.text(margin, y0+4.5, "L", "DRILLING TEMPLATE · FULL SIZE 1:1")
+	s.scaleBar(margin, y0+7, 10, 10, 2.6, "100 mm")
+	s.scaleBar(margin, y0+13, 25.4/2, 8, 2.6, "4 in")
+	s.font("B", 8)
+	s.text(margin, y0+22.5, "L", "Print at 100 % / actual size.")
+	s.font("", 7.5)
+	s.text(margin, y0+26, "L", "Both bars must measure true with a rule before you drill.")
+
+	x := margin + 122
+	cw := W - margin - x
+	s.font("B", 8)
+	pageText := fmt.Sprintf("page %d of %d", page, lay.Pages())
+	pageW := s.GetStringWidth(pageText)
+	s.text(W-margin, y0+4.5, "R", pageText)
+	s.font("B", 10)
+	s.text(x, y0+4.5, "L", s.fit(d.name, cw-pageW-3))
+	s.font("", 7.5)
+	y := y0 + 8.5
+	lines := []string{"Material: " + d.material}
+	if d.thick != "" {
+		lines = append(lines, "Thickness: "+d.thick)
+	}
+	lines = append(lines,
+		"Mass: "+massText(d.Analysis.Mass)+" · weight "+weightText(d.Analysis.WeightN, d.Analysis.WeightLbf),
+		"Printed "+d.date)
+	for _, l := range lines {
+		y = s.wrap(x, y, cw, 3.4, l)
+	}
+	s.font("I", 6.8)
+	s.wrap(margin, y0+bandH-8.5, W-2*margin, 3, "Caution: "+strings.Join(d.cautions, " "))
+}
