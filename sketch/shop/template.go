@@ -157,7 +157,7 @@ func Template(w io.Writer, p Part, opt TemplateOptions) error {
 type drawing struct {
 	Part
 	facts
-	mm       float64 // mm per document unit
+	mm       float64         // mm per document unit
 	overlays []geom.Boundary // where each overlay lies on the part
 	names    []string        // of the overlays
 	holes    []hole
