@@ -1,0 +1,116 @@
+package main
+
+import (
+	"bufio"
+	"encoding/csv"
+	"fmt"
+	"io"
+
+	"plumb/sketch"
+)
+
+const analyzeAbout = `Prints the area, mass, weight, balance point (centroid), second moments, principal axes and
+radii of gyration of each part, with the integration error estimate and warnings. FILE is a part file
+(.json) or an SVG drawing (lengths in mm); a directory is searched for both. The material comes from
+the part file or from --material and --thickness, or --density.
+Formats: text (a table with units), json (one object per line, keys file, units, area, mass,
+centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file).`
+
+func runAnalyze(args []string, stdout, stderr io.Writer) int {
+	fs := newFlags("analyze", "plumb analyze [flags] FILE|DIR...", analyzeAbout, stderr)
+	var mf materialFlags
+	mf.register(fs)
+	var rf readingFlag
+	rf.register(fs)
+	format := fs.String("format", "text", "output `format`: text, json or csv")
+	tol := fs.Float64("tol", 0, "requested relative `accuracy` for densities that are not polynomials (0: 1e-10)")
+	files, err := parseArgs(fs, args)
+	if err != nil {
+		return usageStatus(err)
+	}
+	if err := mf.check(); err != nil {
+		return usageError(stderr, "analyze", "%v", err)
+	}
+	if len(files) == 0 {
+		return usageError(stderr, "analyze", "no files given")
+	}
+	out, err := newReportWriter(*format, stdout, true)
+	if err != nil {
+		return usageError(stderr, "analyze", "%v", err)
+	}
+	opt := sketch.AnalyzeOptions{Tol: *tol}
+	b := &batch{stderr: stderr}
+	b.run(files, func(path string) error {
+		p, err := loadPart(path, rf.r)
+		if err != nil {
+			return err
+		}
+		mf.apply(p.doc)
+		a, err := sketch.Analyze(p.doc, opt)
+		if err != nil {
+			return err
+		}
+		return out.write(&sketch.Report{File: path, Doc: p.doc, Analysis: a, Warnings: p.warnings})
+	})
+	if err := out.close(); err != nil {
+		fmt.Fprintf(stderr, "plumb: %v\n", err)
+		return exitFailed
+	}
+	return b.status()
+}
+
+// reportWriter writes reports one at a time in the chosen format, flushing after each so that a long
+// batch streams.
+type reportWriter struct {
+	format string
+	w      *bufio.Writer
+	csv    *csv.Writer
+}
+
+// newReportWriter checks the format; allowCSV is false for commands whose reports are not one row.
+func newReportWriter(format string, w io.Writer, allowCSV bool) (*reportWriter, error) {
+	rw := &reportWriter{format: format, w: bufio.NewWriter(w)}
+	switch {
+	case format == "text" || format == "json":
+	case format == "csv" && allowCSV:
+		rw.csv = csv.NewWriter(rw.w)
+		if err := rw.csv.Write(sketch.CSVHeader()); err != nil {
+			return nil, err
+		}
+	case allowCSV:
+		return nil, fmt.Errorf("--format: want text, json or csv, found %q", format)
+	default:
+		return nil, fmt.Errorf("--format: want text or json, found %q", format)
+	}
+	return rw, nil
+}
+
+func (rw *reportWriter) write(r *sketch.Report) error {
+	var err error
+	switch rw.format {
+	case "json":
+		err = r.WriteJSON(rw.w)
+	case "csv":
+		err = r.WriteCSV(rw.csv)
+		rw.csv.Flush()
+		if err == nil {
+			err = rw.csv.Error()
+		}
+	default:
+		err = r.WriteText(rw.w)
+	}
+	if err != nil {
+		return err
+	}
+	return rw.w.Flush()
+}
+
+// close ends the output: text closes with the cautions.
+func (rw *reportWriter) close() error {
+	if rw.format == "text" {
+		if err := sketch.WriteCautions(rw.w); err != nil {
+			return err
+		}
+	}
+	return rw.w.Flush()
+}

@@ -1,0 +1,226 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"fmt"
+	"io"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"plumb/density"
+	"plumb/sketch"
+)
+
+// materialFlags override a part's base material from the command line.
+type materialFlags struct {
+	formula, unit, material, thickness string
+	params                             paramFlag
+}
+
+func (m *materialFlags) register(fs *flag.FlagSet) {
+	fs.StringVar(&m.formula, "density", "", "areal density `formula` in x and y (document units), e.g. '8.04' or 'k*x^2*y'; kg/m² unless --unit")
+	fs.StringVar(&m.unit, "unit", "", "`unit` of the --density value: kg/m2, g/cm2, lb/ft2 or oz/ft2")
+	fs.StringVar(&m.material, "material", "", "sheet material `name` (see 'plumb materials'), with --thickness")
+	fs.StringVar(&m.thickness, "thickness", "", "sheet `thickness`: '3 mm', '1/8 in', '16 ga', or a formula in x and y with a unit")
+	m.params = paramFlag{}
+	fs.Var(m.params, "param", "formula parameter `name=value` (repeatable), e.g. --param k=2e-6")
+}
+
+// check reports contradictory material flags.
+func (m *materialFlags) check() error {
+	switch {
+	case m.formula != "" && (m.material != "" || m.thickness != ""):
+		return fmt.Errorf("give either --density or --material and --thickness, not both")
+	case m.unit != "" && m.formula == "":
+		return fmt.Errorf("--unit goes with --density")
+	}
+	return nil
+}
+
+// apply puts the flags' material into the document: a formula or a material replaces the base
+// material, a thickness alone replaces the thickness, and parameters apply to every formula.
+func (m *materialFlags) apply(d *sketch.Document) {
+	switch {
+	case m.formula != "":
+		d.Material = density.Spec{Formula: m.formula, Unit: m.unit, Custom: d.Material.Custom}
+	case m.material != "":
+		d.Material = density.Spec{Material: m.material, Thickness: m.thickness, Custom: d.Material.Custom}
+	case m.thickness != "":
+		d.Material.Thickness = m.thickness
+	}
+	if len(m.params) == 0 {
+		return
+	}
+	d.Material.Params = m.params.merge(d.Material.Params)
+	for i := range d.Overlays {
+		d.Overlays[i].Material.Params = m.params.merge(d.Overlays[i].Material.Params)
+	}
+}
+
+// paramFlag collects repeated --param name=value flags.
+type paramFlag map[string]float64
+
+func (p paramFlag) String() string {
+	var parts []string
+	for k, v := range p {
+		parts = append(parts, k+"="+strconv.FormatFloat(v, 'g', -1, 64))
+	}
+	return strings.Join(parts, ",")
+}
+
+func (p paramFlag) Set(s string) error {
+	name, value, ok := strings.Cut(s, "=")
+	name = strings.TrimSpace(name)
+	if !ok || name == "" {
+		return fmt.Errorf("want name=value, found %q", s)
+	}
+	v, err := strconv.ParseFloat(strings.TrimSpace(value), 64)
+	if err != nil {
+		return fmt.Errorf("parameter %s: %q is not a number", name, value)
+	}
+	p[name] = v
+	return nil
+}
+
+// merge returns the file's parameters overridden by the flags'.
+func (p paramFlag) merge(file map[string]float64) map[string]float64 {
+	out := make(map[string]float64, len(file)+len(p))
+	for k, v := range file {
+		out[k] = v
+	}
+	for k, v := range p {
+		out[k] = v
+	}
+	return out
+}
+
+// readingFlag selects how SVG drawings are read.
+type readingFlag struct{ r sketch.Reading }
+
+func (f *readingFlag) String() string {
+	switch f.r {
+	case sketch.ReadFilled:
+		return "filled"
+	case sketch.ReadCutFile:
+		return "cut"
+	}
+	return "auto"
+}
+
+func (f *readingFlag) Set(s string) error {
+	switch s {
+	case "auto":
+		f.r = sketch.ReadAuto
+	case "filled":
+		f.r = sketch.ReadFilled
+	case "cut":
+		f.r = sketch.ReadCutFile
+	default:
+		return fmt.Errorf("want auto, filled or cut, found %q", s)
+	}
+	return nil
+}
+
+func (f *readingFlag) register(fs *flag.FlagSet) {
+	fs.Var(f, "reading", "how to read SVG, a `mode`: auto, filled (painted regions) or cut (stroked contours, nested even-odd)")
+}
+
+// part is a document read from a file, with the warnings from reading it.
+type part struct {
+	doc      *sketch.Document
+	warnings []string
+	fromSVG  bool
+}
+
+// loadPart reads a part file (.json) or an SVG drawing.
+func loadPart(path string, reading sketch.Reading) (part, error) {
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return part{}, err
+	}
+	if !isSVG(path, data) {
+		d, err := sketch.Load(data)
+		return part{doc: d}, err
+	}
+	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
+	d, warnings, err := sketch.ReadSVG(data, sketch.SVGOptions{Reading: reading, Name: name})
+	return part{doc: d, warnings: warnings, fromSVG: true}, err
+}
+
+// isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
+func isSVG(path string, data []byte) bool {
+	switch strings.ToLower(filepath.Ext(path)) {
+	case ".svg":
+		return true
+	case ".json":
+		return false
+	}
+	return bytes.HasPrefix(bytes.TrimSpace(data), []byte("<"))
+}
+
+// isPartName reports whether a file met while walking a directory is a part: .json or .svg.
+func isPartName(name string) bool {
+	ext := strings.ToLower(filepath.Ext(name))
+	return ext == ".json" || ext == ".svg"
+}
+
+// batch runs one file at a time through a function, reporting each failure on stderr with the file's
+// name and counting files and failures. Directories are walked in lexical order for .json and .svg
+// files; nothing is held from one file to the next.
+type batch struct {
+	stderr        io.Writer
+	files, failed int
+}
+
+// run calls fn for every file named by operands.
+func (b *batch) run(operands []string, fn func(path string) error) {
+	for _, op := range operands {
+		info, err := os.Stat(op)
+		if err != nil || !info.IsDir() {
+			b.one(op, fn)
+			continue
+		}
+		// The walk function reports its own errors and never stops the walk, so WalkDir returns nil.
+		filepath.WalkDir(op, func(path string, e fs.DirEntry, err error) error {
+			if err != nil {
+				b.files++
+				b.fail(path, err)
+				return nil
+			}
+			if !e.IsDir() && isPartName(e.Name()) {
+				b.one(path, fn)
+			}
+			return nil
+		})
+	}
+}
+
+func (b *batch) one(path string, fn func(string) error) {
+	b.files++
+	if err := fn(path); err != nil {
+		b.fail(path, err)
+	}
+}
+
+func (b *batch) fail(path string, err error) {
+	b.failed++
+	if pe, ok := err.(*fs.PathError); ok {
+		err = pe.Err
+	}
+	fmt.Fprintf(b.stderr, "plumb: %s: %v\n", path, err)
+}
+
+// status reports the failures at the end of a batch and returns the exit status.
+func (b *batch) status() int {
+	if b.failed == 0 {
+		return exitOK
+	}
+	if b.files > 1 {
+		fmt.Fprintf(b.stderr, "plumb: %d of %d files failed\n", b.failed, b.files)
+	}
+	return exitFailed
+}

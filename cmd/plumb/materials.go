@@ -1,0 +1,79 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"strconv"
+	"strings"
+	"text/tabwriter"
+
+	"plumb/density"
+	"plumb/sketch"
+)
+
+const materialsAbout = `Lists the built-in sheet materials with their densities and sources, then the gauge tables
+(gauge numbers mean different thicknesses for different materials: the thickness is always shown).
+With --gauges=false, the materials only.`
+
+func runMaterials(args []string, stdout, stderr io.Writer) int {
+	fs := newFlags("materials", "plumb materials [--gauges=false]", materialsAbout, stderr)
+	gauges := fs.Bool("gauges", true, "also list the gauge tables")
+	operands, err := parseArgs(fs, args)
+	if err != nil {
+		return usageStatus(err)
+	}
+	if len(operands) > 0 {
+		return usageError(stderr, "materials", "takes no files")
+	}
+	mats := density.Materials()
+	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "key\tname\tdensity\tsource")
+	for _, m := range mats {
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", m.Key, m.Name, materialDensity(m), m.Source)
+	}
+	tw.Flush()
+	if *gauges {
+		writeGauges(stdout, mats)
+	}
+	fmt.Fprintln(stdout)
+	sketch.WriteCautions(stdout)
+	return exitOK
+}
+
+// materialDensity shows a material's density with its unit, marked ≈ when it varies.
+func materialDensity(m density.Material) string {
+	s := strconv.FormatFloat(m.Density, 'g', -1, 64)
+	if m.Areal {
+		s += " kg/m² per mm"
+	} else {
+		s += " kg/m³"
+	}
+	if m.Approx {
+		s = "≈ " + s
+	}
+	return s
+}
+
+// writeGauges writes each gauge table used by a material, headed by the materials that use it.
+func writeGauges(w io.Writer, mats []density.Material) {
+	var systems []string
+	users := map[string][]string{}
+	for _, m := range mats {
+		if m.GaugeSystem == "" {
+			continue
+		}
+		if _, seen := users[m.GaugeSystem]; !seen {
+			systems = append(systems, m.GaugeSystem)
+		}
+		users[m.GaugeSystem] = append(users[m.GaugeSystem], m.Name)
+	}
+	for _, sys := range systems {
+		fmt.Fprintf(w, "\ngauges (%s) for %s:\n", sys, strings.Join(users[sys], ", "))
+		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+		fmt.Fprintln(tw, "gauge\tmm\tin\t")
+		for _, g := range density.Gauges(sys) {
+			fmt.Fprintf(tw, "%d\t%.2f\t%.4f\t\n", g.Number, g.MM, g.In)
+		}
+		tw.Flush()
+	}
+}
