@@ -35,8 +35,9 @@ package sketch
 // angles counter-clockwise (y up). A circular arc gives "radius"; an elliptical one gives "rx", "ry"
 // and "rotation_deg". Angles are given in degrees ("_deg") or, where a value in degrees would not read
 // back to the same number, in radians ("_rad"); Save picks degrees whenever they are exact. "from" and
-// "to" may be left out of hand-written files; when present they must lie on the arc, and they are kept
-// exactly so that consecutive segments join without a gap.
+// "to" are the arc's end points where they differ in the last digits from the ones the centre form
+// gives (Save writes them only then): they must lie on the arc, and they are kept exactly so that
+// consecutive segments join without a gap.
 
 import (
 	"bytes"
@@ -889,8 +890,8 @@ type (
 		StartRad    *float64 `json:"start_rad,omitempty"`
 		SweepDeg    *float64 `json:"sweep_deg,omitempty"`
 		SweepRad    *float64 `json:"sweep_rad,omitempty"`
-		From        pt       `json:"from"`
-		To          pt       `json:"to"`
+		From        *pt      `json:"from,omitempty"`
+		To          *pt      `json:"to,omitempty"`
 	}
 	pt [2]float64
 )
@@ -937,7 +938,16 @@ func saveSegment(s geom.Segment) fileSegment {
 	case geom.KindCubic:
 		return fileSegment{Cubic: &[4]pt{ptOf(p[0]), ptOf(p[1]), ptOf(p[2]), ptOf(p[3])}}
 	case geom.KindArc:
-		a := &fileArc{Center: ptOf(s.C), From: ptOf(p[0]), To: ptOf(p[1])}
+		a := &fileArc{Center: ptOf(s.C)}
+		// The ends are written only where they differ from the ones the centre form gives (as after an
+		// SVG arc or a transform), which Load computes the same way.
+		computed := geom.EllipticalArc(s.C, s.RX, s.RY, s.Rot, s.Theta, s.Sweep)
+		for i, end := range []**pt{&a.From, &a.To} {
+			if p[i] != computed.P[i] {
+				e := ptOf(p[i])
+				*end = &e
+			}
+		}
 		if s.RX == s.RY && s.Rot == 0 {
 			a.Radius = &s.RX
 		} else {

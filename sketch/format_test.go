@@ -308,3 +308,50 @@ func FuzzLoad(f *testing.F) {
 		}
 	})
 }
+
+func ExampleLoad() {
+	_, err := Load([]byte(`{"format": "plumb-part", "version": 1, "outline": {"loops": [{"segments": [
+		{"arc": {"center": [0, 0], "radius": 0, "start_deg": 0, "sweep_deg": 360}}]}]}}`))
+	fmt.Println(err)
+	_, err = Load([]byte(`{"format": "plumb-part", "version": 2}`))
+	fmt.Println(err)
+	// Output:
+	// outline.loops[0].segments[0].arc.radius: arc radius is 0
+	// version: this part file has format version 2, newer than the version 1 this Plumb reads; update Plumb to open it
+}
+
+func ExampleDocument_Save() {
+	d := NewDocument()
+	d.Name = "washer"
+	d.Material = density.Spec{Material: "steel", Thickness: "1.5 mm"}
+	d.Outline = geom.Region{Loops: []geom.Loop{{geom.Arc(geom.Pt(0, 0), 15, 0, 2*math.Pi)}}}
+	d.Cutouts = []geom.Region{{Loops: []geom.Loop{{geom.Arc(geom.Pt(0, 0), 6.5, 0, 2*math.Pi)}}}}
+	data, err := d.Save()
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Print(string(data))
+	// Output:
+	// {
+	//   "format": "plumb-part",
+	//   "version": 1,
+	//   "name": "washer",
+	//   "units": "mm",
+	//   "material": {"material": "steel", "thickness": "1.5 mm"},
+	//   "outline": {
+	//     "rule": "nonzero",
+	//     "loops": [
+	//       {"segments": [{"arc": {"center": [0, 0], "radius": 15, "start_deg": 0, "sweep_deg": 360}}]}
+	//     ]
+	//   },
+	//   "cutouts": [
+	//     {
+	//       "rule": "nonzero",
+	//       "loops": [
+	//         {"segments": [{"arc": {"center": [0, 0], "radius": 6.5, "start_deg": 0, "sweep_deg": 360}}]}
+	//       ]
+	//     }
+	//   ]
+	// }
+}

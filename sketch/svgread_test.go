@@ -391,3 +391,40 @@ func BenchmarkReadSVG(b *testing.B) {
 		}
 	}
 }
+
+func TestReadSVGRelativePageSize(t *testing.T) {
+	svg := `<svg xmlns="http://www.w3.org/2000/svg" width="100%" height="100%" viewBox="0 0 96 96"><rect width="96" height="96"/></svg>`
+	d, warnings := readSVG(t, svg, ReadAuto)
+	if got := d.Outline.Bounds().Size(); got.Dist(geom.Pt(25.4, 25.4)) > 1e-9 {
+		t.Errorf("size %v, want the viewBox in px: 25.4 mm", got)
+	}
+	want := `svg (element 1): width="100%" is relative to a page; the viewBox is read in px`
+	if len(warnings) != 2 || warnings[0] != want {
+		t.Errorf("warnings %q, want %q and one for height", warnings, want)
+	}
+}
+
+func ExampleReadSVG() {
+	drawing := `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="50mm" viewBox="0 0 100 50">
+  <g fill="none" stroke="black">
+    <rect width="100" height="50" rx="5"/>
+    <circle cx="80" cy="25" r="10"/>
+    <path id="bend-line" d="M30 0V50"/>
+  </g>
+</svg>`
+	_, _, err := ReadSVG([]byte(drawing), SVGOptions{})
+	fmt.Println(err)
+
+	d, _, err := ReadSVG([]byte(strings.Replace(drawing, `<path id="bend-line" d="M30 0V50"/>`, "", 1)), SVGOptions{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	b := d.Outline.Bounds()
+	fmt.Println(d.Notes)
+	fmt.Printf("from (%.0f, %.0f) to (%.0f, %.0f) mm\n", b.Min.X, b.Min.Y, b.Max.X, b.Max.Y)
+	// Output:
+	// path#bend-line (element 5): contour 1 is open (its ends are 50 mm apart); a cut file needs closed contours
+	// Read from SVG as a cut file: 2 closed contours, nested even-odd.
+	// from (0, -50) to (100, 0) mm
+}

@@ -181,8 +181,7 @@ func (w *svgWriter) plumbLine(h *Hang, box geom.Rect) {
 		return
 	}
 	dir = dir.Mul(1 / dir.Norm())
-	reach := box.Size().Norm()*math.Abs(w.toPaper.A) + drawMargin/2
-	end := at.Add(dir.Mul(reach))
+	end := at.Add(dir.Mul(exitDistance(at, dir, w.paperBox(box)) + drawMargin/2))
 	w.printf(`<path d="M%s L%s" stroke="#b3261e" stroke-width="0.3" stroke-dasharray="3 1.5"/>`, pair(at), pair(end))
 	w.printf(`<circle cx="%s" cy="%s" r="1.2" fill="#b3261e"/>`, num(end.X), num(end.Y))
 	text := "hangs level"
@@ -194,6 +193,24 @@ func (w *svgWriter) plumbLine(h *Hang, box geom.Rect) {
 	}
 	w.printf(`<text x="%s" y="%s" font-family="sans-serif" font-size="%d" fill="#b3261e">%s</text>`,
 		num(at.X+h.Diameter/2*math.Abs(w.toPaper.A)+2), num(at.Y-2), drawFont, text)
+}
+
+// paperBox returns the document rectangle box on paper.
+func (w *svgWriter) paperBox(box geom.Rect) geom.Rect {
+	return geom.RectFromPoints(w.toPaper.Apply(box.Min), w.toPaper.Apply(box.Max))
+}
+
+// exitDistance returns how far the ray from p (inside box) along the unit vector dir runs before it
+// leaves box.
+func exitDistance(p, dir geom.Point, box geom.Rect) float64 {
+	t := math.Inf(1)
+	for _, axis := range [][3]float64{{p.X, dir.X, box.Min.X}, {p.X, dir.X, box.Max.X}, {p.Y, dir.Y, box.Min.Y},
+		{p.Y, dir.Y, box.Max.Y}} {
+		if s := (axis[2] - axis[0]) / axis[1]; s >= 0 {
+			t = min(t, s)
+		}
+	}
+	return t
 }
 
 // centroidMark draws the balance point as a quartered circle, two opposite quarters filled.
