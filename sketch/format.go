@@ -1,6 +1,21 @@
 package sketch
 
-// The part file format
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// FormatName and FormatVersion identify the part file format that Save writes and Load reads.
 //
 // A part file is one JSON object:
 //
@@ -18,43 +33,28 @@ package sketch
 //	}
 //
 // "format" and "version" are required; a file with a newer version than FormatVersion is refused.
-// "units" is a length unit ("mm" when absent). A material is either {"material", "thickness"} or
-// {"formula", "unit", "params"}, optionally with "custom" materials ({"key", "name", "density",
-// "areal", "approx", "gauge_system", "source"}: density in kg/m³, or for an areal material in kg/m² per
-// mm of thickness); it may be left out, in which case the material is given when the part is analysed. A region has a fill rule ("nonzero", the default,
-// or "evenodd") and closed loops. A loop lists its segments in order, each with its own end points, so
-// every segment reads on its own:
+// Unknown keys are errors (they are usually misspellings). "units" is a length unit ("mm" when
+// absent). A material is either {"material", "thickness"} or {"formula", "unit", "params"},
+// optionally with "custom" materials ({"key", "name", "density", "areal", "approx", "gauge_system",
+// "source"}: density in kg/m³, or for an areal material in kg/m² per mm of thickness); it may be left
+// out, and is then given when the part is analysed. A hole's diameter 0 is a pin. A region has a fill
+// rule ("nonzero", the default, or "evenodd") and closed loops. A loop lists its segments in order,
+// each with its own end points, so every segment reads on its own:
 //
 //	{"line": [[0, 0], [120, 0]]}                          from, to
 //	{"quad": [[0, 0], [60, 40], [120, 0]]}                from, control, to
 //	{"cubic": [[0, 0], [40, 40], [80, 40], [120, 0]]}     from, two controls, to
-//	{"arc": {"center": [0, 0], "radius": 50, "start_deg": 0, "sweep_deg": 90,
-//	         "from": [50, 0], "to": [0, 50]}}
+//	{"arc": {"center": [0, 0], "radius": 50, "start_deg": 0, "sweep_deg": 90}}
+//	{"arc": {"center": [0, 0], "rx": 60, "ry": 30, "rotation_deg": 15, "start_deg": 0, "sweep_deg": -90}}
 //
 // An arc is the curve center + Rot(rotation)·(rx cos θ, ry sin θ) for θ from start to start+sweep,
 // angles counter-clockwise (y up). A circular arc gives "radius"; an elliptical one gives "rx", "ry"
 // and "rotation_deg". Angles are given in degrees ("_deg") or, where a value in degrees would not read
 // back to the same number, in radians ("_rad"); Save picks degrees whenever they are exact. "from" and
 // "to" are the arc's end points where they differ in the last digits from the ones the centre form
-// gives (Save writes them only then): they must lie on the arc, and they are kept exactly so that
-// consecutive segments join without a gap.
-
-import (
-	"bytes"
-	"encoding/json"
-	"errors"
-	"fmt"
-	"io"
-	"math"
-	"slices"
-	"strconv"
-	"strings"
-
-	"plumb/density"
-	"plumb/geom"
-)
-
-// FormatName and FormatVersion identify the part file format that Save writes.
+// gives (Save writes them only then, as after an SVG arc): they must lie on the arc to within 1e-9 of
+// its size, and they are kept exactly so that consecutive segments join without a gap. Hand-written
+// files leave them out.
 const (
 	FormatName    = "plumb-part"
 	FormatVersion = 1

@@ -2,6 +2,7 @@ package sketch
 
 import (
 	"bytes"
+	"compress/gzip"
 	"encoding/xml"
 	"errors"
 	"fmt"
@@ -98,6 +99,10 @@ func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
 	if len(data) > limit {
 		return nil, nil, &SVGError{Msg: fmt.Sprintf("the file is %d bytes, more than the limit of %d", len(data), limit)}
 	}
+	data, err := gunzip(data, limit)
+	if err != nil {
+		return nil, nil, err
+	}
 	root, err := parseXML(data)
 	if err != nil {
 		return nil, nil, err
@@ -119,6 +124,25 @@ func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
 		return nil, nil, err
 	}
 	return d, r.warningList(), nil
+}
+
+// gunzip unpacks a gzip-compressed drawing (an .svgz file), refusing one that unpacks to more than
+// limit bytes; other data is returned as it is.
+func gunzip(data []byte, limit int) ([]byte, error) {
+	if !bytes.HasPrefix(data, []byte{0x1f, 0x8b}) {
+		return data, nil
+	}
+	zr, err := gzip.NewReader(bytes.NewReader(data))
+	if err == nil {
+		data, err = io.ReadAll(io.LimitReader(zr, int64(limit)+1))
+	}
+	switch {
+	case err != nil:
+		return nil, &SVGError{Msg: "not a readable compressed SVG: " + err.Error()}
+	case len(data) > limit:
+		return nil, &SVGError{Msg: fmt.Sprintf("the drawing unpacks to more than the limit of %d bytes", limit)}
+	}
+	return data, nil
 }
 
 // element is one XML element of the drawing.
@@ -149,6 +173,7 @@ func (e *element) fail(attr string, err error) error {
 func parseXML(data []byte) (*element, error) {
 	dec := xml.NewDecoder(bytes.NewReader(data))
 	dec.Strict = true
+	dec.CharsetReader = charsetReader
 	var stack []*element
 	var root *element
 	count := 0
@@ -195,6 +220,24 @@ func parseXML(data []byte) (*element, error) {
 		return nil, &SVGError{Element: root.String(), Msg: "not an SVG file: the root element is not svg"}
 	}
 	return root, nil
+}
+
+// charsetReader reads drawings declared as ISO-8859-1 or US-ASCII (each byte is the code point of
+// the same number) and refuses other encodings than UTF-8.
+func charsetReader(label string, in io.Reader) (io.Reader, error) {
+	switch strings.ToLower(label) {
+	case "iso-8859-1", "iso_8859-1", "latin1", "latin-1", "l1", "us-ascii", "ascii":
+		data, err := io.ReadAll(in)
+		if err != nil {
+			return nil, err
+		}
+		var b strings.Builder
+		for _, c := range data {
+			b.WriteRune(rune(c))
+		}
+		return strings.NewReader(b.String()), nil
+	}
+	return nil, fmt.Errorf("encoding %q is not supported; save the drawing as UTF-8", label)
 }
 
 func newElement(t xml.StartElement, index int) *element {
@@ -408,6 +451,8 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	switch e.name {
 	case "g", "a":
 		return r.children(e, ctx, uses)
+	case "switch":
+		return r.switchChild(e, ctx, uses)
 	case "svg":
 		vp, err := nestedViewport(e)
 		if err != nil {
@@ -426,6 +471,20 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 		return nil
 	}
 	r.warn("%s: not a shape Plumb reads; skipped", e)
+	return nil
+}
+
+// switchChild reads the first child of a switch element that Plumb can draw (SVG 1.1, section 5.8):
+// one that asks for no extension or feature and is not foreign content. Drawing programs put their
+// own private data first and the plain drawing after it.
+func (r *svgReader) switchChild(e *element, ctx inherited, uses int) error {
+	for _, k := range e.kids {
+		_, ext := k.attrs["requiredExtensions"]
+		_, feat := k.attrs["requiredFeatures"]
+		if k.svg && !ext && !feat && k.name != "foreignObject" {
+			return r.visit(k, ctx, uses)
+		}
+	}
 	return nil
 }
 

@@ -1,6 +1,8 @@
 package sketch
 
 import (
+	"bytes"
+	"compress/gzip"
 	"errors"
 	"fmt"
 	"math"
@@ -401,6 +403,48 @@ func TestReadSVGRelativePageSize(t *testing.T) {
 	want := `svg (element 1): width="100%" is relative to a page; the viewBox is read in px`
 	if len(warnings) != 2 || warnings[0] != want {
 		t.Errorf("warnings %q, want %q and one for height", warnings, want)
+	}
+}
+
+func TestReadSVGEncodings(t *testing.T) {
+	plain := mmSVG(`<!-- café --><rect width="10" height="10"/>`)
+	var packed bytes.Buffer
+	zw := gzip.NewWriter(&packed)
+	zw.Write([]byte(plain))
+	zw.Close()
+	latin1 := strings.Replace(`<?xml version="1.0" encoding="ISO-8859-1"?>`+plain, "é", "\xe9", 1)
+	for name, data := range map[string]string{"utf-8": plain, "byte order mark": "\xef\xbb\xbf" + plain,
+		"svgz": packed.String(), "latin-1": latin1} {
+		d, _, err := ReadSVG([]byte(data), SVGOptions{})
+		if err != nil {
+			t.Errorf("%s: %v", name, err)
+			continue
+		}
+		if a := outlineArea(d); !relClose(a, 100, 1e-12) {
+			t.Errorf("%s: area %v", name, a)
+		}
+	}
+	var bomb bytes.Buffer
+	zw = gzip.NewWriter(&bomb)
+	zw.Write([]byte(mmSVG("<!--" + strings.Repeat("x", 100000) + "-->")))
+	zw.Close()
+	_, _, err := ReadSVG(bomb.Bytes(), SVGOptions{MaxBytes: 1000})
+	if err == nil || err.Error() != "the drawing unpacks to more than the limit of 1000 bytes" {
+		t.Errorf("unpacking past the limit: %v", err)
+	}
+	_, _, err = ReadSVG([]byte(`<?xml version="1.0" encoding="Shift_JIS"?>`+plain), SVGOptions{})
+	if err == nil || !strings.Contains(err.Error(), `encoding "Shift_JIS" is not supported; save the drawing as UTF-8`) {
+		t.Errorf("unknown encoding: %v", err)
+	}
+}
+
+func TestReadSVGSwitch(t *testing.T) {
+	svg := mmSVG(`<switch><foreignObject requiredExtensions="http://example.com/private"><p/></foreignObject>` +
+		`<g requiredFeatures="x"><rect width="50" height="50"/></g><g><rect width="10" height="10"/></g>` +
+		`<g><rect width="20" height="20"/></g></switch>`)
+	d, _ := readSVG(t, svg, ReadAuto)
+	if a := outlineArea(d); !relClose(a, 100, 1e-12) {
+		t.Errorf("area %v, want the first plain child's 100", a)
 	}
 }
 
