@@ -114,9 +114,13 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 	v := part.Centroid.Sub(at)
 	h.Arm = v.Norm()
 	h.TiltPerMM = tiltDeg(h.Arm, 1/unit.MM)
-	if h.Arm <= levelTol*partSize(part.Body) {
+	size := partSize(part.Body)
+	switch {
+	case h.Arm <= levelTol*size:
 		h.Warnings = append(h.Warnings, "the hole is at the balance point: the part rests at any angle")
-	} else {
+	case math.Abs(v.X) <= levelTol*size && v.Y < 0: // straight above within the level tolerance
+		h.PeriodS = swingPeriod(part.Origin.Polar(at), part.Mass, h.Arm, unit)
+	default:
 		h.AngleDeg = halfTurnDeg(-math.Pi/2 - math.Atan2(v.Y, v.X))
 		h.PeriodS = swingPeriod(part.Origin.Polar(at), part.Mass, h.Arm, unit)
 	}

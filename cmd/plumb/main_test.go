@@ -227,6 +227,18 @@ func TestCommandLine(t *testing.T) {
 		wantNear(t, "hole y", num(t, m, "hole", "y"), 400-4-10, 1e-9)
 	})
 
+	t.Run("hang level in a U", func(t *testing.T) {
+		r := plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "8", "--format", "json")
+		if r.code != 1 || !strings.Contains(r.stderr, "u-bracket.json: no hole hangs this part level") {
+			t.Errorf("exit %d, stderr %q: want 1 and no level hole", r.code, r.stderr)
+		}
+		m := jsonLines(t, r.stdout)[0]
+		wantKeys(t, "no-level summary", m, append(summaryKeys, "alternatives")...)
+		if alts := m["alternatives"].([]any); len(alts) != 2 {
+			t.Errorf("alternatives %v, want one on each arm", alts)
+		}
+	})
+
 	t.Run("hang two chains", func(t *testing.T) {
 		r := plumb("hang", "testdata/bakery-sign.json", "--at", "100,350", "--at", "500,350", "--angle", "45")
 		if r.code != 0 {
