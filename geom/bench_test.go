@@ -1,10 +1,17 @@
+//go:build unix
+
+// The benchmarks report process CPU time per operation (getrusage) beside wall time: on a machine
+// shared with other work, wall time varies with the load far more than CPU time does.
+
 package geom
 
 import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"syscall"
 	"testing"
+	"time"
 
 	"github.com/paulmach/orb"
 	"github.com/paulmach/orb/planar"
@@ -69,6 +76,30 @@ func TestFlowerOutlineCubatureMatchesExact(t *testing.T) {
 	}
 }
 
+// cpuTime returns the user and system CPU time the process has used.
+func cpuTime() time.Duration {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		panic(err)
+	}
+	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
+}
+
+// measure runs op in the benchmark loop with allocation reporting and reports CPU ns/op, and per
+// item when items > 0.
+func measure(b *testing.B, items int, op func()) {
+	b.ReportAllocs()
+	start := cpuTime()
+	for b.Loop() {
+		op()
+	}
+	cpu := float64(cpuTime()-start) / float64(b.N)
+	b.ReportMetric(cpu, "cpu-ns/op")
+	if items > 0 {
+		b.ReportMetric(cpu/float64(items), "cpu-ns/item")
+	}
+}
+
 // BenchmarkPolygonMoments: uniform polygon, area + first + second moments, from points
 // (PolygonMoments) and from a Boundary of lines (IntegratePoly), against orb's planar.CentroidArea (area
 // and centroid only) on the same random star polygon.
@@ -78,25 +109,13 @@ func BenchmarkPolygonMoments(b *testing.B) {
 		boundary := bnd(Polygon(pts...))
 		poly := orb.Polygon{ring}
 		b.Run(fmt.Sprintf("n=%d/geom-points", n), func(b *testing.B) {
-			b.ReportAllocs()
-			for b.Loop() {
-				PolygonMoments(pts)
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(n), "ns/vertex")
+			measure(b, n, func() { PolygonMoments(pts) })
 		})
 		b.Run(fmt.Sprintf("n=%d/geom-boundary", n), func(b *testing.B) {
-			b.ReportAllocs()
-			for b.Loop() {
-				boundary.IntegratePoly(ConstPoly(1))
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(n), "ns/vertex")
+			measure(b, n, func() { boundary.IntegratePoly(ConstPoly(1)) })
 		})
 		b.Run(fmt.Sprintf("n=%d/orb", n), func(b *testing.B) {
-			b.ReportAllocs()
-			for b.Loop() {
-				planar.CentroidArea(poly)
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(n), "ns/vertex")
+			measure(b, n, func() { planar.CentroidArea(poly) })
 		})
 	}
 }
@@ -107,18 +126,12 @@ func BenchmarkPolygonMoments(b *testing.B) {
 // flattening error), and the bare density evaluations that the cubature used, in batches of 64.
 func BenchmarkOutline1000(b *testing.B) {
 	outline := flowerOutline(1000)
+	p := cubicDensity()
 	b.Run("geom-poly3-exact", func(b *testing.B) {
-		b.ReportAllocs()
-		p := cubicDensity()
-		for b.Loop() {
-			outline.IntegratePoly(p)
-		}
+		measure(b, 0, func() { outline.IntegratePoly(p) })
 	})
 	b.Run("geom-const-exact", func(b *testing.B) {
-		b.ReportAllocs()
-		for b.Loop() {
-			outline.IntegratePoly(ConstPoly(1))
-		}
+		measure(b, 0, func() { outline.IntegratePoly(ConstPoly(1)) })
 	})
 	flat := Loop(outline.Pieces).Flatten(0.01)
 	ring := make(orb.Ring, len(flat)+1)
@@ -127,20 +140,14 @@ func BenchmarkOutline1000(b *testing.B) {
 	}
 	ring[len(flat)] = ring[0]
 	b.Run(fmt.Sprintf("orb-flattened-%dpts", len(flat)), func(b *testing.B) {
-		b.ReportAllocs()
-		for b.Loop() {
-			planar.CentroidArea(orb.Polygon{ring})
-		}
+		measure(b, 0, func() { planar.CentroidArea(orb.Polygon{ring}) })
 	})
 	r, err := outline.Integrate(expSinField{}, Options{})
 	if err != nil || r.LimitHit {
 		b.Fatal(err, r.LimitHit)
 	}
 	b.Run("geom-expsin-tol1e-10", func(b *testing.B) {
-		b.ReportAllocs()
-		for b.Loop() {
-			outline.Integrate(expSinField{}, Options{})
-		}
+		measure(b, 0, func() { outline.Integrate(expSinField{}, Options{}) })
 		b.ReportMetric(float64(r.Evals), "evals/op")
 	})
 	b.Run(fmt.Sprintf("field-only-%devals", r.Evals), func(b *testing.B) {
@@ -148,10 +155,10 @@ func BenchmarkOutline1000(b *testing.B) {
 		for i := range xs {
 			xs[i], ys[i] = float64(i)*3-100, float64(i%7)*20-60
 		}
-		for b.Loop() {
+		measure(b, 0, func() {
 			for range r.Evals / 64 {
 				expSinField{}.Eval(xs, ys, out)
 			}
-		}
+		})
 	})
 }

@@ -35,6 +35,7 @@ type Result struct {
 // region itself.
 type DensityError struct{ X, Y, Value float64 }
 
+// Error says what is wrong with the value and where: "density is negative (-0.5) at (3, 4)".
 func (e *DensityError) Error() string {
 	what := "negative"
 	switch {
@@ -55,8 +56,8 @@ func (e *DensityError) Error() string {
 // is kept and the difference is its (conservative) error estimate. While the summed estimate exceeds
 // opt.Tol relative to a moment's natural scale (M·L^k, L half the larger side of the bounding box), the
 // piece with the largest estimate is refined: a third rule, with only the inner order raised, tells
-// whether the outer or the inner error dominates; the piece is then cut in half or given a higher inner
-// order (beyond innerMax, more inner panels). Refinement stops early when it would pass opt.MaxEvals
+// whether the outer or the inner error dominates; the piece then gets a higher outer order (beyond
+// outerMax it is cut in half) or a higher inner order (beyond innerMax, more inner panels). Refinement stops early when it would pass opt.MaxEvals
 // (Result.LimitHit). The density is evaluated in batches into reused buffers; a NaN, infinite or negative
 // value stops the integration with a *DensityError.
 func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
@@ -137,6 +138,8 @@ func absRaw(r rawMoments) rawMoments {
 // cost returns the evaluations that estimate(p) makes.
 func (p *cubPiece) cost() int { return p.np * (p.no*p.ni + (p.no+outerStep)*innerHigher(p.ni)) }
 
+// run integrates over b: first estimates for every piece, then refinement of the worst piece until the
+// summed error estimate meets tol or the work limit is reached.
 func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
 	pieces, err := c.initialPieces(b)
 	if err != nil {
@@ -184,7 +187,7 @@ func (c *cubature) initialPieces(b Boundary) (pieceHeap, error) {
 		s = s.translated(c.c.Mul(-1))
 		k := 1
 		if s.Kind == KindArc {
-			k = max(1, int(math.Ceil(math.Abs(s.Sweep)/(math.Pi/2))))
+			k = quarterTurns(s.Sweep)
 		}
 		for i := range k {
 			p := cubPiece{s: s, ni: innerStart, np: 1}

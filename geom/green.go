@@ -201,11 +201,27 @@ func (g *greenSums) moments(q Poly) rawMoments {
 // that integrates a trigonometric polynomial of degree deg over each to rounding level. It cuts more
 // finely when no order up to maxGLOrder suffices.
 func arcPieces(s Segment, deg int) (k, n int) {
-	k = max(1, int(math.Ceil(math.Abs(s.Sweep)/(math.Pi/2))))
-	for n = trigOrder(deg, s.Sweep/float64(k)); n == 0; n = trigOrder(deg, s.Sweep/float64(k)) {
+	k = quarterTurns(s.Sweep)
+	for n = trigOrder(deg, s.Sweep/float64(k)); n == 0 && k < maxArcPieces; n = trigOrder(deg, s.Sweep/float64(k)) {
 		k *= 2
 	}
+	if n == 0 { // a NaN sweep: let the NaN show in the result
+		return 1, 1
+	}
 	return k, n
+}
+
+// maxArcPieces bounds how finely an arc is cut, so that absurd sweeps or degrees cannot run away.
+const maxArcPieces = 1 << 16
+
+// quarterTurns returns the number of pieces of at most 90° for a sweep (1 for a non-finite sweep,
+// at most maxArcPieces).
+func quarterTurns(sweep float64) int {
+	q := math.Ceil(math.Abs(sweep) / (math.Pi / 2))
+	if !(q >= 1) {
+		return 1
+	}
+	return int(math.Min(q, maxArcPieces))
 }
 
 // arcPiece returns piece i of s cut into k equal pieces.

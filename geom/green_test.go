@@ -360,3 +360,13 @@ func TestIntegratePolyBadPolyPanics(t *testing.T) {
 	}()
 	bnd(RectLoop(Pt(0, 0), Pt(1, 1))).IntegratePoly(Poly{Deg: 2, C: []float64{1}})
 }
+
+// TestIntegratePolyNaNArcTerminates: bad data gives NaN moments, not a hang.
+func TestIntegratePolyNaNArcTerminates(t *testing.T) {
+	for _, sweep := range []float64{math.NaN(), math.Inf(1)} {
+		b := Boundary{Pieces: []Segment{Arc(Pt(0, 0), 1, 0, sweep), Line(Pt(1, 0), Pt(0, 0))}}
+		if m := b.IntegratePoly(ConstPoly(1)); !math.IsNaN(m.M) {
+			t.Errorf("sweep %v: mass %v, want NaN", sweep, m.M)
+		}
+	}
+}
