@@ -2,6 +2,7 @@ package sketch
 
 import (
 	"bytes"
+	"cmp"
 	"compress/gzip"
 	"encoding/xml"
 	"errors"
@@ -109,11 +110,11 @@ func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
 	}
 	r := &svgReader{ids: map[string]*element{}}
 	r.collect(root)
-	base, err := r.rootTransform(root)
+	base, vp, err := r.rootTransform(root)
 	if err != nil {
 		return nil, nil, err
 	}
-	ctx := inherited{ctm: base}
+	ctx := inherited{ctm: base, vp: vp}
 	ctx.paint, _ = r.paint(root, paint{fill: true})
 	if err := r.children(root, ctx, 0); err != nil {
 		return nil, nil, err
@@ -259,6 +260,7 @@ func newElement(t xml.StartElement, index int) *element {
 // paint holds the inherited properties that decide whether and how a shape is painted.
 type paint struct {
 	fill, stroke bool
+	white        bool // filled white, as page backgrounds are
 	evenOdd      bool // fill-rule: evenodd
 	hidden       bool // visibility: hidden or collapse
 }
@@ -267,6 +269,7 @@ type paint struct {
 type inherited struct {
 	paint
 	ctm geom.Affine
+	vp  viewport
 }
 
 // shape is one painted element's contours, in document coordinates.
@@ -313,22 +316,15 @@ func (r *svgReader) collect(e *element) {
 
 // rootTransform maps the root's user space to the document: through the viewBox onto the viewport
 // of the root's width and height in millimetres, then y up. Without a viewBox, user units are px;
-// without width and height, the viewBox's units are px.
-func (r *svgReader) rootTransform(root *element) (geom.Affine, error) {
+// without width and height, the viewBox's units are px. A transform on the root applies to its
+// content, as a group's would. It also returns the viewport that percentages refer to, in user units.
+func (r *svgReader) rootTransform(root *element) (geom.Affine, viewport, error) {
 	flip := geom.Scale(1, -1)
 	own, err := transformAttr(root)
 	if err != nil {
-		return geom.Affine{}, err
+		return geom.Affine{}, viewport{}, err
 	}
 	px := mmPer["px"]
-	vbText, ok := root.attrs["viewBox"]
-	if !ok {
-		return own.Then(geom.Scale(px, px)).Then(flip), nil
-	}
-	vb, err := parseViewBox(vbText)
-	if err != nil {
-		return geom.Affine{}, root.fail("viewBox", err)
-	}
 	var size [2]float64
 	var given [2]bool
 	for i, name := range []string{"width", "height"} {
@@ -341,12 +337,24 @@ func (r *svgReader) rootTransform(root *element) (geom.Affine, error) {
 		}
 		mm, err := parseLength(v)
 		if err != nil {
-			return geom.Affine{}, root.fail(name, err)
+			return geom.Affine{}, viewport{}, root.fail(name, err)
 		}
 		if mm <= 0 {
-			return geom.Affine{}, root.fail(name, errors.New("must be positive"))
+			return geom.Affine{}, viewport{}, root.fail(name, errors.New("must be positive"))
 		}
 		size[i], given[i] = mm, true
+	}
+	vbText, ok := root.attrs["viewBox"]
+	if !ok {
+		vp := viewport{}
+		if given[0] && given[1] {
+			vp = viewport{W: size[0] / px, H: size[1] / px}
+		}
+		return own.Then(geom.Scale(px, px)).Then(flip), vp, nil
+	}
+	vb, err := parseViewBox(vbText)
+	if err != nil {
+		return geom.Affine{}, viewport{}, root.fail("viewBox", err)
 	}
 	switch {
 	case !given[0] && !given[1]:
@@ -358,9 +366,9 @@ func (r *svgReader) rootTransform(root *element) (geom.Affine, error) {
 	}
 	asp, err := aspectAttr(root)
 	if err != nil {
-		return geom.Affine{}, err
+		return geom.Affine{}, viewport{}, err
 	}
-	return own.Then(viewportTransform(vb, size[0], size[1], asp)).Then(flip), nil
+	return own.Then(viewportTransform(vb, size[0], size[1], asp)).Then(flip), viewport{W: vb.W, H: vb.H}, nil
 }
 
 func transformAttr(e *element) (geom.Affine, error) {
@@ -387,15 +395,32 @@ func aspectAttr(e *element) (aspect, error) {
 	return a, nil
 }
 
+// viewport is the size, in user units, of the viewport that percentage lengths refer to; zero when
+// the drawing does not say (no viewBox and no absolute width and height).
+type viewport struct{ W, H float64 }
+
+// percentOf returns what 100% of the length attribute name is (SVG 1.1, section 7.10): the
+// viewport's width for horizontal lengths, its height for vertical ones, and √((w² + h²)/2) for
+// others such as a circle's radius.
+func (vp viewport) percentOf(name string) float64 {
+	switch name {
+	case "x", "x1", "x2", "cx", "width", "rx":
+		return vp.W
+	case "y", "y1", "y2", "cy", "height", "ry":
+		return vp.H
+	}
+	return math.Sqrt((vp.W*vp.W + vp.H*vp.H) / 2)
+}
+
 // lengths reads length attributes of e in user units; absent ones are 0.
-func (e *element) lengths(names ...string) ([]float64, error) {
+func (e *element) lengths(vp viewport, names ...string) ([]float64, error) {
 	out := make([]float64, len(names))
 	for i, name := range names {
 		s, ok := e.attrs[name]
 		if !ok || strings.TrimSpace(s) == "auto" {
 			continue
 		}
-		v, err := parseUserLength(s)
+		v, err := parseUserLength(s, vp.percentOf(name))
 		if err != nil {
 			return nil, e.fail(name, err)
 		}
@@ -442,7 +467,7 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	if err != nil {
 		return err
 	}
-	ctx = inherited{paint: p, ctm: own.Then(ctx.ctm)}
+	ctx.paint, ctx.ctm = p, own.Then(ctx.ctm)
 	for _, a := range []string{"clip-path", "mask"} {
 		if v, ok := e.attrs[a]; ok && v != "none" {
 			r.warn("%s: %s is not applied; the shapes are read unclipped", e, a)
@@ -454,16 +479,16 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	case "switch":
 		return r.switchChild(e, ctx, uses)
 	case "svg":
-		vp, err := nestedViewport(e)
+		m, vp, err := nestedViewport(e, ctx.vp)
 		if err != nil {
 			return err
 		}
-		ctx.ctm = vp.Then(ctx.ctm)
+		ctx.ctm, ctx.vp = m.Then(ctx.ctm), vp
 		return r.children(e, ctx, uses)
 	case "use":
 		return r.use(e, ctx, uses)
 	case "path", "rect", "circle", "ellipse", "line", "polyline", "polygon":
-		subs, err := shapeSubpaths(e)
+		subs, err := shapeSubpaths(e, ctx.vp)
 		if err != nil {
 			return err
 		}
@@ -488,34 +513,29 @@ func (r *svgReader) switchChild(e *element, ctx inherited, uses int) error {
 	return nil
 }
 
-// nestedViewport maps the user space of a nested svg element into its parent's (SVG 2, section 8.2).
-func nestedViewport(e *element) (geom.Affine, error) {
-	at, err := e.lengths("x", "y")
+// nestedViewport maps the user space of a nested svg element into its parent's (SVG 2, section 8.2),
+// whose viewport is parent, and returns the new viewport.
+func nestedViewport(e *element, parent viewport) (geom.Affine, viewport, error) {
+	v, err := e.lengths(parent, "x", "y", "width", "height")
 	if err != nil {
-		return geom.Affine{}, err
+		return geom.Affine{}, parent, err
 	}
-	m := geom.Identity()
-	if s, ok := e.attrs["viewBox"]; ok {
-		vb, err := parseViewBox(s)
-		if err != nil {
-			return m, e.fail("viewBox", err)
-		}
-		size, err := e.lengths("width", "height")
-		if err != nil {
-			return m, err
-		}
-		for i, def := range []float64{vb.W, vb.H} {
-			if size[i] == 0 {
-				size[i] = def
-			}
-		}
-		asp, err := aspectAttr(e)
-		if err != nil {
-			return m, err
-		}
-		m = viewportTransform(vb, size[0], size[1], asp)
+	at := geom.Translate(v[0], v[1])
+	size := viewport{W: cmp.Or(v[2], parent.W), H: cmp.Or(v[3], parent.H)} // width and height default to 100%
+	s, ok := e.attrs["viewBox"]
+	if !ok {
+		return at, size, nil
 	}
-	return m.Then(geom.Translate(at[0], at[1])), nil
+	vb, err := parseViewBox(s)
+	if err != nil {
+		return at, size, e.fail("viewBox", err)
+	}
+	size = viewport{W: cmp.Or(size.W, vb.W), H: cmp.Or(size.H, vb.H)}
+	asp, err := aspectAttr(e)
+	if err != nil {
+		return at, size, err
+	}
+	return viewportTransform(vb, size.W, size.H, asp).Then(at), viewport{W: vb.W, H: vb.H}, nil
 }
 
 // use draws the element a use element refers to, moved by the use's x and y (SVG 1.1, section 5.6).
@@ -537,7 +557,7 @@ func (r *svgReader) use(e *element, ctx inherited, uses int) error {
 		r.warn("%s: use of a %s is not read; skipped", e, target.name)
 		return nil
 	}
-	at, err := e.lengths("x", "y")
+	at, err := e.lengths(ctx.vp, "x", "y")
 	if err != nil {
 		return err
 	}
@@ -547,7 +567,7 @@ func (r *svgReader) use(e *element, ctx inherited, uses int) error {
 
 // shapeSubpaths reads the contours of a shape element in its user space. Basic shapes become the
 // path data SVG defines them by (SVG 2, section 10).
-func shapeSubpaths(e *element) ([]subpath, error) {
+func shapeSubpaths(e *element, vp viewport) ([]subpath, error) {
 	if e.name == "path" {
 		subs, err := parsePath(e.attrs["d"])
 		if err != nil {
@@ -562,14 +582,14 @@ func shapeSubpaths(e *element) ([]subpath, error) {
 	var err error
 	switch e.name {
 	case "rect":
-		err = rectPath(e, &b)
+		err = rectPath(e, vp, &b)
 	case "circle":
-		err = ellipsePath(e, &b, "r", "r")
+		err = ellipsePath(e, vp, &b, "r", "r")
 	case "ellipse":
-		err = ellipsePath(e, &b, "rx", "ry")
+		err = ellipsePath(e, vp, &b, "rx", "ry")
 	case "line":
 		var v []float64
-		if v, err = e.lengths("x1", "y1", "x2", "y2"); err == nil {
+		if v, err = e.lengths(vp, "x1", "y1", "x2", "y2"); err == nil {
 			b.command('M', v[:2])
 			b.command('L', v[2:])
 		}
@@ -600,9 +620,9 @@ func polySubpaths(e *element) ([]subpath, error) {
 
 // rectPath draws a rect, its corners rounded by rx and ry as SVG 1.1, section 9.2 defines: a missing
 // one of rx, ry takes the other's value, and each is at most half the side.
-func rectPath(e *element, b *pathBuilder) error {
+func rectPath(e *element, vp viewport, b *pathBuilder) error {
 	names := []string{"x", "y", "width", "height", "rx", "ry"}
-	v, err := e.lengths(names...)
+	v, err := e.lengths(vp, names...)
 	if err != nil {
 		return err
 	}
@@ -655,9 +675,9 @@ func nonNegative(e *element, names []string, v []float64) error {
 
 // ellipsePath draws a circle or ellipse as four arcs starting at its rightmost point (SVG 2, section
 // 10.4 and 10.5). A zero radius draws nothing.
-func ellipsePath(e *element, b *pathBuilder, rxName, ryName string) error {
+func ellipsePath(e *element, vp viewport, b *pathBuilder, rxName, ryName string) error {
 	names := []string{"cx", "cy", rxName, ryName}
-	v, err := e.lengths(names...)
+	v, err := e.lengths(vp, names...)
 	if err != nil {
 		return err
 	}
@@ -772,6 +792,10 @@ func (r *svgReader) filled(tol float64) (geom.Region, error) {
 		}
 		if len(reg.Loops) == 0 {
 			continue
+		}
+		if s.white {
+			r.warn("%s is filled white; it counts as material like every filled shape (a page background "+
+				"would fill the whole page: remove it, or read the drawing as a cut file)", s.el)
 		}
 		if _, err := reg.Check(); err != nil {
 			return reg, loopError(s.el, err)
@@ -942,6 +966,7 @@ func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
 		case v == "inherit":
 		case name == "fill":
 			p.fill = v != "none" && v != "transparent"
+			p.white = slices.Contains(whites, strings.ReplaceAll(v, " ", ""))
 		case name == "stroke":
 			p.stroke = v != "none" && v != "transparent"
 		case name == "fill-rule":
@@ -954,5 +979,8 @@ func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
 	}
 	return p, true
 }
+
+// whites are the usual ways of writing a white fill.
+var whites = []string{"white", "#fff", "#ffffff", "rgb(255,255,255)", "rgb(100%,100%,100%)"}
 
 var paintProperties = []string{"fill", "stroke", "fill-rule", "visibility", "display"}

@@ -199,12 +199,15 @@ func TestReadSVGWarnings(t *testing.T) {
 		`<inkscape:thing xmlns:inkscape="http://www.inkscape.org/namespaces/inkscape"/>` +
 		`<use href="other.svg#part"/>` +
 		`<path d="M0 50h10" stroke="#000" fill="none"/>` +
-		`<rect clip-path="url(#c)" x="50" width="1" height="1"/>`)
+		`<rect clip-path="url(#c)" x="50" width="1" height="1"/>` +
+		`<rect id="paper" fill="#FFF" x="100" width="10" height="10"/>`)
 	_, warnings := readSVG(t, svg, ReadAuto)
 	want := []string{
 		`image#logo (element 3): not a shape Plumb reads; skipped`,
 		`use (element 5): reference "other.svg#part" outside the file is not followed`,
 		`rect (element 7): clip-path is not applied; the shapes are read unclipped`,
+		`rect#paper (element 8) is filled white; it counts as material like every filled shape (a page ` +
+			`background would fill the whole page: remove it, or read the drawing as a cut file)`,
 		`1 stroked shapes without fill are left out of the filled drawing`,
 	}
 	if strings.Join(warnings, "\n") != strings.Join(want, "\n") {
@@ -238,8 +241,8 @@ func TestReadSVGErrors(t *testing.T) {
 			"rect (element 2), attribute width: must not be negative", SVGOptions{}},
 		{"odd points", mmSVG(`<polygon points="0 0 1 1 2"/>`),
 			"polygon (element 2), attribute points: odd number of coordinates (5)", SVGOptions{}},
-		{"relative length", mmSVG(`<rect width="50%" height="2"/>`),
-			`rect (element 2), attribute width: col 3: unit "%" is not an absolute length (use mm, cm, in, pt, pc or px)`,
+		{"relative length", mmSVG(`<rect width="5em" height="2"/>`),
+			`rect (element 2), attribute width: col 2: unit "em" is not an absolute length (use mm, cm, in, pt, pc or px)`,
 			SVGOptions{}},
 		{"bad viewBox", `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 0 10"><rect/></svg>`,
 			"svg (element 1), attribute viewBox: col 1: width and height must be positive", SVGOptions{}},
@@ -391,6 +394,36 @@ func BenchmarkReadSVG(b *testing.B) {
 		if _, _, err := ReadSVG(data, SVGOptions{}); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// TestReadSVGPercentages measures percentages against the viewport (SVG 1.1, section 7.10): widths
+// and x against its width, heights and y against its height, a radius against √((w² + h²)/2).
+func TestReadSVGPercentages(t *testing.T) {
+	tests := []struct {
+		name, root, content string
+		area                float64
+	}{
+		{"rect", `width="200mm" height="100mm" viewBox="0 0 200 100"`, `<rect x="10%" width="50%" height="25%"/>`, 100 * 25},
+		{"circle", `width="30mm" height="40mm" viewBox="0 0 30 40"`, `<circle r="10%"/>`,
+			math.Pi * (0.1 * math.Sqrt((30*30+40*40)/2)) * (0.1 * math.Sqrt((30*30+40*40)/2))},
+		{"no viewBox, absolute size", `width="96px" height="48px"`, `<rect width="100%" height="100%"/>`, 25.4 * 12.7},
+		{"nested svg", `width="200mm" height="100mm" viewBox="0 0 200 100"`,
+			`<svg width="50%" height="50%" viewBox="0 0 10 10" preserveAspectRatio="none"><rect width="50%" height="10"/></svg>`,
+			50 * 50},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			d, _ := readSVG(t, `<svg xmlns="http://www.w3.org/2000/svg" `+tt.root+`>`+tt.content+`</svg>`, ReadAuto)
+			if a := outlineArea(d); !relClose(a, tt.area, 1e-12) {
+				t.Errorf("area %v, want %v", a, tt.area)
+			}
+		})
+	}
+	_, _, err := ReadSVG([]byte(`<svg xmlns="http://www.w3.org/2000/svg"><rect width="50%" height="2"/></svg>`), SVGOptions{})
+	want := "rect (element 2), attribute width: col 1: a percentage needs a viewBox (or an absolute width and height) to measure by"
+	if err == nil || err.Error() != want {
+		t.Errorf("error %v, want %q", err, want)
 	}
 }
 

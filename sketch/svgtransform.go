@@ -128,10 +128,25 @@ func parseLength(s string) (float64, error) {
 	return v * per, nil
 }
 
-// parseUserLength reads a length attribute of a shape, in user units (px).
-func parseUserLength(s string) (float64, error) {
-	mm, err := parseLength(s)
-	return mm / mmPer["px"], err
+// parseUserLength reads a length attribute of a shape in user units (px); a percentage is of
+// hundred, the length 100% stands for (0 when the drawing gives no viewport to measure by).
+func parseUserLength(s string, hundred float64) (float64, error) {
+	num, percent := strings.CutSuffix(strings.TrimSpace(s), "%")
+	if !percent {
+		mm, err := parseLength(s)
+		return mm / mmPer["px"], err
+	}
+	sc := &scanner{s: num}
+	v, err := sc.number()
+	switch {
+	case err != nil:
+		return 0, err
+	case !sc.done():
+		return 0, sc.errorf("expected %%, found %s", sc.found())
+	case hundred == 0:
+		return 0, &syntaxError{Col: 1, Msg: "a percentage needs a viewBox (or an absolute width and height) to measure by"}
+	}
+	return v * hundred / 100, nil
 }
 
 // viewBox is the user-space rectangle a viewport shows (SVG 1.1, section 7.7).
