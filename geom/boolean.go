@@ -26,13 +26,18 @@ func Difference(base Region, cuts ...Region) Boundary {
 // within the tolerance of the piece, near enough to stay inside all but hairline features.
 const sideTolerance = 64
 
+// probeAt is where along a piece (as a fraction of its parameter interval) Combine probes its sides:
+// off the middle, because symmetric drawings (a hole touching the middle of an edge) put tangent
+// contacts there, where a probe could land across the other curve.
+const probeAt = 0.4142
+
 // Combine returns the boundary of {p : keep(in)}, where in[i] reports whether p lies in regions[i]
 // (each by its own fill rule); keep must be false when all in[i] are false.
 //
 // Every segment is cut where it meets another (of any region, its own loop included), at exact
 // intersections of the true curves. A piece between cuts separates the set from its outside exactly
 // when keep differs on its two sides, which Combine decides from the winding numbers at two points
-// just beside the piece's midpoint; such pieces are kept, turned so that the set lies on their left.
+// just beside a point of the piece; such pieces are kept, turned so that the set lies on their left.
 // Where pieces of several regions run along one another (shared edges), one copy is kept. The result
 // is a set of exact curves, never flattened, not assembled into loops: Green's theorem needs only
 // the oriented pieces.
@@ -62,7 +67,7 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	tol := tolerance(box)
 	c := newClassifier(ms, regions, keep, box, tol)
 	kept := make([]keptPiece, 0, len(ms))
-	cuts := cutList(ms, findHits(ms, tol, nil))
+	cuts := cutList(ms, findHits(ms, tol, nil), tol)
 	var here []float64
 	for i := range ms {
 		here = here[:0]
@@ -81,12 +86,16 @@ type cut struct {
 	t    float64
 }
 
-// cutList returns the cuts the hits call for inside the pieces, ordered by piece and parameter.
-func cutList(ms monos, hits []hit) []cut {
+// cutList returns the cuts the hits call for inside the pieces, ordered by piece and parameter, after
+// moving together the hits of one touching point (snapHits).
+func cutList(ms monos, hits []hit, tol float64) []cut {
+	inner := func(i int, t float64) bool { return t != ms[i].t0 && t != ms[i].t1 }
+	hits = slices.DeleteFunc(hits, func(h hit) bool { return !inner(h.i, h.ti) && !inner(h.j, h.tj) })
+	ms.snapHits(hits, tol)
 	var cs []cut
 	for _, h := range hits {
 		for _, c := range [2]cut{{h.i, h.ti}, {h.j, h.tj}} {
-			if m := &ms[c.mono]; c.t != m.t0 && c.t != m.t1 {
+			if inner(c.mono, c.t) {
 				cs = append(cs, c)
 			}
 		}
@@ -95,6 +104,56 @@ func cutList(ms monos, hits []hit) []cut {
 		return cmp.Or(cmp.Compare(a.mono, b.mono), cmp.Compare(a.t, b.t))
 	})
 	return cs
+}
+
+// contactRadius bounds, in units of the coincidence tolerance, how far apart the computed hits of
+// one touching point may lie: where curves touch, the crossing is a double root that the solvers pin
+// down only to about √(tol·size), a few thousand tolerances.
+const contactRadius = 1e5
+
+// snapHits moves each hit lying within contactRadius of an earlier one (in order of x) onto that
+// one's point, when both its pieces pass within tol of that point and keep within tol of each other
+// on the way there. Where curves touch, and where several curves run through one touching point
+// (shared edges with a tangent curve), each pair's hit is computed separately and the results scatter
+// along the contact; snapped, all those pieces end at one point, coincident pieces are recognised as
+// one, and no gap opens in the boundary. Separate crossings are left alone: between them the curves
+// part by more than tol.
+func (ms monos) snapHits(hs []hit, tol float64) {
+	pts := make([]Point, len(hs))
+	order := make([]int, len(hs))
+	for k, h := range hs {
+		pts[k], order[k] = ms[h.i].s.At(h.ti), k
+	}
+	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(pts[i].X, pts[j].X) })
+	radius := contactRadius * tol
+	for n, k := range order {
+		for l := n - 1; l >= 0 && pts[k].X-pts[order[l]].X <= radius; l-- {
+			p := pts[order[l]]
+			d := p.Dist(pts[k])
+			if d <= tol {
+				break
+			}
+			if d > radius {
+				continue
+			}
+			if ti, tj, ok := ms.moveHit(hs[k], p, tol); ok {
+				hs[k].ti, hs[k].tj, pts[k] = ti, tj, p
+				break
+			}
+		}
+	}
+}
+
+// moveHit returns the parameters of the points of h's pieces nearest p, if both lie within tol of p
+// and the pieces keep together from h to p.
+func (ms monos) moveHit(h hit, p Point, tol float64) (ti, tj float64, ok bool) {
+	a, b := &ms[h.i], &ms[h.j]
+	ti, di := nearest(a.s, a.t0, a.t1, p)
+	tj, dj := nearest(b.s, b.t0, b.t1, p)
+	if di > tol || dj > tol || !ms.together(h.i, h.ti, ti, h.j, tol) {
+		return 0, 0, false
+	}
+	return ti, tj, true
 }
 
 // classifier decides which pieces of a set of regions bound the set that keep selects.
@@ -120,7 +179,7 @@ func newClassifier(ms monos, regions []Region, keep func([]bool) bool, box Rect,
 	return c
 }
 
-// keptPiece is a piece of the result with its midpoint (for finding duplicates).
+// keptPiece is a piece of the result with the point where it was probed (for finding duplicates).
 type keptPiece struct {
 	s   Segment
 	mid Point
@@ -148,16 +207,16 @@ func (c *classifier) pieces(i int, ts []float64, dst []keptPiece) []keptPiece {
 // piece appends the part of mono i over [u0, u1] (from q0 to q1) if keep differs on its two sides,
 // with the kept side on its left.
 //
-// The probes lie a distance h beside the midpoint, along the normal n = (−T.y, T.x)/|T| to the tangent
+// The probes lie a distance h beside the point "mid" at probeAt, along the normal n = (−T.y, T.x)/|T| to the tangent
 // T. The piece's own crossing of the probe's ray needs no root: to first order in h the piece meets
 // the horizontal through the left probe at x − x_mid = h·T.x²/(T.y·|T|), right of the probe
 // (at −h·T.y/|T|) exactly when T.y > 0, an upward crossing; the right probe is mirrored.
 func (c *classifier) piece(i int, u0, u1 float64, q0, q1 Point, dst []keptPiece) []keptPiece {
 	m := &c.ms[i]
-	um := (u0 + u1) / 2
+	um := u0 + probeAt*(u1-u0)
 	mid, tan := m.s.At(um), m.s.Deriv(um)
 	if tan.Norm() == 0 {
-		tan = q1.Sub(q0) // a cusp at the midpoint
+		tan = q1.Sub(q0) // a cusp at the probe
 	}
 	side := math.Max(math.Min(c.side, q0.Dist(q1)/4), 2*c.tol)
 	n := Point{-tan.Y, tan.X}.Mul(side / tan.Norm())
@@ -216,19 +275,20 @@ func (c *classifier) kept(p Point, own, ownCross int) bool {
 	return k
 }
 
-// dedupe returns the pieces, dropping those that run along an earlier one within tol (start, end and
-// midpoint): regions sharing an edge each contribute a copy of it.
+// dedupe returns the pieces, dropping those that run along an earlier one within tol (same start and
+// end, and an inner point of one on the other): regions sharing an edge each contribute a copy of it.
 func dedupe(ps []keptPiece, tol float64) []Segment {
 	order := make([]int, len(ps))
 	for i := range order {
 		order[i] = i
 	}
-	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(ps[i].mid.X, ps[j].mid.X) })
+	startX := func(i int) float64 { return ps[i].s.Start().X }
+	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(startX(i), startX(j)) })
 	dup := make([]bool, len(ps))
 	for k, i := range order {
-		for l := k - 1; l >= 0 && ps[i].mid.X-ps[order[l]].mid.X <= tol; l-- {
-			if j := order[l]; samePiece(ps[i], ps[j], tol) {
-				dup[max(i, j)] = true
+		for l := k - 1; l >= 0 && startX(i)-startX(order[l]) <= tol; l-- {
+			if samePiece(ps[i], ps[order[l]], tol) {
+				dup[i] = true
 				break
 			}
 		}
@@ -242,9 +302,14 @@ func dedupe(ps []keptPiece, tol float64) []Segment {
 	return out
 }
 
-// samePiece reports whether a and b start, end and pass their middle within tol of each other.
+// samePiece reports whether a and b start and end within tol of each other and a's probed point lies
+// within tol of b (the curves may be parameterized differently, as a line and a straight Bézier).
 func samePiece(a, b keptPiece, tol float64) bool {
-	return a.mid.Dist(b.mid) <= tol && a.s.Start().Dist(b.s.Start()) <= tol && a.s.End().Dist(b.s.End()) <= tol
+	if a.s.Start().Dist(b.s.Start()) > tol || a.s.End().Dist(b.s.End()) > tol {
+		return false
+	}
+	_, d := nearest(b.s, 0, 1, a.mid)
+	return d <= tol
 }
 
 // yIndex lists, for each of a number of equal horizontal bands, the pieces whose y range meets the

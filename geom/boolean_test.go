@@ -52,6 +52,12 @@ func booleanPairs() []struct {
 		{"Bézier blob and its shifted copy", loopRegion(blob), loopRegion(blob.Transform(Translate(0.5, 0.3)))},
 		{"pentagram and circle", loopRegion(pentagram(1)), Disk(Pt(0.2, 0.1), 0.5)},
 		{"even-odd pentagram and square", Region{Loops: []Loop{pentagram(1)}, Rule: EvenOdd}, loopRegion(RectLoop(Pt(-0.3, -0.2), Pt(0.9, 0.4)))},
+		{"circle touching an edge's middle inside", loopRegion(RectLoop(Pt(0, 0), Pt(10, 6))), Disk(Pt(5, 5), 1)},
+		{"circle touching an edge's middle outside", loopRegion(RectLoop(Pt(0, 0), Pt(10, 6))), Disk(Pt(5, 7), 1)},
+		{"circle inscribed in an ellipse", loopRegion(Loop{EllipticalArc(Pt(0, 0), 0.5, 0.75, math.Pi/4, 0, 2*math.Pi)}), Disk(Pt(0, 0), 0.5)},
+		{"ellipse holding a circle, and the circle", loopRegion(Loop{EllipticalArc(Pt(0, 0), 0.5, 0.75, math.Pi/8, 0, 2*math.Pi)}, Circle(Pt(0, 0), 0.5)), Disk(Pt(0, 0), 0.5)},
+		{"cubic crossing its own chord and a triangle", loopRegion(Polygon(Pt(0.5, 0), Pt(5.5, 4.5), Pt(5.5, 5.5))),
+			loopRegion(Loop{Cubic(Pt(5.5, 5.5), Pt(0.5, 0), Pt(0, 0.5), Pt(0, 0)), Cubic(Pt(0, 0), Pt(0, 0), Pt(0, 0), Pt(5.5, 5.5))})},
 		{"teardrop and rotated teardrop", loopRegion(teardrop()), loopRegion(teardrop().Transform(RotateAbout(Pt(0, 1), 0.7)))},
 	}
 }
@@ -102,6 +108,8 @@ func TestBooleanAreas(t *testing.T) {
 		// A cut-out about a corner removes a quarter disk: πr²/4.
 		{"cut-out partly outside", Difference(plate, Disk(Pt(w, 0), r)), w*h - pi*r*r/4},
 		{"overlapping cut-outs", Difference(plate, Disk(Pt(4, 3), r), Disk(Pt(4+d, 3), r)), w*h - (2*pi*r*r - lens)},
+		{"hole touching the middle of an edge", Difference(plate, Disk(Pt(5, h-1), 1)), w*h - pi},
+		{"circle touching the middle of an edge outside", Difference(plate, Disk(Pt(5, h+1), 1)), w * h},
 		{"cut-out wholly outside", Difference(plate, Disk(Pt(-5, 3), r)), w * h},
 		{"cut-out covering the plate", Difference(plate, Disk(Pt(5, 3), 20)), 0},
 		{"nonzero pentagram", loopRegion(pentagram(1)).Boundary(), star},

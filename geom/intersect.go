@@ -212,7 +212,8 @@ func (ms monos) endHits(i, j int, tol float64, dst []hit) []hit {
 }
 
 // overlap reports whether, between two of the end hits hs, the pieces run along one another: the
-// midpoint of one piece between two hits on it lies on the other.
+// points of one piece at two places between two hits on it (golden-section fractions, so that the
+// test does not land on a crossing of symmetric curves) lie on the other.
 func (ms monos) overlap(hs []hit, tol float64) bool {
 	for k, h := range hs {
 		a, b := &ms[h.i], &ms[h.j]
@@ -220,12 +221,24 @@ func (ms monos) overlap(hs []hit, tol float64) bool {
 			if g.i != h.i || a.s.At(h.ti).Dist(a.s.At(g.ti)) <= tol {
 				continue
 			}
-			if _, d := nearest(b.s, b.t0, b.t1, a.s.At((h.ti+g.ti)/2)); d <= tol {
+			on := func(f float64) bool {
+				_, d := nearest(b.s, b.t0, b.t1, a.s.At(h.ti+f*(g.ti-h.ti)))
+				return d <= tol
+			}
+			if on(0.381966) && on(0.618034) {
 				return true
 			}
 		}
 	}
 	return false
+}
+
+// together reports whether piece i, halfway between its parameters t1 and t2, lies within tol of
+// piece j: then hits at t1 and t2 are one contact (or bound a sliver thinner than tol).
+func (ms monos) together(i int, t1, t2 float64, j int, tol float64) bool {
+	b := &ms[j]
+	_, d := nearest(b.s, b.t0, b.t1, ms[i].s.At((t1+t2)/2))
+	return d <= tol
 }
 
 // lineCrossings appends the crossings of the line piece i with piece j.
@@ -326,13 +339,18 @@ func (sp span) halves(s Segment) (span, span) {
 	return span{sp.t0, tm, sp.p0, pm}, span{tm, sp.t1, pm, sp.p1}
 }
 
+// maxNewton bounds polish's Newton steps. At a tangent contact the root is double and Newton's method
+// only halves the error each step: 64 steps take a leaf-sized start below float64 resolution.
+const maxNewton = 64
+
 // polish solves A(s) = B(u) for pieces i and j by Newton's method from the midpoints of spans a and b,
 // with s and u kept within the pieces, and appends the crossing when the curves come within tol there
-// and it is not one found already. Each step solves A'(s)·Δs − B'(u)·Δu = B(u) − A(s) by Cramer's rule.
+// and it is not one found already: where curves touch, Newton's method stops anywhere along the
+// contact, and crossings between which the curves keep together count as one. Each step solves A'(s)·Δs − B'(u)·Δu = B(u) − A(s) by Cramer's rule.
 func (sd *subdivision) polish(a, b span, dst []hit) []hit {
 	ma, mb := &sd.ms[sd.i], &sd.ms[sd.j]
 	s, u := (a.t0+a.t1)/2, (b.t0+b.t1)/2
-	for range 16 {
+	for range maxNewton {
 		f := ma.s.At(s).Sub(mb.s.At(u))
 		da, db := ma.s.Deriv(s), mb.s.Deriv(u)
 		det := -da.Cross(db)
@@ -346,12 +364,20 @@ func (sd *subdivision) polish(a, b span, dst []hit) []hit {
 			break
 		}
 	}
+	// A crossing at the end of a piece holds that parameter at the end, and the other then stops
+	// anywhere the curves are within tol (along a tangent, far from the touching point): project.
+	switch {
+	case s == ma.t0 || s == ma.t1:
+		u, _ = nearest(mb.s, mb.t0, mb.t1, ma.s.At(s))
+	case u == mb.t0 || u == mb.t1:
+		s, _ = nearest(ma.s, ma.t0, ma.t1, mb.s.At(u))
+	}
 	p := ma.s.At(s)
 	if p.Dist(mb.s.At(u)) > sd.tol {
 		return dst
 	}
 	for _, h := range dst[sd.from:] {
-		if ma.s.At(h.ti).Dist(p) <= sd.tol {
+		if sd.ms.together(sd.i, s, h.ti, sd.j, sd.tol) {
 			return dst
 		}
 	}
@@ -376,7 +402,7 @@ func lineMeets(org, dir Point, s Segment, t0, t1, tol float64, dst [][2]float64)
 		}
 		return append(dst, [2]float64{w.Cross(e) / den, w.Cross(dir) / den})
 	case KindArc:
-		return lineMeetsArc(org, dir, s, dst)
+		return lineMeetsArc(org, dir, s, tol, dst)
 	}
 	// Signed distances of the control points from the line (times |dir|) form a scalar Bézier.
 	c, n := bezierPower(s)
@@ -394,12 +420,17 @@ func lineMeets(org, dir Point, s Segment, t0, t1, tol float64, dst [][2]float64)
 
 // lineMeetsArc is lineMeets for an arc: in the frame where the arc's ellipse is the unit circle the
 // line stays a line, o + u·d, and |o + u·d|² = 1 is a quadratic in u.
-func lineMeetsArc(org, dir Point, s Segment, dst [][2]float64) [][2]float64 {
+func lineMeetsArc(org, dir Point, s Segment, tol float64, dst [][2]float64) [][2]float64 {
 	o := toArcFrame(s, org)
 	d := dir.Rotate(-s.Rot)
 	d = Point{d.X / s.RX, d.Y / s.RY}
 	qa, qb, qc := d.Dot(d), 2*o.Dot(d), o.Dot(o)-1
+	// disc/(4·qa) = 1 − δ², δ the distance of the line from the centre in the unit frame: a line
+	// passing within tol outside the ellipse touches it.
 	disc := qb*qb - 4*qa*qc
+	if disc < 0 && disc >= -8*qa*tol/math.Min(s.RX, s.RY) {
+		disc = 0
+	}
 	if qa == 0 || disc < 0 {
 		return dst
 	}

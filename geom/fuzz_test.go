@@ -1,0 +1,84 @@
+package geom
+
+import (
+	"math"
+	"testing"
+)
+
+// byteReader hands out the fuzzer's bytes one at a time, then zeros.
+type byteReader []byte
+
+func (r *byteReader) next() int {
+	if len(*r) == 0 {
+		return 0
+	}
+	b := (*r)[0]
+	*r = (*r)[1:]
+	return int(b)
+}
+
+// coord returns a coordinate on a coarse grid (0 to 7.5 by halves), so that the fuzzer easily makes
+// vertices coincide and edges overlap.
+func (r *byteReader) coord() float64 { return float64(r.next()%16) / 2 }
+
+func (r *byteReader) point() Point { return Pt(r.coord(), r.coord()) }
+
+// loop returns a closed loop of one of several kinds, drawn from the bytes.
+func (r *byteReader) loop() Loop {
+	switch r.next() % 6 {
+	case 0:
+		pts := make([]Point, 3+r.next()%4)
+		for i := range pts {
+			pts[i] = r.point()
+		}
+		return Polygon(pts...)
+	case 1:
+		return Circle(r.point(), 0.5+r.coord())
+	case 2:
+		a, b := r.point(), r.point()
+		return RoundedRect(Pt(min(a.X, b.X), min(a.Y, b.Y)), Pt(max(a.X, b.X), max(a.Y, b.Y)), r.coord()/4)
+	case 3:
+		return Loop{EllipticalArc(r.point(), 0.5+r.coord(), 0.5+r.coord()/2, float64(r.next()%8)*math.Pi/8, 0, 2*math.Pi)}
+	case 4:
+		a, b := r.point(), r.point()
+		return Loop{Cubic(a, r.point(), r.point(), b), Cubic(b, r.point(), r.point(), a)}
+	}
+	a, b := r.point(), r.point()
+	return Loop{Quad(a, r.point(), b), Line(b, a)}
+}
+
+func (r *byteReader) region() Region {
+	reg := Region{Loops: []Loop{r.loop()}, Rule: FillRule(r.next() % 2)}
+	if r.next()%2 == 1 {
+		reg.Loops = append(reg.Loops, r.loop())
+	}
+	return reg
+}
+
+// FuzzCombine combines random regions: nothing panics, and union, intersection and difference obey
+// inclusion–exclusion in area and every moment (the moments are integrals over the set, so additive).
+func FuzzCombine(f *testing.F) {
+	f.Add([]byte{1, 4, 4, 4, 0, 0, 1, 8, 4, 4})
+	f.Fuzz(func(t *testing.T, data []byte) {
+		r := byteReader(data)
+		a, b := r.region(), r.region()
+		a.Check()
+		b.Check()
+		ma, mb := unitMoments(a.Boundary()), unitMoments(b.Boundary())
+		u := unitMoments(Combine(inEither, a, b))
+		x := unitMoments(Combine(inBoth, a, b))
+		d := unitMoments(Difference(a, b))
+		const L = 16 // the grid's extent bounds every shape
+		if !momentsNear(u.Add(x), ma.Add(mb), L, 1e-9) {
+			t.Errorf("∪ + ∩ = %+v, A + B = %+v", u.Add(x), ma.Add(mb))
+		}
+		if !momentsNear(d.Add(x), ma, L, 1e-9) {
+			t.Errorf("(A∖B) + (A∩B) = %+v, A = %+v", d.Add(x), ma)
+		}
+		for _, m := range []Moments{ma, mb, u, x, d} {
+			if m.M < -1e-9*L*L {
+				t.Errorf("negative area %g", m.M)
+			}
+		}
+	})
+}
