@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"reflect"
 	"slices"
 	"strconv"
 	"strings"
@@ -814,6 +815,9 @@ func (d *Document) Save() ([]byte, error) {
 	for _, h := range d.Holes {
 		f.Holes = append(f.Holes, fileHole{At: ptOf(h.At), Diameter: h.Diameter})
 	}
+	if path, ok := nonFinite(reflect.ValueOf(f), ""); ok {
+		return nil, &PathError{Path: path, Msg: "not a finite number; a part file holds only finite numbers"}
+	}
 	var compact bytes.Buffer
 	enc := json.NewEncoder(&compact)
 	enc.SetEscapeHTML(false)
@@ -824,6 +828,43 @@ func (d *Document) Save() ([]byte, error) {
 	writeJSON(&out, bytes.TrimSpace(compact.Bytes()), 0, 0)
 	out.WriteByte('\n')
 	return out.Bytes(), nil
+}
+
+// nonFinite returns the JSON path of the first NaN or infinite number in v, a value of the file types
+// below, found at path.
+func nonFinite(v reflect.Value, path string) (string, bool) {
+	switch v.Kind() {
+	case reflect.Float64:
+		f := v.Float()
+		return path, math.IsNaN(f) || math.IsInf(f, 0)
+	case reflect.Pointer:
+		return nonFinite(reflect.Indirect(v), path)
+	case reflect.Struct:
+		for i := range v.NumField() {
+			key, _, _ := strings.Cut(v.Type().Field(i).Tag.Get("json"), ",")
+			if path != "" {
+				key = path + "." + key
+			}
+			if p, ok := nonFinite(v.Field(i), key); ok {
+				return p, true
+			}
+		}
+	case reflect.Slice, reflect.Array:
+		for i := range v.Len() {
+			if p, ok := nonFinite(v.Index(i), path+"["+strconv.Itoa(i)+"]"); ok {
+				return p, true
+			}
+		}
+	case reflect.Map:
+		keys := v.MapKeys()
+		slices.SortFunc(keys, func(a, b reflect.Value) int { return strings.Compare(a.String(), b.String()) })
+		for _, k := range keys {
+			if p, ok := nonFinite(v.MapIndex(k), path+"."+k.String()); ok {
+				return p, true
+			}
+		}
+	}
+	return "", false
 }
 
 // The file types below fix the key order of saved files.

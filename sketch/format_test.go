@@ -123,6 +123,50 @@ func TestSaveLayout(t *testing.T) {
 	}
 }
 
+func TestSaveNonFinite(t *testing.T) {
+	d := sampleDocument()
+	d.Cutouts[1].Loops[0][1].P[1].Y = math.NaN()
+	d.Overlays[0].Material.Params["k"] = math.Inf(1)
+	_, err := d.Save()
+	want := "cutouts[1].loops[0].segments[1].line[1][1]: not a finite number; a part file holds only finite numbers"
+	if err == nil || err.Error() != want {
+		t.Errorf("Save error = %v, want %q", err, want)
+	}
+	d = sampleDocument()
+	d.Overlays[0].Material.Params["k"] = math.Inf(1)
+	if _, err := d.Save(); err == nil || !strings.HasPrefix(err.Error(), "overlays[0].material.params.k: ") {
+		t.Errorf("Save error = %v, want one at overlays[0].material.params.k", err)
+	}
+}
+
+// BenchmarkSaveLoad saves and loads the garden-gate panel.
+func BenchmarkSaveLoad(b *testing.B) {
+	data, err := os.ReadFile("../testdata/garden-gate-panel.json")
+	if err != nil {
+		b.Fatal(err)
+	}
+	d, err := Load(data)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.Run("Save", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			if _, err := d.Save(); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+	b.Run("Load", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			if _, err := Load(data); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+}
+
 // square returns the JSON of a loop around the square [x, x+1]×[0, 1] in six segments, with extra
 // replacing segment 5 when it is not empty.
 func square(x float64, extra string) string {
