@@ -54,24 +54,22 @@ func materialDensity(m density.Material) string {
 	return s
 }
 
-// writeGauges writes each gauge table used by a material, headed by the materials that use it.
+// writeGauges writes each gauge table, headed by its name, its source and the materials that use it.
 func writeGauges(w io.Writer, mats []density.Material) {
-	var systems []string
 	users := map[string][]string{}
 	for _, m := range mats {
-		if m.GaugeSystem == "" {
-			continue
+		if m.GaugeSystem != "" {
+			users[m.GaugeSystem] = append(users[m.GaugeSystem], m.Name)
 		}
-		if _, seen := users[m.GaugeSystem]; !seen {
-			systems = append(systems, m.GaugeSystem)
-		}
-		users[m.GaugeSystem] = append(users[m.GaugeSystem], m.Name)
 	}
-	for _, sys := range systems {
-		fmt.Fprintf(w, "\ngauges (%s) for %s:\n", sys, strings.Join(users[sys], ", "))
+	for _, t := range density.GaugeTables() {
+		fmt.Fprintf(w, "\n%s (%s)\n", t.Name, t.Source)
+		if u := users[t.Key]; len(u) > 0 {
+			fmt.Fprintf(w, "used for %s\n", strings.Join(u, ", "))
+		}
 		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 		fmt.Fprintln(tw, "gauge\tmm\tin\t")
-		for _, g := range density.Gauges(sys) {
+		for _, g := range density.Gauges(t.Key) {
 			fmt.Fprintf(tw, "%d\t%.2f\t%.4f\t\n", g.Number, g.MM, g.In)
 		}
 		tw.Flush()
