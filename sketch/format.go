@@ -148,22 +148,13 @@ func checkFormat(root object) error {
 }
 
 func loadDocument(root object, d *Document) error {
-	var err error
-	if n, ok := root.get("name"); ok {
-		if d.Name, err = n.str(); err != nil {
-			return err
-		}
-	}
-	if n, ok := root.get("notes"); ok {
-		if d.Notes, err = n.str(); err != nil {
-			return err
-		}
+	err := root.stringFields(field[string]{"name", &d.Name}, field[string]{"notes", &d.Notes},
+		field[string]{"units", &d.Units})
+	if err != nil {
+		return err
 	}
 	unit := density.Length{Name: "mm", MM: 1}
 	if n, ok := root.get("units"); ok {
-		if d.Units, err = n.str(); err != nil {
-			return err
-		}
 		if unit, err = density.LengthUnit(d.Units); err != nil {
 			return n.fail("%v", err)
 		}
@@ -214,17 +205,12 @@ func loadList[T any](n node, load func(node) (T, error)) ([]T, error) {
 
 func loadOverlay(n node, unit density.Length) (Overlay, error) {
 	var o Overlay
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("name", "region", "material")
-	}
+	obj, err := n.objectWith("name", "region", "material")
 	if err != nil {
 		return o, err
 	}
-	if nn, ok := obj.get("name"); ok {
-		if o.Name, err = nn.str(); err != nil {
-			return o, err
-		}
+	if err := obj.stringFields(field[string]{"name", &o.Name}); err != nil {
+		return o, err
 	}
 	rn, err := obj.need("region")
 	if err != nil {
@@ -241,10 +227,7 @@ func loadOverlay(n node, unit density.Length) (Overlay, error) {
 
 func loadHole(n node) (Hole, error) {
 	var h Hole
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("at", "diameter")
-	}
+	obj, err := n.objectWith("at", "diameter")
 	if err != nil {
 		return h, err
 	}
@@ -272,22 +255,14 @@ func loadHole(n node) (Hole, error) {
 // a material not chosen yet.
 func loadSpec(n node, unit density.Length) (density.Spec, error) {
 	var s density.Spec
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("material", "thickness", "formula", "unit", "params", "custom")
-	}
+	obj, err := n.objectWith("material", "thickness", "formula", "unit", "params", "custom")
 	if err != nil {
 		return s, err
 	}
-	for _, f := range []struct {
-		key string
-		dst *string
-	}{{"material", &s.Material}, {"thickness", &s.Thickness}, {"formula", &s.Formula}, {"unit", &s.Unit}} {
-		if fn, ok := obj.get(f.key); ok {
-			if *f.dst, err = fn.str(); err != nil {
-				return s, err
-			}
-		}
+	err = obj.stringFields(field[string]{"material", &s.Material}, field[string]{"thickness", &s.Thickness},
+		field[string]{"formula", &s.Formula}, field[string]{"unit", &s.Unit})
+	if err != nil {
+		return s, err
 	}
 	if pn, ok := obj.get("params"); ok {
 		if s.Params, err = loadParams(pn); err != nil {
@@ -328,32 +303,17 @@ func loadParams(n node) (map[string]float64, error) {
 
 func loadMaterial(n node) (density.Material, error) {
 	var m density.Material
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("key", "name", "density", "areal", "approx", "gauge_system", "source")
-	}
+	obj, err := n.objectWith("key", "name", "density", "areal", "approx", "gauge_system", "source")
 	if err != nil {
 		return m, err
 	}
-	for _, f := range []struct {
-		key string
-		dst *string
-	}{{"key", &m.Key}, {"name", &m.Name}, {"gauge_system", &m.GaugeSystem}, {"source", &m.Source}} {
-		if fn, ok := obj.get(f.key); ok {
-			if *f.dst, err = fn.str(); err != nil {
-				return m, err
-			}
-		}
+	err = obj.stringFields(field[string]{"key", &m.Key}, field[string]{"name", &m.Name},
+		field[string]{"gauge_system", &m.GaugeSystem}, field[string]{"source", &m.Source})
+	if err == nil {
+		err = obj.boolFields(field[bool]{"approx", &m.Approx}, field[bool]{"areal", &m.Areal})
 	}
-	for _, f := range []struct {
-		key string
-		dst *bool
-	}{{"approx", &m.Approx}, {"areal", &m.Areal}} {
-		if fn, ok := obj.get(f.key); ok {
-			if *f.dst, err = fn.boolean(); err != nil {
-				return m, err
-			}
-		}
+	if err != nil {
+		return m, err
 	}
 	dn, err := obj.need("density")
 	if err != nil {
@@ -372,10 +332,7 @@ func loadMaterial(n node) (density.Material, error) {
 // started); a cut-out or an overlay needs at least one loop.
 func loadRegion(n node, mayBeEmpty bool) (geom.Region, error) {
 	var r geom.Region
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("rule", "loops")
-	}
+	obj, err := n.objectWith("rule", "loops")
 	if err != nil {
 		return r, err
 	}
@@ -437,10 +394,7 @@ func loadRule(n node) (geom.FillRule, error) {
 }
 
 func loadLoop(n node) (geom.Loop, error) {
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("segments")
-	}
+	obj, err := n.objectWith("segments")
 	if err != nil {
 		return nil, err
 	}
@@ -491,11 +445,8 @@ func loadSegment(n node) (geom.Segment, error) {
 }
 
 func loadArc(n node) (geom.Segment, error) {
-	obj, err := n.object()
-	if err == nil {
-		err = obj.only("center", "radius", "rx", "ry", "rotation_deg", "rotation_rad", "start_deg",
-			"start_rad", "sweep_deg", "sweep_rad", "from", "to")
-	}
+	obj, err := n.objectWith("center", "radius", "rx", "ry", "rotation_deg", "rotation_rad", "start_deg",
+		"start_rad", "sweep_deg", "sweep_rad", "from", "to")
 	if err != nil {
 		return geom.Segment{}, err
 	}
@@ -754,6 +705,15 @@ func (n node) object() (object, error) {
 	return object{node: n, m: m}, nil
 }
 
+// objectWith reads an object whose keys are all among known.
+func (n node) objectWith(known ...string) (object, error) {
+	obj, err := n.object()
+	if err == nil {
+		err = obj.only(known...)
+	}
+	return obj, err
+}
+
 // keys returns the object's keys in sorted order, so that errors come out the same every time.
 func (o object) keys() []string {
 	ks := make([]string, 0, len(o.m))
@@ -789,6 +749,33 @@ func quoteList(ks []string) string {
 func (o object) get(key string) (node, bool) {
 	n := o.child(key)
 	return n, n.v != nil
+}
+
+// field is an optional object member and where to store its value.
+type field[T any] struct {
+	key string
+	dst *T
+}
+
+// stringFields reads the optional string members fields.
+func (o object) stringFields(fields ...field[string]) error { return readFields(o, node.str, fields) }
+
+// boolFields reads the optional true-or-false members fields.
+func (o object) boolFields(fields ...field[bool]) error { return readFields(o, node.boolean, fields) }
+
+func readFields[T any](o object, read func(node) (T, error), fields []field[T]) error {
+	for _, f := range fields {
+		n, ok := o.get(f.key)
+		if !ok {
+			continue
+		}
+		v, err := read(n)
+		if err != nil {
+			return err
+		}
+		*f.dst = v
+	}
+	return nil
 }
 
 // need returns member key or a "missing" error at its path.
