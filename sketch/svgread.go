@@ -743,23 +743,14 @@ func (r *svgReader) build(d *Document, reading Reading) error {
 	tol := regionTol(box)
 	var err error
 	if reading == ReadFilled {
-		d.Outline, err = r.filled(tol)
-		d.Notes = fmt.Sprintf("Read from SVG as a filled drawing: the union of %d filled shapes.", r.filledCount())
+		var n int
+		d.Outline, n, err = r.filled(tol)
+		d.Notes = fmt.Sprintf("Read from SVG as a filled drawing: the union of %d filled shapes.", n)
 	} else {
 		d.Outline, err = r.cutFile(tol)
 		d.Notes = fmt.Sprintf("Read from SVG as a cut file: %d closed contours, nested even-odd.", len(d.Outline.Loops))
 	}
 	return err
-}
-
-func (r *svgReader) filledCount() int {
-	n := 0
-	for _, s := range r.shapes {
-		if s.fill {
-			n++
-		}
-	}
-	return n
 }
 
 // regionTol is the distance below which geom's region check takes two points as one (1e-9 of the
@@ -772,8 +763,9 @@ func regionTol(box geom.Rect) float64 {
 }
 
 // filled makes the painted region: each filled shape by its own fill rule (open contours closed by a
-// straight line, as filling does), and the union of them all.
-func (r *svgReader) filled(tol float64) (geom.Region, error) {
+// straight line, as filling does), and the union of them all. It also returns the number of shapes
+// that enclose area.
+func (r *svgReader) filled(tol float64) (geom.Region, int, error) {
 	var regions []geom.Region
 	strokedOnly := 0
 	for _, s := range r.shapes {
@@ -798,7 +790,7 @@ func (r *svgReader) filled(tol float64) (geom.Region, error) {
 				"would fill the whole page: remove it, or read the drawing as a cut file)", s.el)
 		}
 		if _, err := reg.Check(); err != nil {
-			return reg, loopError(s.el, err)
+			return reg, 0, loopError(s.el, err)
 		}
 		regions = append(regions, reg)
 	}
@@ -807,16 +799,13 @@ func (r *svgReader) filled(tol float64) (geom.Region, error) {
 	}
 	switch len(regions) {
 	case 0:
-		return geom.Region{}, &SVGError{Msg: "no filled shape encloses any area"}
+		return geom.Region{}, 0, &SVGError{Msg: "no filled shape encloses any area"}
 	case 1:
-		return regions[0], nil
+		return regions[0], 1, nil
 	}
 	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, regions...)
 	loops, err := chainLoops(union.Pieces, tol)
-	if err != nil {
-		return geom.Region{}, err
-	}
-	return geom.Region{Loops: loops}, nil
+	return geom.Region{Loops: loops}, len(regions), err
 }
 
 // fillable reports whether a loop can enclose area: not a single segment and its way back.
