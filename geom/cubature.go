@@ -4,6 +4,7 @@ import (
 	"container/heap"
 	"fmt"
 	"math"
+	"slices"
 )
 
 // Field is an areal density evaluated in batches: out[i] = ρ(xs[i], ys[i]). len(xs)==len(ys)==len(out).
@@ -77,6 +78,8 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	box := Loop(b.Pieces).Bounds()
 	cb := &cubature{f: f, c: box.Center(), base: box.Min.X - box.Center().X,
 		half: math.Max(box.Size().X, box.Size().Y) / 2}
+	const room = 2 * batchNodes // a batch plus one more piece's rules, usually
+	cb.xs, cb.ys, cb.us, cb.out = make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room)
 	return cb.run(b, tol, maxEvals)
 }
 
@@ -113,11 +116,25 @@ type cubature struct {
 	c           Point     // local origin (bounding-box centre)
 	base        float64   // ξ − c.X: the base line in local coordinates
 	half        float64   // L: half the larger side of the bounding box
-	xs, ys, out []float64 // density nodes and values
+	xs, ys, out []float64 // density nodes and values, for all queued jobs
 	us          []float64 // local abscissae of the nodes
 	vs, ws      []float64 // per outer node: local ordinate and weight W·y'·(panel length)
+	jobs        []gridJob // product rules queued for the next batch evaluation
 	evals       int
 }
+
+// gridJob is one product rule queued for evaluation: its orders and where its nodes and outer nodes
+// start in the buffers, and where its result goes.
+type gridJob struct {
+	no, ni, np  int
+	node, outer int
+	dst         *rawMoments
+}
+
+// batchNodes is the number of queued nodes at which initialPieces evaluates the density: batches of
+// some hundreds let compiled density formulas run without per-call overhead while the buffers stay
+// in the processor's cache.
+const batchNodes = 512
 
 // cubPiece is part of a boundary segment (in local coordinates) with its orders, its estimates lo at
 // (no, ni) and hi at (no+outerStep, innerHigher(ni)), all over np inner panels, and its priority.
@@ -179,33 +196,49 @@ func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
 // initialPieces returns the boundary's segments in local coordinates, arcs cut to at most 90°, each
 // with its first estimates. Horizontal lines and Béziers (dy ≡ 0) contribute nothing and are left out.
 func (c *cubature) initialPieces(b Boundary) (pieceHeap, error) {
-	store := make([]cubPiece, 0, len(b.Pieces))
+	count := 0
 	for _, s := range b.Pieces {
-		if s.isHorizontal() {
-			continue
-		}
+		count += c.pieceCount(s)
+	}
+	store := make([]cubPiece, 0, count) // never grows, so the queued jobs' pointers stay valid
+	for _, s := range b.Pieces {
+		k := c.pieceCount(s)
 		s = s.translated(c.c.Mul(-1))
-		k := 1
-		if s.Kind == KindArc {
-			k = quarterTurns(s.Sweep)
-		}
 		for i := range k {
 			p := cubPiece{s: s, ni: innerStart, np: 1}
 			if s.Kind == KindArc {
 				p.s = arcPiece(s, i, k)
 			}
 			p.no = outerOrder(p.s)
-			if err := c.estimate(&p); err != nil {
-				return nil, err
-			}
 			store = append(store, p)
+			c.queueEstimate(&store[len(store)-1])
+			if len(c.xs) >= batchNodes {
+				if err := c.flush(); err != nil {
+					return nil, err
+				}
+			}
 		}
+	}
+	if err := c.flush(); err != nil {
+		return nil, err
 	}
 	pieces := make(pieceHeap, len(store))
 	for i := range store {
 		pieces[i] = &store[i]
 	}
 	return pieces, nil
+}
+
+// pieceCount returns how many initial pieces s gives: none for a horizontal line or Bézier, one per
+// quarter turn of an arc, else one.
+func (c *cubature) pieceCount(s Segment) int {
+	switch {
+	case s.isHorizontal():
+		return 0
+	case s.Kind == KindArc:
+		return quarterTurns(s.Sweep)
+	}
+	return 1
 }
 
 // refine returns the refined replacement(s) of p, or nil if the work limit forbids it. A rule with
@@ -217,8 +250,9 @@ func (c *cubature) refine(p *cubPiece, scale rawMoments, maxEvals int) ([]*cubPi
 	if c.evals+midCost > maxEvals {
 		return nil, nil
 	}
-	mid, err := c.grid(p.s, p.no, innerHigher(p.ni), p.np)
-	if err != nil {
+	var mid rawMoments
+	c.queue(p.s, p.no, innerHigher(p.ni), p.np, &mid)
+	if err := c.flush(); err != nil {
 		return nil, err
 	}
 	outerErr := c.norm(absRaw(p.hi.add(mid.scale(-1))), scale)
@@ -251,11 +285,9 @@ func (c *cubature) refine(p *cubPiece, scale rawMoments, maxEvals int) ([]*cubPi
 		return nil, nil
 	}
 	for _, q := range next {
-		if err := c.estimate(q); err != nil {
-			return nil, err
-		}
+		c.queueEstimate(q)
 	}
-	return next, nil
+	return next, c.flush()
 }
 
 // scale returns each moment's natural scale M·L^k for the current total.
@@ -284,62 +316,81 @@ func sumPieces(pieces []*cubPiece) (total, errSum rawMoments) {
 	return total, errSum
 }
 
-// estimate computes p's two estimates.
-func (c *cubature) estimate(p *cubPiece) error {
-	var err error
-	if p.lo, err = c.grid(p.s, p.no, p.ni, p.np); err != nil {
-		return err
-	}
-	p.hi, err = c.grid(p.s, p.no+outerStep, innerHigher(p.ni), p.np)
-	return err
+// queueEstimate queues p's two estimates.
+func (c *cubature) queueEstimate(p *cubPiece) {
+	c.queue(p.s, p.no, p.ni, p.np, &p.lo)
+	c.queue(p.s, p.no+outerStep, innerHigher(p.ni), p.np, &p.hi)
 }
 
-// grid applies the product rule on s: outer order no along s, inner order ni on each of np equal
-// panels of the horizontal from the base line to the outer node. It evaluates the density once for all
-// nodes, then forms Σ_outer W·y'·Σ_inner w·ρ·{1, u, v, u², uv, v²}·(panel length).
-func (c *cubature) grid(s Segment, no, ni, np int) (rawMoments, error) {
+// queue adds the nodes of the product rule on s to the batch: outer order no along s, inner order ni on
+// each of np equal panels of the horizontal from the base line to the outer node. flush stores the
+// result in dst.
+func (c *cubature) queue(s Segment, no, ni, np int, dst *rawMoments) {
 	outer, inner := gaussLegendre(no), gaussLegendre(ni)
+	i, k0 := len(c.xs), len(c.vs)
+	c.jobs = append(c.jobs, gridJob{no: no, ni: ni, np: np, node: i, outer: k0, dst: dst})
 	n := no * ni * np
-	c.grow(n, no)
+	c.xs, c.ys, c.us = slices.Grow(c.xs, n)[:i+n], slices.Grow(c.ys, n)[:i+n], slices.Grow(c.us, n)[:i+n]
+	c.vs, c.ws = slices.Grow(c.vs, no)[:k0+no], slices.Grow(c.ws, no)[:k0+no]
+	xs, ys, us := c.xs[i:], c.ys[i:], c.us[i:]
 	e := s.evaluator()
-	i := 0
+	i = 0
 	for k, t := range outer.t {
 		x, y, dy := e.at(t)
 		span := (x - c.base) / float64(np)
-		c.vs[k], c.ws[k] = y, outer.w[k]*dy*span
+		c.vs[k0+k], c.ws[k0+k] = y, outer.w[k]*dy*span
 		for panel := range np {
 			left := c.base + span*float64(panel)
 			for _, tau := range inner.t {
 				u := left + span*tau
-				c.us[i], c.xs[i], c.ys[i] = u, c.c.X+u, c.c.Y+y
+				us[i], xs[i], ys[i] = u, c.c.X+u, c.c.Y+y
 				i++
 			}
 		}
 	}
+}
+
+// flush evaluates the density at every queued node in one batch and completes the queued jobs:
+// each gets Σ_outer W·y'·Σ_inner w·ρ·{1, u, v, u², uv, v²}·(panel length).
+func (c *cubature) flush() error {
+	n := len(c.xs)
+	if cap(c.out) < n {
+		c.out = make([]float64, n, cap(c.xs))
+	}
 	out := c.out[:n]
-	c.f.Eval(c.xs[:n], c.ys[:n], out)
+	c.f.Eval(c.xs, c.ys, out)
 	c.evals += n
 	for i, v := range out {
 		if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
-			return rawMoments{}, &DensityError{X: c.xs[i], Y: c.ys[i], Value: v}
+			return &DensityError{X: c.xs[i], Y: c.ys[i], Value: v}
 		}
 	}
+	for _, j := range c.jobs {
+		*j.dst = c.sumJob(j, out)
+	}
+	c.xs, c.ys, c.us, c.vs, c.ws, c.jobs = c.xs[:0], c.ys[:0], c.us[:0], c.vs[:0], c.ws[:0], c.jobs[:0]
+	return nil
+}
+
+// sumJob forms one job's weighted sums from the density values.
+func (c *cubature) sumJob(j gridJob, out []float64) rawMoments {
+	inner := gaussLegendre(j.ni)
 	var r rawMoments
-	i = 0
-	for k := range no {
+	i := j.node
+	for k := range j.no {
 		var m, su, suu float64
-		for range np {
-			for j := range ni {
-				u, f := c.us[i], inner.w[j]*out[i]
+		for range j.np {
+			for _, w := range inner.w {
+				u, f := c.us[i], w*out[i]
 				m, su, suu = m+f, su+f*u, suu+f*u*u
 				i++
 			}
 		}
-		w, v := c.ws[k], c.vs[k]
+		w, v := c.ws[j.outer+k], c.vs[j.outer+k]
 		m, su, suu = w*m, w*su, w*suu
 		r = r.add(rawMoments{m, su, m * v, suu, su * v, m * v * v})
 	}
-	return r, nil
+	return r
 }
 
 // isHorizontal reports whether s is a line or Bézier whose control points share one y.
@@ -353,16 +404,6 @@ func (s Segment) isHorizontal() bool {
 		}
 	}
 	return true
-}
-
-// grow makes the buffers hold at least n nodes and no outer nodes.
-func (c *cubature) grow(n, no int) {
-	if len(c.xs) < n {
-		c.xs, c.ys, c.us, c.out = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
-	}
-	if len(c.vs) < no {
-		c.vs, c.ws = make([]float64, no), make([]float64, no)
-	}
 }
 
 // pieceHeap is a max-heap of pieces by priority.
