@@ -2,6 +2,7 @@ package edit
 
 import (
 	"fmt"
+	"math"
 
 	"plumb/density"
 	"plumb/geom"
@@ -212,7 +213,10 @@ func (e *Editor) Cursor() Snap { return e.snap }
 // Fit sets the view to show the whole part inside the canvas, clear of the insets.
 func (e *Editor) Fit() {
 	in := e.Insets
-	e.View.Fit(docBounds(e.doc), e.width-in.Left-in.Right, e.height-in.Top-in.Bottom, marginPixels*e.PixelRatio)
+	w, h := e.width-in.Left-in.Right, e.height-in.Top-in.Bottom
+	// A small screen keeps a narrower margin: a tenth of the free space at most.
+	margin := math.Min(marginPixels*e.PixelRatio, 0.1*math.Min(w, h))
+	e.View.Fit(docBounds(e.doc), w, h, margin)
 	e.View.Pan(geom.Pt(in.Left, in.Top))
 }
 

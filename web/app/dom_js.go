@@ -39,11 +39,11 @@ func pageInsets(dpr float64) (in edit.Insets) {
 			continue
 		}
 		switch {
-		case top > h/2: // docked along the bottom (narrow screens)
-			in.Bottom = max(in.Bottom, (h-top)*dpr)
 		case left > w/2: // along the right
 			in.Right = max(in.Right, (w-left)*dpr)
-		case bottom < h/3: // a bar along the top
+		case bottom >= h-4 && top > h/4: // docked along the bottom, on narrow screens
+			in.Bottom = max(in.Bottom, (h-top)*dpr)
+		case top < h/4: // a bar along the top
 			in.Top = max(in.Top, bottom*dpr)
 		}
 	}

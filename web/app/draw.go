@@ -7,6 +7,7 @@ import (
 	"image/color"
 	"math"
 	"strconv"
+	"strings"
 
 	"github.com/hajimehoshi/ebiten/v2"
 	"github.com/hajimehoshi/ebiten/v2/text/v2"
@@ -256,7 +257,8 @@ func (fr *frame) plumbLine() {
 	if !h.Hanging.IsEmpty() {
 		bottom = math.Max(bottom, fr.screen(h.Hanging.Bounds().Min).Y)
 	}
-	end := geom.Pt(top.X, math.Max(bottom, top.Y)+28*fr.u)
+	// Below the part, but above the ruler and the status line.
+	end := geom.Pt(top.X, math.Min(math.Max(bottom, top.Y)+28*fr.u, fr.baseline()-30*fr.u))
 	fr.p.dashed([]geom.Point{top, end}, 1.3*fr.u, 7*fr.u, 4*fr.u, colPlumb)
 	// The bob: a small cone hanging from the line.
 	var bob vector.Path
@@ -523,7 +525,7 @@ func (fr *frame) snap() {
 	}
 	label := s.Kind.String()
 	if s.Kind == edit.SnapAlign {
-		label = map[[2]bool]string{{true, false}: "level", {false, true}: "plumb", {true, true}: "level, plumb"}[[2]bool{s.H, s.V}]
+		label = map[[2]bool]string{{true, false}: "horizontal", {false, true}: "vertical", {true, true}: "horizontal, vertical"}[[2]bool{s.H, s.V}]
 	}
 	if s.Kind != edit.SnapGrid {
 		drawText(fr.p.dst, label, fr.f.small, at.X+9*fr.u, at.Y-9*fr.u, alignLeftBottom, colSnap)
@@ -579,12 +581,15 @@ func snapZero(v float64) float64 {
 	return v
 }
 
-// scaleBar draws a bar of a round length, in alternating ink and white quarters.
+// scaleBar draws a bar of a round length, in alternating ink and white quarters, at the bottom right
+// of the canvas clear of the panel.
 func (fr *frame) scaleBar() {
 	u := fr.u
 	length := fr.v.GridStep(90 * u)
 	px := length * fr.v.Scale
-	x0, y0 := rulerLeft*u+14*u, fr.h-rulerBottom*u-16*u
+	label := num(length) + " " + fr.doc.Units
+	lw, _ := textSize(label, fr.f.small)
+	x0, y0 := fr.w-fr.g.page.Right-px-lw-28*u, fr.baseline()-4*u
 	hgt := 6 * u
 	fr.p.rect(x0-u, y0-u, px+2*u, hgt+2*u, colInk)
 	for i := range 4 {
@@ -594,7 +599,7 @@ func (fr *frame) scaleBar() {
 		}
 		fr.p.rect(x0+px*float64(i)/4, y0, px/4, hgt, clr)
 	}
-	drawText(fr.p.dst, num(length)+" "+fr.doc.Units, fr.f.small, x0+px+8*u, y0+hgt/2, alignLeftMiddle, colInk)
+	drawText(fr.p.dst, label, fr.f.small, x0+px+8*u, y0+hgt/2, alignLeftMiddle, colInk)
 }
 
 // toolHints describe each tool in a line at the bottom of the canvas.
@@ -616,7 +621,7 @@ var targetWords = map[edit.Target]string{
 func (fr *frame) status() {
 	ed := fr.g.ed
 	u := fr.u
-	x, y := rulerLeft*u+14*u, fr.h-rulerBottom*u-38*u
+	x, y := rulerLeft*u+10*u, fr.baseline()
 	hint := toolHints[ed.Tool()]
 	switch ed.Tool() {
 	case edit.ToolOutline, edit.ToolRect, edit.ToolCircle, edit.ToolSlot:
@@ -626,6 +631,14 @@ func (fr *frame) status() {
 		}
 	case edit.ToolHole:
 		hint = "Ø " + num(ed.HoleDiameter()) + " " + fr.doc.Units + " · " + hint
+	}
+	if r := ed.CornerRadius(); ed.Tool() == edit.ToolRect && r > 0 {
+		hint = "Corners r " + num(r) + " " + fr.doc.Units + " · " + hint
+	}
+	// On a narrow canvas keep only the first clause of the hint, clear of the scale bar and panel.
+	room := fr.w - fr.g.page.Right - x - 200*u
+	if w, _ := textSize(hint, fr.f.small); w > room {
+		hint = fitClauses(hint, fr.f.small, room)
 	}
 	fr.pill(hint, fr.f.small, x, y, alignLeftMiddle, colInkSoft)
 	if t := ed.Typed(); t != "" {
@@ -638,6 +651,25 @@ func (fr *frame) status() {
 	}
 }
 
+// baseline is the height of the status line: above the bottom ruler and any panel docked below.
+func (fr *frame) baseline() float64 {
+	return fr.h - math.Max(rulerBottom*fr.u, fr.g.page.Bottom) - 14*fr.u
+}
+
+// fitClauses returns the leading " · "-separated clauses of s that fit in width, at least one.
+func fitClauses(s string, face text.Face, width float64) string {
+	parts := strings.Split(s, " · ")
+	out := parts[0]
+	for _, p := range parts[1:] {
+		next := out + " · " + p
+		if w, _ := textSize(next, face); w > width {
+			break
+		}
+		out = next
+	}
+	return out
+}
+
 // emptyHint invites a first shape when the part has no outline.
 func (fr *frame) emptyHint() {
 	if len(fr.doc.Outline.Loops) > 0 {
@@ -647,7 +679,8 @@ func (fr *frame) emptyHint() {
 		return
 	}
 	u := fr.u
-	cx, cy := fr.w/2-(fr.g.ed.Insets.Right-fr.g.ed.Insets.Left)/2, fr.h/2
+	in := fr.g.ed.Insets
+	cx, cy := in.Left+(fr.w-in.Left-in.Right)/2, in.Top+(fr.h-in.Top-in.Bottom)/2
 	drawText(fr.p.dst, "Draw the part's outline", fr.f.strong, cx, cy-12*u, alignCentreMiddle, colInk)
 	drawText(fr.p.dst, "O outline · R rectangle · C circle · L slot — or drop a part (.json) or drawing (.svg) here",
 		fr.f.label, cx, cy+12*u, alignCentreMiddle, colInkSoft)

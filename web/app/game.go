@@ -24,7 +24,8 @@ type Game struct {
 	w, h    int     // canvas size in device pixels
 	in      inputState
 	fonts   fonts
-	needFit bool // fit the part once the canvas has a size
+	needFit bool        // fit the part once the canvas has a size
+	page    edit.Insets // canvas edges the page's toolbar and panel cover, device pixels
 
 	ready     bool // window.plumbUI.ready has been called
 	toldState uiState
@@ -47,13 +48,18 @@ func newGame() *Game {
 	return g
 }
 
-// refresh reanalyses the part if it changed since the last analysis, and looks for the level hole
-// once nothing is being dragged.
+// refresh reanalyses the part if it changed since the last analysis.
 func (g *Game) refresh() {
 	if g.res.rev != g.ed.Rev() {
 		g.res = analyse(g.ed.Document(), g.ed.Rev())
 		g.ed.SetGuides(g.guides())
 	}
+}
+
+// refreshLevel looks for the level hole once nothing is being dragged. It takes several analyses, so
+// Update runs it on the frame after a change, never inside a call from the page (typing in the
+// panel's fields stays quick).
+func (g *Game) refreshLevel() {
 	if (!g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter()) && !g.ed.Dragging() {
 		g.res.findLevel(g.ed.HoleDiameter())
 		g.ed.SetGuides(g.guides())
@@ -93,11 +99,13 @@ func (g *Game) Update() error {
 		callPage("ready")
 	}
 	g.mu.Lock()
+	g.page = pageInsets(g.dpr)
 	g.handleInput()
 	if g.needFit && g.w > 0 {
 		g.fit()
 	}
 	g.refresh()
+	g.refreshLevel()
 	state, part, tell := g.pending()
 	g.mu.Unlock()
 
@@ -110,7 +118,10 @@ func (g *Game) Update() error {
 // fit shows the whole part clear of the page's panel and toolbar.
 func (g *Game) fit() {
 	g.needFit = false
-	in := pageInsets(g.dpr)
+	in := g.page
+	// The rulers, and the status line above the bottom one, are ours to keep clear as well.
+	in.Left += rulerLeft * g.dpr
+	in.Bottom += (rulerBottom + 24) * g.dpr
 	g.ed.Insets = in
 	g.ed.Fit()
 }

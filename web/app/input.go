@@ -50,15 +50,14 @@ func currentMods() edit.Mods {
 // handleInput forwards this frame's input to the editor.
 func (g *Game) handleInput() {
 	mods := currentMods()
-	if g.handleTouches(mods) {
-		return
+	if !g.handleTouches(mods) {
+		x, y := ebiten.CursorPosition()
+		cur := geom.Pt(float64(x), float64(y))
+		if _, dy := ebiten.Wheel(); dy != 0 {
+			g.ed.View.Wheel(cur, dy)
+		}
+		g.handleMouse(cur, mods)
 	}
-	x, y := ebiten.CursorPosition()
-	cur := geom.Pt(float64(x), float64(y))
-	if _, dy := ebiten.Wheel(); dy != 0 {
-		g.ed.View.Wheel(cur, dy)
-	}
-	g.handleMouse(cur, mods)
 	if !inputFocused() {
 		g.handleKeys(mods)
 	}
