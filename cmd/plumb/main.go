@@ -44,6 +44,8 @@ func commands() []command {
 		{"analyze", "mass, weight, balance point and second moments of parts (.json, .svg, directories)", runAnalyze},
 		{"hang", "how a part hangs from a hole, where to drill a level hole, loads on two chains", runHang},
 		{"convert", "SVG drawing to part file (.json); part file to a 1:1 SVG drawing", runConvert},
+		{"template", "a full-size (1:1) drilling template as PDF, tiled over pages", runTemplate},
+		{"report", "a one-page part report as PDF or Markdown", runReport},
 		{"materials", "the sheet materials and gauges, with their sources", runMaterials},
 		{"version", "print the version", runVersion},
 		{"help", "help on plumb or one command", runHelp},
