@@ -47,7 +47,7 @@ const DefaultSVGMaxBytes = 16 << 20
 // SVGOptions control ReadSVG.
 type SVGOptions struct {
 	Reading  Reading
-	Name     string // the part's name
+	Name     string // the part's name; when empty, the drawing's title
 	MaxBytes int    // larger files are refused; 0 means DefaultSVGMaxBytes
 }
 
@@ -120,11 +120,21 @@ func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
 		return nil, nil, err
 	}
 	d := NewDocument()
-	d.Name = opt.Name
+	d.Name = cmp.Or(opt.Name, rootTitle(root))
 	if err := r.build(d, opt.Reading); err != nil {
 		return nil, nil, err
 	}
 	return d, r.warningList(), nil
+}
+
+// rootTitle returns the drawing's title: the text of a title element directly in the root.
+func rootTitle(root *element) string {
+	for _, k := range root.kids {
+		if k.name == "title" && k.svg {
+			return strings.Join(strings.Fields(k.text), " ")
+		}
+	}
+	return ""
 }
 
 // gunzip unpacks a gzip-compressed drawing (an .svgz file), refusing one that unpacks to more than
@@ -153,7 +163,7 @@ type element struct {
 	attrs map[string]string // attributes in no namespace, and xlink:href as "href"
 	kids  []*element
 	index int    // position in document order, from 1
-	text  string // character data, kept for style elements
+	text  string // character data, kept for style and title elements
 }
 
 // String names e for messages: its name, its id and its position, as in "path#bracket (element 4)".
@@ -209,8 +219,8 @@ func parseXML(data []byte) (*element, error) {
 		case xml.EndElement:
 			stack = stack[:len(stack)-1]
 		case xml.CharData:
-			if len(stack) > 0 && stack[len(stack)-1].name == "style" {
-				stack[len(stack)-1].text += string(t)
+			if top := len(stack) - 1; top >= 0 && (stack[top].name == "style" || stack[top].name == "title") {
+				stack[top].text += string(t)
 			}
 		}
 	}

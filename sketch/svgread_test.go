@@ -471,6 +471,21 @@ func TestReadSVGEncodings(t *testing.T) {
 	}
 }
 
+func TestReadSVGName(t *testing.T) {
+	svg := mmSVG(`<title>
+	  Shelf bracket
+	  SB-200 </title><rect width="10" height="10"/>`)
+	for _, tt := range []struct{ opt, want string }{{"", "Shelf bracket SB-200"}, {"bracket.svg", "bracket.svg"}} {
+		d, _, err := ReadSVG([]byte(svg), SVGOptions{Name: tt.opt})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if d.Name != tt.want {
+			t.Errorf("name %q, want %q", d.Name, tt.want)
+		}
+	}
+}
+
 func TestReadSVGSwitch(t *testing.T) {
 	svg := mmSVG(`<switch><foreignObject requiredExtensions="http://example.com/private"><p/></foreignObject>` +
 		`<g requiredFeatures="x"><rect width="50" height="50"/></g><g><rect width="10" height="10"/></g>` +
