@@ -59,24 +59,45 @@ func TestIntegrateMatchesIntegratePoly(t *testing.T) {
 	}
 }
 
+// testDensities are non-polynomial densities, positive everywhere.
+var testDensities = []struct {
+	name string
+	f    func(x, y float64) float64
+}{
+	{"exp·(2+sin)", func(x, y float64) float64 { return math.Exp(0.3*x) * (2 + math.Sin(1.5*y)) }},
+	{"1+sin·cos", func(x, y float64) float64 { return 1 + 0.5*math.Sin(x)*math.Cos(2*y) }},
+	{"1/(1+r²)", func(x, y float64) float64 { return 1 / (1 + x*x + y*y) }},
+}
+
 // TestIntegrateAgainstNestedQuadrature compares non-polynomial densities with gonum's nested
 // Gauss–Legendre quadrature over regions between two curves.
 func TestIntegrateAgainstNestedQuadrature(t *testing.T) {
-	densities := []struct {
-		name string
-		f    func(x, y float64) float64
-	}{
-		{"exp·(2+sin)", func(x, y float64) float64 { return math.Exp(0.3*x) * (2 + math.Sin(1.5*y)) }},
-		{"1+sin·cos", func(x, y float64) float64 { return 1 + 0.5*math.Sin(x)*math.Cos(2*y) }},
-		{"1/(1+r²)", func(x, y float64) float64 { return 1 / (1 + x*x + y*y) }},
-	}
 	for _, r := range betweenCurvesRegions() {
-		for _, d := range densities {
+		for _, d := range testDensities {
 			got := mustIntegrate(t, r.b, funcField(d.f), Options{})
-			want := nestedMoments(r, d.f, 60)
+			want := nestedMoments(r.cover, d.f, 60)
 			if !rawNearScaled(got.local.shift(got.ref), want, 1e-10, 3) {
 				t.Errorf("%s, %s: %+v, want %+v", r.name, d.name, got.origin(), want)
 			}
+		}
+	}
+}
+
+// TestIntegrateClosedFormShapesNonPolynomial integrates the non-polynomial densities over the
+// closed-form shapes and compares with gonum's nested quadrature over each shape's parameterization
+// (polar where the shape is round, so that the reference integrands are smooth).
+func TestIntegrateClosedFormShapesNonPolynomial(t *testing.T) {
+	for _, f := range closedFormShapes() {
+		for _, d := range testDensities {
+			got := mustIntegrate(t, f.b, funcField(d.f), Options{})
+			want := nestedMoments(f.cover, d.f, 40)
+			if !rawNearScaled(got.origin(), want, 1e-10, 3) {
+				t.Errorf("%s, %s: %+v, want %+v", f.name, d.name, got.origin(), want)
+			}
+		}
+		// The covers themselves reproduce the shape's area.
+		if a := nestedMoments(f.cover, func(x, y float64) float64 { return 1 }, 40).m; !near(a, f.b.IntegratePoly(ConstPoly(1)).M, 1e-13, 0) {
+			t.Errorf("%s: cover area %v", f.name, a)
 		}
 	}
 }

@@ -5,12 +5,35 @@ import (
 )
 
 // shapeFixture is a region with closed-form moments. Each check compares one derived quantity with
-// its published value.
+// its published value; cover parameterizes the region for nested 1-D quadrature.
 type shapeFixture struct {
 	name   string
 	b      Boundary
 	checks []momentCheck
+	cover  cover
 }
+
+// cover parameterizes a region for nested quadrature: (s, t) ↦ (x, y) with Jacobian jac, for s in
+// [s0, s1] and t in [lo(s), hi(s)].
+type cover struct {
+	s0, s1 float64
+	lo, hi func(s float64) float64
+	at     func(s, t float64) (x, y, jac float64)
+}
+
+// polarCover covers θ0 ≤ θ ≤ θ1, lo(θ) ≤ r ≤ hi(θ) in polar coordinates.
+func polarCover(th0, th1 float64, lo, hi func(float64) float64) cover {
+	return cover{th0, th1, lo, hi, func(th, r float64) (float64, float64, float64) {
+		return r * math.Cos(th), r * math.Sin(th), r
+	}}
+}
+
+// graphCover covers x0 ≤ x ≤ x1, lo(x) ≤ y ≤ hi(x).
+func graphCover(x0, x1 float64, lo, hi func(float64) float64) cover {
+	return cover{x0, x1, lo, hi, func(x, y float64) (float64, float64, float64) { return x, y, 1 }}
+}
+
+func constant(c float64) func(float64) float64 { return func(float64) float64 { return c } }
 
 type momentCheck struct {
 	name string
@@ -82,6 +105,7 @@ func closedFormShapes() []shapeFixture {
 			bnd(Loop{Line(Pt(-r, 0), Pt(r, 0)), Arc(Pt(0, 0), r, 0, pi)}),
 			[]momentCheck{area(pi * r * r / 2), centroidX(0), centroidY(4 * r / (3 * pi)),
 				ixOrigin(pi * math.Pow(r, 4) / 8), ixCentral((pi/8 - 8/(9*pi)) * math.Pow(r, 4))},
+			polarCover(0, pi, constant(0), constant(r)),
 		},
 		{
 			// Quarter circle in the first quadrant: A = πr²/4, x̄ = ȳ = 4r/(3π), Ix = Iy = πr⁴/16,
@@ -90,6 +114,7 @@ func closedFormShapes() []shapeFixture {
 			bnd(Loop{Line(Pt(0, 0), Pt(r, 0)), quarterArc(Pt(0, 0), r, 0), Line(Pt(0, r), Pt(0, 0))}),
 			[]momentCheck{area(pi * r * r / 4), centroidX(4 * r / (3 * pi)), centroidY(4 * r / (3 * pi)),
 				ixOrigin(pi * math.Pow(r, 4) / 16), iyOrigin(pi * math.Pow(r, 4) / 16), ixyOrigin(math.Pow(r, 4) / 8)},
+			polarCover(0, pi/2, constant(0), constant(r)),
 		},
 		{
 			// Circular sector, half-angle α, apex at the origin, symmetric about x: A = αr²,
@@ -100,6 +125,7 @@ func closedFormShapes() []shapeFixture {
 			[]momentCheck{area(alpha * r * r), centroidX(2 * r * sa / (3 * alpha)), centroidY(0),
 				ixOrigin(math.Pow(r, 4) * (2*alpha - math.Sin(2*alpha)) / 8),
 				iyOrigin(math.Pow(r, 4) * (2*alpha + math.Sin(2*alpha)) / 8)},
+			polarCover(-alpha, alpha, constant(0), constant(r)),
 		},
 		{
 			// Circular segment, half-angle β: A = r²(2β − sin 2β)/2, x̄ = 4r sin³β/(3(2β − sin 2β)).
@@ -107,6 +133,7 @@ func closedFormShapes() []shapeFixture {
 			bnd(Loop{Arc(Pt(0, 0), r, -beta, 2*beta), Line(Pt(r*cb, r*sb), Pt(r*cb, -r*sb))}),
 			[]momentCheck{area(r * r * (2*beta - math.Sin(2*beta)) / 2),
 				centroidX(4 * r * sb * sb * sb / (3 * (2*beta - math.Sin(2*beta)))), centroidY(0)},
+			polarCover(-beta, beta, func(th float64) float64 { return r * cb / math.Cos(th) }, constant(r)),
 		},
 		{
 			// Triangle (0,0), (b,0), (c,h): A = bh/2, centroid ((b+c)/3, h/3), centroidal Ix = bh³/36,
@@ -116,6 +143,8 @@ func closedFormShapes() []shapeFixture {
 			[]momentCheck{area(tb * th / 2), centroidX((tb + tc) / 3), centroidY(th / 3),
 				ixCentral(tb * th * th * th / 36), iyCentral(tb * th * (tb*tb - tb*tc + tc*tc) / 36),
 				ixyCentral(tb * th * th * (2*tc - tb) / 72)},
+			cover{0, th, func(y float64) float64 { return tc * y / th }, func(y float64) float64 { return tb + (tc-tb)*y/th },
+				func(y, x float64) (float64, float64, float64) { return x, y, 1 }},
 		},
 		{
 			// Spandrel under y = h x²/b², 0 ≤ x ≤ b: A = bh/3, centroid (3b/4, 3h/10), Ix = bh³/21,
@@ -124,6 +153,7 @@ func closedFormShapes() []shapeFixture {
 			bnd(Loop{Line(Pt(0, 0), Pt(sw, 0)), Line(Pt(sw, 0), Pt(sw, sh)), Quad(Pt(sw, sh), Pt(sw/2, 0), Pt(0, 0))}),
 			[]momentCheck{area(sw * sh / 3), centroidX(3 * sw / 4), centroidY(3 * sh / 10),
 				ixOrigin(sw * sh * sh * sh / 21), iyOrigin(sw * sw * sw * sh / 5)},
+			graphCover(0, sw, constant(0), func(x float64) float64 { return sh * x * x / (sw * sw) }),
 		},
 		{
 			// Quarter ellipse, semi-axes a (x) and b (y): A = πab/4, centroid (4a/(3π), 4b/(3π)),
@@ -132,6 +162,9 @@ func closedFormShapes() []shapeFixture {
 			bnd(Loop{Line(Pt(0, 0), Pt(ea, 0)), EllipticalArc(Pt(0, 0), ea, eb, 0, 0, pi/2), Line(Pt(0, eb), Pt(0, 0))}),
 			[]momentCheck{area(pi * ea * eb / 4), centroidX(4 * ea / (3 * pi)), centroidY(4 * eb / (3 * pi)),
 				ixOrigin(pi * ea * eb * eb * eb / 16)},
+			cover{0, pi / 2, constant(0), constant(1), func(th, rho float64) (float64, float64, float64) {
+				return ea * rho * math.Cos(th), eb * rho * math.Sin(th), ea * eb * rho
+			}},
 		},
 		{
 			// Annular sector R1..R2, half-angle α: A = α(R2² − R1²),
@@ -141,6 +174,7 @@ func closedFormShapes() []shapeFixture {
 				Line(Pt(r2*cg, r2*sg), Pt(r1*cg, r1*sg)), Arc(Pt(0, 0), r1, ga, -2*ga)}),
 			[]momentCheck{area(ga * (r2*r2 - r1*r1)),
 				centroidX(2 * sg * (r2*r2*r2 - r1*r1*r1) / (3 * ga * (r2*r2 - r1*r1))), centroidY(0)},
+			polarCover(-ga, ga, constant(r1), constant(r2)),
 		},
 	}
 }

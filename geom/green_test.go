@@ -221,13 +221,12 @@ func rawNear(a, b rawMoments, rel float64) bool {
 		near(a.sxx, b.sxx, rel, 0) && near(a.sxy, b.sxy, rel, 0) && near(a.syy, b.syy, rel, 0)
 }
 
-// betweenCurves is a region {a ≤ x ≤ b, lo(x) ≤ y ≤ hi(x)} given both as a Boundary and as functions
-// for nested 1-D quadrature.
+// betweenCurves is a region {x0 ≤ x ≤ x1, lo(x) ≤ y ≤ hi(x)} given both as a Boundary and as a
+// cover for nested 1-D quadrature.
 type betweenCurves struct {
-	name   string
-	b      Boundary
-	x0, x1 float64
-	lo, hi func(x float64) float64
+	name  string
+	b     Boundary
+	cover cover
 }
 
 // betweenCurvesRegions: under a cubic graph above a parabola; and under an elliptical arc above a line.
@@ -246,9 +245,9 @@ func betweenCurvesRegions() []betweenCurves {
 	arc := EllipticalArc(Pt(0, 3), a, bb, 0, th0, math.Pi-2*th0)
 	b2 := Boundary{Pieces: []Segment{Line(Pt(-1.6, 0), Pt(1.6, 0)), Line(Pt(1.6, 0), arc.Start()), arc, Line(arc.End(), Pt(-1.6, 0))}}
 	return []betweenCurves{
-		{"cubic over parabola", b1, -1, 2, func(x float64) float64 { return 0.25*x*x - 1 }, cub},
-		{"elliptical arc over line", b2, -1.6, 1.6, func(float64) float64 { return 0 },
-			func(x float64) float64 { return 3 + bb*math.Sqrt(1-x*x/(a*a)) }},
+		{"cubic over parabola", b1, graphCover(-1, 2, func(x float64) float64 { return 0.25*x*x - 1 }, cub)},
+		{"elliptical arc over line", b2, graphCover(-1.6, 1.6, constant(0),
+			func(x float64) float64 { return 3 + bb*math.Sqrt(1-x*x/(a*a)) })},
 	}
 }
 
@@ -263,9 +262,9 @@ func graphCubic(f func(float64) float64, x0, x1 float64) Segment {
 	return Cubic(Pt(x(0), f0), Pt(x(1.0/3), c1), Pt(x(2.0/3), c2), Pt(x(1), f3))
 }
 
-// nestedMoments integrates ρ·{1, x, y, x², xy, y²} over a betweenCurves region with gonum's
-// fixed-order Gauss–Legendre in y inside Gauss–Legendre in x (the reference computation).
-func nestedMoments(r betweenCurves, rho func(x, y float64) float64, n int) rawMoments {
+// nestedMoments integrates ρ·{1, x, y, x², xy, y²} over a cover with gonum's fixed-order
+// Gauss–Legendre rule in t inside the same rule in s (the reference computation).
+func nestedMoments(c cover, rho func(x, y float64) float64, n int) rawMoments {
 	weights := [6]func(x, y float64) float64{
 		func(x, y float64) float64 { return 1 }, func(x, y float64) float64 { return x },
 		func(x, y float64) float64 { return y }, func(x, y float64) float64 { return x * x },
@@ -273,9 +272,12 @@ func nestedMoments(r betweenCurves, rho func(x, y float64) float64, n int) rawMo
 	}
 	var out [6]float64
 	for k, w := range weights {
-		out[k] = quad.Fixed(func(x float64) float64 {
-			return quad.Fixed(func(y float64) float64 { return rho(x, y) * w(x, y) }, r.lo(x), r.hi(x), n, quad.Legendre{}, 0)
-		}, r.x0, r.x1, n, quad.Legendre{}, 0)
+		out[k] = quad.Fixed(func(s float64) float64 {
+			return quad.Fixed(func(t float64) float64 {
+				x, y, jac := c.at(s, t)
+				return rho(x, y) * w(x, y) * jac
+			}, c.lo(s), c.hi(s), n, quad.Legendre{}, 0)
+		}, c.s0, c.s1, n, quad.Legendre{}, 0)
 	}
 	return rawMoments{out[0], out[1], out[2], out[3], out[4], out[5]}
 }
@@ -292,7 +294,7 @@ func TestIntegratePolyAgainstNestedQuadrature(t *testing.T) {
 	}
 	for _, r := range betweenCurvesRegions() {
 		got := r.b.IntegratePoly(p).origin()
-		want := nestedMoments(r, rho, 60)
+		want := nestedMoments(r.cover, rho, 60)
 		if !rawNear(got, want, 1e-12) {
 			t.Errorf("%s: %+v, want %+v", r.name, got, want)
 		}
