@@ -20,7 +20,9 @@ import (
 type Reading uint8
 
 const (
-	// ReadAuto reads a drawing with no filled shape as a cut file, and any other as a filled drawing.
+	// ReadAuto reads a drawing as a cut file when no shape is filled, or when every shape is stroked
+	// and some are not filled (cut lines whose fill was left at SVG's default black); any other
+	// drawing is read as a filled drawing.
 	ReadAuto Reading = iota
 	// ReadFilled takes the part to be the painted region: the union of the filled shapes, each by its
 	// own fill-rule. Shapes that are only stroked are left out.
@@ -737,10 +739,7 @@ func (r *svgReader) build(d *Document, reading Reading) error {
 		return &SVGError{Msg: "no visible shapes in the drawing"}
 	}
 	if reading == ReadAuto {
-		reading = ReadCutFile
-		if slices.ContainsFunc(r.shapes, func(s shape) bool { return s.fill }) {
-			reading = ReadFilled
-		}
+		reading = r.chooseReading()
 	}
 	box := geom.EmptyRect()
 	for _, s := range r.shapes {
@@ -761,6 +760,17 @@ func (r *svgReader) build(d *Document, reading Reading) error {
 		d.Notes = fmt.Sprintf("Read from SVG as a cut file: %d closed contours, nested even-odd.", len(d.Outline.Loops))
 	}
 	return err
+}
+
+// chooseReading picks the reading ReadAuto describes.
+func (r *svgReader) chooseReading() Reading {
+	filled := slices.ContainsFunc(r.shapes, func(s shape) bool { return s.fill })
+	unfilled := slices.ContainsFunc(r.shapes, func(s shape) bool { return !s.fill })
+	allStroked := !slices.ContainsFunc(r.shapes, func(s shape) bool { return !s.stroke })
+	if !filled || allStroked && unfilled {
+		return ReadCutFile
+	}
+	return ReadFilled
 }
 
 // regionTol is the distance below which geom's region check takes two points as one (1e-9 of the

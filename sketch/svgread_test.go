@@ -166,14 +166,18 @@ func TestReadSVGReadings(t *testing.T) {
 		{"nonzero, same direction", strings.Replace(nested, "%s", "", 1), ReadAuto, 100, "filled drawing"},
 		{"nonzero, opposite directions", nestedReversed, ReadAuto, 64, "filled drawing"},
 		{"cut file chosen for unfilled strokes", cut, ReadAuto, 6000 - 400*math.Pi + 100, "cut file"},
+		{"cut file with fills left at the default", `<g stroke="#000"><rect fill="none" width="100" height="60"/>` +
+			`<circle cx="50" cy="30" r="20"/></g>`, ReadAuto, 6000 - 400*math.Pi, "cut file"},
+		{"stroked and filled drawing", `<g stroke="#000"><rect width="100" height="60"/>` +
+			`<circle cx="50" cy="30" r="20"/></g>`, ReadAuto, 6000, "filled drawing"},
 		{"cut file forced on a filled drawing", strings.Replace(nested, "%s", "", 1), ReadCutFile, 64, "cut file"},
 		{"style sheet classes", `<style>/* cut lines */ .cut { fill: none; stroke: red } rect.big{stroke-width:1}</style>` +
 			`<rect class="cut" width="10" height="10"/><rect class="cut big" x="2" y="2" width="6" height="6"/>`,
 			ReadAuto, 64, "cut file"},
 		{"style attribute beats presentation attribute", `<rect fill="#000" style="fill:none;stroke:#000" width="10" height="10"/>` +
 			`<rect fill="none" stroke="#000" x="2" y="2" width="6" height="6"/>`, ReadAuto, 64, "cut file"},
-		{"id rule beats class rule", `<style>#a{fill:black} .c{fill:none}</style><rect id="a" class="c" stroke="#000" width="10" height="10"/>` +
-			`<rect class="c" stroke="#000" x="2" y="2" width="6" height="6"/>`, ReadAuto, 100, "filled drawing"},
+		{"id rule beats class rule", `<style>#a{fill:black} .c{fill:none}</style><rect id="a" class="c" width="10" height="10"/>` +
+			`<rect class="c" x="20" y="2" width="6" height="6"/>`, ReadAuto, 100, "filled drawing"},
 		{"hidden shapes skipped", `<rect width="10" height="10"/><rect display="none" x="50" width="10" height="10"/>` +
 			`<g style="visibility:hidden"><rect x="80" width="10" height="10"/></g>`, ReadAuto, 100, "filled drawing"},
 		{"fill inherit", `<g fill="none" stroke="blue"><rect fill="inherit" width="10" height="10"/></g>`, ReadAuto, 100, "cut file"},
