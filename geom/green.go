@@ -100,12 +100,17 @@ func (s Segment) translated(d Point) Segment {
 type greenSums struct {
 	deg    int
 	sums   []float64 // by PolyIndex(a, b)
-	up, vp []float64 // powers of the current node's coordinates
+	up, vp []float64 // powers of one point's coordinates (fanCorrection)
+	// Per-node buffers of rule, maxGLOrder long.
+	nodeU, nodeV, row, term []float64
 }
 
 func newGreenSums(deg int) *greenSums {
+	buf := make([]float64, 4*maxGLOrder)
 	return &greenSums{deg: deg, sums: make([]float64, PolyLen(deg)),
-		up: make([]float64, deg+2), vp: make([]float64, deg+1)}
+		up: make([]float64, deg+2), vp: make([]float64, deg+1),
+		nodeU: buf[:maxGLOrder], nodeV: buf[maxGLOrder : 2*maxGLOrder],
+		row: buf[2*maxGLOrder : 3*maxGLOrder], term: buf[3*maxGLOrder:]}
 }
 
 // segment adds the contribution of s.
@@ -123,23 +128,28 @@ func (g *greenSums) segment(s Segment) {
 	}
 }
 
-// rule adds Σ w_k·u^(a+1)·v^b·v'(t_k) over the nodes of r on the curve e.
+// rule adds Σ w_k·u^(a+1)·v^b·v'(t_k) over the nodes of r on the curve e. It walks the monomials
+// row by row (v^b), multiplying a per-node term by u for each step along a row, so that every sum is
+// formed in a register and stored once.
 func (g *greenSums) rule(e *evaluator, r glRule) {
+	n := len(r.t)
+	us, vs, row, term := g.nodeU[:n], g.nodeV[:n], g.row[:n], g.term[:n]
 	for k, t := range r.t {
 		u, v, dv := e.at(t)
-		g.node(u, v, r.w[k]*dv)
+		us[k], vs[k], row[k] = u, v, r.w[k]*dv*u
 	}
-}
-
-// node adds w·u^(a+1)·v^b for every monomial.
-func (g *greenSums) node(u, v, w float64) {
-	g.powers(u, v, w)
-	up, vp, sums := g.up, g.vp, g.sums
-	i := 0
-	for d := range vp {
-		for b, vb := range vp[:d+1] {
-			sums[i] += up[d-b+1] * vb
-			i++
+	for b := 0; b <= g.deg; b++ {
+		copy(term, row)
+		for a := 0; a+b <= g.deg; a++ {
+			sum := 0.0
+			for k, x := range term {
+				sum += x
+				term[k] = x * us[k]
+			}
+			g.sums[PolyIndex(a, b)] += sum
+		}
+		for k, v := range vs {
+			row[k] *= v
 		}
 	}
 }
