@@ -313,7 +313,12 @@ func (s Segment) transformArc(m Affine) Segment {
 	q, r := math.Hypot(e, h), math.Hypot(f, g)
 	a1, a2 := math.Atan2(g, f), math.Atan2(h, e)
 	beta, phi := (a2-a1)/2, (a2+a1)/2
-	out := Segment{Kind: KindArc, C: m.Apply(s.C), RX: q + r, RY: q - r, Rot: phi,
+	// The minor radius q − r equals det N/(q + r), which does not cancel for a flat ellipse.
+	rx, ry := q+r, 0.0
+	if rx > 0 {
+		ry = (a*d - b*c) / rx
+	}
+	out := Segment{Kind: KindArc, C: m.Apply(s.C), RX: rx, RY: ry, Rot: phi,
 		Theta: sign*s.Theta + beta, Sweep: sign * s.Sweep}
 	out.P[0], out.P[1] = m.Apply(s.P[0]), m.Apply(s.P[1])
 	return out
