@@ -35,8 +35,8 @@ func fuzzSegment(kind uint8, raw [8]float64) (Segment, bool) {
 }
 
 // FuzzSegmentInvariants checks, for any segment: splitting keeps the curve; an affine map commutes
-// with evaluation; and the area enclosed with the chord adds up over the split pieces and scales by
-// the map's determinant.
+// with evaluation; the area enclosed with the chord adds up over the split pieces and scales by the
+// map's determinant; and the cubature agrees with the exact integration there.
 func FuzzSegmentInvariants(f *testing.F) {
 	f.Add(uint8(2), 0.0, 0.0, 1.0, 3.0, 3.0, -2.0, 4.0, 1.0, 0.4, 1.0, 0.3, -0.2, 1.5, 2.0, -1.0)
 	f.Add(uint8(3), 1.0, 1.0, 2.0, 0.5, 0.3, -1.0, 4.0, 0.0, 0.7, -1.0, 0.0, 0.0, 1.0, 5.0, 5.0)
@@ -63,11 +63,31 @@ func FuzzSegmentInvariants(f *testing.F) {
 		if !near(parts, whole, 1e-9, size*size) {
 			t.Fatalf("area %v, split pieces give %v", whole, parts)
 		}
+		checkCubature(t, s, size)
 		mapped := size * (affineNorm(m) + 1)
 		if got := chordArea(s.Transform(m)); !near(got, m.Det()*whole, 1e-9, mapped*mapped) {
 			t.Fatalf("transformed area %v, want det·area = %v", got, m.Det()*whole)
 		}
 	})
+}
+
+// checkCubature compares the cubature with the exact integration on the region between s and its chord,
+// for a density linear in x and y (positive on the region's box).
+func checkCubature(t *testing.T, s Segment, size float64) {
+	b := Boundary{Pieces: []Segment{s, Line(s.End(), s.Start())}}
+	box := Loop(b.Pieces).Bounds()
+	rho := Poly{Deg: 1, C: []float64{1 + 2*(math.Abs(box.Min.X)+math.Abs(box.Min.Y)), 1, 1}}
+	r, err := b.Integrate(rho, Options{Tol: 1e-9, MaxEvals: 20000})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.LimitHit {
+		return
+	}
+	want := b.IntegratePoly(rho)
+	if scale := rho.C[0] * size * size * 10; !near(r.M, want.M, 1e-7, scale) {
+		t.Fatalf("cubature mass %v, exact %v (estimated error %g)", r.M, want.M, r.RelErr)
+	}
 }
 
 // chordArea returns the signed area enclosed by s and the chord back to its start.
