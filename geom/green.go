@@ -45,14 +45,18 @@ func PolygonMoments(pts []Point) Moments {
 	if len(pts) == 0 {
 		return Moments{}
 	}
+	// Scalar accumulators stay in registers; a six-field struct would live in memory.
 	c := pts[0]
-	var fan fanSums
+	var a, x, y, xx, xy, yy float64
 	prev := Point{}
 	for _, q := range pts[1:] {
 		q = q.Sub(c)
-		fan.add(prev, q)
+		k, kx, ky, kxx, kxy, kyy := fanTerms(prev, q)
+		a, x, y, xx, xy, yy = a+k, x+kx, y+ky, xx+kxx, xy+kxy, yy+kyy
 		prev = q
 	}
+	fan := fanSums{a, x, y, xx, xy, yy}
+	fan.add(prev, Point{})
 	acc := newGreenSums(2)
 	fan.addTo(acc)
 	return momentsAbout(c, acc.moments(ConstPoly(1)))
@@ -64,17 +68,18 @@ func PolygonMoments(pts []Point) Moments {
 // ∬xy = Σk(2x0y0+x0y1+x1y0+2x1y1)/24, ∬y² = Σk(y0²+y0y1+y1²)/12. The fields hold the sums before division.
 type fanSums struct{ a, x, y, xx, xy, yy float64 }
 
-// add adds the edge p→q, using x0²+x0x1+x1² = (x0+x1)² − x0x1 and
-// 2x0y0+x0y1+x1y0+2x1y1 = (x0+x1)(y0+y1) + x0y0 + x1y1 to save multiplications.
+// add adds the edge p→q.
 func (f *fanSums) add(p, q Point) {
-	k := p.X*q.Y - q.X*p.Y
+	k, x, y, xx, xy, yy := fanTerms(p, q)
+	f.a, f.x, f.y, f.xx, f.xy, f.yy = f.a+k, f.x+x, f.y+y, f.xx+xx, f.xy+xy, f.yy+yy
+}
+
+// fanTerms returns the edge p→q's terms of fanSums, using x0²+x0x1+x1² = (x0+x1)² − x0x1 and
+// 2x0y0+x0y1+x1y0+2x1y1 = (x0+x1)(y0+y1) + x0y0 + x1y1 to save multiplications.
+func fanTerms(p, q Point) (k, x, y, xx, xy, yy float64) {
+	k = p.X*q.Y - q.X*p.Y
 	sx, sy := p.X+q.X, p.Y+q.Y
-	f.a += k
-	f.x += k * sx
-	f.y += k * sy
-	f.xx += k * (sx*sx - p.X*q.X)
-	f.xy += k * (sx*sy + p.X*p.Y + q.X*q.Y)
-	f.yy += k * (sy*sy - p.Y*q.Y)
+	return k, k * sx, k * sy, k * (sx*sx - p.X*q.X), k * (sx*sy + p.X*p.Y + q.X*q.Y), k * (sy*sy - p.Y*q.Y)
 }
 
 // addTo adds the triangle-fan moments to g (degree 2) as its (a+1)·∬u^a·v^b sums.
