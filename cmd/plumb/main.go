@@ -47,6 +47,8 @@ func commands() []command {
 		{"template", "a full-size (1:1) drilling template as PDF, tiled over pages", runTemplate},
 		{"report", "a one-page part report as PDF or Markdown", runReport},
 		{"materials", "the sheet materials and gauges, with their sources", runMaterials},
+		{"build", "build the browser app into one offline HTML file", runBuild},
+		{"serve", "build the browser app and serve it on 127.0.0.1 with a demo part", runServe},
 		{"version", "print the version", runVersion},
 		{"help", "help on plumb or one command", runHelp},
 	}

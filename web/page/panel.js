@@ -138,10 +138,9 @@
   }
 
   function save(partJSON) {
-    if (restored && typeof partJSON === "string" && partJSON !== "") {
-      if (!writeStore(AUTOSAVE, partJSON)) toast("This browser's storage is full: save the part to a file.", true);
-      showPart(partJSON);
-    }
+    if (typeof partJSON !== "string" || partJSON === "") return;
+    if (restored && !writeStore(AUTOSAVE, partJSON)) toast("This browser's storage is full: save the part to a file.", true);
+    showPart(partJSON);
   }
 
   function refresh() {
@@ -210,7 +209,7 @@
     if (state && !state.error) {
       lines.push("Weight: " + $("weight").textContent + " (" + $("weight-sub").textContent + ")");
       lines.push("Balance point: x " + fmtLen(state.centroid.x) + " " + u + ", y " + fmtLen(state.centroid.y) + " " + u);
-      if (state.hang) lines.push("Hang hole: " + $("hang").textContent + " " + u + "; " + $("hang-sub").textContent);
+      if (state.hang) lines.push("Hang hole: " + $("hang").textContent + " " + u + "; " + $("hang-sub").textContent.replaceAll("\n", "; "));
       if (state.material) lines.push("Material: " + state.material);
     }
     lines.push("Geometry estimates only: hardware ratings, fixings and overhead signs follow local codes and a licensed engineer.");
@@ -272,6 +271,14 @@
 
   const FIELD_INPUT = { material: "material", thickness: "thickness", formula: "formula", params: "params", unit: "density-unit" };
   const FIELD_LABEL = { material: "Material", thickness: "Thickness", formula: "Formula", params: "Parameters", unit: "Unit" };
+
+  // materialSoon sends the fields to the app once the keys typed so far have been handled: a recompute
+  // can take longer than a keystroke, and only the latest text matters.
+  let materialTimer = 0;
+  function materialSoon() {
+    clearTimeout(materialTimer);
+    materialTimer = setTimeout(sendMaterial, 30);
+  }
 
   function sendMaterial() {
     if (!app) return;
@@ -393,14 +400,17 @@
       $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
       const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
         (h.angle_deg > 0 ? " anticlockwise" : " clockwise");
-      const parts = [tilt, "Ø " + fmtLen(h.hole) + " " + u];
-      if (Number.isFinite(h.tilt_per_mm_deg)) parts.push(h.tilt_per_mm_deg.toFixed(2) + "° per mm off the line");
-      if (Number.isFinite(h.period_s)) parts.push("swings in " + h.period_s.toFixed(2) + " s");
-      $("hang-sub").textContent = parts.join(" · ") + (level ? "\nLevel hang: " + fmtLen(level.x) + ", " + fmtLen(level.y) : "");
+      const lines = [tilt + " · hole Ø " + fmtLen(h.hole) + " " + u];
+      const more = [];
+      if (Number.isFinite(h.tilt_per_mm_deg)) more.push(h.tilt_per_mm_deg.toFixed(2) + "° tilt per mm drilled off-line");
+      if (Number.isFinite(h.period_s)) more.push("swings in " + h.period_s.toFixed(2) + " s");
+      if (more.length) lines.push(more.join(" · "));
+      if (level && Math.abs(h.angle_deg) >= 0.05) lines.push("Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y));
+      $("hang-sub").textContent = lines.join("\n");
     } else {
       $("hang").textContent = "—";
-      $("hang-sub").textContent = (level ? "Level hang: " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + ". " : "") +
-        "Place a hole with the Hole tool.";
+      $("hang-sub").textContent = (level ? "Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + "\n" : "") +
+        "Place the hole with the Hole tool.";
     }
   }
 
@@ -442,17 +452,17 @@
     keys.push({ key: "?", action: "Show or hide this list" }, { key: "Ctrl O", action: "Open a part or drawing" },
       { key: "Ctrl S", action: "Save the part" }, { key: "Esc", action: "Close this list" });
     $("help-keys").replaceChildren(...keys.map((k) => {
-      const tr = document.createElement("tr");
-      const a = document.createElement("td");
-      const b = document.createElement("td");
+      const row = document.createElement("div");
+      const a = document.createElement("span");
+      const b = document.createElement("span");
       for (const part of String(k.key).split(" ")) {
         const kbd = document.createElement("kbd");
         kbd.textContent = part;
         a.append(kbd, " ");
       }
       b.textContent = k.action;
-      tr.append(a, b);
-      return tr;
+      row.append(a, b);
+      return row;
     }));
     $("help").hidden = false;
   }
@@ -571,7 +581,7 @@
     });
     for (const id of ["material", "thickness", "formula", "params"]) {
       const input = $(id);
-      input.addEventListener("input", sendMaterial);
+      input.addEventListener("input", materialSoon);
       input.addEventListener("scroll", () => { input.closest(".field").querySelector(".mirror").scrollLeft = input.scrollLeft; });
     }
     $("material").addEventListener("change", fillThicknessList);
