@@ -1,0 +1,70 @@
+package sketch
+
+import (
+	"reflect"
+	"testing"
+)
+
+func TestParseSelector(t *testing.T) {
+	tests := []struct {
+		s    string
+		want selector
+		ok   bool
+		spec int // CSS Selectors Level 3, section 9: (ids, classes, names)
+	}{
+		{"path", selector{tag: "path"}, true, 1},
+		{"*", selector{tag: "*"}, true, 0},
+		{".cut", selector{classes: []string{"cut"}}, true, 100},
+		{"#outline", selector{ids: []string{"outline"}}, true, 10000},
+		{"rect.cut.thin", selector{tag: "rect", classes: []string{"cut", "thin"}}, true, 201},
+		{"g#a.b", selector{tag: "g", ids: []string{"a"}, classes: []string{"b"}}, true, 10101},
+		{"svg > path", selector{}, false, 0},
+		{"path:hover", selector{}, false, 0},
+		{"", selector{}, false, 0},
+	}
+	for _, tt := range tests {
+		got, ok := parseSelector(tt.s)
+		if ok != tt.ok || !reflect.DeepEqual(got, tt.want) {
+			t.Errorf("parseSelector(%q) = %+v, %v; want %+v, %v", tt.s, got, ok, tt.want, tt.ok)
+		}
+		if ok && got.specificity() != tt.spec {
+			t.Errorf("specificity of %q = %d, want %d", tt.s, got.specificity(), tt.spec)
+		}
+	}
+}
+
+func TestParseStyleSheet(t *testing.T) {
+	r := &svgReader{}
+	rules := parseStyleSheet(`/* cut lines */
+		.cut, path#edge { fill: none; stroke: #d00 !important }
+		@media print { .cut { stroke: black } }
+		g > .x { fill: red }
+		rect{fill:blue;}`, 5, r)
+	want := []cssRule{
+		{sel: selector{classes: []string{"cut"}}, decls: map[string]string{"fill": "none", "stroke": "#d00 !important"}, order: 5},
+		{sel: selector{tag: "path", ids: []string{"edge"}}, decls: map[string]string{"fill": "none", "stroke": "#d00 !important"}, order: 6},
+		{sel: selector{tag: "rect"}, decls: map[string]string{"fill": "blue"}, order: 7},
+	}
+	if !reflect.DeepEqual(rules, want) {
+		t.Errorf("rules\n%+v\nwant\n%+v", rules, want)
+	}
+	wantWarnings := []string{`style sheet: @media is not applied`,
+		`style sheet: selector "g > .x" is not understood; its rule is not applied`}
+	if !reflect.DeepEqual(r.warnings, wantWarnings) {
+		t.Errorf("warnings %q, want %q", r.warnings, wantWarnings)
+	}
+}
+
+func TestMatchingOrder(t *testing.T) {
+	r := &svgReader{}
+	r.rules = parseStyleSheet(`#p { fill: red } .a { fill: green } path { fill: blue } .a { fill: black }`, 0, r)
+	e := &element{name: "path", attrs: map[string]string{"id": "p", "class": "b a"}}
+	var fills []string
+	for _, rule := range r.matching(e) {
+		fills = append(fills, rule.decls["fill"])
+	}
+	// Weakest first: the element name, then the classes in source order, then the id.
+	if want := []string{"blue", "green", "black", "red"}; !reflect.DeepEqual(fills, want) {
+		t.Errorf("matching order %v, want %v", fills, want)
+	}
+}
