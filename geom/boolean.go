@@ -45,6 +45,22 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	if keep == nil {
 		panic("geom: Combine needs a keep function")
 	}
+	ms := regionMonos(regions)
+	if len(ms) == 0 {
+		return Boundary{}
+	}
+	box := EmptyRect()
+	for i := range ms {
+		box = box.Union(ms[i].box)
+	}
+	tol := tolerance(box)
+	c := newClassifier(ms, regions, keep, box, tol)
+	kept := c.classify(cutList(ms, findHits(ms, tol, nil), tol))
+	return Boundary{Pieces: dedupe(kept, c.side)}
+}
+
+// regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index.
+func regionMonos(regions []Region) monos {
 	n := 0
 	for _, r := range regions {
 		for _, l := range r.Loops {
@@ -57,27 +73,7 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 			ms = appendMonos(ms, l, ri)
 		}
 	}
-	if len(ms) == 0 {
-		return Boundary{}
-	}
-	box := EmptyRect()
-	for i := range ms {
-		box = box.Union(ms[i].box)
-	}
-	tol := tolerance(box)
-	c := newClassifier(ms, regions, keep, box, tol)
-	kept := make([]keptPiece, 0, len(ms))
-	cuts := cutList(ms, findHits(ms, tol, nil), tol)
-	var here []float64
-	for i := range ms {
-		here = here[:0]
-		for len(cuts) > 0 && cuts[0].mono == i {
-			here = append(here, cuts[0].t)
-			cuts = cuts[1:]
-		}
-		kept = c.pieces(i, here, kept)
-	}
-	return Boundary{Pieces: dedupe(kept, c.side)}
+	return ms
 }
 
 // cut is a parameter at which a piece must be cut.
@@ -177,6 +173,21 @@ func newClassifier(ms monos, regions []Region, keep func([]bool) bool, box Rect,
 		c.rules[i] = r.Rule
 	}
 	return c
+}
+
+// classify cuts every piece at its cuts (ordered by piece) and returns the parts that bound the set.
+func (c *classifier) classify(cuts []cut) []keptPiece {
+	kept := make([]keptPiece, 0, len(c.ms))
+	var here []float64
+	for i := range c.ms {
+		here = here[:0]
+		for len(cuts) > 0 && cuts[0].mono == i {
+			here = append(here, cuts[0].t)
+			cuts = cuts[1:]
+		}
+		kept = c.pieces(i, here, kept)
+	}
+	return kept
 }
 
 // keptPiece is a piece of the result with the point where it was probed (for finding duplicates).

@@ -82,3 +82,51 @@ func FuzzCombine(f *testing.F) {
 		}
 	})
 }
+
+// value returns a number for a segment's data: mostly on the grid, sometimes one that a broken file
+// could hold (NaN, ±Inf, 0, huge, tiny).
+func (r *byteReader) value() float64 {
+	specials := [...]float64{math.NaN(), math.Inf(1), math.Inf(-1), 0, 1e300, -1e-300, 1e-12}
+	if b := r.next(); b >= 240 {
+		return specials[int(b-240)%len(specials)]
+	}
+	return r.coord()
+}
+
+// rawLoop returns a loop of arbitrary segments, closed or not, valid or not.
+func (r *byteReader) rawLoop() Loop {
+	l := make(Loop, 1+r.next()%5)
+	for i := range l {
+		switch k := Kind(r.next() % 5); k {
+		case KindArc:
+			l[i] = EllipticalArc(Pt(r.value(), r.value()), r.value(), r.value(), r.value(), r.value(), r.value()-4)
+		default:
+			l[i] = Segment{Kind: k, P: [4]Point{{r.value(), r.value()}, {r.value(), r.value()}, {r.value(), r.value()}, {r.value(), r.value()}}}
+		}
+	}
+	return l
+}
+
+// FuzzRegionCheck feeds arbitrary segments (NaN, infinite, degenerate, open, of unknown kind) to Check
+// and, whatever Check says, to the winding number, Combine and the boundary queries: nothing panics,
+// and a region that passes Check has a finite, non-negative area.
+func FuzzRegionCheck(f *testing.F) {
+	f.Add([]byte{2, 1, 4, 4, 6, 2, 2, 0, 0, 1})
+	f.Add([]byte{1, 0, 240, 0, 0, 4})
+	f.Fuzz(func(t *testing.T, data []byte) {
+		r := byteReader(data)
+		reg := Region{Loops: []Loop{r.rawLoop(), r.rawLoop()}, Rule: FillRule(r.next() % 3)}
+		_, err := reg.Check()
+		reg.Winding(Pt(1, 1))
+		b := Difference(reg, Disk(Pt(r.coord(), r.coord()), 1))
+		b.Contains(Pt(2, 2))
+		b.Distance(Pt(0, 3))
+		b.LineHits(Pt(0, 1), Pt(1, 0.5))
+		if err != nil {
+			return
+		}
+		if a := unitMoments(reg.Boundary()).M; !(a >= -1e-9*256) || math.IsInf(a, 0) {
+			t.Errorf("valid region has area %g", a)
+		}
+	})
+}

@@ -33,8 +33,16 @@ func usable(s Segment) bool {
 	if nonFinite(s) != "" || s.Kind > KindCubic {
 		return false
 	}
-	return s.Kind != KindArc || s.RX > 0 && s.RY > 0 && s.Sweep != 0
+	return s.Kind != KindArc || s.RX > 0 && s.RY > 0 && s.Sweep != 0 && math.Abs(s.Sweep) <= maxSweep &&
+		math.Abs(s.Theta) <= maxArcAngle
 }
+
+// maxSweep is the largest arc sweep accepted: a full turn, with room for rounding.
+const maxSweep = 2 * math.Pi * (1 + 1e-12)
+
+// maxArcAngle bounds an arc's start angle: beyond it the angle keeps too few digits for the arc's
+// points (float64 resolves 1e6 rad to about 1e-10 rad); drawings produce angles within a few turns.
+const maxArcAngle = 1e6
 
 // appendMonos appends the monotone pieces of loop l, tagged with region, to dst.
 func appendMonos(dst monos, l Loop, region int) monos {
@@ -155,7 +163,7 @@ func (ms monos) intersect(i, j int, tol float64, dst []hit) []hit {
 		dst = ms.circleCrossings(i, j, tol, dst)
 	default:
 		leaf := math.Max(4*tol, 1e-4*math.Max(a.a.Dist(a.b), b.a.Dist(b.b)))
-		sd := subdivision{ms: ms, i: i, j: j, from: m, tol: tol, leaf: leaf}
+		sd := subdivision{ms: ms, i: i, j: j, first: n, from: m, tol: tol, leaf: leaf}
 		dst = sd.crossings(dst)
 	}
 	return ms.dropNearJoint(i, j, dst, m)
@@ -294,11 +302,12 @@ const maxCrossings = 9
 // maxSubdivide bounds the depth of subdivision: 2⁻⁶⁰ of a parameter interval is below float64 resolution.
 const maxSubdivide = 60
 
-// subdivision finds the crossings of pieces i and j, appending them after dst[from:].
+// subdivision finds the crossings of pieces i and j, appending them after dst[from:]; the pair's end
+// hits are dst[first:from].
 type subdivision struct {
-	ms         monos
-	i, j, from int
-	tol, leaf  float64
+	ms                monos
+	i, j, first, from int
+	tol, leaf         float64
 }
 
 // crossings appends the crossings of the whole pieces; more than maxCrossings mean the curves run
@@ -339,30 +348,42 @@ func (sp span) halves(s Segment) (span, span) {
 	return span{sp.t0, tm, sp.p0, pm}, span{tm, sp.t1, pm, sp.p1}
 }
 
-// maxNewton bounds polish's Newton steps. At a tangent contact the root is double and Newton's method
-// only halves the error each step: 64 steps take a leaf-sized start below float64 resolution.
-const maxNewton = 64
-
-// polish solves A(s) = B(u) for pieces i and j by Newton's method from the midpoints of spans a and b,
-// with s and u kept within the pieces, and appends the crossing when the curves come within tol there
-// and it is not one found already: where curves touch, Newton's method stops anywhere along the
-// contact, and crossings between which the curves keep together count as one. Each step solves A'(s)·Δs − B'(u)·Δu = B(u) − A(s) by Cramer's rule.
-func (sd *subdivision) polish(a, b span, dst []hit) []hit {
+// newton iterates Newton's method for A(s) = B(u) from (s, u), keeping s and u within the pieces,
+// until the step vanishes or |A − B| stops shrinking (the spans do not meet).
+func (sd *subdivision) newton(s, u float64) (float64, float64) {
 	ma, mb := &sd.ms[sd.i], &sd.ms[sd.j]
-	s, u := (a.t0+a.t1)/2, (b.t0+b.t1)/2
-	for range maxNewton {
+	prev := math.Inf(1)
+	for k := range maxNewton {
 		f := ma.s.At(s).Sub(mb.s.At(u))
 		da, db := ma.s.Deriv(s), mb.s.Deriv(u)
 		det := -da.Cross(db)
-		if det == 0 {
+		if det == 0 || k > 2 && f.Norm() >= prev {
 			break
 		}
+		prev = f.Norm()
 		ds, du := f.Cross(db)/det, f.Cross(da)/det
 		s = math.Min(math.Max(s+ds, ma.t0), ma.t1)
 		u = math.Min(math.Max(u+du, mb.t0), mb.t1)
 		if math.Abs(ds)+math.Abs(du) <= 1e-15 {
 			break
 		}
+	}
+	return s, u
+}
+
+// maxNewton bounds polish's Newton steps. At a tangent contact the root is double and Newton's method
+// only halves the error each step: 64 steps take a leaf-sized start below float64 resolution.
+const maxNewton = 64
+
+// polish solves A(s) = B(u) for pieces i and j by Newton's method from the midpoints of spans a and b,
+// with s and u kept within the pieces, and appends the crossing when the curves come within tol there
+// and it is not one found already (an end hit included): where curves touch, Newton's method stops anywhere along the
+// contact, and crossings between which the curves keep together count as one. Each step solves A'(s)·Δs − B'(u)·Δu = B(u) − A(s) by Cramer's rule.
+func (sd *subdivision) polish(a, b span, dst []hit) []hit {
+	ma, mb := &sd.ms[sd.i], &sd.ms[sd.j]
+	s, u := sd.newton((a.t0+a.t1)/2, (b.t0+b.t1)/2)
+	if ma.s.At(s).Dist(mb.s.At(u)) > sd.leaf {
+		return dst
 	}
 	// A crossing at the end of a piece holds that parameter at the end, and the other then stops
 	// anywhere the curves are within tol (along a tangent, far from the touching point): project.
@@ -376,8 +397,12 @@ func (sd *subdivision) polish(a, b span, dst []hit) []hit {
 	if p.Dist(mb.s.At(u)) > sd.tol {
 		return dst
 	}
-	for _, h := range dst[sd.from:] {
-		if sd.ms.together(sd.i, s, h.ti, sd.j, sd.tol) {
+	for _, h := range dst[sd.first:] {
+		ti := h.ti
+		if h.i != sd.i {
+			ti = h.tj // an end hit of piece j on piece i
+		}
+		if sd.ms.together(sd.i, s, ti, sd.j, sd.tol) {
 			return dst
 		}
 	}
@@ -519,7 +544,8 @@ func nearest(s Segment, t0, t1 float64, p Point) (float64, float64) {
 		}
 	case KindQuad, KindCubic:
 		var buf [8]float64
-		for _, t := range polyRoots(nearestPoly(s, p), t0, t1, buf[:0]) {
+		g, n := nearestPoly(s, p)
+		for _, t := range polyRoots(g[:n], t0, t1, buf[:0]) {
 			try(t)
 		}
 	case KindArc:
@@ -536,17 +562,17 @@ func nearest(s Segment, t0, t1 float64, p Point) (float64, float64) {
 	return best, bd
 }
 
-// nearestPoly returns the coefficients of (s(t) − p)·s'(t) for a Bézier s, of degree 2n − 1.
-func nearestPoly(s Segment, p Point) []float64 {
+// nearestPoly returns the coefficients of (s(t) − p)·s'(t) for a Bézier s of degree n, a polynomial
+// of degree 2n − 1 (2n coefficients).
+func nearestPoly(s Segment, p Point) (g [6]float64, n int) {
 	c, n := bezierPower(s)
 	c[0] = c[0].Sub(p)
-	var g [6]float64
 	for i := 0; i <= n; i++ {
 		for k := 1; k <= n; k++ {
 			g[i+k-1] += float64(k) * c[i].Dot(c[k])
 		}
 	}
-	return g[:2*n]
+	return g, 2 * n
 }
 
 // ellipseFeet returns the parameters in (t0, t1) where g(t) = (s(t) − p)·s'(t) changes sign from
@@ -574,9 +600,9 @@ func ellipseFeet(s Segment, t0, t1 float64, p Point) []float64 {
 }
 
 // polyRoots appends to dst, in increasing order, the real roots in [lo, hi] of the polynomial
-// Σ c[k]·x^k (at most degree 7). The roots of the derivative, found the same way, cut [lo, hi] into
-// intervals on which the polynomial is monotone; each sign change there brackets one root. Double
-// roots without a sign change (tangencies) are not reported.
+// Σ c[k]·x^k (at most degree 7). Working up from the highest derivative (linear), the roots of each
+// derivative cut [lo, hi] into intervals on which the one below is monotone, and each sign change
+// there brackets one of its roots. Double roots without a sign change (tangencies) are not reported.
 func polyRoots(c []float64, lo, hi float64, dst []float64) []float64 {
 	scale := 0.0
 	for _, v := range c {
@@ -589,17 +615,27 @@ func polyRoots(c []float64, lo, hi float64, dst []float64) []float64 {
 	if n <= 0 {
 		return dst
 	}
-	c = c[:n+1]
-	var d, cb [8]float64
-	for k := 1; k <= n; k++ {
-		d[k-1] = float64(k) * c[k]
+	var ders [8][8]float64 // ders[k]: the k-th derivative, degree n−k
+	copy(ders[0][:], c[:n+1])
+	for k := 1; k < n; k++ {
+		for i := 1; i <= n-k+1; i++ {
+			ders[k][i-1] = float64(i) * ders[k-1][i]
+		}
 	}
-	var crit []float64
-	if n > 1 {
-		crit = polyRoots(d[:n], lo, hi, cb[:0])
+	var a, b [8]float64
+	roots, next := a[:0], b[:0]
+	for k := n - 1; k > 0; k-- {
+		next = monotoneRoots(ders[k][:n-k+1], ders[k+1][:n-k], lo, hi, roots, next[:0])
+		roots, next = next, roots
 	}
-	f := func(x float64) (float64, float64) { return horner(c, x), horner(d[:n], x) }
-	x0, f0 := lo, horner(c, lo)
+	return monotoneRoots(ders[0][:n+1], ders[1][:n], lo, hi, roots, dst)
+}
+
+// monotoneRoots appends the roots in [lo, hi] of the polynomial p, with derivative d, given the sorted
+// roots crit of d there: p is monotone between them, so each sign change brackets one root.
+func monotoneRoots(p, d []float64, lo, hi float64, crit, dst []float64) []float64 {
+	f := func(x float64) (float64, float64) { return horner(p, x), horner(d, x) }
+	x0, f0 := lo, horner(p, lo)
 	if f0 == 0 {
 		dst = append(dst, lo)
 	}
@@ -608,7 +644,7 @@ func polyRoots(c []float64, lo, hi float64, dst []float64) []float64 {
 		if k < len(crit) {
 			x1 = crit[k]
 		}
-		f1 := horner(c, x1)
+		f1 := horner(p, x1)
 		switch {
 		case f1 == 0 && x1 > x0:
 			dst = append(dst, x1)

@@ -10,9 +10,7 @@ import (
 func (b Boundary) Contains(p Point) bool {
 	w := 0
 	for _, s := range b.Pieces {
-		if usable(s) {
-			w += segmentWinding(s, s.Start(), p)
-		}
+		w += segmentWinding(s, s.Start(), p)
 	}
 	return w != 0
 }
@@ -86,11 +84,14 @@ func (b Boundary) Transform(m Affine) Boundary {
 	return out
 }
 
-// Bounds returns the tightest axis-aligned rectangle holding b's pieces.
+// Bounds returns the tightest axis-aligned rectangle holding b's pieces (those with finite data and a
+// proper shape).
 func (b Boundary) Bounds() Rect {
 	r := EmptyRect()
 	for _, s := range b.Pieces {
-		r = r.Union(s.Bounds())
+		if usable(s) {
+			r = r.Union(s.Bounds())
+		}
 	}
 	return r
 }

@@ -87,7 +87,9 @@ func tolerance(box Rect) float64 {
 // the first one. Loops that cross or touch themselves are legal (the fill rule decides what is inside):
 // each is reported once among the warnings.
 func (r Region) Check() (warnings []*ValidationError, err error) {
-	box := EmptyRect()
+	if len(r.Loops) == 0 {
+		return nil, &ValidationError{Loop: -1, Segment: -1, Msg: "region has no loops"}
+	}
 	for i, l := range r.Loops {
 		if len(l) == 0 {
 			return nil, &ValidationError{Loop: i, Segment: -1, Msg: "loop has no segments"}
@@ -97,12 +99,8 @@ func (r Region) Check() (warnings []*ValidationError, err error) {
 				return nil, &ValidationError{Loop: i, Segment: j, Msg: msg}
 			}
 		}
-		box = box.Union(l.Bounds())
 	}
-	if box.IsEmpty() {
-		return nil, &ValidationError{Loop: -1, Segment: -1, Msg: "region has no loops"}
-	}
-	tol := tolerance(box)
+	tol := tolerance(r.Bounds())
 	for i, l := range r.Loops {
 		if err := checkLoop(l, i, tol); err != nil {
 			return nil, err
@@ -169,8 +167,10 @@ func degenerate(s Segment, tol float64) string {
 		return "arc radius is 0 or negative"
 	case math.Abs(s.Sweep)*math.Max(s.RX, s.RY) <= tol:
 		return "arc has zero sweep"
-	case math.Abs(s.Sweep) > 2*math.Pi*(1+1e-12):
+	case math.Abs(s.Sweep) > maxSweep:
 		return "arc sweeps more than a full turn"
+	case math.Abs(s.Theta) > maxArcAngle:
+		return "arc start angle is out of range"
 	case s.arcPoint(s.Theta).Dist(s.P[0]) > tol || s.arcPoint(s.Theta+s.Sweep).Dist(s.P[1]) > tol:
 		return "arc end points do not match its centre, radii and angles"
 	}
@@ -216,11 +216,16 @@ func (r Region) Transform(m Affine) Region {
 	return out
 }
 
-// Bounds returns the tightest axis-aligned rectangle holding r's loops.
+// Bounds returns the tightest axis-aligned rectangle holding r's loops (their segments with finite
+// data and a proper shape).
 func (r Region) Bounds() Rect {
 	b := EmptyRect()
 	for _, l := range r.Loops {
-		b = b.Union(l.Bounds())
+		for _, s := range l {
+			if usable(s) {
+				b = b.Union(s.Bounds())
+			}
+		}
 	}
 	return b
 }
@@ -230,6 +235,9 @@ func (r Region) Bounds() Rect {
 // consecutive segments agree on their shared vertex. A vertex counts as above the ray when its y is at
 // least p.Y (the half-open rule), so a ray through a vertex is counted once.
 func segmentWinding(s Segment, start, p Point) int {
+	if !usable(s) {
+		return 0
+	}
 	end := s.End()
 	if s.Kind == KindLine {
 		return monoWinding(s, 0, 1, start, end, p)

@@ -135,6 +135,8 @@ func TestCheck(t *testing.T) {
 		{"zero radius", Region{Loops: []Loop{badArc}}, 0, 2, "radius is 0"},
 		{"arc end points off its circle", Region{Loops: []Loop{moved}}, 0, 1, "do not match"},
 		{"zero-sweep arc", Region{Loops: []Loop{{Arc(Pt(0, 0), 1, 0, 0), Line(Pt(1, 0), Pt(1, 0))}}}, 0, 0, "zero sweep"},
+		{"arc over a full turn", Region{Loops: []Loop{{Arc(Pt(0, 0), 1, 0, 7)}}}, 0, 0, "more than a full turn"},
+		{"arc angle out of range", Region{Loops: []Loop{{Arc(Pt(0, 0), 1, 1e300, 2*math.Pi)}}}, 0, 0, "out of range"},
 		{"open loop", Region{Loops: []Loop{square[:3]}}, 0, 0, "not closed"},
 		{"collapsed cubic", Region{Loops: []Loop{square, {Cubic(Pt(4, 4), Pt(4, 4), Pt(4, 4), Pt(4, 4))}}}, 1, 0, "cubic has zero length"},
 	}
