@@ -28,8 +28,8 @@ const (
 	// own fill-rule. Shapes that are only stroked are left out.
 	ReadFilled
 	// ReadCutFile takes every contour of every visible shape as a cut line: contours nest even-odd, so a
-	// contour inside the outline is a hole and one inside a hole is an island of material. Every
-	// contour must be closed.
+	// contour inside the outline is a hole and one inside a hole is an island of material. Open
+	// contours whose ends meet are joined (drawings exported edge by edge); one left open is an error.
 	ReadCutFile
 )
 
@@ -833,21 +833,31 @@ func fillable(l geom.Loop) bool {
 	return len(l) > 2 || slices.ContainsFunc(l, func(s geom.Segment) bool { return s.Kind != geom.KindLine })
 }
 
-// cutFile makes the region enclosed by every contour, nested even-odd. Open contours are errors.
+// cutFile makes the region enclosed by every contour, nested even-odd. Open contours are joined end
+// to end where they meet; those that stay open are errors.
 func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
 	reg := geom.Region{Rule: geom.EvenOdd}
 	var owners []*element
+	var open []openPiece
 	for _, s := range r.shapes {
 		for i, sub := range s.subs {
-			first, last := sub.segs[0].Start(), sub.segs[len(sub.segs)-1].End()
-			if gap := first.Dist(last); gap > closeTolMM+tol {
-				return reg, &SVGError{Element: s.el.String(), Msg: fmt.Sprintf("contour %d is open (its ends are "+
-					"%.3g mm apart); a cut file needs closed contours", i+1, gap)}
+			p := openPiece{segs: sub.segs, el: s.el, n: i + 1}
+			if p.start().Dist(p.end()) > closeTolMM+tol {
+				open = append(open, p)
+				continue
 			}
 			reg.Loops = append(reg.Loops, closeLoop(sub.segs, tol))
 			owners = append(owners, s.el)
 		}
 	}
+	joined, joinedOwners, err := joinOpen(open, closeTolMM+tol)
+	if err != nil {
+		return reg, err
+	}
+	for _, l := range joined {
+		reg.Loops = append(reg.Loops, closeLoop(l, tol))
+	}
+	owners = append(owners, joinedOwners...)
 	warnings, err := reg.Check()
 	if err != nil {
 		var ve *geom.ValidationError
