@@ -268,3 +268,29 @@ func BenchmarkManyCutOuts(b *testing.B) {
 		measure(b, len(cuts), func() { unitMoments(Difference(plate, cuts...)) })
 	})
 }
+
+// TestCombineFarFromOrigin moves a plate with a notch and two overlapping holes far from the origin:
+// area, centroid offset and central moments match the plate at the origin. At 5·10⁹ the coordinates
+// themselves are only resolved to about 1e-6 (the spacing of float64 there is 2⁻²⁰ ≈ 9.5e-7), which
+// bounds what the cut points can keep; nearer in, the agreement is 1e-9 relative.
+func TestCombineFarFromOrigin(t *testing.T) {
+	plate := loopRegion(RectLoop(Pt(0, 0), Pt(10, 6)))
+	cuts := []Region{Disk(Pt(4, 6), 1.5), Disk(Pt(7, 3), 1), Disk(Pt(8, 3.5), 1)}
+	base := unitMoments(Difference(plate, cuts...))
+	bxx, byy, bxy := base.Central()
+	for _, c := range []struct{ off, rel float64 }{{1e3, 1e-12}, {1e7, 1e-9}, {5e9, 1e-7}} {
+		m := Translate(c.off, -c.off/2)
+		moved := make([]Region, len(cuts))
+		for i, r := range cuts {
+			moved[i] = r.Transform(m)
+		}
+		got := unitMoments(Difference(plate.Transform(m), moved...))
+		ixx, iyy, ixy := got.Central()
+		shift := got.Centroid().Sub(Pt(c.off, -c.off/2)).Dist(base.Centroid())
+		if math.Abs(got.M/base.M-1) > c.rel || shift > c.rel*10 || math.Abs(ixx/bxx-1) > c.rel ||
+			math.Abs(iyy/byy-1) > c.rel || math.Abs(ixy-bxy) > c.rel*bxx {
+			t.Errorf("offset %g: area %.17g (want %.17g), centroid off by %g, central moments %g %g %g (want %g %g %g)",
+				c.off, got.M, base.M, shift, ixx, iyy, ixy, bxx, byy, bxy)
+		}
+	}
+}
