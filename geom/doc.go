@@ -32,8 +32,12 @@
 // node lies in the bounding box: the Gauss–Green product cubature of A. Sommariva and M. Vianello,
 // "Product Gauss cubature over polygons based on Green's integration formula", BIT Numerical Mathematics
 // 47 (2007) 441–453, and its extension to curved boundaries, "Gauss–Green cubature and moment computation
-// over arbitrary geometries", J. Comput. Appl. Math. 231 (2009). Nodes may lie outside a non-convex
-// region, so the density must be defined on the whole bounding box.
+// over arbitrary geometries", J. Comput. Appl. Math. 231 (2009) (volume and year from memory). Nodes may
+// lie outside a non-convex region, so the density must be defined on the whole bounding box.
+//
+// For a constant density the straight edges use the closed-form moments of the triangles they form with
+// the local origin (Steger, below), and curved pieces are converted to the same triangle-fan form by
+// adding the line integrals along the two radii from the local origin to their ends.
 //
 // # Moments
 //
