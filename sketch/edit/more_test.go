@@ -183,3 +183,14 @@ func TestEscapeBacksOutOneStepAtATime(t *testing.T) {
 		t.Fatalf("third Escape should return to Select, tool is %v", e.Tool())
 	}
 }
+
+func TestFitKeepsClearOfInsets(t *testing.T) {
+	e := newTestEditor()
+	drawRect(e, geom.Pt(0, 0), geom.Pt(100, 100))
+	e.Insets = Insets{Left: 40, Top: 80, Right: 320, Bottom: 50}
+	e.Fit()
+	lo, hi := e.View.ToScreen(geom.Pt(0, 100)), e.View.ToScreen(geom.Pt(100, 0))
+	if lo.X < 40 || lo.Y < 80 || hi.X > 1000-320 || hi.Y > 800-50 {
+		t.Fatalf("part shown from %v to %v, inside the insets", lo, hi)
+	}
+}

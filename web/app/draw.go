@@ -242,7 +242,8 @@ func (fr *frame) level() {
 	arm := r + 5*fr.u
 	fr.p.line(c.Add(geom.Pt(-arm, 0)), c.Add(geom.Pt(arm, 0)), fr.u, colLevel)
 	fr.p.line(c.Add(geom.Pt(0, -arm)), c.Add(geom.Pt(0, arm)), fr.u, colLevel)
-	fr.pill("drill here to hang level", fr.f.small, c.X+arm+6*fr.u, c.Y, alignLeftMiddle, colLevel)
+	// Written to the left: the hang hole's own marks and warnings, often close by, go to the right.
+	fr.pill("drill here to hang level", fr.f.small, c.X-arm-6*fr.u, c.Y, alignRightMiddle, colLevel)
 }
 
 // plumbLine draws the plumb line from the hang hole straight down through the balance point of the

@@ -64,7 +64,6 @@ var (
 	alignLeftMiddle   = align{text.AlignStart, text.AlignCenter}
 	alignRightMiddle  = align{text.AlignEnd, text.AlignCenter}
 	alignCentreMiddle = align{text.AlignCenter, text.AlignCenter}
-	alignCentreTop    = align{text.AlignCenter, text.AlignStart}
 	alignLeftBottom   = align{text.AlignStart, text.AlignEnd}
 )
 
