@@ -169,7 +169,9 @@ func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
 	}
 	heap.Init(&pieces)
 	limitHit := false
-	for c.norm(errSum, scale) > tol {
+	// The priorities keep the first scale: rescaling by a new mass would not change their order. The
+	// stopping test uses the current total.
+	for c.norm(errSum, c.scale(total)) > tol {
 		p := pieces[0]
 		next, err := c.refine(p, scale, maxEvals)
 		if err != nil {
