@@ -192,7 +192,7 @@ func (e *Editor) finishClicks() {
 // shapeFor builds the rectangle, circle or slot through the points, with a label giving its size.
 // It returns nil when the shape would enclose no area.
 func (e *Editor) shapeFor(pts []geom.Point) (geom.Loop, string) {
-	f := func(v float64) string { return formatLength(v, e.doc.Units) }
+	f := func(v float64) string { return FormatLength(v, e.doc.Units) }
 	a, b := pts[0], pts[1]
 	switch e.tool {
 	case ToolRect:
@@ -280,9 +280,9 @@ func (e *Editor) addShape(segs []geom.Segment) {
 func (e *Editor) measureOf(a, b geom.Point) Measurement {
 	d := b.Sub(a)
 	m := Measurement{A: a, B: b, Dist: d.Norm(), DX: d.X, DY: d.Y, AngleDeg: math.Atan2(d.Y, d.X) * 180 / math.Pi}
-	f := func(v float64) string { return formatLength(v, e.doc.Units) }
+	f := func(v float64) string { return FormatLength(v, e.doc.Units) }
 	m.Text = fmt.Sprintf("%s %s   Δx %s   Δy %s   %s°", f(m.Dist), e.doc.Units, f(m.DX), f(m.DY),
-		formatLength(m.AngleDeg, "mm"))
+		FormatLength(m.AngleDeg, "mm"))
 	return m
 }
 
@@ -344,8 +344,8 @@ func (e *Editor) outlinePreview(cur geom.Point) Preview {
 		}
 	}
 	if d := cur.Sub(last.at); !e.draw.pressing && d.Norm() > 0 {
-		p.Label = "L " + formatLength(d.Norm(), e.doc.Units) + "  " +
-			formatLength(math.Atan2(d.Y, d.X)*180/math.Pi, "mm") + "°"
+		p.Label = "L " + FormatLength(d.Norm(), e.doc.Units) + "  " +
+			FormatLength(math.Atan2(d.Y, d.X)*180/math.Pi, "mm") + "°"
 	}
 	return p
 }

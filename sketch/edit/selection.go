@@ -49,7 +49,7 @@ func selectionValid(d *sketch.Document, s Selection) bool {
 	case SelHole:
 		return s.Hole >= 0 && s.Hole < len(d.Holes)
 	case SelShape, SelPoint:
-		l := loopOf(d, s.Point.Shape)
+		l := ShapeLoop(d, s.Point.Shape)
 		return l != nil && s.Point.Seg < len(l) && s.Point.Ctrl <= l[s.Point.Seg].Degree()
 	}
 	return true
@@ -118,16 +118,16 @@ func (e *Editor) mover(sel Selection, press geom.Point) (anchor geom.Point, appl
 	case SelPoint:
 		ref := sel.Point
 		ex.shape, ex.hasShape, ex.vertex = ref.Shape, ref.Ctrl == 0, ref.Seg
-		return pointAt(loopOf(e.doc, ref.Shape), ref), func(d *sketch.Document, at geom.Point) {
-			setLoop(d, ref.Shape, movePoint(loopOf(d, ref.Shape), ref, at))
+		return pointAt(ShapeLoop(e.doc, ref.Shape), ref), func(d *sketch.Document, at geom.Point) {
+			setLoop(d, ref.Shape, movePoint(ShapeLoop(d, ref.Shape), ref, at))
 		}, ex
 	}
 	ref := sel.Point.Shape
 	ex.shape, ex.hasShape = ref, true
-	anchor = anchorOf(loopOf(e.doc, ref), press)
+	anchor = anchorOf(ShapeLoop(e.doc, ref), press)
 	return anchor, func(d *sketch.Document, at geom.Point) {
 		delta := at.Sub(anchor)
-		setLoop(d, ref, loopOf(d, ref).Transform(geom.Translate(delta.X, delta.Y)))
+		setLoop(d, ref, ShapeLoop(d, ref).Transform(geom.Translate(delta.X, delta.Y)))
 	}, ex
 }
 
@@ -143,7 +143,7 @@ func (e *Editor) Delete() bool {
 		setLoop(nd, e.sel.Point.Shape, nil)
 	case SelPoint:
 		ref := e.sel.Point
-		l := append(geom.Loop(nil), loopOf(nd, ref.Shape)...)
+		l := append(geom.Loop(nil), ShapeLoop(nd, ref.Shape)...)
 		if ref.Ctrl > 0 {
 			l[ref.Seg] = geom.Line(l[ref.Seg].Start(), l[ref.Seg].End())
 		} else {

@@ -50,8 +50,8 @@ func region(d *sketch.Document, layer Layer, index int) *geom.Region {
 	return nil
 }
 
-// loopOf returns the loop s names, or nil when the document has no such loop.
-func loopOf(d *sketch.Document, s ShapeRef) geom.Loop {
+// ShapeLoop returns the loop s names, or nil when the document has no such loop.
+func ShapeLoop(d *sketch.Document, s ShapeRef) geom.Loop {
 	r := region(d, s.Layer, s.Index)
 	if r == nil || s.Loop < 0 || s.Loop >= len(r.Loops) {
 		return nil

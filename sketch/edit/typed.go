@@ -106,8 +106,8 @@ func (t typed) point(last, toward geom.Point, haveLast bool) (geom.Point, error)
 	return geom.Point{}, fmt.Errorf("type x,y")
 }
 
-// formatLength returns v rounded for display in the unit: 0.01 mm, 0.001 in and alike.
-func formatLength(v float64, unit string) string {
+// FormatLength returns v rounded for display in the unit: 0.01 mm, 0.001 in and alike.
+func FormatLength(v float64, unit string) string {
 	digits := map[string]int{"mm": 2, "cm": 3, "m": 4, "in": 3, "ft": 4}[unit]
 	if digits == 0 {
 		digits = 3

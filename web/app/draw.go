@@ -378,30 +378,13 @@ func (fr *frame) highlight(s edit.Selection, clr color.Color, width float64) {
 			fr.p.circle(fr.screen(h.At), math.Max(h.Diameter/2*fr.v.Scale, 3*fr.u)+4*fr.u, width*fr.u, clr)
 		}
 	case edit.SelShape, edit.SelPoint:
-		l := shapeLoop(d, s.Point.Shape)
+		l := edit.ShapeLoop(d, s.Point.Shape)
 		if l == nil {
 			return
 		}
 		fr.p.stroke(fr.segPath(l, true), width*fr.u, clr)
 		fr.vertices(l, s, clr)
 	}
-}
-
-// shapeLoop returns the loop a shape reference names, or nil.
-func shapeLoop(d *sketch.Document, s edit.ShapeRef) geom.Loop {
-	var r *geom.Region
-	switch {
-	case s.Layer == edit.LayerOutline:
-		r = &d.Outline
-	case s.Layer == edit.LayerCutout && s.Index < len(d.Cutouts):
-		r = &d.Cutouts[s.Index]
-	case s.Layer == edit.LayerOverlay && s.Index < len(d.Overlays):
-		r = &d.Overlays[s.Index].Region
-	}
-	if r == nil || s.Loop >= len(r.Loops) {
-		return nil
-	}
-	return r.Loops[s.Loop]
 }
 
 // vertices draws a shape's vertices as squares and its Bézier handles as dots on stalks; the point
@@ -554,7 +537,7 @@ func (fr *frame) rulers() {
 		tick := 4 * u
 		if isMajor {
 			tick = 8 * u
-			drawText(fr.p.dst, num(snapZero(x)), fr.f.small, sx+3*u, fr.h-bh+2*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
+			drawText(fr.p.dst, fr.length(x), fr.f.small, sx+3*u, fr.h-bh+2*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
 		}
 		fr.p.rect(math.Round(sx), fr.h-bh, u, tick, colInkSoft)
 	}
@@ -567,19 +550,12 @@ func (fr *frame) rulers() {
 		tick := 4 * u
 		if isMajor {
 			tick = 8 * u
-			drawText(fr.p.dst, num(snapZero(y)), fr.f.small, lw-10*u, sy-2*u, align{text.AlignEnd, text.AlignEnd}, colInkSoft)
+			drawText(fr.p.dst, fr.length(y), fr.f.small, lw-10*u, sy-2*u, align{text.AlignEnd, text.AlignEnd}, colInkSoft)
 		}
 		fr.p.rect(lw-tick, math.Round(sy), tick, u, colInkSoft)
 	}
 	fr.p.rect(0, fr.h-bh, lw, bh, colWhite)
 	drawText(fr.p.dst, fr.doc.Units, fr.f.label, lw/2, fr.h-bh/2, alignCentreMiddle, colInk)
-}
-
-func snapZero(v float64) float64 {
-	if math.Abs(v) < 1e-9 {
-		return 0
-	}
-	return v
 }
 
 // scaleBar draws a bar of a round length, in alternating ink and white quarters, at the bottom right
@@ -588,7 +564,7 @@ func (fr *frame) scaleBar() {
 	u := fr.u
 	length := fr.v.GridStep(90 * u)
 	px := length * fr.v.Scale
-	label := num(length) + " " + fr.doc.Units
+	label := fr.length(length) + " " + fr.doc.Units
 	lw, _ := textSize(label, fr.f.small)
 	x0, y0 := fr.w-fr.g.page.Right-px-lw-28*u, fr.baseline()-4*u
 	hgt := 6 * u
@@ -631,10 +607,10 @@ func (fr *frame) status() {
 			hint = "Arcs on · " + hint
 		}
 	case edit.ToolHole:
-		hint = "Ø " + num(ed.HoleDiameter()) + " " + fr.doc.Units + " · " + hint
+		hint = "Ø " + fr.length(ed.HoleDiameter()) + " " + fr.doc.Units + " · " + hint
 	}
 	if r := ed.CornerRadius(); ed.Tool() == edit.ToolRect && r > 0 {
-		hint = "Corners r " + num(r) + " " + fr.doc.Units + " · " + hint
+		hint = "Corners r " + fr.length(r) + " " + fr.doc.Units + " · " + hint
 	}
 	// On a narrow canvas keep only the first clause of the hint, clear of the scale bar and panel.
 	room := fr.w - fr.g.page.Right - x - 200*u
@@ -703,18 +679,5 @@ func (fr *frame) pill(s string, face text.Face, x, y float64, a align, clr color
 	drawText(fr.p.dst, s, face, left, y, align{text.AlignStart, text.AlignCenter}, clr)
 }
 
-// length formats a coordinate for a label in the document unit, to a tenth of a millimetre or a
-// thousandth of an inch.
-func (fr *frame) length(v float64) string {
-	digits := map[string]int{"mm": 1, "cm": 2, "m": 4, "in": 3, "ft": 4}[fr.doc.Units]
-	return strconv.FormatFloat(snapZero(v), 'f', digits, 64)
-}
-
-// num formats a length or coordinate for labels: up to three decimals, no trailing zeros.
-func num(v float64) string {
-	v = math.Round(v*1000) / 1000
-	if v == 0 {
-		v = 0
-	}
-	return strconv.FormatFloat(v, 'f', -1, 64)
-}
+// length formats a length or coordinate in the document unit for a label.
+func (fr *frame) length(v float64) string { return edit.FormatLength(v, fr.doc.Units) }
