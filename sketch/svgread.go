@@ -472,6 +472,10 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	if !shown {
 		return nil
 	}
+	if e.attrs["data-plumb"] == "marks" {
+		r.warn("%s: Plumb's own marks (doublers, holes, balance point, labels) are not read back", e)
+		return nil
+	}
 	if slices.Contains(textElements, e.name) {
 		return &SVGError{Element: e.String(), Msg: "text is not read: convert text to paths first"}
 	}

@@ -61,7 +61,7 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 	}
 	w.path(slices.Concat(loops...), `fill="#c9d3dc" stroke="#1d2a36" stroke-width="0.25"`)
 	for _, o := range d.Overlays {
-		w.printf(`<g><title>%s</title>`, escape(o.Name))
+		w.printf(`<g %s><title>%s</title>`, marksAttr, escape(o.Name))
 		for _, l := range o.Region.Loops {
 			w.path(l, fmt.Sprintf(`fill="#d9a441" fill-opacity="0.45" fill-rule="%s" stroke="#8a6414" stroke-width="0.2"`,
 				ruleName(o.Region.Rule)))
@@ -69,6 +69,7 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 		w.printf(`</g>`)
 	}
 	w.printf(`</g>`)
+	w.printf(`<g id="marks" %s>`, marksAttr)
 	for _, h := range d.Holes {
 		w.hole(h.At, h.Diameter)
 	}
@@ -79,6 +80,7 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 		w.centroidMark(a.Centroid)
 	}
 	height := w.label(d, a, hang, unit, width, drawMargin+size.Y+drawMargin)
+	w.printf(`</g>`)
 
 	var out strings.Builder
 	fmt.Fprintf(&out, `<?xml version="1.0" encoding="UTF-8"?>
@@ -89,6 +91,10 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 	out.WriteString("</svg>\n")
 	return []byte(out.String()), nil
 }
+
+// marksAttr tags the groups of a drawn part that are not its metal (overlay tints, holes, the balance
+// point, the plumb line, labels), so that ReadSVG reads a drawing written by WriteSVG back as the part.
+const marksAttr = `data-plumb="marks"`
 
 // svgWriter collects the drawing's elements, mapping document coordinates to paper.
 type svgWriter struct {

@@ -150,3 +150,34 @@ func TestPathData(t *testing.T) {
 		}
 	}
 }
+
+// TestWriteSVGReadsBack checks that a drawing written by WriteSVG reads back as the same metal: the
+// marks group (doubler tint, hole, plumb line, balance point, labels) is skipped with a warning.
+func TestWriteSVGReadsBack(t *testing.T) {
+	d := drawingPlate("mm")
+	a, err := Analyze(d, AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	h, err := HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, HangOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := WriteSVG(d, a, h)
+	if err != nil {
+		t.Fatal(err)
+	}
+	back, warnings, err := ReadSVG(out, SVGOptions{})
+	if err != nil {
+		t.Fatalf("ReadSVG of WriteSVG's output: %v", err)
+	}
+	if len(warnings) == 0 || !strings.Contains(strings.Join(warnings, "\n"), "marks") {
+		t.Errorf("warnings %q do not say the marks were skipped", warnings)
+	}
+	// 200 × 100 minus a circle of radius 20: area 20000 − 400π (rectangle and circle areas).
+	want := 20000 - 400*math.Pi
+	got := back.Body().IntegratePoly(geom.ConstPoly(1)).M
+	if math.Abs(got-want) > 1e-6*want {
+		t.Errorf("area read back %.9g mm², want %.9g", got, want)
+	}
+}
