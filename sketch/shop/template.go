@@ -67,18 +67,19 @@ func windowSize(p Paper) (w, h float64) {
 }
 
 // Plan lays a drawing whose extent is given in mm (y up) over pages of the paper, upright or turned,
-// whichever needs fewer pages (upright on a tie), the drawing centred on the grid. Overlap must be less
-// than half the smaller window side.
-func Plan(extent geom.Rect, paper Paper, overlap float64) Layout {
-	up := plan(extent, paper, false, overlap)
-	turned := plan(extent, paper.landscape(), true, overlap)
+// whichever needs fewer pages (upright on a tie). The drawing sits centred on the grid, or shifted
+// within the grid's spare paper so that no cut line crosses the rectangles to keep whole (the holes to
+// drill), where that is possible. Overlap must be less than half the smaller window side.
+func Plan(extent geom.Rect, paper Paper, overlap float64, keepWhole ...geom.Rect) Layout {
+	up := plan(extent, paper, false, overlap, keepWhole)
+	turned := plan(extent, paper.landscape(), true, overlap, keepWhole)
 	if len(turned.Tiles) < len(up.Tiles) {
 		return turned
 	}
 	return up
 }
 
-func plan(e geom.Rect, p Paper, landscape bool, overlap float64) Layout {
+func plan(e geom.Rect, p Paper, landscape bool, overlap float64, keep []geom.Rect) Layout {
 	ww, wh := windowSize(p)
 	if overlap < 0 || 2*overlap >= math.Min(ww, wh) {
 		panic(fmt.Sprintf("shop: overlap %g mm does not fit a %g × %g mm window", overlap, ww, wh))
@@ -86,8 +87,14 @@ func plan(e geom.Rect, p Paper, landscape bool, overlap float64) Layout {
 	size := e.Size()
 	cols, rows := tileCount(size.X, ww, overlap), tileCount(size.Y, wh, overlap)
 	stepX, stepY := ww-overlap, wh-overlap
-	x0 := e.Min.X - (float64(cols)*stepX+overlap-size.X)/2
-	top := e.Max.Y + (float64(rows)*stepY+overlap-size.Y)/2
+	// Along y the grid runs down from its top: plan it on the mirrored axis.
+	spansX, spansY := make([][2]float64, len(keep)), make([][2]float64, len(keep))
+	for i, k := range keep {
+		spansX[i] = [2]float64{k.Min.X, k.Max.X}
+		spansY[i] = [2]float64{-k.Max.Y, -k.Min.Y}
+	}
+	x0 := gridStart(e.Min.X, e.Max.X, cols, stepX, overlap, spansX)
+	top := -gridStart(-e.Max.Y, -e.Min.Y, rows, stepY, overlap, spansY)
 	l := Layout{Paper: p, Landscape: landscape, Cols: cols, Rows: rows, Overlap: overlap, Cover: cols*rows > 1}
 	page := 1
 	if l.Cover {
@@ -106,6 +113,34 @@ func plan(e geom.Rect, p Paper, landscape bool, overlap float64) Layout {
 		}
 	}
 	return l
+}
+
+// gridStart returns where a grid of n windows, each step past the last and overlap longer, starts
+// along one axis to cover [lo, hi]: centred, or moved by as little as possible within the spare length
+// so that no cut line (start + k·step, k = 1 … n−1) falls inside a span to keep whole.
+func gridStart(lo, hi float64, n int, step, overlap float64, keep [][2]float64) float64 {
+	spare := float64(n)*step + overlap - (hi - lo)
+	centred := lo - spare/2
+	clear := func(start float64) bool {
+		for k := 1; k < n; k++ {
+			cut := start + float64(k)*step
+			for _, s := range keep {
+				if cut > s[0] && cut < s[1] {
+					return false
+				}
+			}
+		}
+		return true
+	}
+	const stepMM = 0.5
+	for d := 0.0; d <= spare/2; d += stepMM {
+		for _, start := range []float64{centred - d, centred + d} {
+			if clear(start) {
+				return start
+			}
+		}
+	}
+	return centred
 }
 
 // tileCount is the number of windows of size win, overlapping by overlap, needed to cover size.
@@ -138,7 +173,7 @@ func Template(w io.Writer, p Part, opt TemplateOptions) error {
 		return fmt.Errorf("overlap %g mm: must be between 0 and %g mm on %s", overlap, math.Min(ww, wh)/2, paper.Name)
 	}
 	d := newDrawing(p, f)
-	lay := Plan(d.extent(), paper, overlap)
+	lay := d.layout(paper, overlap)
 	s := newSheet(lay.Paper, f.name+" — drilling template")
 	if lay.Cover {
 		s.AddPage()
@@ -245,6 +280,17 @@ func edgeDistance(b geom.Boundary, p, dir geom.Point) float64 {
 		return lo
 	}
 	return hi
+}
+
+// layout plans the pages, keeping each hole and its cross clear of the cut lines where it can.
+func (d *drawing) layout(paper Paper, overlap float64) Layout {
+	var keep []geom.Rect
+	for _, h := range d.holes {
+		r := h.dia/2*d.mm + 8 // mm: the circle and the cross's arms
+		c := h.at.Mul(d.mm)
+		keep = append(keep, geom.Rect{Min: c.Sub(geom.Pt(r, r)), Max: c.Add(geom.Pt(r, r))})
+	}
+	return Plan(d.extent(), paper, overlap, keep...)
 }
 
 // extent is the drawing's bounding box in mm, marks included.

@@ -110,6 +110,38 @@ func TestPlanTiles(t *testing.T) {
 	}
 }
 
+func TestPlanKeepsHolesWhole(t *testing.T) {
+	// A 600 × 400 mm drawing on A4 takes 4 × 2 windows of 190 × 233 mm, 175 mm apart across (115 mm to
+	// spare) and 218 mm down (51 mm to spare). Centred, the cuts fall at x = 117.5 mm and y = 207.5 mm;
+	// a hole box across either moves the grid, whichever way is needed.
+	a4, _ := PaperSize("A4")
+	extent := geom.Rect{Max: geom.Pt(600, 400)}
+	centred := Plan(extent, a4, DefaultOverlap)
+	cut := centred.Tiles[1].Window.Min.X
+	for _, keep := range []geom.Rect{
+		{Min: geom.Pt(cut-10, 300), Max: geom.Pt(cut+4, 320)},
+		{Min: geom.Pt(cut-4, 300), Max: geom.Pt(cut+10, 320)},
+		{Min: geom.Pt(300, 190), Max: geom.Pt(320, 240)}, // across the horizontal cut too
+	} {
+		l := Plan(extent, a4, DefaultOverlap, keep)
+		if l.Cols != centred.Cols || l.Rows != centred.Rows {
+			t.Fatalf("keep %v: %d × %d pages, want %d × %d", keep, l.Cols, l.Rows, centred.Cols, centred.Rows)
+		}
+		grid := l.Tiles[0].Window.Union(l.Tiles[len(l.Tiles)-1].Window)
+		if grid.Min.X > 0 || grid.Min.Y > 0 || grid.Max.X < 600 || grid.Max.Y < 400 {
+			t.Errorf("keep %v: grid %v no longer covers the drawing", keep, grid)
+		}
+		for _, tile := range l.Tiles {
+			if x := tile.Window.Min.X; tile.Col > 0 && x > keep.Min.X && x < keep.Max.X {
+				t.Errorf("keep %v: the cut at x = %g crosses it", keep, x)
+			}
+			if y := tile.Window.Max.Y; tile.Row > 0 && y > keep.Min.Y && y < keep.Max.Y {
+				t.Errorf("keep %v: the cut at y = %g crosses it", keep, y)
+			}
+		}
+	}
+}
+
 // renderTemplate writes the template of p to memory.
 func renderTemplate(t *testing.T, p Part, opt TemplateOptions) []byte {
 	t.Helper()
@@ -170,7 +202,7 @@ func TestTemplateHolePosition(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			data := renderTemplate(t, c.part, TemplateOptions{})
 			pages := pdfPages(t, data)
-			lay := Plan(newDrawing(c.part, mustFacts(t, c.part)).extent(), Papers()[0], DefaultOverlap)
+			lay := newDrawing(c.part, mustFacts(t, c.part)).layout(Papers()[0], DefaultOverlap)
 			mm := c.at.Mul(c.mm)
 			seen := 0
 			for _, tile := range lay.Tiles {
@@ -198,7 +230,7 @@ func TestAlignmentMarks(t *testing.T) {
 	// through each page's offset they coincide, on the cut line.
 	p := hungPart(t, bladeSign(), geom.Pt(300, 330), 10)
 	pages := pdfPages(t, renderTemplate(t, p, TemplateOptions{}))
-	lay := Plan(newDrawing(p, mustFacts(t, p)).extent(), Papers()[0], DefaultOverlap)
+	lay := newDrawing(p, mustFacts(t, p)).layout(Papers()[0], DefaultOverlap)
 	frame := func(tile Tile) []geom.Point {
 		var out []geom.Point
 		for _, c := range crosses(pages[tile.Page-1]) {
