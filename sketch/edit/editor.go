@@ -1,6 +1,7 @@
 package edit
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 
@@ -238,9 +239,33 @@ func docBounds(d *sketch.Document) geom.Rect {
 func (e *Editor) commit(nd *sketch.Document) {
 	e.undo = append(e.undo, e.doc)
 	e.redo = nil
+	e.setDoc(nd)
+}
+
+// setDoc makes nd the current document. When its length unit differs from the current one, the
+// view, the hole diameter and the corner radius are rescaled so that they keep their real size.
+func (e *Editor) setDoc(nd *sketch.Document) {
+	if k, ok := unitRatio(e.doc.Units, nd.Units); ok && k != 1 {
+		e.holeDia *= k
+		e.cornerRadius *= k
+		e.View.Scale /= k
+	}
 	e.doc = nd
 	e.rev++
 	e.validateSelection()
+}
+
+// unitRatio returns how many of the unit named to make one of the unit named from ("" is mm).
+func unitRatio(from, to string) (float64, bool) {
+	a, err := density.LengthUnit(cmp.Or(from, "mm"))
+	if err != nil {
+		return 0, false
+	}
+	b, err := density.LengthUnit(cmp.Or(to, "mm"))
+	if err != nil {
+		return 0, false
+	}
+	return a.MM / b.MM, true
 }
 
 // CanUndo and CanRedo report whether there is a step to undo or redo.
@@ -259,10 +284,9 @@ func (e *Editor) Undo() bool {
 		return false
 	}
 	e.redo = append(e.redo, e.doc)
-	e.doc = e.undo[len(e.undo)-1]
+	prev := e.undo[len(e.undo)-1]
 	e.undo = e.undo[:len(e.undo)-1]
-	e.rev++
-	e.validateSelection()
+	e.setDoc(prev)
 	return true
 }
 
@@ -273,10 +297,9 @@ func (e *Editor) Redo() bool {
 		return false
 	}
 	e.undo = append(e.undo, e.doc)
-	e.doc = e.redo[len(e.redo)-1]
+	next := e.redo[len(e.redo)-1]
 	e.redo = e.redo[:len(e.redo)-1]
-	e.rev++
-	e.validateSelection()
+	e.setDoc(next)
 	return true
 }
 
@@ -315,28 +338,20 @@ func (e *Editor) SetMaterial(spec density.Spec) {
 // are rescaled so that the part keeps its real size, and the view so that it stays where it is.
 // A density formula written in x and y keeps its text: it now reads coordinates in the new unit.
 func (e *Editor) SetUnits(name string) error {
-	to, err := density.LengthUnit(name)
-	if err != nil {
+	k, ok := unitRatio(e.doc.Units, name)
+	if !ok {
+		_, err := density.LengthUnit(name)
+		if err == nil {
+			err = fmt.Errorf("the part's unit %q is unknown", e.doc.Units)
+		}
 		return err
 	}
-	fromName := e.doc.Units
-	if fromName == "" {
-		fromName = "mm"
-	}
-	from, err := density.LengthUnit(fromName)
-	if err != nil {
-		return err
-	}
-	if from.MM == to.MM && e.doc.Units == name {
+	if cmp.Or(e.doc.Units, "mm") == name {
 		return nil
 	}
-	k := from.MM / to.MM
 	nd := Clone(e.doc)
 	nd.Units = name
 	transformDoc(nd, geom.Scale(k, k))
 	e.commit(nd)
-	e.holeDia *= k
-	e.cornerRadius *= k
-	e.View.Scale /= k
 	return nil
 }

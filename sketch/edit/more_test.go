@@ -194,3 +194,23 @@ func TestFitKeepsClearOfInsets(t *testing.T) {
 		t.Fatalf("part shown from %v to %v, inside the insets", lo, hi)
 	}
 }
+
+func TestUndoingAUnitChangeKeepsThePictureStill(t *testing.T) {
+	e := newTestEditor()
+	drawRect(e, geom.Pt(0, 0), geom.Pt(100, 60))
+	corner := e.View.ToScreen(geom.Pt(100, 60))
+	if err := e.SetUnits("in"); err != nil {
+		t.Fatal(err)
+	}
+	e.Undo()
+	if got := e.View.ToScreen(geom.Pt(100, 60)); e.Document().Units != "mm" || !near(got, corner, 1e-9) {
+		t.Fatalf("after undo: units %q, corner on screen at %v, want %v", e.Document().Units, got, corner)
+	}
+	if e.HoleDiameter() != defaultHoleMM {
+		t.Fatalf("hole diameter %g mm after the round trip", e.HoleDiameter())
+	}
+	e.Redo()
+	if got := e.View.ToScreen(geom.Pt(100/25.4, 60/25.4)); !near(got, corner, 1e-9) {
+		t.Fatalf("after redo the corner is at %v, want %v", got, corner)
+	}
+}
