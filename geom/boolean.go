@@ -26,11 +26,6 @@ func Difference(base Region, cuts ...Region) Boundary {
 // within the tolerance of the piece, near enough to stay inside all but hairline features.
 const sideTolerance = 64
 
-// probeAt is where along a piece (as a fraction of its parameter interval) Combine probes its sides:
-// off the middle, because symmetric drawings (a hole touching the middle of an edge) put tangent
-// contacts there, where a probe could land across the other curve.
-const probeAt = 0.4142
-
 // Combine returns the boundary of {p : keep(in)}, where in[i] reports whether p lies in regions[i]
 // (each by its own fill rule); keep must be false when all in[i] are false.
 //
@@ -218,18 +213,17 @@ func (c *classifier) pieces(i int, ts []float64, dst []keptPiece) []keptPiece {
 // piece appends the part of mono i over [u0, u1] (from q0 to q1) if keep differs on its two sides,
 // with the kept side on its left.
 //
-// The probes lie a distance h beside the point "mid" at probeAt, along the normal n = (−T.y, T.x)/|T| to the tangent
+// The probes lie a distance h beside the point "mid" chosen by probe, along the normal n = (−T.y, T.x)/|T| to the tangent
 // T. The piece's own crossing of the probe's ray needs no root: to first order in h the piece meets
 // the horizontal through the left probe at x − x_mid = h·T.x²/(T.y·|T|), right of the probe
 // (at −h·T.y/|T|) exactly when T.y > 0, an upward crossing; the right probe is mirrored.
 func (c *classifier) piece(i int, u0, u1 float64, q0, q1 Point, dst []keptPiece) []keptPiece {
 	m := &c.ms[i]
-	um := u0 + probeAt*(u1-u0)
+	um, side := c.probe(i, u0, u1, q0, q1, math.Max(math.Min(c.side, q0.Dist(q1)/4), 2*c.tol))
 	mid, tan := m.s.At(um), m.s.Deriv(um)
 	if tan.Norm() == 0 {
 		tan = q1.Sub(q0) // a cusp at the probe
 	}
-	side := math.Max(math.Min(c.side, q0.Dist(q1)/4), 2*c.tol)
 	n := Point{-tan.Y, tan.X}.Mul(side / tan.Norm())
 	up, down := 0, 0
 	if tan.Y > 0 {
@@ -249,6 +243,53 @@ func (c *classifier) piece(i int, u0, u1 float64, q0, q1 Point, dst []keptPiece)
 		s = s.Reverse()
 	}
 	return append(dst, keptPiece{s, mid})
+}
+
+// probe returns the parameter on piece [u0, u1] of mono i (from q0 to q1) beside which to probe, and
+// how far: the first place, in a fixed order of preference, where no other curve comes within side of
+// the piece, except one running along the whole piece (a shared edge); failing that, the place with
+// the most room, probed at half of it (but at least twice the tolerance). Off the middle comes first,
+// because symmetric drawings (a hole touching the middle of an edge) put tangent contacts there. A
+// curve closer than the probe distance would put a probe across it: a sliver between the piece and a
+// curve touching or running close beside it.
+func (c *classifier) probe(i int, u0, u1 float64, q0, q1 Point, side float64) (float64, float64) {
+	fractions := [...]float64{0.4142, 0.7071, 0.2071, 0.8536, 0.5, 0.1}
+	best, room := u0+fractions[0]*(u1-u0), -1.0
+	for _, f := range fractions {
+		u := u0 + f*(u1-u0)
+		r := c.clearance(i, c.ms[i].s.At(u), q0, q1, side)
+		if r >= side {
+			return u, side
+		}
+		if r > room {
+			best, room = u, r
+		}
+	}
+	return best, math.Max(room/2, 2*c.tol)
+}
+
+// clearance returns the distance from p, on the piece of mono i from q0 to q1, to the nearest other
+// mono within limit of p, not counting monos that pass within the tolerance of p, q0 and q1 (running
+// along the piece); limit if there is none.
+func (c *classifier) clearance(i int, p, q0, q1 Point, limit float64) float64 {
+	r := limit
+	near := Rect{p.Sub(Pt(limit, limit)), p.Add(Pt(limit, limit))}
+	on := func(m *mono, q Point) bool {
+		_, d := nearest(m.s, m.t0, m.t1, q)
+		return d <= c.tol
+	}
+	for _, y := range [2]float64{p.Y - limit, p.Y + limit} {
+		for _, k := range c.index.at(y) {
+			m := &c.ms[k]
+			if int(k) == i || !boxesMeet(m.box, near, 0) {
+				continue
+			}
+			if _, d := nearest(m.s, m.t0, m.t1, p); d < r && (d > c.tol || !on(m, q0) || !on(m, q1)) {
+				r = d
+			}
+		}
+	}
+	return r
 }
 
 // kept reports whether keep holds at p, a probe beside mono own whose crossing of p's ray, if p is

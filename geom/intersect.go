@@ -149,7 +149,7 @@ func (ms monos) intersect(i, j int, tol float64, dst []hit) []hit {
 	n := len(dst)
 	dst = ms.endHits(i, j, tol, dst)
 	dst = ms.endHits(j, i, tol, dst)
-	if len(dst)-n >= 2 && ms.overlap(dst[n:], tol) {
+	if len(dst)-n >= 2 && ms.overlap(i, j, dst[n:], tol) {
 		return dst
 	}
 	m := len(dst)
@@ -169,22 +169,33 @@ func (ms monos) intersect(i, j int, tol float64, dst []hit) []hit {
 	return ms.dropNearJoint(i, j, dst, m)
 }
 
-// dropNearJoint removes from dst[from:] the crossings that pieces i and j, when consecutive in a loop,
-// report near their shared vertex: where consecutive curves meet tangentially the solvers return
-// points scattered along the contact. Crossings farther than a thousandth of the shorter piece from
-// the vertex are kept (a curve turning back onto its neighbour).
-func (ms monos) dropNearJoint(i, j int, dst []hit, from int) []hit {
+// jointGap is the part of a piece, next to the vertex it shares with the next piece of its loop, within
+// which crossings of the two are not looked for: where consecutive curves meet tangentially, the
+// solvers would return points scattered along the contact (and subdivision would crawl along it).
+// Only a curve turning back onto its neighbour within this gap is missed.
+const jointGap = 1e-3
+
+// joint returns the vertex pieces i and j share as consecutive pieces of a loop.
+func (ms monos) joint(i, j int) (Point, bool) {
 	a, b := &ms[i], &ms[j]
-	var joint Point
 	switch {
 	case a.b == b.a:
-		joint = a.b
+		return a.b, true
 	case b.b == a.a:
-		joint = a.a
-	default:
+		return a.a, true
+	}
+	return Point{}, false
+}
+
+// dropNearJoint removes from dst[from:] the crossings of pieces i and j within jointGap of the shorter
+// piece from their shared vertex, if they have one.
+func (ms monos) dropNearJoint(i, j int, dst []hit, from int) []hit {
+	joint, ok := ms.joint(i, j)
+	if !ok {
 		return dst
 	}
-	near := 1e-3 * math.Min(a.a.Dist(a.b), b.a.Dist(b.b))
+	a, b := &ms[i], &ms[j]
+	near := jointGap * math.Min(a.a.Dist(a.b), b.a.Dist(b.b))
 	k := from
 	for _, h := range dst[from:] {
 		if a.s.At(h.ti).Dist(joint) > near {
@@ -219,26 +230,32 @@ func (ms monos) endHits(i, j int, tol float64, dst []hit) []hit {
 	return dst
 }
 
-// overlap reports whether, between two of the end hits hs, the pieces run along one another: the
-// points of one piece at two places between two hits on it (golden-section fractions, so that the
-// test does not land on a crossing of symmetric curves) lie on the other.
-func (ms monos) overlap(hs []hit, tol float64) bool {
+// overlap reports whether, between two of the end hits hs of pieces i and j, the pieces run along one
+// another: the points of piece i at two places between the hits (golden-section fractions, so that the
+// test does not land on a crossing of symmetric curves) lie on piece j.
+func (ms monos) overlap(i, j int, hs []hit, tol float64) bool {
+	a, b := &ms[i], &ms[j]
+	on := func(t float64) bool {
+		_, d := nearest(b.s, b.t0, b.t1, a.s.At(t))
+		return d <= tol
+	}
 	for k, h := range hs {
-		a, b := &ms[h.i], &ms[h.j]
 		for _, g := range hs[k+1:] {
-			if g.i != h.i || a.s.At(h.ti).Dist(a.s.At(g.ti)) <= tol {
-				continue
-			}
-			on := func(f float64) bool {
-				_, d := nearest(b.s, b.t0, b.t1, a.s.At(h.ti+f*(g.ti-h.ti)))
-				return d <= tol
-			}
-			if on(0.381966) && on(0.618034) {
+			th, tg := h.paramOn(i), g.paramOn(i)
+			if a.s.At(th).Dist(a.s.At(tg)) > tol && on(th+0.381966*(tg-th)) && on(th+0.618034*(tg-th)) {
 				return true
 			}
 		}
 	}
 	return false
+}
+
+// paramOn returns h's parameter on piece i, one of its two pieces.
+func (h hit) paramOn(i int) float64 {
+	if h.i == i {
+		return h.ti
+	}
+	return h.tj
 }
 
 // together reports whether piece i, halfway between its parameters t1 and t2, lies within tol of
@@ -313,8 +330,11 @@ type subdivision struct {
 // crossings appends the crossings of the whole pieces; more than maxCrossings mean the curves run
 // together within tol, and then there are none (the end hits bound the common stretch).
 func (sd *subdivision) crossings(dst []hit) []hit {
-	a, b := &sd.ms[sd.i], &sd.ms[sd.j]
-	dst = sd.run(span{a.t0, a.t1, a.a, a.b}, span{b.t0, b.t1, b.a, b.b}, 0, dst)
+	joint, ok := sd.ms.joint(sd.i, sd.j)
+	if !ok {
+		joint = Pt(math.NaN(), math.NaN())
+	}
+	dst = sd.run(sd.ms[sd.i].awayFrom(joint), sd.ms[sd.j].awayFrom(joint), 0, dst)
 	if len(dst)-sd.from > maxCrossings {
 		return dst[:sd.from]
 	}
@@ -326,7 +346,7 @@ func (sd *subdivision) crossings(dst []hit) []hit {
 // method finds the crossing from their midpoints.
 func (sd *subdivision) run(a, b span, depth int, dst []hit) []hit {
 	ra, rb := RectFromPoints(a.p0, a.p1), RectFromPoints(b.p0, b.p1)
-	if !boxesMeet(ra, rb, sd.tol) || len(dst)-sd.from > maxCrossings {
+	if !boxesMeet(ra, rb, sd.tol) || len(dst)-sd.from > maxCrossings || sd.apart(a, b) {
 		return dst
 	}
 	sa, sb := ra.Size().Norm(), rb.Size().Norm()
@@ -341,11 +361,88 @@ func (sd *subdivision) run(a, b span, depth int, dst []hit) []hit {
 	return sd.run(a, r, depth+1, sd.run(a, l, depth+1, dst))
 }
 
+// apart reports whether spans a and b cannot meet because their chords are farther apart than the
+// spans stray from them: along a tangent contact the boxes keep overlapping, but the curves, flatter
+// at each halving, part from each other.
+func (sd *subdivision) apart(a, b span) bool {
+	da := a.deviation(sd.ms[sd.i].s)
+	db := b.deviation(sd.ms[sd.j].s)
+	return chordGap(a.p0, a.p1, b.p0, b.p1) > da+db+sd.tol
+}
+
+// deviation bounds the distance of s over the span from the span's chord: by the convex hull of the
+// sub-curve's control points for a Bézier; for an arc of angle Δθ ≤ π, by the sagitta 1 − cos(Δθ/2) of
+// the unit circle scaled by the larger radius (the ellipse is the circle's image under a map that
+// stretches distances by at most that).
+func (sp span) deviation(s Segment) float64 {
+	switch s.Kind {
+	case KindLine:
+		return 0
+	case KindArc:
+		return math.Max(s.RX, s.RY) * (1 - math.Cos(math.Abs(s.Sweep)*(sp.t1-sp.t0)/2))
+	}
+	c := s.Sub(sp.t0, sp.t1)
+	d := 0.0
+	for _, p := range c.P[1:s.Degree()] {
+		d = math.Max(d, pointSegmentDistance(p, sp.p0, sp.p1))
+	}
+	return d + c.P[0].Dist(sp.p0) + c.End().Dist(sp.p1)
+}
+
+// chordGap returns the distance between the segments a0a1 and b0b1 (0 if they cross).
+func chordGap(a0, a1, b0, b1 Point) float64 {
+	ea, eb := a1.Sub(a0), b1.Sub(b0)
+	if ea.Cross(b0.Sub(a0))*ea.Cross(b1.Sub(a0)) < 0 && eb.Cross(a0.Sub(b0))*eb.Cross(a1.Sub(b0)) < 0 {
+		return 0
+	}
+	return math.Min(math.Min(pointSegmentDistance(a0, b0, b1), pointSegmentDistance(a1, b0, b1)),
+		math.Min(pointSegmentDistance(b0, a0, a1), pointSegmentDistance(b1, a0, a1)))
+}
+
+// pointSegmentDistance returns the distance from p to the segment ab.
+func pointSegmentDistance(p, a, b Point) float64 {
+	e := b.Sub(a)
+	t := 0.0
+	if l := e.Dot(e); l > 0 {
+		t = math.Min(math.Max(p.Sub(a).Dot(e)/l, 0), 1)
+	}
+	return p.Dist(a.Add(e.Mul(t)))
+}
+
+// awayFrom returns the span of m without the part within jointGap of an end at p.
+func (m *mono) awayFrom(p Point) span {
+	sp := span{m.t0, m.t1, m.a, m.b}
+	gap := jointGap * (m.t1 - m.t0)
+	if m.a == p {
+		sp.t0 += gap
+		sp.p0 = m.s.At(sp.t0)
+	}
+	if m.b == p {
+		sp.t1 -= gap
+		sp.p1 = m.s.At(sp.t1)
+	}
+	return sp
+}
+
 // halves splits the span of s at its parameter midpoint.
 func (sp span) halves(s Segment) (span, span) {
 	tm := (sp.t0 + sp.t1) / 2
 	pm := s.At(tm)
 	return span{sp.t0, tm, sp.p0, pm}, span{tm, sp.t1, pm, sp.p1}
+}
+
+// near reports whether a hit of the pair already found lies within a leaf of span a: along a
+// tangent contact the spans around it keep meeting, and each would only find it again.
+func (sd *subdivision) near(a span, dst []hit) bool {
+	r := RectFromPoints(a.p0, a.p1)
+	r = Rect{r.Min.Sub(Pt(sd.leaf, sd.leaf)), r.Max.Add(Pt(sd.leaf, sd.leaf))}
+	for _, h := range dst[sd.first:] {
+		q := sd.ms[h.i].s.At(h.ti)
+		if r.Contains(q) {
+			return true
+		}
+	}
+	return false
 }
 
 // newton iterates Newton's method for A(s) = B(u) from (s, u), keeping s and u within the pieces,
@@ -381,6 +478,9 @@ const maxNewton = 64
 // contact, and crossings between which the curves keep together count as one. Each step solves A'(s)·Δs − B'(u)·Δu = B(u) − A(s) by Cramer's rule.
 func (sd *subdivision) polish(a, b span, dst []hit) []hit {
 	ma, mb := &sd.ms[sd.i], &sd.ms[sd.j]
+	if sd.near(a, dst) {
+		return dst
+	}
 	s, u := sd.newton((a.t0+a.t1)/2, (b.t0+b.t1)/2)
 	if ma.s.At(s).Dist(mb.s.At(u)) > sd.leaf {
 		return dst
@@ -398,11 +498,7 @@ func (sd *subdivision) polish(a, b span, dst []hit) []hit {
 		return dst
 	}
 	for _, h := range dst[sd.first:] {
-		ti := h.ti
-		if h.i != sd.i {
-			ti = h.tj // an end hit of piece j on piece i
-		}
-		if sd.ms.together(sd.i, s, ti, sd.j, sd.tol) {
+		if sd.ms.together(sd.i, s, h.paramOn(sd.i), sd.j, sd.tol) {
 			return dst
 		}
 	}
