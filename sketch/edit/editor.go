@@ -108,7 +108,6 @@ type Editor struct {
 
 	sel     Selection
 	hover   Selection
-	cursor  geom.Point // screen
 	snap    Snap
 	drag    *drag
 	draw    drawing

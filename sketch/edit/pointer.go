@@ -56,7 +56,6 @@ func (e *Editor) Dragging() bool { return e.drag != nil && e.drag.moved && !e.dr
 
 // PointerMove handles the pointer moving to the screen position s, pressed or not.
 func (e *Editor) PointerMove(s geom.Point, m Mods) {
-	e.cursor = s
 	if d := e.drag; d != nil {
 		e.dragTo(d, s, m)
 		return
@@ -77,7 +76,6 @@ func (e *Editor) PointerMove(s geom.Point, m Mods) {
 
 // PointerDown handles a press of the primary button (or a touch) at the screen position s.
 func (e *Editor) PointerDown(s geom.Point, m Mods) {
-	e.cursor = s
 	e.message = ""
 	switch e.tool {
 	case ToolSelect:

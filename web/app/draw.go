@@ -456,7 +456,11 @@ func (fr *frame) measure() {
 		return
 	}
 	a, b := fr.screen(m.A), fr.screen(m.B)
-	fr.p.line(a, b, 1.5*fr.u, colInk)
+	if m.InProgress {
+		fr.p.dashed([]geom.Point{a, b}, 1.5*fr.u, 6*fr.u, 4*fr.u, colInk)
+	} else {
+		fr.p.line(a, b, 1.5*fr.u, colInk)
+	}
 	if d := b.Sub(a); d.Norm() > 0 {
 		n := geom.Pt(-d.Y, d.X).Mul(6 * fr.u / d.Norm())
 		fr.p.line(a.Sub(n), a.Add(n), 1.5*fr.u, colInk)
