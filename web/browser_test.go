@@ -38,12 +38,14 @@ import (
 // chromiumPath is where Debian's chromium package installs the browser.
 const chromiumPath = "/usr/bin/chromium"
 
-// built is the page that TestMain builds once for all tests.
+// built is the page that TestMain builds once for all tests, and the one Chromium they share; each
+// test gets its own browser context (its own storage) in it.
 var built struct {
-	url  string // file:// address of the page
-	size int    // bytes
-	skip string // why the browser tests cannot run
-	err  error  // the build failed
+	url     string          // file:// address of the page
+	size    int             // bytes
+	skip    string          // why the browser tests cannot run
+	err     error           // the build or the browser's start failed
+	browser context.Context // the running Chromium
 }
 
 func TestMain(m *testing.M) {
@@ -74,30 +76,9 @@ func runBrowserTests(m *testing.M) int {
 		built.url = (&url.URL{Scheme: "file", Path: path}).String()
 		built.size = len(html)
 	}
-	built.err = err
-	return m.Run()
-}
-
-// browser is one fresh headless Chromium (its own profile, so its own local storage) with one tab.
-type browser struct {
-	t    *testing.T
-	ctx  context.Context // the test's actions, under its time limit
-	root context.Context // the browser's context, for the screenshot after a failure
-
-	mu       sync.Mutex
-	requests []string // every URL the page asked for
-	problems []string // exceptions, console errors, CSP reports
-}
-
-// newBrowser starts Chromium at 800×600 and stops it when the test ends; a failed test leaves a
-// screenshot behind.
-func newBrowser(t *testing.T) *browser {
-	t.Helper()
-	switch {
-	case built.skip != "":
-		t.Skip(built.skip)
-	case built.err != nil:
-		t.Fatalf("building the page: %v", built.err)
+	if err != nil {
+		built.err = err
+		return m.Run()
 	}
 	opts := []chromedp.ExecAllocatorOption{
 		chromedp.ExecPath(chromiumPath),
@@ -110,12 +91,43 @@ func newBrowser(t *testing.T) *browser {
 		chromedp.Flag("disable-component-update", true),
 		chromedp.Flag("disable-sync", true),
 		chromedp.Flag("disable-dev-shm-usage", true),
-		chromedp.UserDataDir(t.TempDir()),
+		chromedp.UserDataDir(filepath.Join(dir, "profile")),
 		chromedp.WindowSize(800, 600),
 	}
 	actx, cancelAlloc := chromedp.NewExecAllocator(context.Background(), opts...)
-	ctx, cancelCtx := chromedp.NewContext(actx)
-	t.Cleanup(cancelAlloc)
+	defer cancelAlloc()
+	bctx, cancelBrowser := chromedp.NewContext(actx)
+	defer cancelBrowser()
+	if err := chromedp.Do(bctx); err != nil {
+		built.err = fmt.Errorf("starting Chromium: %w", err)
+		return m.Run()
+	}
+	built.browser = bctx
+	return m.Run()
+}
+
+// browser is one tab in a fresh browser context (its own local storage) of the shared Chromium.
+type browser struct {
+	t    *testing.T
+	ctx  context.Context // the test's actions, under its time limit
+	root context.Context // the browser's context, for the screenshot after a failure
+
+	mu       sync.Mutex
+	requests []string // every URL the page asked for
+	problems []string // exceptions, console errors, CSP reports
+}
+
+// newBrowser opens a tab with an 800 × 600 page in a new browser context and closes both when the test
+// ends; a failed test leaves a screenshot behind.
+func newBrowser(t *testing.T) *browser {
+	t.Helper()
+	switch {
+	case built.skip != "":
+		t.Skip(built.skip)
+	case built.err != nil:
+		t.Fatalf("building the page: %v", built.err)
+	}
+	ctx, cancelCtx := chromedp.NewContext(built.browser, chromedp.WithNewBrowserContext())
 	t.Cleanup(cancelCtx)
 	b := &browser{t: t, ctx: ctx, root: ctx}
 	if err := chromedp.Listen(ctx, b.record); err != nil {
@@ -247,6 +259,16 @@ func (b *browser) waitFor(cond string) {
 	}
 }
 
+// typeInto types text into the input with the given id, replacing its selection, as one edit (as a
+// paste or an input method does: key by key takes a frame per key in software WebGL).
+func (b *browser) typeInto(id, text string) {
+	b.t.Helper()
+	eval[any](b, fmt.Sprintf(`document.getElementById(%q).focus()`, id))
+	if _, err := chromedp.Call(b.ctx, input.InsertText, input.InsertTextParams{Text: text}); err != nil {
+		b.t.Fatal(err)
+	}
+}
+
 // frames waits for n animation frames; the app updates once per frame.
 func (b *browser) frames(n int) {
 	b.t.Helper()
@@ -258,8 +280,9 @@ func (b *browser) frames(n int) {
 }
 
 // holdFrames is how long a button stays down or up: the app's input loop drops a press and a release
-// that fall in the same frame, and software WebGL runs at 5–20 frames a second.
-const holdFrames = 3
+// that fall in the same frame, and software WebGL runs at 5–20 frames a second (fewer on a busy
+// machine). A move needs only the next frame.
+const holdFrames = 2
 
 // mouse sends one mouse event with the left button (down while pressed is true) and waits for the app
 // to see it.
@@ -275,7 +298,11 @@ func (b *browser) mouse(typ input.DispatchMouseEventType, x, y float64, pressed 
 		}
 	}
 	b.do(chromedp.MouseEvent(typ, x, y, opt))
-	b.frames(holdFrames)
+	if typ == input.DispatchMouseEventTypeMouseMoved {
+		b.frames(1)
+	} else {
+		b.frames(holdFrames)
+	}
 }
 
 // drag presses the left button at (x0, y0), moves in steps to (x1, y1) and releases there.
@@ -403,6 +430,28 @@ func (b *browser) load(text, name string) {
 	b.frames(2)
 }
 
+// drop drops a file with the given text on the drawing, as a user drags one from the desktop, and
+// waits until the app has it.
+func (b *browser) drop(text, name string) {
+	b.t.Helper()
+	arg, _ := json.Marshal(text)
+	nameArg, _ := json.Marshal(name)
+	eval[any](b, fmt.Sprintf(`(() => {
+		const dt = new DataTransfer();
+		dt.items.add(new File([%s], %s));
+		const at = {bubbles: true, cancelable: true, dataTransfer: dt, clientX: 200, clientY: 300};
+		const canvas = document.querySelector("canvas");
+		canvas.dispatchEvent(new DragEvent("dragenter", at));
+		canvas.dispatchEvent(new DragEvent("dragover", at));
+		canvas.dispatchEvent(new DragEvent("drop", at));
+		return null;
+	})()`, arg, nameArg))
+	b.waitFor(fmt.Sprintf(`plumb.state().file === %s`, nameArg))
+	if msg := eval[string](b, `document.getElementById("toast").classList.contains("bad") ? document.getElementById("toast").textContent : ""`); msg != "" {
+		b.t.Fatalf("dropping %s: %s", name, msg)
+	}
+}
+
 // savedPart reads the app's part back as a document.
 func (b *browser) savedPart() *sketch.Document {
 	b.t.Helper()
@@ -455,7 +504,7 @@ func TestFormulaErrorShowsColumn(t *testing.T) {
 	b.open()
 	b.do(chromedp.Click(chromedp.CSS(`[data-mode="formula"]`)))
 	// "8 + * x": the operator at column 5 has no left operand (columns count characters from 1).
-	b.do(chromedp.SendKeys(chromedp.CSS(`#formula`), "8 + * x"))
+	b.typeInto("formula", "8 + * x")
 	b.waitFor(`document.getElementById("material-error").textContent !== ""`)
 	got := eval[struct {
 		Message string `json:"message"`
@@ -476,8 +525,8 @@ func TestFormulaErrorShowsColumn(t *testing.T) {
 		t.Errorf("message %q does not name column 5", got.Message)
 	}
 	// Finishing the formula clears the mark and uses it: 8.04 kg/m² is 3 mm of aluminium 5052.
-	eval[any](b, `document.getElementById("formula").value = ""`)
-	b.do(chromedp.SendKeys(chromedp.CSS(`#formula`), "8.04"))
+	eval[any](b, `document.getElementById("formula").select()`)
+	b.typeInto("formula", "8.04")
 	b.waitFor(`document.getElementById("material-error").textContent === ""`)
 	if msg := eval[string](b, `document.getElementById("material-error").textContent`); msg != "" {
 		t.Errorf("error %q stays after the formula was fixed", msg)
@@ -518,7 +567,7 @@ func TestSVGFilesMatchAnalyze(t *testing.T) {
 		}
 		want := sketch.Summarize(name, d, a)
 
-		b.load(string(data), name)
+		b.drop(string(data), name)
 		eval[any](b, `(plumb.setMaterial({material: "aluminium 5052", thickness: "3 mm"}), null)`)
 		got := b.state()
 		scale := math.Sqrt(want.Area)
