@@ -35,6 +35,7 @@ var shortcuts = []struct {
 	{"Delete", "Delete the selection (also Backspace)", func(e *Editor) { e.Delete() }},
 	{"Enter", "Use the typed value; close the outline", func(e *Editor) { e.enter() }},
 	{"Escape", "Cancel the shape being drawn; clear the selection", func(e *Editor) { e.escape() }},
+	{"Arrows", "Nudge the selection one grid step (Shift: ten)", nil},
 	{"Alt", "Hold while moving: no snapping", nil},
 	{"Space", "Hold and drag to pan (or drag with the middle button); wheel or pinch zooms", nil},
 }
@@ -76,6 +77,8 @@ func (e *Editor) Key(key string, m Mods) bool {
 		return e.Delete()
 	case key == "Z":
 		return e.Redo()
+	case strings.HasPrefix(key, "Arrow"):
+		return e.nudge(key, m)
 	}
 	for _, s := range shortcuts {
 		if s.run != nil && strings.EqualFold(s.key, key) && (len(key) > 1 || s.key == key) {
@@ -207,4 +210,23 @@ func (e *Editor) moveSelection(t typed) {
 	nd := Clone(e.doc)
 	apply(nd, p)
 	e.commit(nd)
+}
+
+// nudge moves the selection one grid step in the arrow's direction, ten with Shift.
+func (e *Editor) nudge(key string, m Mods) bool {
+	dir, ok := map[string]geom.Point{
+		"ArrowLeft": geom.Pt(-1, 0), "ArrowRight": geom.Pt(1, 0), "ArrowUp": geom.Pt(0, 1), "ArrowDown": geom.Pt(0, -1),
+	}[key]
+	if !ok || e.sel.Kind == SelNone || e.drag != nil {
+		return false
+	}
+	step := e.GridStep()
+	if m&ModShift != 0 {
+		step *= 10
+	}
+	anchor, apply, _ := e.mover(e.sel, e.snap.At)
+	nd := Clone(e.doc)
+	apply(nd, anchor.Add(dir.Mul(step)))
+	e.commit(nd)
+	return true
 }

@@ -214,3 +214,15 @@ func TestUndoingAUnitChangeKeepsThePictureStill(t *testing.T) {
 		t.Fatalf("after redo the corner is at %v, want %v", got, corner)
 	}
 }
+
+func TestArrowsNudgeTheSelection(t *testing.T) {
+	e := newTestEditor()
+	e.SetTool(ToolHole)
+	click(e, geom.Pt(50, 30))
+	e.Key("ArrowRight", 0)
+	e.Key("ArrowUp", ModShift)
+	// One grid step right (10 mm at this zoom) and ten up.
+	if h := e.Document().Holes[0]; !near(h.At, geom.Pt(60, 130), 1e-9) {
+		t.Fatalf("hole at %v, want (60,130)", h.At)
+	}
+}

@@ -31,6 +31,23 @@ var specialKeys = []struct {
 	{ebiten.KeyEscape, "Escape"},
 	{ebiten.KeyBackspace, "Backspace"},
 	{ebiten.KeyDelete, "Delete"},
+	{ebiten.KeyArrowLeft, "ArrowLeft"},
+	{ebiten.KeyArrowRight, "ArrowRight"},
+	{ebiten.KeyArrowUp, "ArrowUp"},
+	{ebiten.KeyArrowDown, "ArrowDown"},
+}
+
+// Key repeat for held keys, in ticks (60 a second): the first repeat after keyRepeatDelay, then one
+// every keyRepeatEvery.
+const (
+	keyRepeatDelay = 24
+	keyRepeatEvery = 4
+)
+
+// pressedOrRepeating reports whether k went down this tick or is held long enough to repeat.
+func pressedOrRepeating(k ebiten.Key) bool {
+	d := inpututil.KeyPressDuration(k)
+	return d == 1 || d > keyRepeatDelay && d%keyRepeatEvery == 0
 }
 
 func currentMods() edit.Mods {
@@ -151,7 +168,7 @@ func (g *Game) handleKeys(mods edit.Mods) {
 		g.ed.Key(string(r), mods)
 	}
 	for _, k := range specialKeys {
-		if inpututil.IsKeyJustPressed(k.key) {
+		if pressedOrRepeating(k.key) {
 			g.ed.Key(k.name, mods)
 		}
 	}
