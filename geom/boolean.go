@@ -255,9 +255,10 @@ func (c *classifier) piece(i int, u0, u1 float64, q0, q1 Point, dst []keptPiece)
 func (c *classifier) probe(i int, u0, u1 float64, q0, q1 Point, side float64) (float64, float64) {
 	fractions := [...]float64{0.4142, 0.7071, 0.2071, 0.8536, 0.5, 0.1}
 	best, room := u0+fractions[0]*(u1-u0), -1.0
+	piece := [3]Point{q0, c.ms[i].s.At((u0 + u1) / 2), q1}
 	for _, f := range fractions {
 		u := u0 + f*(u1-u0)
-		r := c.clearance(i, c.ms[i].s.At(u), q0, q1, side)
+		r := c.clearance(i, c.ms[i].s.At(u), piece, side)
 		if r >= side {
 			return u, side
 		}
@@ -268,15 +269,19 @@ func (c *classifier) probe(i int, u0, u1 float64, q0, q1 Point, side float64) (f
 	return best, math.Max(room/2, 2*c.tol)
 }
 
-// clearance returns the distance from p, on the piece of mono i from q0 to q1, to the nearest other
-// mono within limit of p, not counting monos that pass within the tolerance of p, q0 and q1 (running
-// along the piece); limit if there is none.
-func (c *classifier) clearance(i int, p, q0, q1 Point, limit float64) float64 {
+// clearance returns the distance from p, on a piece of mono i, to the nearest other mono within limit
+// of p, not counting monos that pass within the tolerance of p and of the piece's start, middle and
+// end (running along the piece); limit if there is none.
+func (c *classifier) clearance(i int, p Point, piece [3]Point, limit float64) float64 {
 	r := limit
 	near := Rect{p.Sub(Pt(limit, limit)), p.Add(Pt(limit, limit))}
-	on := func(m *mono, q Point) bool {
-		_, d := nearest(m.s, m.t0, m.t1, q)
-		return d <= c.tol
+	along := func(m *mono) bool {
+		for _, q := range piece {
+			if _, d := nearest(m.s, m.t0, m.t1, q); d > c.tol {
+				return false
+			}
+		}
+		return true
 	}
 	for _, y := range [2]float64{p.Y - limit, p.Y + limit} {
 		for _, k := range c.index.at(y) {
@@ -284,7 +289,7 @@ func (c *classifier) clearance(i int, p, q0, q1 Point, limit float64) float64 {
 			if int(k) == i || !boxesMeet(m.box, near, 0) {
 				continue
 			}
-			if _, d := nearest(m.s, m.t0, m.t1, p); d < r && (d > c.tol || !on(m, q0) || !on(m, q1)) {
+			if _, d := nearest(m.s, m.t0, m.t1, p); d < r && (d > c.tol || !along(m)) {
 				r = d
 			}
 		}
