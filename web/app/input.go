@@ -21,20 +21,22 @@ type inputState struct {
 	chars   []rune
 }
 
-// specialKeys are the keys the editor takes by name (KeyboardEvent.key spelling).
+// specialKeys are the keys the editor takes by name (KeyboardEvent.key spelling); the arrows and
+// Backspace repeat while held.
 var specialKeys = []struct {
-	key  ebiten.Key
-	name string
+	key    ebiten.Key
+	name   string
+	repeat bool
 }{
-	{ebiten.KeyEnter, "Enter"},
-	{ebiten.KeyNumpadEnter, "Enter"},
-	{ebiten.KeyEscape, "Escape"},
-	{ebiten.KeyBackspace, "Backspace"},
-	{ebiten.KeyDelete, "Delete"},
-	{ebiten.KeyArrowLeft, "ArrowLeft"},
-	{ebiten.KeyArrowRight, "ArrowRight"},
-	{ebiten.KeyArrowUp, "ArrowUp"},
-	{ebiten.KeyArrowDown, "ArrowDown"},
+	{ebiten.KeyEnter, "Enter", false},
+	{ebiten.KeyNumpadEnter, "Enter", false},
+	{ebiten.KeyEscape, "Escape", false},
+	{ebiten.KeyBackspace, "Backspace", true},
+	{ebiten.KeyDelete, "Delete", false},
+	{ebiten.KeyArrowLeft, "ArrowLeft", true},
+	{ebiten.KeyArrowRight, "ArrowRight", true},
+	{ebiten.KeyArrowUp, "ArrowUp", true},
+	{ebiten.KeyArrowDown, "ArrowDown", true},
 }
 
 // Key repeat for held keys, in ticks (60 a second): the first repeat after keyRepeatDelay, then one
@@ -44,10 +46,10 @@ const (
 	keyRepeatEvery = 4
 )
 
-// pressedOrRepeating reports whether k went down this tick or is held long enough to repeat.
-func pressedOrRepeating(k ebiten.Key) bool {
+// pressedOrRepeating reports whether k went down this tick or, if it repeats, is held long enough to.
+func pressedOrRepeating(k ebiten.Key, repeat bool) bool {
 	d := inpututil.KeyPressDuration(k)
-	return d == 1 || d > keyRepeatDelay && d%keyRepeatEvery == 0
+	return d == 1 || repeat && d > keyRepeatDelay && d%keyRepeatEvery == 0
 }
 
 func currentMods() edit.Mods {
@@ -168,7 +170,7 @@ func (g *Game) handleKeys(mods edit.Mods) {
 		g.ed.Key(string(r), mods)
 	}
 	for _, k := range specialKeys {
-		if pressedOrRepeating(k.key) {
+		if pressedOrRepeating(k.key, k.repeat) {
 			g.ed.Key(k.name, mods)
 		}
 	}
