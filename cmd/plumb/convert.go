@@ -23,6 +23,7 @@ func runConvert(args []string, stdout, stderr io.Writer) int {
 	var rf readingFlag
 	rf.register(fs)
 	out := fs.String("out", "", "output `path`: a file (one input), a directory, or - for standard output")
+	fs.StringVar(out, "o", "", "output `path` (same as --out)")
 	force := fs.Bool("force", false, "overwrite existing output files")
 	files, err := parseArgs(fs, args)
 	if err != nil {
