@@ -25,6 +25,7 @@ type Game struct {
 	in      inputState
 	fonts   fonts
 	needFit bool        // fit the part once the canvas has a size
+	autoFit bool        // the view is a fit the user has not panned or zoomed: it follows resizes
 	page    edit.Insets // canvas edges the page's toolbar and panel cover, device pixels
 
 	ready     bool // window.plumbUI.ready has been called
@@ -99,8 +100,15 @@ func (g *Game) Update() error {
 		callPage("ready")
 	}
 	g.mu.Lock()
-	g.page = pageInsets(g.dpr)
+	if page := pageInsets(g.dpr); page != g.page {
+		g.page = page
+		g.needFit = g.needFit || g.autoFit
+	}
+	view := g.ed.View
 	g.handleInput()
+	if g.ed.View != view {
+		g.autoFit = false
+	}
 	if g.needFit && g.w > 0 {
 		g.fit()
 	}
@@ -117,7 +125,7 @@ func (g *Game) Update() error {
 
 // fit shows the whole part clear of the page's panel and toolbar.
 func (g *Game) fit() {
-	g.needFit = false
+	g.needFit, g.autoFit = false, true
 	in := g.page
 	// The rulers, and the status line above the bottom one, are ours to keep clear as well.
 	in.Left += rulerLeft * g.dpr
@@ -143,6 +151,7 @@ func (g *Game) Layout(outsideWidth, outsideHeight int) (int, int) {
 		g.w, g.h, g.dpr = w, h, dpr
 		g.ed.PixelRatio = dpr
 		g.ed.Resize(float64(w), float64(h))
+		g.needFit = g.needFit || g.autoFit
 	}
 	return w, h
 }
