@@ -25,7 +25,7 @@ type Game struct {
 	in      inputState
 	fonts   fonts
 	needFit bool        // fit the part once the canvas has a size
-	autoFit bool        // the view is a fit the user has not panned or zoomed: it follows resizes
+	autoFit bool        // the view is a fit the user has not touched since: it follows resizes
 	page    edit.Insets // canvas edges the page's toolbar and panel cover, device pixels
 
 	ready     bool // window.plumbUI.ready has been called
@@ -104,10 +104,10 @@ func (g *Game) Update() error {
 		g.page = page
 		g.needFit = g.needFit || g.autoFit
 	}
-	view := g.ed.View
+	view, rev := g.ed.View, g.ed.Rev()
 	g.handleInput()
-	if g.ed.View != view {
-		g.autoFit = false
+	if g.ed.View != view || g.ed.Rev() != rev {
+		g.autoFit = false // the user has taken over: the picture stays where they put it
 	}
 	if g.needFit && g.w > 0 {
 		g.fit()
