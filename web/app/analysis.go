@@ -141,7 +141,7 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m["cautions"] = sketch.Cautions()
 	m["tool"], m["target"] = ed.Tool().String(), ed.Target().String()
 	m["arc"], m["can_undo"], m["can_redo"] = ed.ArcMode(), ed.CanUndo(), ed.CanRedo()
-	m["hole_diameter"] = ed.HoleDiameter()
+	m["hole_diameter"], m["corner_radius"] = ed.HoleDiameter(), ed.CornerRadius()
 	b, _ := json.Marshal(m)
 	return b
 }

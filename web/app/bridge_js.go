@@ -25,7 +25,8 @@ import (
 //	report() → string       the plain-text report with the cautions
 //	undo(), redo(), newPart(), fit()
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
-//	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d) → {ok, error}
+//	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
+//	setCornerRadius(r) (new rectangles, document units) → {ok, error}
 //	shortcuts() → [{key, action}]
 //
 // After every change it calls window.plumbUI.onChange(state, partJSON).
@@ -86,6 +87,16 @@ func installBridge(g *Game) {
 				return outcome(fmt.Errorf("hole diameter must be a number"))
 			}
 			return outcome(g.ed.SetHoleDiameter(v.Float()))
+		})
+	})
+	fn("setCornerRadius", func(a []js.Value) any {
+		return g.change(func() any {
+			v := arg(a, 0)
+			if v.Type() != js.TypeNumber || v.Float() < 0 {
+				return outcome(fmt.Errorf("corner radius must be a number, 0 or more"))
+			}
+			g.ed.SetCornerRadius(v.Float())
+			return outcome(nil)
 		})
 	})
 	fn("shortcuts", func([]js.Value) any {

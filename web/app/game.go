@@ -40,6 +40,7 @@ type uiState struct {
 	arc        bool
 	undo, redo bool
 	holeDia    float64
+	radius     float64
 	level      bool // the level-hole search has run
 }
 
@@ -83,7 +84,7 @@ func (g *Game) guides() []geom.Point {
 // change of tool, target or undo state. It marks it told.
 func (g *Game) pending() (state, part []byte, tell bool) {
 	now := uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
-		g.ed.HoleDiameter(), g.res.levelDone}
+		g.ed.HoleDiameter(), g.ed.CornerRadius(), g.res.levelDone}
 	if now == g.toldState {
 		return nil, nil, false
 	}
