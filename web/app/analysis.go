@@ -4,6 +4,7 @@ package main
 
 import (
 	"encoding/json"
+	"slices"
 	"strings"
 	"time"
 
@@ -17,9 +18,10 @@ type result struct {
 	rev     int
 	doc     *sketch.Document
 	a       *sketch.Analysis
-	err     error         // the part cannot be analysed: this says why
-	body    geom.Boundary // the part's material, when its geometry is sound
-	hang    *sketch.Hang  // hung from the first hole
+	err     error           // the part cannot be analysed: this says why
+	body    geom.Boundary   // the part's material, when its geometry is sound
+	onPart  []geom.Boundary // each overlay where it lies on the material and adds weight
+	hang    *sketch.Hang    // hung from the first hole
 	hangErr error
 	ms      float64 // time the analysis and the hang took
 
@@ -35,11 +37,18 @@ func analyse(doc *sketch.Document, rev int) *result {
 	start := time.Now()
 	r := &result{rev: rev, doc: doc}
 	r.a, r.err = sketch.Analyze(doc, sketch.AnalyzeOptions{})
+	// An analysis that succeeded has checked the geometry already.
+	sound := r.a != nil || geometrySound(doc)
 	switch {
 	case r.a != nil:
 		r.body = r.a.Body
-	case geometrySound(doc):
+	case sound:
 		r.body = doc.Body()
+	}
+	for i := range doc.Overlays {
+		if sound {
+			r.onPart = append(r.onPart, overlayOnPart(doc, i))
+		}
 	}
 	if r.err == nil && len(doc.Holes) > 0 {
 		h := doc.Holes[0]
@@ -63,12 +72,24 @@ func (r *result) findLevel(dia float64) {
 // be drawn even when the density cannot be evaluated.
 func geometrySound(doc *sketch.Document) bool {
 	regions := append([]geom.Region{doc.Outline}, doc.Cutouts...)
+	for _, o := range doc.Overlays {
+		regions = append(regions, o.Region)
+	}
 	for _, r := range regions {
 		if _, err := r.Check(); err != nil {
 			return false
 		}
 	}
 	return len(doc.Outline.Loops) > 0
+}
+
+// overlayOnPart returns the part of overlay i that lies on the material (inside the outline, outside
+// every cut-out): where it adds weight.
+func overlayOnPart(d *sketch.Document, i int) geom.Boundary {
+	regions := append(append([]geom.Region{d.Outline}, d.Cutouts...), d.Overlays[i].Region)
+	return geom.Combine(func(in []bool) bool {
+		return in[0] && in[len(in)-1] && !slices.Contains(in[1:len(in)-1], true)
+	}, regions...)
 }
 
 // xy is a point in the state object.

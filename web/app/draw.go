@@ -158,7 +158,8 @@ func (fr *frame) tilted() bool {
 	return h != nil && math.Abs(h.AngleDeg) > levelAngle && !h.Hanging.IsEmpty()
 }
 
-// ghost draws the part turned to the angle it hangs at, behind the part, with the angle beside it.
+// ghost draws the part turned to the angle it hangs at, behind the part; the angle is written at the
+// plumb bob.
 func (fr *frame) ghost() {
 	if !fr.tilted() {
 		return
@@ -186,8 +187,13 @@ func (fr *frame) part() {
 	case len(d.Outline.Loops) > 0:
 		fr.p.fill(fr.regionPath(d.Outline), colMaterial, fillRule(d.Outline.Rule))
 	}
-	for _, o := range d.Overlays {
-		fr.p.fill(fr.regionPath(o.Region), colOverlay, fillRule(o.Region.Rule))
+	for i, o := range d.Overlays {
+		// The tint shows where the doubler adds weight: on the material only. Its edge shows all of it.
+		if fr.res.doc == d && i < len(fr.res.onPart) {
+			fr.p.fill(fr.segPath(fr.res.onPart[i].Pieces, true), colOverlay, ebiten.FillRuleNonZero)
+		} else {
+			fr.p.fill(fr.regionPath(o.Region), colOverlay, fillRule(o.Region.Rule))
+		}
 		for _, l := range o.Region.Loops {
 			fr.dashedSegs(l, 1.4, 7, 4, colOverlayEdge)
 		}
