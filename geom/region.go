@@ -292,11 +292,27 @@ func monoWinding(s Segment, t0, t1 float64, a, b, p Point) int {
 		}
 		return 0
 	}
-	t := solveBracketed(func(t float64) (float64, float64) {
-		return s.At(t).Y - p.Y, s.Deriv(t).Y
-	}, t0, t1, a.Y < p.Y)
-	if s.At(t).X > p.X {
+	if crossingRight(s, t0, t1, a, b, p) > 0 {
 		return dir
 	}
 	return 0
+}
+
+// crossingRight returns how far right of p the piece of curve s over [t0, t1], monotone in y from a
+// to b, meets the horizontal through p (which lies between a.Y and b.Y), from the curve's own
+// equation: the horizontal meets an elliptical arc where it meets the unit circle in the arc's frame,
+// and a Bézier at a root of y(t) − p.Y. Of the meetings, the one whose parameter lies in (or nearest
+// to) [t0, t1]; failing any (a root lost to rounding at an end), the end nearer the horizontal.
+func crossingRight(s Segment, t0, t1 float64, a, b, p Point) float64 {
+	var buf [8][2]float64
+	x, off := a.X-p.X, math.Inf(1)
+	if math.Abs(b.Y-p.Y) < math.Abs(a.Y-p.Y) {
+		x = b.X - p.X
+	}
+	for _, h := range lineMeets(p, Pt(1, 0), s, t0, t1, 0, buf[:0]) {
+		if d := math.Max(t0-h[1], h[1]-t1); d < off {
+			x, off = h[0], d
+		}
+	}
+	return x
 }
