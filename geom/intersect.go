@@ -169,13 +169,13 @@ func (ms monos) intersect(i, j int, tol float64, dst []hit) []hit {
 	return ms.dropNearJoint(i, j, dst, m)
 }
 
-// jointGap is the part of a piece, next to the vertex it shares with the next piece of its loop, within
-// which crossings of the two are not looked for: where consecutive curves meet tangentially, the
-// solvers would return points scattered along the contact (and subdivision would crawl along it).
-// Only a curve turning back onto its neighbour within this gap is missed.
+// jointGap is the part of a piece, next to a vertex where it ends and another piece starts (the next
+// piece of its loop, usually), within which crossings of the two are not looked for: where such curves
+// meet tangentially, the solvers would return points scattered along the contact (and subdivision
+// would crawl along it). Only a curve turning back onto the other within this gap is missed.
 const jointGap = 1e-3
 
-// joint returns the vertex pieces i and j share as consecutive pieces of a loop.
+// joint returns the vertex where one of pieces i and j ends and the other starts.
 func (ms monos) joint(i, j int) (Point, bool) {
 	a, b := &ms[i], &ms[j]
 	switch {
@@ -198,7 +198,7 @@ func (ms monos) dropNearJoint(i, j int, dst []hit, from int) []hit {
 	near := jointGap * math.Min(a.a.Dist(a.b), b.a.Dist(b.b))
 	k := from
 	for _, h := range dst[from:] {
-		if a.s.At(h.ti).Dist(joint) > near {
+		if ms[h.i].s.At(h.ti).Dist(joint) > near {
 			dst[k] = h
 			k++
 		}
