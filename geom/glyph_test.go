@@ -94,3 +94,32 @@ func TestGlyphOutlines(t *testing.T) {
 		t.Errorf("∪ + ∩ = %+v, A + B = %+v", u.Add(x), ab)
 	}
 }
+
+// TestGlyphLineHitsAndDistance crosses the word's boundary with lines: the hits match the crossings
+// of a fine flattening in number, and each lies on the boundary (distance zero to rounding).
+func TestGlyphLineHitsAndDistance(t *testing.T) {
+	b := Region{Loops: glyphLoops(t, "Plumb&8%@")}.Boundary()
+	var flat [][]Point
+	for _, s := range b.Pieces {
+		flat = append(flat, s.Flatten(1e-4, []Point{s.Start()}))
+	}
+	for _, line := range []struct{ p, dir Point }{
+		{Pt(-100, 301.3), Pt(1, 0)}, {Pt(-100, 17.77), Pt(1, 0)}, {Pt(-100, -53.1), Pt(1, 0.01)},
+		{Pt(1234.5, -400), Pt(0.1, 1)}, {Pt(-100, 800), Pt(1, -0.3)},
+	} {
+		far := []Point{line.p, line.p.Add(line.dir.Mul(1e4))}
+		want := 0
+		for _, pts := range flat {
+			want += polylineCrossings(pts, far)
+		}
+		hits := b.LineHits(line.p, line.dir)
+		if len(hits) != want || want == 0 {
+			t.Errorf("line %v: %d hits, flattened boundary crossed %d times", line, len(hits), want)
+		}
+		for _, h := range hits {
+			if d := b.Distance(line.p.Add(line.dir.Mul(h))); d > 1e-9 {
+				t.Errorf("line %v: hit at t = %g lies %g from the boundary", line, h, d)
+			}
+		}
+	}
+}
