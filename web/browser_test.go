@@ -665,6 +665,18 @@ func TestAutosaveSurvivesReload(t *testing.T) {
 	if got := b.state().Mass; got != wantMass {
 		t.Errorf("after a reload the mass is %g kg, want %g", got, wantMass)
 	}
+
+	// Opening the address with #demo shows the demo part; the part it replaced is one click away.
+	b.do(chromedp.Navigate(built.url + "#demo"))
+	b.waitFor(`plumb.state().file === "demo.json"`)
+	if name := b.savedPart().Name; name != "Bakery blade sign" {
+		t.Errorf("with #demo the part is %q, want the demo", name)
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="restore-previous"]`)))
+	b.waitFor(`document.getElementById("previous").hidden`)
+	if got := eval[string](b, `plumb.saveJSON()`); got != want {
+		t.Errorf("Bring it back gave\n%s\nwant\n%s", got, want)
+	}
 }
 
 // TestRecomputeTime measures (and does not assert) how long the app takes to recompute a part with

@@ -110,12 +110,7 @@
   // for it (#demo). A part the demo replaces is kept under plumb.previous and offered back.
   function restore(saved) {
     if (saved === null || location.hash === "#demo") {
-      loadText(window.PLUMB_DEMO, "demo.json", true);
-      if (saved !== null && saved !== app.saveJSON()) {
-        writeStore(PREVIOUS, saved);
-        $("previous").hidden = false;
-      }
-      try { history.replaceState(null, "", location.pathname + location.search); } catch { /* file:// may refuse */ }
+      showDemo(saved);
       return;
     }
     const r = app.load(saved, "autosave.json");
@@ -125,6 +120,17 @@
       toast("Your last part could not be read back (" + r.error + "). Its text is kept in this browser's " +
         "storage under " + UNREADABLE + "; the demo part is shown.", true);
     }
+  }
+
+  // showDemo loads the demo part, keeps the part it replaces (given as a part file, or null) under
+  // plumb.previous with a way back, and drops #demo from the address so that a reload restores work.
+  function showDemo(previous) {
+    loadText(window.PLUMB_DEMO, "demo.json", true);
+    if (previous !== null && previous !== app.saveJSON()) {
+      writeStore(PREVIOUS, previous);
+      $("previous").hidden = false;
+    }
+    try { history.replaceState(null, "", location.pathname + location.search); } catch { /* file:// may refuse */ }
   }
 
   function onChange(s, partJSON) {
@@ -596,6 +602,9 @@
       new Option(m.name + " · " + m.density + (m.areal ? " kg/m² per mm" : " kg/m³"), m.name)));
     fillThicknessList();
     wireDrop();
+    window.addEventListener("hashchange", () => {
+      if (restored && location.hash === "#demo") showDemo(app.saveJSON());
+    });
     if (readStore(FOLDED)) $("fold").click();
   }
 
