@@ -62,6 +62,9 @@ func FuzzCombine(f *testing.F) {
 	f.Fuzz(func(t *testing.T, data []byte) {
 		r := byteReader(data)
 		a, b := r.region(), r.region()
+		// A turn of B by a multiple of 15° about a grid point (none once the bytes run out) puts it
+		// off the grid.
+		b = b.Transform(RotateAbout(r.point(), float64(r.next()%24)*math.Pi/12))
 		a.Check()
 		b.Check()
 		ma, mb := unitMoments(a.Boundary()), unitMoments(b.Boundary())
