@@ -22,6 +22,7 @@ import (
 	"testing"
 	"time"
 
+	cdpbrowser "github.com/chromedp/cdproto/browser"
 	"github.com/chromedp/cdproto/cdp"
 	"github.com/chromedp/cdproto/input"
 	"github.com/chromedp/cdproto/log"
@@ -713,5 +714,40 @@ func TestRecomputeTime(t *testing.T) {
 		slices.Sort(times)
 		t.Logf("recompute, 1,000 segments, %s formula %q: median %.2f ms (min %.2f, max %.2f; goal < 6 ms)",
 			f.what, f.formula, times[len(times)/2], times[0], times[len(times)-1])
+	}
+}
+
+func TestSaveExportAndReportDownload(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	dir := t.TempDir()
+	_, err := chromedp.CallBrowser(b.ctx, cdpbrowser.SetDownloadBehavior, cdpbrowser.SetDownloadBehaviorParams{
+		Behavior:         cdpbrowser.SetDownloadBehaviorBehaviorAllow,
+		BrowserContextID: chromedp.FromContext(b.ctx).BrowserContextID,
+		DownloadPath:     dir,
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct{ action, file, bridge string }{
+		{"save", "Bakery-blade-sign.json", "plumb.saveJSON()"},
+		{"svg", "Bakery-blade-sign.svg", "plumb.exportSVG()"},
+		{"report", "Bakery-blade-sign-report.txt", "plumb.report()"},
+	} {
+		b.do(chromedp.Click(chromedp.CSS(fmt.Sprintf(`[data-action=%q]`, c.action))))
+		path := filepath.Join(dir, c.file)
+		var got []byte
+		for deadline := time.Now().Add(15 * time.Second); time.Now().Before(deadline); time.Sleep(100 * time.Millisecond) {
+			if got, err = os.ReadFile(path); err == nil {
+				break
+			}
+		}
+		if err != nil {
+			t.Errorf("%s: no download %s: %v", c.action, c.file, err)
+			continue
+		}
+		if want := eval[string](b, c.bridge); string(got) != want || want == "" {
+			t.Errorf("%s: %s holds %d bytes, %s gives %d", c.action, c.file, len(got), c.bridge, len(want))
+		}
 	}
 }

@@ -20,6 +20,7 @@
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let state = null; // the app's last state
+  let partName = ""; // the part's own name, from its part file
   let mode = "sheet"; // "sheet" (material and thickness) or "formula"
 
   // ---- small helpers ----
@@ -179,8 +180,9 @@
     file.text().then((text) => loadText(text, file.name), (e) => toast(file.name + ": " + e.message, true));
   }
 
+  // baseName names downloaded files after the part, or else after the file it came from.
   function baseName() {
-    const name = (state && state.file) || $("part-name").textContent || "part";
+    const name = partName || (state && state.file) || "part";
     return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
@@ -234,7 +236,8 @@
   function showPart(partJSON) {
     let doc;
     try { doc = JSON.parse(partJSON); } catch { return; }
-    $("part-name").textContent = doc.name || "Untitled part";
+    partName = doc.name || "";
+    $("part-name").textContent = partName || "Untitled part";
     const spec = doc.material;
     if (!spec || editingMaterial()) return;
     if (spec.formula) {
