@@ -40,6 +40,9 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	if keep == nil {
 		panic("geom: Combine needs a keep function")
 	}
+	if len(regions) > 0 && keep(make([]bool, len(regions))) {
+		panic("geom: Combine's keep must be false outside every region (the set would be unbounded)")
+	}
 	ms := regionMonos(regions)
 	if len(ms) == 0 {
 		return Boundary{}

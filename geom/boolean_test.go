@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"slices"
+	"strings"
 	"testing"
 )
 
@@ -214,13 +215,20 @@ func TestCombineKeepsExactCurves(t *testing.T) {
 	}
 }
 
-func TestCombineNeedsKeep(t *testing.T) {
-	defer func() {
-		if r := recover(); r == nil || r.(string)[:6] != "geom: " {
-			t.Errorf("panic %v, want a geom: message", r)
-		}
-	}()
-	Combine(nil, Disk(Pt(0, 0), 1))
+func TestCombineMisusePanics(t *testing.T) {
+	for name, keep := range map[string]func([]bool) bool{
+		"no keep function": nil,
+		"unbounded set":    func(in []bool) bool { return !in[0] },
+	} {
+		func() {
+			defer func() {
+				if r, ok := recover().(string); !ok || !strings.HasPrefix(r, "geom: ") {
+					t.Errorf("%s: panic %v, want a geom: message", name, r)
+				}
+			}()
+			Combine(keep, Disk(Pt(0, 0), 1))
+		}()
+	}
 }
 
 // signPlate returns a 1200 × 800 rounded plate and n cut-outs on a jittered grid: round holes and
