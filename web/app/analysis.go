@@ -4,7 +4,9 @@ package main
 
 import (
 	"encoding/json"
+	"regexp"
 	"slices"
+	"strconv"
 	"strings"
 	"time"
 
@@ -21,6 +23,7 @@ type result struct {
 	err     error           // the part cannot be analysed: this says why
 	body    geom.Boundary   // the part's material, when its geometry is sound
 	onPart  []geom.Boundary // each overlay where it lies on the material and adds weight
+	flagged []geom.Segment  // segments a warning or the error names, drawn where they are
 	hang    *sketch.Hang    // hung from the first hole
 	hangErr error
 	ms      float64 // time the analysis and the hang took
@@ -50,6 +53,7 @@ func analyse(doc *sketch.Document, rev int) *result {
 			r.onPart = append(r.onPart, overlayOnPart(doc, i))
 		}
 	}
+	r.flagged = flaggedSegments(doc, r)
 	if r.err == nil && len(doc.Holes) > 0 {
 		h := doc.Holes[0]
 		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{})
@@ -81,6 +85,44 @@ func geometrySound(doc *sketch.Document) bool {
 		}
 	}
 	return len(doc.Outline.Loops) > 0
+}
+
+// segmentPath matches the JSON path of a segment in a part file, as errors and warnings name it:
+// "outline.loops[0].segments[5]", "cutouts[2].loops[0].segments[1]",
+// "overlays[0].region.loops[1].segments[3]".
+var segmentPath = regexp.MustCompile(`(outline|cutouts\[(\d+)\]|overlays\[(\d+)\]\.region)\.loops\[(\d+)\]\.segments\[(\d+)\]`)
+
+// flaggedSegments returns the segments that the analysis's error and warnings name.
+func flaggedSegments(doc *sketch.Document, r *result) []geom.Segment {
+	var texts []string
+	if r.err != nil {
+		texts = append(texts, r.err.Error())
+	}
+	if r.a != nil {
+		texts = append(texts, r.a.Warnings...)
+	}
+	var out []geom.Segment
+	for _, t := range texts {
+		for _, m := range segmentPath.FindAllStringSubmatch(t, -1) {
+			ref := edit.ShapeRef{Layer: edit.LayerOutline}
+			switch {
+			case m[2] != "":
+				ref.Layer, ref.Index = edit.LayerCutout, atoi(m[2])
+			case m[3] != "":
+				ref.Layer, ref.Index = edit.LayerOverlay, atoi(m[3])
+			}
+			ref.Loop = atoi(m[4])
+			if l, seg := edit.ShapeLoop(doc, ref), atoi(m[5]); seg < len(l) {
+				out = append(out, l[seg])
+			}
+		}
+	}
+	return out
+}
+
+func atoi(s string) int {
+	n, _ := strconv.Atoi(s)
+	return n
 }
 
 // overlayOnPart returns the part of overlay i that lies on the material (inside the outline, outside

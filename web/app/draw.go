@@ -80,6 +80,7 @@ func (g *Game) Draw(screen *ebiten.Image) {
 	fr.plumbLine()
 	fr.balancePoint()
 	fr.edgeWarnings()
+	fr.flagged()
 	fr.selection()
 	fr.preview()
 	fr.measure()
@@ -315,6 +316,16 @@ func (fr *frame) quartered(c geom.Point, r, opacity float64) {
 	q.Close()
 	fr.p.fill(&q, ink, ebiten.FillRuleNonZero)
 	fr.p.circle(c, r, 2*fr.u, ink)
+}
+
+// flagged glows along the segments that a warning or the error names.
+func (fr *frame) flagged() {
+	if fr.res.doc != fr.doc || len(fr.res.flagged) == 0 {
+		return
+	}
+	path := fr.segPath(fr.res.flagged, false)
+	fr.p.stroke(path, 9*fr.u, colWarnGlow)
+	fr.p.stroke(path, 2*fr.u, colWarn)
 }
 
 // edgeWarnings marks, where it happens, a hang hole too near an edge or off the material.
