@@ -139,9 +139,13 @@ func (ms monos) snapHits(hs []hit, tol float64) {
 }
 
 // moveHit returns the parameters of the points of h's pieces nearest p, if both lie within tol of p
-// and the pieces keep together from h to p.
+// and the pieces keep together from h to p. A hit at an end of either piece stays: it is a vertex,
+// exact by construction (and pieces running along one another meet only at such hits).
 func (ms monos) moveHit(h hit, p Point, tol float64) (ti, tj float64, ok bool) {
 	a, b := &ms[h.i], &ms[h.j]
+	if h.ti == a.t0 || h.ti == a.t1 || h.tj == b.t0 || h.tj == b.t1 {
+		return 0, 0, false
+	}
 	ti, di := nearest(a.s, a.t0, a.t1, p)
 	tj, dj := nearest(b.s, b.t0, b.t1, p)
 	if di > tol || dj > tol || !ms.together(h.i, h.ti, ti, h.j, tol) {
