@@ -54,7 +54,7 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	tol := tolerance(box)
 	c := newClassifier(ms, regions, keep, box, tol)
 	kept := c.classify(cutList(ms, findHits(ms, tol, nil), tol))
-	return Boundary{Pieces: dedupe(kept, c.side)}
+	return Boundary{Pieces: closeUp(dedupe(kept, c.side), c.side)}
 }
 
 // regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index.
@@ -361,6 +361,51 @@ func dedupe(ps []keptPiece, tol float64) []Segment {
 	for i, p := range ps {
 		if !dup[i] {
 			out = append(out, p.s)
+		}
+	}
+	return out
+}
+
+// closeUp returns the pieces without those that dangle, repeatedly: a piece whose start no piece ends
+// within d of, or whose end no piece starts within d of. A boundary is closed, so dangling pieces come
+// only from a sliver thinner than the probe distance, where the probe on one side crossed the other
+// curve and the piece there was dropped; dropping the dangling partner loses the sliver (an area of
+// about its length times d) instead of leaving the boundary open.
+func closeUp(ps []Segment, d float64) []Segment {
+	if !(d > 0) {
+		return ps
+	}
+	alive := make([]bool, len(ps))
+	starts, ends := make([]int, len(ps)), make([]int, len(ps))
+	for i := range ps {
+		alive[i], starts[i], ends[i] = true, i, i
+	}
+	start := func(i int) Point { return ps[i].Start() }
+	end := func(i int) Point { return ps[i].End() }
+	slices.SortFunc(starts, func(i, j int) int { return cmp.Compare(start(i).X, start(j).X) })
+	slices.SortFunc(ends, func(i, j int) int { return cmp.Compare(end(i).X, end(j).X) })
+	// met reports whether a live piece has its point (of those sorted by x in order) within d of p.
+	met := func(order []int, point func(int) Point, p Point) bool {
+		k, _ := slices.BinarySearchFunc(order, p.X-d, func(i int, x float64) int { return cmp.Compare(point(i).X, x) })
+		for ; k < len(order) && point(order[k]).X <= p.X+d; k++ {
+			if alive[order[k]] && point(order[k]).Dist(p) <= d {
+				return true
+			}
+		}
+		return false
+	}
+	for changed := true; changed; {
+		changed = false
+		for i, s := range ps {
+			if alive[i] && (!met(ends, end, s.Start()) || !met(starts, start, s.End())) {
+				alive[i], changed = false, true
+			}
+		}
+	}
+	out := ps[:0]
+	for i, s := range ps {
+		if alive[i] {
+			out = append(out, s)
 		}
 	}
 	return out

@@ -302,3 +302,17 @@ func TestCombineFarFromOrigin(t *testing.T) {
 		}
 	}
 }
+
+func TestCloseUpDropsDanglingPieces(t *testing.T) {
+	square := RectLoop(Pt(0, 0), Pt(1, 1))
+	spur := []Segment{Line(Pt(1, 1), Pt(2, 2)), Line(Pt(2, 2), Pt(3, 2))}
+	got := closeUp(append(slices.Clone([]Segment(square)), spur...), 1e-9)
+	if len(got) != len(square) {
+		t.Errorf("closeUp kept %d pieces, want the square's %d", len(got), len(square))
+	}
+	for _, s := range got {
+		if s.End().X > 1 || s.Start().X > 1 {
+			t.Errorf("closeUp kept the dangling piece %v → %v", s.Start(), s.End())
+		}
+	}
+}
