@@ -598,7 +598,8 @@
     $("hole-dia").addEventListener("change", () => {
       const d = Number($("hole-dia").value);
       if (!app || !(d >= 0)) return;
-      app.setHoleDiameter(d);
+      const r = app.setHoleDiameter(d);
+      if (!r.ok) toast("Hole diameter: " + r.error, true);
       refresh();
     });
     $("material-list").replaceChildren(...presets.materials.map((m) =>
