@@ -29,6 +29,7 @@ import (
 	"github.com/chromedp/cdproto/network"
 	"github.com/chromedp/cdproto/runtime"
 	"github.com/chromedp/chromedp"
+	"github.com/chromedp/chromedp/kb"
 
 	"plumb/density"
 	"plumb/geom"
@@ -404,6 +405,17 @@ func TestPageLoadsOfflineFromFile(t *testing.T) {
 	if s := b.state(); s.Error != "" || s.Mass <= 0 {
 		t.Errorf("demo part: mass %g, error %q; want a positive mass", s.Mass, s.Error)
 	}
+
+	// "?" opens the keyboard help with the app's own shortcuts; Esc closes it.
+	b.do(chromedp.KeyEvent("?"))
+	b.waitFor(`!document.getElementById("help").hidden`)
+	keys := eval[[]string](b, `Array.from(document.querySelectorAll("#help-keys > div"), (row) => row.textContent)`)
+	appKeys := eval[int](b, `plumb.shortcuts().length`)
+	if len(keys) < appKeys || appKeys == 0 {
+		t.Errorf("help lists %d keys, the app has %d shortcuts", len(keys), appKeys)
+	}
+	b.do(chromedp.KeyEvent(kb.Escape))
+	b.waitFor(`document.getElementById("help").hidden`)
 }
 
 // partJSON returns a part file for the document, for loading into the page.
