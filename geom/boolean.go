@@ -375,20 +375,23 @@ func closeUp(ps []Segment, d float64) []Segment {
 	if !(d > 0) {
 		return ps
 	}
-	alive := make([]bool, len(ps))
-	starts, ends := make([]int, len(ps)), make([]int, len(ps))
-	for i := range ps {
-		alive[i], starts[i], ends[i] = true, i, i
+	type end struct {
+		p Point
+		i int
 	}
-	start := func(i int) Point { return ps[i].Start() }
-	end := func(i int) Point { return ps[i].End() }
-	slices.SortFunc(starts, func(i, j int) int { return cmp.Compare(start(i).X, start(j).X) })
-	slices.SortFunc(ends, func(i, j int) int { return cmp.Compare(end(i).X, end(j).X) })
-	// met reports whether a live piece has its point (of those sorted by x in order) within d of p.
-	met := func(order []int, point func(int) Point, p Point) bool {
-		k, _ := slices.BinarySearchFunc(order, p.X-d, func(i int, x float64) int { return cmp.Compare(point(i).X, x) })
-		for ; k < len(order) && point(order[k]).X <= p.X+d; k++ {
-			if alive[order[k]] && point(order[k]).Dist(p) <= d {
+	alive := make([]bool, len(ps))
+	starts, ends := make([]end, len(ps)), make([]end, len(ps))
+	for i, s := range ps {
+		alive[i], starts[i], ends[i] = true, end{s.Start(), i}, end{s.End(), i}
+	}
+	byX := func(a, b end) int { return cmp.Compare(a.p.X, b.p.X) }
+	slices.SortFunc(starts, byX)
+	slices.SortFunc(ends, byX)
+	// met reports whether a live piece has one of its ends (sorted by x) within d of p.
+	met := func(es []end, p Point) bool {
+		k, _ := slices.BinarySearchFunc(es, p.X-d, func(e end, x float64) int { return cmp.Compare(e.p.X, x) })
+		for ; k < len(es) && es[k].p.X <= p.X+d; k++ {
+			if alive[es[k].i] && es[k].p.Dist(p) <= d {
 				return true
 			}
 		}
@@ -397,7 +400,7 @@ func closeUp(ps []Segment, d float64) []Segment {
 	for changed := true; changed; {
 		changed = false
 		for i, s := range ps {
-			if alive[i] && (!met(ends, end, s.Start()) || !met(starts, start, s.End())) {
+			if alive[i] && (!met(ends, s.Start()) || !met(starts, s.End())) {
 				alive[i], changed = false, true
 			}
 		}
