@@ -290,8 +290,8 @@ func (c *classifier) clearance(i int, p Point, piece [3]Point, limit float64) fl
 		}
 		return true
 	}
-	for _, y := range [2]float64{p.Y - limit, p.Y + limit} {
-		for _, k := range c.index.at(y) {
+	for b := c.index.band(p.Y - limit); b <= c.index.band(p.Y+limit); b++ {
+		for _, k := range c.index.items[c.index.start[b]:c.index.start[b+1]] {
 			m := &c.ms[k]
 			if int(k) == i || !boxesMeet(m.box, near, 0) {
 				continue
