@@ -294,7 +294,12 @@ func (ms monos) circleCrossings(i, j int, tol float64, dst []hit) []hit {
 	}
 	e = e.Mul(1 / d)
 	x := (d*d + r1*r1 - r2*r2) / (2 * d)
-	h := math.Sqrt(math.Max(0, r1*r1-x*x))
+	// Circles within tol of touching (r1² − x² ≈ 2·r1·gap) touch at one point: rounding would
+	// otherwise split it into two about √(2·r1·tol) apart.
+	h := 0.0
+	if h2 := r1*r1 - x*x; h2 > 2*r1*tol {
+		h = math.Sqrt(h2)
+	}
 	base, perp := a.C.Add(e.Mul(x)), Point{-e.Y, e.X}.Mul(h)
 	for _, q := range [2]Point{base.Add(perp), base.Sub(perp)} {
 		dst = ms.add(dst, i, arcParamOf(a, q), j, arcParamOf(b, q), tol)
