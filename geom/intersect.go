@@ -552,9 +552,10 @@ func lineMeetsArc(org, dir Point, s Segment, tol float64, dst [][2]float64) [][2
 	d = Point{d.X / s.RX, d.Y / s.RY}
 	qa, qb, qc := d.Dot(d), 2*o.Dot(d), o.Dot(o)-1
 	// disc/(4·qa) = 1 − δ², δ the distance of the line from the centre in the unit frame: a line
-	// passing within tol outside the ellipse touches it.
+	// passing within tol of touching the ellipse (outside or inside) touches it, at one point;
+	// rounding would otherwise split a touching point into two about √(tol·r) apart.
 	disc := qb*qb - 4*qa*qc
-	if disc < 0 && disc >= -8*qa*tol/math.Min(s.RX, s.RY) {
+	if math.Abs(disc) <= 8*qa*tol/math.Min(s.RX, s.RY) {
 		disc = 0
 	}
 	if qa == 0 || disc < 0 {
