@@ -246,6 +246,9 @@ const densityGrid = 33
 // checkPolynomialDensity samples a polynomial density at the boundary pieces' ends and midpoints and
 // on a densityGrid × densityGrid grid of points inside the part, and reports the first point where it
 // is negative or not finite. The exact integral never evaluates the density, so this is the check.
+// The grid is found row by row: the row's line meets the boundary at sorted hits, and the grid points
+// between two hits are all inside or all outside, which one test at the gap's middle decides (a
+// winding test per gap rather than per point).
 func checkPolynomialDensity(b geom.Boundary, f *density.Field) error {
 	if _, ok := f.Constant(); ok {
 		p := b.Bounds().Center()
@@ -260,15 +263,45 @@ func checkPolynomialDensity(b geom.Boundary, f *density.Field) error {
 	}
 	box := b.Bounds()
 	size := box.Size()
-	for i := range densityGrid {
-		for j := range densityGrid {
-			p := geom.Pt(box.Min.X+size.X*(float64(i)+0.5)/densityGrid, box.Min.Y+size.Y*(float64(j)+0.5)/densityGrid)
-			if b.Contains(p) {
-				xs, ys = append(xs, p.X), append(ys, p.Y)
+	step := size.X / densityGrid
+	rows := rowPieces(b, box)
+	for j := range densityGrid {
+		y := box.Min.Y + size.Y*(float64(j)+0.5)/densityGrid
+		hits := rows(y).LineHits(geom.Pt(box.Min.X, y), geom.Pt(1, 0))
+		for k := 1; k < len(hits); k++ {
+			lo, hi := hits[k-1], hits[k]
+			first := max(int(math.Ceil(lo/step-0.5)), 0)
+			last := min(int(math.Floor(hi/step-0.5)), densityGrid-1)
+			if first > last || !b.Contains(geom.Pt(box.Min.X+(lo+hi)/2, y)) {
+				continue
+			}
+			for i := first; i <= last; i++ {
+				xs, ys = append(xs, box.Min.X+size.X*(float64(i)+0.5)/densityGrid), append(ys, y)
 			}
 		}
 	}
 	return f.CheckDomain(xs, ys)
+}
+
+// rowPieces returns a function giving the pieces of b that reach the horizontal line at height y:
+// those whose bounding box, widened by a millionth of the part's box, spans y. The line meets no other
+// piece, so their LineHits are b's own, found without trying every piece.
+func rowPieces(b geom.Boundary, box geom.Rect) func(y float64) geom.Boundary {
+	margin := 1e-6 * max(box.Size().X, box.Size().Y)
+	bounds := make([]geom.Rect, len(b.Pieces))
+	for i, s := range b.Pieces {
+		bounds[i] = s.Bounds()
+	}
+	var row geom.Boundary
+	return func(y float64) geom.Boundary {
+		row.Pieces = row.Pieces[:0]
+		for i, r := range bounds {
+			if r.Min.Y-margin <= y && y <= r.Max.Y+margin {
+				row.Pieces = append(row.Pieces, b.Pieces[i])
+			}
+		}
+		return row
+	}
 }
 
 // roundingIxy is the size, relative to ixx + iyy, below which a product of inertia is rounding error:
