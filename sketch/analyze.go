@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"plumb/density"
 	"plumb/geom"
@@ -29,6 +30,11 @@ type Analysis struct {
 	Warnings                       []string
 	Cautions                       []string
 	Body                           geom.Boundary // the material of the part (outline minus cut-outs)
+
+	// density is the one polynomial density of all the material, or nil when the density is not a
+	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
+	// moments of its disk (withHole).
+	density *geom.Poly
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -101,19 +107,24 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 		return nil, err
 	}
 	a := &Analysis{Cautions: Cautions()}
-	if err := a.checkRegions(d); err != nil {
-		return nil, err
-	}
-	regions := d.regions()
-	a.Body = geom.Combine(outlineMinusCutouts, regions...)
-	a.Area = a.Body.IntegratePoly(geom.ConstPoly(1)).M
-	if a.Body.IsEmpty() || a.Area <= 0 {
-		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
-	}
-	total, err := a.addDensity(a.Body, d.Material, "material", unit, opt)
+	crossed, err := a.checkRegions(d)
 	if err != nil {
 		return nil, err
 	}
+	var shape geom.Moments
+	a.Body, shape = d.material(crossed)
+	a.Area = shape.M
+	if a.Body.IsEmpty() || a.Area <= 0 {
+		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
+	}
+	total, poly, err := a.addDensity(a.Body, &shape, d.Material, "material", unit, opt)
+	if err != nil {
+		return nil, err
+	}
+	if len(d.Overlays) == 0 {
+		a.density = poly
+	}
+	regions := d.regions()
 	for i, ov := range d.Overlays {
 		path := fmt.Sprintf("overlays[%d]", i)
 		b := geom.Combine(onOverlay, append(regions, ov.Region)...)
@@ -121,7 +132,7 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 			a.Warnings = append(a.Warnings, fmt.Sprintf("%s (%s) does not lie on the part's material", path, overlayName(ov, i)))
 			continue
 		}
-		m, err := a.addDensity(b, ov.Material, path+".material", unit, opt)
+		m, _, err := a.addDensity(b, nil, ov.Material, path+".material", unit, opt)
 		if err != nil {
 			return nil, err
 		}
@@ -133,9 +144,28 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	return a, nil
 }
 
-// checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings. Problems
-// are reported at their JSON path, as in "cutouts[1].loops[0].segments[3]: arc radius is 0 or negative".
-func (a *Analysis) checkRegions(d *Document) error {
+// material returns the boundary of the part's material and its area moments (density 1). One outline
+// loop that neither crosses nor touches itself (crossed is false), with no cut-outs, bounds its inside
+// under either fill rule: the boundary is the loop itself, turned counter-clockwise, and there are no
+// intersections to look for. Anything else goes through Combine.
+func (d *Document) material(crossed bool) (geom.Boundary, geom.Moments) {
+	if crossed || len(d.Cutouts) > 0 || len(d.Outline.Loops) != 1 {
+		b := geom.Combine(outlineMinusCutouts, d.regions()...)
+		return b, b.IntegratePoly(geom.ConstPoly(1))
+	}
+	loop := d.Outline.Loops[0]
+	b := geom.Boundary{Pieces: slices.Clone(loop)}
+	m := b.IntegratePoly(geom.ConstPoly(1))
+	if m.M < 0 {
+		b, m = geom.Boundary{Pieces: loop.Reverse()}, m.Scale(-1)
+	}
+	return b, m
+}
+
+// checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings; crossed
+// reports whether the outline crosses or touches itself. Problems are reported at their JSON path, as
+// in "cutouts[1].loops[0].segments[3]: arc radius is 0 or negative".
+func (a *Analysis) checkRegions(d *Document) (crossed bool, err error) {
 	check := func(path string, r geom.Region) error {
 		warnings, err := r.Check()
 		for _, w := range warnings {
@@ -151,19 +181,20 @@ func (a *Analysis) checkRegions(d *Document) error {
 		return nil
 	}
 	if err := check("outline", d.Outline); err != nil {
-		return err
+		return false, err
 	}
+	crossed = len(a.Warnings) > 0
 	for i, c := range d.Cutouts {
 		if err := check(fmt.Sprintf("cutouts[%d]", i), c); err != nil {
-			return err
+			return false, err
 		}
 	}
 	for i, ov := range d.Overlays {
 		if err := check(fmt.Sprintf("overlays[%d].region", i), ov.Region); err != nil {
-			return err
+			return false, err
 		}
 	}
-	return nil
+	return crossed, nil
 }
 
 // validationPath extends a region's path with the loop and segment a validation problem names.
@@ -184,10 +215,11 @@ func overlayName(ov Overlay, i int) string {
 	return fmt.Sprintf("overlay %d", i+1)
 }
 
-// addDensity integrates the density spec over b and records its description and error estimate.
-func (a *Analysis) addDensity(b geom.Boundary, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, error) {
+// addDensity integrates the density spec over b and records its description and error estimate. shape,
+// when not nil, holds b's area moments; the density's polynomial is returned when it is one.
+func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *geom.Poly, error) {
 	if spec.Material == "" && spec.Formula == "" {
-		return geom.Moments{}, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
+		return geom.Moments{}, nil, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
 	}
 	f, err := spec.Field(unit)
 	var fe *density.FieldError
@@ -196,39 +228,67 @@ func (a *Analysis) addDensity(b geom.Boundary, spec density.Spec, path string, u
 		if fe.Col > 0 {
 			msg = fmt.Sprintf("col %d: %s", fe.Col, fe.Msg)
 		}
-		return geom.Moments{}, &PathError{Path: path + "." + fe.Field, Msg: msg}
+		return geom.Moments{}, nil, &PathError{Path: path + "." + fe.Field, Msg: msg}
 	}
 	if err != nil {
-		return geom.Moments{}, &PathError{Path: path, Msg: err.Error()}
+		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
 	a.Materials = append(a.Materials, f.Describe())
-	r, err := integrateField(b, f, opt)
+	r, poly, err := integrateField(b, shape, f, opt)
 	if err != nil {
-		return geom.Moments{}, &PathError{Path: path, Msg: err.Error()}
+		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
 	a.RelErr = math.Max(a.RelErr, r.RelErr)
 	if r.LimitHit && !a.LimitHit {
 		a.LimitHit = true
 		a.Warnings = append(a.Warnings, fmt.Sprintf("%s: the integration stopped at its work limit (%d density evaluations) before reaching the requested accuracy; estimated relative error %.1e", path, r.Evals, r.RelErr))
 	}
-	return r.Moments, nil
+	return r.Moments, poly, nil
 }
 
 // integrateField integrates f over b: exactly when f is a polynomial (after checking its sign on the
-// part), adaptively otherwise.
-func integrateField(b geom.Boundary, f *density.Field, opt AnalyzeOptions) (geom.Result, error) {
+// part), adaptively otherwise. A constant density scales b's area moments shape, when given. The
+// density's polynomial is returned when it is one.
+func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *geom.Poly, error) {
 	if p, ok := f.Polynomial(); ok {
 		if err := checkPolynomialDensity(b, f); err != nil {
-			return geom.Result{}, err
+			return geom.Result{}, nil, err
 		}
-		return geom.Result{Moments: b.IntegratePoly(toGeomPoly(p))}, nil
+		g := toGeomPoly(p)
+		if c, ok := f.Constant(); ok && shape != nil {
+			return geom.Result{Moments: shape.Scale(c)}, &g, nil
+		}
+		return geom.Result{Moments: b.IntegratePoly(g)}, &g, nil
 	}
 	r, err := b.Integrate(f, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
 	var de *geom.DensityError
 	if errors.As(err, &de) {
-		return r, f.DomainError(de.X, de.Y, de.Value)
+		return r, nil, f.DomainError(de.X, de.Y, de.Value)
 	}
-	return r, err
+	return r, nil, err
+}
+
+// withHole returns the analysis of the part with the round hole h removed. When the hole lies inside
+// the material (as checkHole makes sure) and one polynomial density covers all of it, the hole removes
+// exactly the moments of its disk (IntegratePoly over the disk's circle) and its circle, turned
+// clockwise, joins the boundary. Otherwise the part is analysed afresh with the hole as a cut-out.
+func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis, error) {
+	if a.density == nil {
+		return Analyze(d.withHoles(h), opt)
+	}
+	part := *a
+	part.Materials, part.Warnings, part.Cautions = slices.Clone(a.Materials), slices.Clone(a.Warnings), slices.Clone(a.Cautions)
+	if h.Diameter == 0 {
+		return &part, nil
+	}
+	circle := geom.Circle(h.At, h.Diameter/2)
+	disk := geom.Boundary{Pieces: circle}
+	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
+	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
+	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.density))); err != nil {
+		return nil, err
+	}
+	return &part, nil
 }
 
 // toGeomPoly converts density's term list to geom's coefficient layout.

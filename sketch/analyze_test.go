@@ -236,3 +236,71 @@ func BenchmarkAnalyzePlateWithHole(b *testing.B) {
 		}
 	}
 }
+
+// TestAnalyzeSimpleOutline checks that a single outline loop, drawn either way round, is analysed as
+// the boundary that Combine finds for it (a cut-out off the part forces Combine).
+func TestAnalyzeSimpleOutline(t *testing.T) {
+	for _, reverse := range []bool{false, true} {
+		d := flowerDocument(200, areal("8 + 0.001*x*y"))
+		if reverse {
+			d.Outline.Loops[0] = d.Outline.Loops[0].Reverse()
+		}
+		combined := *d
+		combined.Cutouts = []geom.Region{rectRegion(500, 500, 510, 510)}
+		got, want := mustAnalyze(t, d), mustAnalyze(t, &combined)
+		scale := want.Ixx + want.Iyy
+		checkNear(t, "area", got.Area, want.Area, 1e-12, 0)
+		checkNear(t, "mass", got.Mass, want.Mass, 1e-12, 0)
+		checkNear(t, "centroid x", got.Centroid.X, want.Centroid.X, 1e-12, 100)
+		checkNear(t, "centroid y", got.Centroid.Y, want.Centroid.Y, 1e-12, 100)
+		checkNear(t, "ixx", got.Ixx, want.Ixx, 1e-10, scale)
+		checkNear(t, "ixy", got.Ixy, want.Ixy, 1e-10, scale)
+		if a := got.Body.IntegratePoly(geom.ConstPoly(1)).M; !near(a, want.Area, 1e-12, 0) {
+			t.Errorf("reverse %v: boundary area %v, want %v", reverse, a, want.Area)
+		}
+	}
+}
+
+// flowerDocument returns a part whose outline has n segments (n even) around the curve
+// r(θ) = 100·(1 + 0.1·sin 7θ) mm: cubic Béziers with Catmull–Rom tangents alternating with circular
+// arcs that bulge outward, of radius twice their chord. It is the large part of the benchmarks.
+func flowerDocument(n int, material density.Spec) *Document {
+	pts := make([]geom.Point, n)
+	for i := range pts {
+		th := 2 * math.Pi * float64(i) / float64(n)
+		r := 100 * (1 + 0.1*math.Sin(7*th))
+		pts[i] = geom.Pt(r*math.Cos(th), r*math.Sin(th))
+	}
+	at := func(i int) geom.Point { return pts[(i+n)%n] }
+	loop := make(geom.Loop, n)
+	for i := range loop {
+		a, b := at(i), at(i+1)
+		if i%2 == 0 {
+			loop[i] = geom.Cubic(a, a.Add(b.Sub(at(i-1)).Mul(1.0/6)), b.Sub(at(i+2).Sub(a).Mul(1.0/6)), b)
+			continue
+		}
+		arc, ok := geom.SVGArc(a, 2*a.Dist(b), 2*a.Dist(b), 0, false, true, b)
+		if !ok {
+			panic("flowerDocument: degenerate arc")
+		}
+		loop[i] = arc
+	}
+	d := NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{loop}}
+	d.Material = material
+	return d
+}
+
+// flowerDensities are the densities the benchmarks run on the flower part (kg/m², x and y in mm; |xy|
+// stays below 6,000 on it): constant, polynomial and positive, polynomial and negative near the
+// diagonals (an error), and neither.
+var flowerDensities = []struct {
+	name  string
+	spec  density.Spec
+	fails bool
+}{
+	{"constant", density.Spec{Material: "steel", Thickness: "2 mm"}, false},
+	{"polynomial", areal("8 + 0.001*x*y"), false},
+	{"negative", areal("8 + 0.004*x*y"), true},
+	{"exp-sin", areal("exp(x/200)*(2 + sin(y/50))"), false},
+}

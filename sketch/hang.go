@@ -24,6 +24,9 @@ type HangOptions struct {
 	// of DrillTol keeps the tilt under MaxTiltDeg; a hole too close above the centroid is warned about.
 	MaxTiltDeg, DrillTol float64
 	Analyze              AnalyzeOptions
+	// Whole is the analysis of the part without the hole, Analyze(d, Analyze), when the caller has it;
+	// nil means it is computed. The hole's own material is then taken from it.
+	Whole *Analysis
 }
 
 // Hang is a part hung from one hole.
@@ -38,7 +41,18 @@ type Hang struct {
 	Pose      geom.Affine   // drawn → hanging: rotation by AngleDeg about At
 	Hanging   geom.Boundary // the part's material (hole removed) in hanging orientation
 	Part      *Analysis     // the part with the hole removed, drawn orientation
+	Edge      *EdgeDistance // set when the hole is nearer an edge than the edge-distance rule asks
 	Warnings  []string
+}
+
+// EdgeDistance is a hole nearer an edge of the part than the edge-distance rule asks: where it
+// happens, for drawing, and the message that Hang.Warnings carries.
+type EdgeDistance struct {
+	Hole    geom.Point // the hole's centre
+	Nearest geom.Point // the point of the part's edge nearest the hole's centre
+	Clear   float64    // the distance from the hole's edge to Nearest
+	Min     float64    // the least distance the rule asks for
+	Msg     string
 }
 
 // Level is the hole that hangs a part as drawn.
@@ -92,20 +106,32 @@ func HangFrom(d *Document, at geom.Point, dia float64, opt HangOptions) (*Hang, 
 	if err != nil {
 		return nil, err
 	}
-	rule := d.edgeRule(dia, opt, unit)
-	warning, err := checkHole(d.Body(), at, dia, rule, unit)
+	whole, err := opt.whole(d)
 	if err != nil {
 		return nil, err
 	}
-	part, err := Analyze(d.withHoles(Hole{At: at, Diameter: dia}), opt.Analyze)
+	edge, err := checkHole(whole.Body, at, dia, d.edgeRule(dia, opt, unit), unit)
+	if err != nil {
+		return nil, err
+	}
+	part, err := whole.withHole(d, Hole{At: at, Diameter: dia}, opt.Analyze)
 	if err != nil {
 		return nil, err
 	}
 	h := newHang(part, at, dia, unit, opt)
-	if warning != "" {
-		h.Warnings = append([]string{warning}, h.Warnings...)
+	if edge != nil {
+		h.Edge = edge
+		h.Warnings = append([]string{edge.Msg}, h.Warnings...)
 	}
 	return h, nil
+}
+
+// whole returns opt.Whole, or the analysis of d when it is nil.
+func (opt HangOptions) whole(d *Document) (*Analysis, error) {
+	if opt.Whole != nil {
+		return opt.Whole, nil
+	}
+	return Analyze(d, opt.Analyze)
 }
 
 // newHang derives the hanging pose and its figures from the analysis of the part with the hole removed.
@@ -221,25 +247,57 @@ func (d *Document) thickness(unit density.Length) (float64, bool) {
 }
 
 // checkHole reports a hole off the material or breaking an edge as an error, and one nearer an edge
-// than the rule allows as a warning.
-func checkHole(body geom.Boundary, at geom.Point, dia float64, rule edgeRule, unit density.Length) (string, error) {
+// than the rule allows as an EdgeDistance.
+func checkHole(body geom.Boundary, at geom.Point, dia float64, rule edgeRule, unit density.Length) (*EdgeDistance, error) {
 	where := fmt.Sprintf("the hole at (%s, %s) %s", formatNumber(at.X), formatNumber(at.Y), unit.Name)
 	if !at.IsFinite() || !(dia >= 0) || math.IsInf(dia, 0) {
-		return "", fmt.Errorf("%s: position and diameter must be finite, diameter ≥ 0", where)
+		return nil, fmt.Errorf("%s: position and diameter must be finite, diameter ≥ 0", where)
 	}
 	if !body.Contains(at) {
-		return "", fmt.Errorf("%s is not on the part's material", where)
+		return nil, fmt.Errorf("%s is not on the part's material", where)
 	}
 	dist := body.Distance(at)
 	if dist <= dia/2 {
-		return "", fmt.Errorf("%s breaks the edge: its centre is %s %s from the nearest edge and its radius is %s",
+		return nil, fmt.Errorf("%s breaks the edge: its centre is %s %s from the nearest edge and its radius is %s",
 			where, formatNumber(dist), unit.Name, formatNumber(dia/2))
 	}
-	if edge := dist - dia/2; edge < rule.min*(1-1e-9) {
-		return fmt.Sprintf("%s is %s %s from the nearest edge; keep at least %s %s (%s)",
-			where, formatNumber(edge), unit.Name, formatNumber(rule.min), unit.Name, rule.source), nil
+	edge := dist - dia/2
+	if edge >= rule.min*(1-1e-9) {
+		return nil, nil
 	}
-	return "", nil
+	return &EdgeDistance{Hole: at, Nearest: nearestPoint(body, at), Clear: edge, Min: rule.min,
+		Msg: fmt.Sprintf("%s is %s %s from the nearest edge; keep at least %s %s (%s)",
+			where, formatNumber(edge), unit.Name, formatNumber(rule.min), unit.Name, rule.source)}, nil
+}
+
+// nearestPoint returns the point of b nearest to p. The nearest piece is halved again and again,
+// keeping the half nearer p (Distance is exact on each half), until it is a billionth of the part's
+// size across.
+func nearestPoint(b geom.Boundary, p geom.Point) geom.Point {
+	dist := func(s geom.Segment) float64 { return geom.Boundary{Pieces: []geom.Segment{s}}.Distance(p) }
+	var near geom.Segment
+	best := math.Inf(1)
+	for _, s := range b.Pieces {
+		if d := dist(s); d < best {
+			near, best = s, d
+		}
+	}
+	tol := 1e-9 * partSize(b)
+	for range 64 {
+		if size := near.Bounds().Size(); math.Max(size.X, size.Y) <= tol {
+			break
+		}
+		lo, hi := near.Split(0.5)
+		dl, dh := dist(lo), dist(hi)
+		if math.IsInf(dl, 1) && math.IsInf(dh, 1) {
+			break
+		}
+		near = lo
+		if dh < dl {
+			near = hi
+		}
+	}
+	return near.At(0.5)
 }
 
 // LevelHole finds the hole of diameter dia that hangs the part as drawn: on the vertical through the
@@ -255,10 +313,11 @@ func LevelHole(d *Document, dia float64, opt HangOptions) (*Level, error) {
 	if !(dia >= 0) || math.IsInf(dia, 0) {
 		return nil, fmt.Errorf("hole diameter %s: must be finite and ≥ 0", formatNumber(dia))
 	}
-	whole, err := Analyze(d, opt.Analyze)
+	whole, err := opt.whole(d)
 	if err != nil {
 		return nil, err
 	}
+	opt.Whole = whole
 	s := newHoleSearch(d, whole, dia, opt, unit)
 	lv := &Level{Diameter: dia}
 	if s.rule.min == 0 {
@@ -271,7 +330,7 @@ func LevelHole(d *Document, dia float64, opt HangOptions) (*Level, error) {
 			return s.noLevel(lv, x, material)
 		}
 		at := geom.Pt(x, y)
-		part, err := Analyze(d.withHoles(Hole{At: at, Diameter: dia}), opt.Analyze)
+		part, err := whole.withHole(d, Hole{At: at, Diameter: dia}, opt.Analyze)
 		if err != nil {
 			return nil, err
 		}
@@ -451,12 +510,12 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	lift := &Lift{Diameter: dia, LegDeg: legDeg}
 	rule := d.edgeRule(dia, opt, unit)
 	for _, p := range [2]geom.Point{a, b} {
-		warning, err := checkHole(body, p, dia, rule, unit)
+		edge, err := checkHole(body, p, dia, rule, unit)
 		if err != nil {
 			return nil, err
 		}
-		if warning != "" {
-			lift.Warnings = append(lift.Warnings, warning)
+		if edge != nil {
+			lift.Warnings = append(lift.Warnings, edge.Msg)
 		}
 	}
 	part, err := Analyze(d.withHoles(Hole{At: a, Diameter: dia}, Hole{At: b, Diameter: dia}), opt.Analyze)

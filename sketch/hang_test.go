@@ -321,3 +321,80 @@ func BenchmarkLevelHole(b *testing.B) {
 		}
 	}
 }
+
+// TestHangEdgeDistance checks where a hole too near an edge is reported: the nearest point of the edge
+// is the foot of the perpendicular on a straight edge, and on a circular edge the point on the ray from
+// the circle's centre through the hole (elementary geometry: the normal to a circle passes through its
+// centre). The clear distance is that point's distance less the hole's radius.
+func TestHangEdgeDistance(t *testing.T) {
+	round := NewDocument()
+	round.Outline = diskRegion(geom.Pt(0, 0), 50)
+	round.Material = areal("10")
+	for _, tc := range []struct {
+		name    string
+		d       *Document
+		at      geom.Point
+		opt     HangOptions
+		nearest geom.Point
+		clear   float64
+	}{
+		{"straight edge", steelPlate(200, 100), geom.Pt(100, 92), HangOptions{}, geom.Pt(100, 100), 5},
+		{"circular edge", round, geom.Pt(24, 32), HangOptions{Edge: 10}, geom.Pt(30, 40), 7},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			h := mustHang(t, tc.d, tc.at, 6, tc.opt)
+			e := h.Edge
+			if e == nil {
+				t.Fatalf("no edge distance reported; warnings %q", h.Warnings)
+			}
+			if e.Nearest.Dist(tc.nearest) > 1e-6 || e.Hole != tc.at {
+				t.Errorf("nearest %v from %v, want %v from %v", e.Nearest, e.Hole, tc.nearest, tc.at)
+			}
+			checkNear(t, "clear", e.Clear, tc.clear, 1e-12, 0)
+			if len(h.Warnings) == 0 || h.Warnings[0] != e.Msg {
+				t.Errorf("warnings %q, want %q first", h.Warnings, e.Msg)
+			}
+		})
+	}
+	if h := mustHang(t, steelPlate(200, 100), geom.Pt(100, 50), 6, HangOptions{}); h.Edge != nil {
+		t.Errorf("edge distance %+v reported for a hole in the middle", h.Edge)
+	}
+}
+
+// TestHoleFromWholeAnalysis checks that removing a hole from the analysis of the whole part gives the
+// part analysed with the hole as a cut-out: integrals add over disjoint regions, so the disk's own
+// moments are what the hole takes away.
+func TestHoleFromWholeAnalysis(t *testing.T) {
+	notched := plate(200, 100, "3")
+	notched.Cutouts = []geom.Region{rectRegion(0, 0, 40, 30)}
+	for _, tc := range []struct {
+		name string
+		d    *Document
+		hole Hole
+	}{
+		{"linear density", plate(200, 100, "1 + x/50"), Hole{At: geom.Pt(150, 70), Diameter: 20}},
+		{"constant, cut-out", notched, Hole{At: geom.Pt(100, 50), Diameter: 12}},
+		{"pin", plate(200, 100, "5"), Hole{At: geom.Pt(100, 50)}},
+		{"flower, x·y density", flowerDocument(200, areal("8 + 0.001*x*y")), Hole{At: geom.Pt(0, 80), Diameter: 6}},
+		{"flower, exp·sin density", flowerDocument(200, areal("exp(x/200)*(2 + sin(y/50))")), Hole{At: geom.Pt(0, 80), Diameter: 6}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			got, err := mustAnalyze(t, tc.d).withHole(tc.d, tc.hole, AnalyzeOptions{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			want := mustAnalyze(t, tc.d.withHoles(tc.hole))
+			scale := want.Ixx + want.Iyy
+			checkNear(t, "area", got.Area, want.Area, 1e-12, 0)
+			checkNear(t, "mass", got.Mass, want.Mass, 1e-12, 0)
+			checkNear(t, "centroid x", got.Centroid.X, want.Centroid.X, 1e-12, 100)
+			checkNear(t, "centroid y", got.Centroid.Y, want.Centroid.Y, 1e-12, 100)
+			checkNear(t, "ixx", got.Ixx, want.Ixx, 1e-10, scale)
+			checkNear(t, "iyy", got.Iyy, want.Iyy, 1e-10, scale)
+			checkNear(t, "ixy", got.Ixy, want.Ixy, 1e-10, scale)
+			if g, w := got.Body.IntegratePoly(geom.ConstPoly(1)).M, want.Area; !near(g, w, 1e-12, 0) {
+				t.Errorf("area inside the boundary %v, want %v", g, w)
+			}
+		})
+	}
+}
