@@ -7,7 +7,6 @@ import (
 	"regexp"
 	"slices"
 	"strconv"
-	"strings"
 	"time"
 
 	"plumb/geom"
@@ -56,7 +55,7 @@ func analyse(doc *sketch.Document, rev int) *result {
 	r.flagged = flaggedSegments(doc, r)
 	if r.err == nil && len(doc.Holes) > 0 {
 		h := doc.Holes[0]
-		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{})
+		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{Whole: r.a})
 	}
 	r.ms = float64(time.Since(start).Microseconds()) / 1000
 	return r
@@ -207,17 +206,4 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m["hole_diameter"], m["corner_radius"] = ed.HoleDiameter(), ed.CornerRadius()
 	b, _ := json.Marshal(m)
 	return b
-}
-
-// edgeWarning reports whether the hang's warnings say its hole is too near an edge.
-func (r *result) edgeWarning() bool {
-	if r.hang == nil {
-		return false
-	}
-	for _, w := range r.hang.Warnings {
-		if strings.Contains(w, "nearest edge") {
-			return true
-		}
-	}
-	return false
 }

@@ -343,36 +343,17 @@ func (fr *frame) edgeWarnings() {
 			alignCentreMiddle, colPlumb)
 		return
 	}
-	if !fr.res.edgeWarning() {
+	hang := fr.res.hang
+	if hang == nil || hang.Edge == nil {
 		return
 	}
-	edge, ok := nearestEdge(fr.res.body, h.At)
-	if !ok {
-		return
-	}
-	e := fr.screen(edge)
+	e := fr.screen(hang.Edge.Nearest)
 	fr.p.circle(e, 12*fr.u, 0, colWarnGlow)
 	dir := e.Sub(c)
 	from := c.Add(dir.Mul(r / math.Max(dir.Norm(), 1e-9)))
 	fr.p.line(from, e, 2*fr.u, colWarn)
-	clear := edge.Dist(h.At) - h.Diameter/2
-	fr.pill(fmt.Sprintf("%s %s to the edge: too close", fr.length(clear), fr.doc.Units), fr.f.small,
+	fr.pill(fmt.Sprintf("%s %s to the edge: too close", fr.length(hang.Edge.Clear), fr.doc.Units), fr.f.small,
 		e.X+14*fr.u, e.Y, alignLeftMiddle, colWarn)
-}
-
-// nearestEdge returns the point of the boundary nearest to p, found along 180 rays from p.
-func nearestEdge(b geom.Boundary, p geom.Point) (geom.Point, bool) {
-	best, found := math.Inf(1), false
-	var at geom.Point
-	for k := range 180 {
-		dir := geom.Pt(1, 0).Rotate(float64(k) * math.Pi / 90)
-		for _, t := range b.LineHits(p, dir) {
-			if t > 0 && t < best {
-				best, at, found = t, p.Add(dir.Mul(t)), true
-			}
-		}
-	}
-	return at, found
 }
 
 // selection highlights the hovered and selected shapes, points and holes, and shows vertices and
