@@ -51,8 +51,10 @@ func (b Boundary) LineHits(p, dir Point) []float64 {
 		if !usable(s) {
 			continue
 		}
+		// Roots are sought a little past the ends too: a line through a vertex must not slip
+		// between the two pieces that meet there.
 		slack := tol / math.Max(s.Start().Dist(s.End()), tol)
-		for _, h := range lineMeets(p, dir, s, 0, 1, tol, buf[:0]) {
+		for _, h := range lineMeets(p, dir, s, -slack, 1+slack, tol, buf[:0]) {
 			if h[1] >= -slack && h[1] <= 1+slack {
 				ts = append(ts, h[0])
 			}

@@ -40,6 +40,8 @@ func TestBoundaryLineHits(t *testing.T) {
 	square := loopRegion(RectLoop(Pt(0, 0), Pt(4, 4))).Boundary()
 	annulus := Difference(Disk(Pt(0, 0), 5), Disk(Pt(0, 0), 2))
 	r3 := math.Sqrt(3)
+	blob := loopRegion(Loop{Cubic(Pt(0, 0), Pt(1, -1), Pt(3, 1), Pt(2, 2)), Cubic(Pt(2, 2), Pt(1, 3), Pt(-1, 1), Pt(0, 0))}).Boundary()
+	blobX2 := blobSecondCrossing()
 	cases := []struct {
 		name   string
 		b      Boundary
@@ -55,6 +57,9 @@ func TestBoundaryLineHits(t *testing.T) {
 		{"along an edge", square, Pt(-1, 0), Pt(1, 0), []float64{1, 5}},
 		{"across an annulus", annulus, Pt(-6, 0), Pt(1, 0), []float64{1, 4, 8, 11}},
 		{"vertical through an annulus", annulus, Pt(0, 6), Pt(0, -1), []float64{1, 4, 8, 11}},
+		// y = 2 meets the blob at the vertex (2, 2) where its two cubics join, and where the second
+		// comes back down to y = 2.
+		{"through a vertex between cubics", blob, Pt(-1, 2), Pt(1, 0), []float64{1 + blobX2, 3}},
 	}
 	for _, c := range cases {
 		got := c.b.LineHits(c.p, c.dir)
@@ -131,4 +136,19 @@ func TestBoundaryBoundsAndEmpty(t *testing.T) {
 	if !Combine(inBoth, Disk(Pt(0, 0), 1), Disk(Pt(5, 0), 1)).IsEmpty() {
 		t.Error("intersection of disjoint disks not empty")
 	}
+}
+
+// blobSecondCrossing returns the x where the cubic (2,2),(1,3),(−1,1),(0,0) comes back down to y = 2,
+// by bisection on its Bernstein form.
+func blobSecondCrossing() float64 {
+	c := Cubic(Pt(2, 2), Pt(1, 3), Pt(-1, 1), Pt(0, 0))
+	lo, hi := 0.2, 0.9 // y(0.2) > 2 > y(0.9)
+	for range 200 {
+		if m := (lo + hi) / 2; c.At(m).Y > 2 {
+			lo = m
+		} else {
+			hi = m
+		}
+	}
+	return c.At(lo).X
 }
