@@ -87,8 +87,8 @@ func (g *Game) Draw(screen *ebiten.Image) {
 	fr.snap()
 	fr.rulers()
 	fr.scaleBar()
-	fr.status()
 	fr.emptyHint()
+	fr.status()
 }
 
 func (fr *frame) screen(p geom.Point) geom.Point { return fr.v.ToScreen(p) }
@@ -100,6 +100,13 @@ func (fr *frame) segPath(segs []geom.Segment, closeLoops bool) *vector.Path {
 	var path vector.Path
 	appendSegments(&path, segs, fr.v.Affine(), fr.tol(), closeLoops)
 	return &path
+}
+
+// fillBoundary fills the material inside a boundary.
+func (fr *frame) fillBoundary(b geom.Boundary, clr color.Color) {
+	var path vector.Path
+	appendBoundary(&path, b.Pieces, fr.v.Affine(), fr.tol())
+	fr.p.fill(&path, clr, ebiten.FillRuleNonZero)
 }
 
 // regionPath returns all loops of a region as one path.
@@ -166,7 +173,7 @@ func (fr *frame) ghost() {
 		return
 	}
 	h := fr.res.hang
-	fr.p.fill(fr.segPath(h.Hanging.Pieces, true), colGhost, ebiten.FillRuleNonZero)
+	fr.fillBoundary(h.Hanging, colGhost)
 	fr.dashedSegs(h.Hanging.Pieces, 1.2, 5, 4, colGhostEdge)
 }
 
@@ -184,14 +191,14 @@ func (fr *frame) part() {
 	d := fr.doc
 	switch {
 	case !fr.res.body.IsEmpty() && fr.res.doc == d:
-		fr.p.fill(fr.segPath(fr.res.body.Pieces, true), colMaterial, ebiten.FillRuleNonZero)
+		fr.fillBoundary(fr.res.body, colMaterial)
 	case len(d.Outline.Loops) > 0:
 		fr.p.fill(fr.regionPath(d.Outline), colMaterial, fillRule(d.Outline.Rule))
 	}
 	for i, o := range d.Overlays {
 		// The tint shows where the doubler adds weight: on the material only. Its edge shows all of it.
 		if fr.res.doc == d && i < len(fr.res.onPart) {
-			fr.p.fill(fr.segPath(fr.res.onPart[i].Pieces, true), colOverlay, ebiten.FillRuleNonZero)
+			fr.fillBoundary(fr.res.onPart[i], colOverlay)
 		} else {
 			fr.p.fill(fr.regionPath(o.Region), colOverlay, fillRule(o.Region.Rule))
 		}
@@ -649,12 +656,12 @@ func fitClauses(s string, face text.Face, width float64) string {
 	return out
 }
 
-// emptyHint invites a first shape when the part has no outline.
+// emptyHint invites a first shape when the part has no outline, unless one is being drawn or typed.
 func (fr *frame) emptyHint() {
 	if len(fr.doc.Outline.Loops) > 0 {
 		return
 	}
-	if _, drawing := fr.g.ed.Preview(); drawing && fr.g.ed.Tool() != edit.ToolHole {
+	if _, drawing := fr.g.ed.Preview(); drawing && fr.g.ed.Tool() != edit.ToolHole || fr.g.ed.Typed() != "" {
 		return
 	}
 	u := fr.u

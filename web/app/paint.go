@@ -149,6 +149,38 @@ func appendSegments(path *vector.Path, segs []geom.Segment, m geom.Affine, tol f
 	}
 }
 
+// appendBoundary adds the pieces of a boundary to path for filling under the non-zero rule. The
+// pieces may come in any order: each run of pieces that join end to start becomes a subpath from the
+// anchor (the first piece's start) along the run and back to the anchor. The runs join up into the
+// boundary's closed loops, so the lines to and from the anchor cancel in pairs and every point is
+// wound as often as by the loops alone. (Closing each run on itself instead would fill the chord
+// across every run that is not a whole loop: a hole made of four arcs would show a filled square.)
+func appendBoundary(path *vector.Path, pieces []geom.Segment, m geom.Affine, tol float64) {
+	if len(pieces) == 0 {
+		return
+	}
+	anchor := m.Apply(pieces[0].Start())
+	var pen geom.Point
+	var buf []geom.Point
+	for i, s := range pieces {
+		if i == 0 || s.Start() != pen {
+			if i > 0 {
+				path.Close()
+			}
+			q := m.Apply(s.Start())
+			path.MoveTo(float32(anchor.X), float32(anchor.Y))
+			path.LineTo(float32(q.X), float32(q.Y))
+		}
+		buf = s.Flatten(tol, buf[:0])
+		for _, pt := range buf {
+			q := m.Apply(pt)
+			path.LineTo(float32(q.X), float32(q.Y))
+		}
+		pen = s.End()
+	}
+	path.Close()
+}
+
 // rgba is a colour from 0xRRGGBB and an opacity in [0, 1], premultiplied as Ebiten wants.
 func rgba(hex uint32, alpha float64) color.Color {
 	a := uint8(math.Round(alpha * 255))
