@@ -61,13 +61,12 @@ func analyse(doc *sketch.Document, rev int) *result {
 	return r
 }
 
-// findLevel searches for the hole of diameter dia that hangs the part level.
+// findLevel searches for the hole of diameter dia that hangs the part level. The part must have been
+// analysed without error.
 func (r *result) findLevel(dia float64) {
 	start := time.Now()
-	r.level, r.levelDia, r.levelDone = nil, dia, true
-	if r.err == nil {
-		r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{})
-	}
+	r.levelDia, r.levelDone = dia, true
+	r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{})
 	r.levelMS = float64(time.Since(start).Microseconds()) / 1000
 }
 

@@ -56,7 +56,7 @@ func installBridge(g *Game) {
 		return g.change(func() any { g.ed.NewPart(); g.file = "part.json"; g.needFit = true; return nil })
 	})
 	fn("fit", func([]js.Value) any {
-		return g.change(func() any { g.page = pageInsets(g.dpr); g.fit(); return nil })
+		return g.change(func() any { g.fit(); return nil })
 	})
 	fn("setMaterial", func(a []js.Value) any { return g.change(func() any { return g.setMaterial(arg(a, 0)) }) })
 	fn("setUnits", func(a []js.Value) any {
@@ -174,7 +174,6 @@ func (g *Game) load(text, name string) any {
 	}
 	g.needFit = true
 	if g.w > 0 {
-		g.page = pageInsets(g.dpr)
 		g.fit()
 	}
 	out := make([]any, len(warnings))

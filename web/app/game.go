@@ -47,6 +47,9 @@ type uiState struct {
 func newGame() *Game {
 	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true}
 	g.res = analyse(g.ed.Document(), g.ed.Rev())
+	// The empty starting part is nothing to tell: the page loads the autosaved or demo part when it
+	// is ready, and that load is the first change it hears of.
+	g.toldState = g.uiState()
 	return g
 }
 
@@ -58,11 +61,11 @@ func (g *Game) refresh() {
 	}
 }
 
-// refreshLevel looks for the level hole once nothing is being dragged. It takes several analyses, so
-// Update runs it on the frame after a change, never inside a call from the page (typing in the
-// panel's fields stays quick).
+// refreshLevel looks for the level hole, once nothing is being dragged, of a part that can be
+// analysed. It takes several analyses, so Update runs it on the frame after a change, never inside a
+// call from the page (typing in the panel's fields stays quick).
 func (g *Game) refreshLevel() {
-	if (!g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter()) && !g.ed.Dragging() {
+	if g.res.err == nil && (!g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter()) && !g.ed.Dragging() {
 		g.res.findLevel(g.ed.HoleDiameter())
 		g.ed.SetGuides(g.guides())
 	}
@@ -80,11 +83,16 @@ func (g *Game) guides() []geom.Point {
 	return pts
 }
 
+// uiState returns what the page shows of the editor and the analysis now.
+func (g *Game) uiState() uiState {
+	return uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
+		g.ed.HoleDiameter(), g.ed.CornerRadius(), g.res.levelDone}
+}
+
 // pending returns what the page must be told after this change, if anything: a reanalysis or a
 // change of tool, target or undo state. It marks it told.
 func (g *Game) pending() (state, part []byte, tell bool) {
-	now := uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
-		g.ed.HoleDiameter(), g.ed.CornerRadius(), g.res.levelDone}
+	now := g.uiState()
 	if now == g.toldState {
 		return nil, nil, false
 	}
@@ -96,13 +104,13 @@ func (g *Game) pending() (state, part []byte, tell bool) {
 // Update handles input and reanalyses the part after changes.
 func (g *Game) Update() error {
 	if !g.ready {
-		// The page loads the autosaved or demo part when told; only then has it anything to be told.
+		// The page loads the autosaved or demo part while it is told, before this frame goes on.
 		g.ready = true
 		callPage("ready")
 	}
 	g.mu.Lock()
 	if page := pageInsets(g.dpr); page != g.page {
-		g.page = page
+		g.setPage(page)
 		g.needFit = g.needFit || g.autoFit
 	}
 	view, rev := g.ed.View, g.ed.Rev()
@@ -124,14 +132,19 @@ func (g *Game) Update() error {
 	return nil
 }
 
+// setPage records the canvas edges the page covers and tells the editor what is clear of them.
+func (g *Game) setPage(page edit.Insets) {
+	g.page = page
+	// The rulers, and the status line above the bottom one, are ours to keep clear as well.
+	page.Left += rulerLeft * g.dpr
+	page.Bottom += (rulerBottom + 24) * g.dpr
+	g.ed.Insets = page
+}
+
 // fit shows the whole part clear of the page's panel and toolbar.
 func (g *Game) fit() {
 	g.needFit, g.autoFit = false, true
-	in := g.page
-	// The rulers, and the status line above the bottom one, are ours to keep clear as well.
-	in.Left += rulerLeft * g.dpr
-	in.Bottom += (rulerBottom + 24) * g.dpr
-	g.ed.Insets = in
+	g.setPage(pageInsets(g.dpr))
 	g.ed.Fit()
 }
 

@@ -11,7 +11,8 @@
   const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
   const FOLDED = "plumb.panelFolded";
   const MAX_FILE_BYTES = 50 << 20;
-  const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 };
+  const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 }; // for answers
+  const FIELD_DECIMALS = { mm: 2, cm: 3, m: 5, in: 4, ft: 5 }; // at most, for values shown in fields
   const KG_PER_LB = 0.45359237; // exact, by definition of the international pound
 
   const $ = (id) => document.getElementById(id);
@@ -45,6 +46,11 @@
   function unitName() { return (state && state.units && state.units.length) || "mm"; }
   function fmtLen(v) {
     return Number.isFinite(v) ? v.toFixed(DECIMALS[unitName()] ?? 3) : "—";
+  }
+  // fmtField writes a length for a field the user may edit: rounded, without trailing zeros. The app
+  // keeps the exact value until the user types a new one.
+  function fmtField(v) {
+    return String(Number(v.toFixed(FIELD_DECIMALS[unitName()] ?? 4)));
   }
   function fmtSig(v, digits = 4) {
     if (!Number.isFinite(v)) return "—";
@@ -87,24 +93,21 @@
     }
   }
 
-  // ready is called by the app from inside its frame. The autosave is read at once, before the app
-  // reports its empty starting part, and loaded after the frame, outside the app's own call.
+  // ready is called by the app at the start of its first frame. The part is restored at once, so that
+  // the frame already draws it and the app's first report is of the restored part.
   function ready() {
     app = window.plumb;
     timing.readyMs = performance.now();
-    const saved = readStore(AUTOSAVE);
-    setTimeout(() => {
-      try {
-        restore(saved);
-      } catch (e) {
-        toast("The part could not be restored: " + e.message, true);
-      }
-      restored = true;
-      refresh();
-      $("loading").classList.add("done");
-      setEnabled(true);
-      requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
-    });
+    try {
+      restore(readStore(AUTOSAVE));
+    } catch (e) {
+      toast("The part could not be restored: " + e.message, true);
+    }
+    restored = true;
+    refresh();
+    $("loading").classList.add("done");
+    setEnabled(true);
+    requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
   }
 
   // restore brings back the autosaved part, or shows the demo part when there is none or the address asks
@@ -383,7 +386,7 @@
     if (state.target) for (const b of document.querySelectorAll("[data-target]")) b.setAttribute("aria-pressed", String(b.dataset.target === state.target));
     if (typeof state.can_undo === "boolean") document.querySelector('[data-action="undo"]').disabled = !state.can_undo;
     if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
-    if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = String(state.hole_diameter);
+    if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = fmtField(state.hole_diameter);
     $("material-desc").textContent = state.material || "";
     $("part-error").textContent = state.error || "";
     if (state.error) {
