@@ -242,8 +242,11 @@ func (e *Editor) commit(nd *sketch.Document) {
 }
 
 // setDoc makes nd the current document. When its length unit differs from the current one, the
-// view, the hole diameter and the corner radius are rescaled so that they keep their real size.
+// view, the hole diameter and the corner radius are rescaled so that they keep their real size. A
+// part that was wholly in view and no longer is (the first outline typed at full size, a shape moved
+// by a typed distance) is fitted again, so that no change happens out of sight.
 func (e *Editor) setDoc(nd *sketch.Document) {
+	shown := e.inView(e.doc)
 	if k, ok := unitRatio(e.doc.Units, nd.Units); ok && k != 1 {
 		e.holeDia *= k
 		e.cornerRadius *= k
@@ -252,6 +255,21 @@ func (e *Editor) setDoc(nd *sketch.Document) {
 	e.doc = nd
 	e.rev++
 	e.validateSelection()
+	if shown && !e.inView(nd) {
+		e.Fit()
+	}
+}
+
+// inView reports whether all of d lies on the canvas, clear of the insets. An empty part does.
+func (e *Editor) inView(d *sketch.Document) bool {
+	r := docBounds(d)
+	if r.IsEmpty() {
+		return true
+	}
+	// Screen y runs down: the document's top edge is the screen's smaller y.
+	lo, hi := e.View.ToScreen(geom.Pt(r.Min.X, r.Max.Y)), e.View.ToScreen(geom.Pt(r.Max.X, r.Min.Y))
+	in := e.Insets
+	return lo.X >= in.Left && lo.Y >= in.Top && hi.X <= e.width-in.Right && hi.Y <= e.height-in.Bottom
 }
 
 // unitRatio returns how many of the unit named to make one of the unit named from ("" is mm).

@@ -226,3 +226,41 @@ func TestArrowsNudgeTheSelection(t *testing.T) {
 		t.Fatalf("hole at %v, want (60,130)", h.At)
 	}
 }
+
+func TestChangesOutOfSightAreFitted(t *testing.T) {
+	// The test editor shows x from −50 to 450 mm and y from −50 to 350 mm.
+	shows := func(e *Editor, r geom.Rect) bool {
+		lo, hi := e.View.ToScreen(geom.Pt(r.Min.X, r.Max.Y)), e.View.ToScreen(geom.Pt(r.Max.X, r.Min.Y))
+		return lo.X >= 0 && lo.Y >= 0 && hi.X <= 1000 && hi.Y <= 800
+	}
+	t.Run("first outline typed beyond the edge", func(t *testing.T) {
+		e := newTestEditor()
+		e.SetTool(ToolRect)
+		typeLine(e, "0,0")
+		hover(e, geom.Pt(50, 50))
+		typeLine(e, "600,300")
+		if r := onlyOutline(t, e).Bounds(); !shows(e, r) {
+			t.Fatalf("the 600 × 300 rectangle %v is not wholly shown", r)
+		}
+	})
+	t.Run("a shape drawn in view keeps the view", func(t *testing.T) {
+		e := newTestEditor()
+		before := e.View
+		drawRect(e, geom.Pt(0, 0), geom.Pt(100, 100))
+		if e.View != before {
+			t.Fatalf("view changed from %+v to %+v", before, e.View)
+		}
+	})
+	t.Run("a part already partly out of view keeps the view", func(t *testing.T) {
+		e := newTestEditor()
+		drawRect(e, geom.Pt(0, 0), geom.Pt(100, 100))
+		e.View.ZoomAt(e.View.ToScreen(geom.Pt(0, 0)), 8) // working on one corner
+		before := e.View
+		e.SetTool(ToolCircle)
+		typeLine(e, "5,5")
+		typeLine(e, "2")
+		if len(e.Document().Outline.Loops) != 2 || e.View != before {
+			t.Fatalf("%d loops, view %+v, want 2 loops and the view %+v kept", len(e.Document().Outline.Loops), e.View, before)
+		}
+	})
+}
