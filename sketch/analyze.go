@@ -306,9 +306,8 @@ const densityGrid = 33
 // checkPolynomialDensity samples a polynomial density at the boundary pieces' ends and midpoints and
 // on a densityGrid × densityGrid grid of points inside the part, and reports the first point where it
 // is negative or not finite. The exact integral never evaluates the density, so this is the check.
-// The grid is found row by row: the row's line meets the boundary at sorted hits, and the grid points
-// between two hits are all inside or all outside, which one test at the gap's middle decides (a
-// winding test per gap rather than per point).
+// The grid is laid over the bounding box and evaluated whole; only the grid points where the density
+// fails need to be placed inside or outside the part (insideGrid).
 func checkPolynomialDensity(b geom.Boundary, f *density.Field) error {
 	if _, ok := f.Constant(); ok {
 		p := b.Bounds().Center()
@@ -321,26 +320,70 @@ func checkPolynomialDensity(b geom.Boundary, f *density.Field) error {
 			xs, ys = append(xs, p.X), append(ys, p.Y)
 		}
 	}
+	if err := f.CheckDomain(xs, ys); err != nil {
+		return err
+	}
 	box := b.Bounds()
-	size := box.Size()
-	step := size.X / densityGrid
-	rows := rowPieces(b, box)
+	xs, ys = xs[:0], ys[:0]
 	for j := range densityGrid {
-		y := box.Min.Y + size.Y*(float64(j)+0.5)/densityGrid
+		for i := range densityGrid {
+			p := gridPoint(box, i, j)
+			xs, ys = append(xs, p.X), append(ys, p.Y)
+		}
+	}
+	rho := make([]float64, len(xs))
+	f.Eval(xs, ys, rho)
+	fails := func(i, j int) bool {
+		v := rho[j*densityGrid+i]
+		return !(v >= 0) || math.IsInf(v, 1)
+	}
+	return f.CheckDomain(insideGrid(b, box, fails))
+}
+
+// gridPoint returns the centre of the cell in column i and row j when box is cut into
+// densityGrid × densityGrid cells.
+func gridPoint(box geom.Rect, i, j int) geom.Point {
+	size := box.Size()
+	return geom.Pt(box.Min.X+size.X*(float64(i)+0.5)/densityGrid, box.Min.Y+size.Y*(float64(j)+0.5)/densityGrid)
+}
+
+// insideGrid returns the grid points (gridPoint) in column i and row j for which want(i, j) holds that
+// lie inside the material b, found row by row: the row's line meets the boundary at sorted hits, and
+// the grid points between two hits are all inside or all outside, which one winding test at the gap's
+// middle decides. Rows and gaps without a wanted point are skipped.
+func insideGrid(b geom.Boundary, box geom.Rect, want func(i, j int) bool) (xs, ys []float64) {
+	step := box.Size().X / densityGrid
+	rows := rowPieces(b, box)
+	wanted := func(j, first, last int) bool {
+		for i := first; i <= last; i++ {
+			if want(i, j) {
+				return true
+			}
+		}
+		return false
+	}
+	for j := range densityGrid {
+		if !wanted(j, 0, densityGrid-1) {
+			continue
+		}
+		y := gridPoint(box, 0, j).Y
 		hits := rows(y).LineHits(geom.Pt(box.Min.X, y), geom.Pt(1, 0))
 		for k := 1; k < len(hits); k++ {
 			lo, hi := hits[k-1], hits[k]
 			first := max(int(math.Ceil(lo/step-0.5)), 0)
 			last := min(int(math.Floor(hi/step-0.5)), densityGrid-1)
-			if first > last || !b.Contains(geom.Pt(box.Min.X+(lo+hi)/2, y)) {
+			if !wanted(j, first, last) || !b.Contains(geom.Pt(box.Min.X+(lo+hi)/2, y)) {
 				continue
 			}
 			for i := first; i <= last; i++ {
-				xs, ys = append(xs, box.Min.X+size.X*(float64(i)+0.5)/densityGrid), append(ys, y)
+				if want(i, j) {
+					p := gridPoint(box, i, j)
+					xs, ys = append(xs, p.X), append(ys, p.Y)
+				}
 			}
 		}
 	}
-	return f.CheckDomain(xs, ys)
+	return xs, ys
 }
 
 // rowPieces returns a function giving the pieces of b that reach the horizontal line at height y:

@@ -200,6 +200,8 @@ func TestAnalyzeErrors(t *testing.T) {
 			return d
 		}, []string{"overlays[0].material", "density is −1"}},
 		{"bad units", func() *Document { d := plate(100, 100, "1"); d.Units = "furlong"; return d }, []string{"units"}},
+		// Negative only within 2 mm of the centre, far from every edge: the interior grid finds it.
+		{"negative inside", func() *Document { return plate(100, 100, bowl) }, []string{"material", "density is −4 kg/m²", "at x = 50"}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			_, err := Analyze(tc.doc(), AnalyzeOptions{})
@@ -213,6 +215,17 @@ func TestAnalyzeErrors(t *testing.T) {
 			}
 		})
 	}
+}
+
+// bowl is an areal density in kg/m² that is negative only within 2 mm of (50, 50) mm, −4 there.
+const bowl = "(x - 50)^2 + (y - 50)^2 - 4"
+
+// TestAnalyzeDensityNegativeInCutout checks that a density negative only where the part has a cut-out
+// is no error: only the material is sampled.
+func TestAnalyzeDensityNegativeInCutout(t *testing.T) {
+	d := plate(100, 100, bowl)
+	d.Cutouts = []geom.Region{diskRegion(geom.Pt(50, 50), 10)}
+	mustAnalyze(t, d)
 }
 
 // TestAnalyzeUnits checks that a part drawn in inches gives the same mass as in millimetres
@@ -292,15 +305,17 @@ func flowerDocument(n int, material density.Spec) *Document {
 }
 
 // flowerDensities are the densities the benchmarks run on the flower part (kg/m², x and y in mm; |xy|
-// stays below 6,000 on it): constant, polynomial and positive, polynomial and negative near the
-// diagonals (an error), and neither.
+// stays below 6,000 on the part and 12,100 on its bounding box): constant; polynomial and positive
+// on the bounding box; polynomial, positive on the part and negative in the box's corners; polynomial
+// and negative near the diagonals (an error); and neither.
 var flowerDensities = []struct {
 	name  string
 	spec  density.Spec
 	fails bool
 }{
 	{"constant", density.Spec{Material: "steel", Thickness: "2 mm"}, false},
-	{"polynomial", areal("8 + 0.001*x*y"), false},
+	{"polynomial", areal("8 + 0.0005*x*y"), false},
+	{"polynomial-corners", areal("8 + 0.001*x*y"), false},
 	{"negative", areal("8 + 0.004*x*y"), true},
 	{"exp-sin", areal("exp(x/200)*(2 + sin(y/50))"), false},
 }
