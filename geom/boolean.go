@@ -160,17 +160,18 @@ type classifier struct {
 	rules []FillRule
 	keep  func([]bool) bool
 	index yIndex
-	w     []int  // winding number by region, zero outside kept
-	in    []bool // membership by region, false outside kept
-	// touched lists the regions whose winding kept has changed.
-	touched []int
-	tol     float64
-	side    float64
+	ws    [2]windings // about the two probes beside a piece
+	in    []bool      // membership by region, false outside decide
+	tol   float64
+	side  float64
 }
 
 func newClassifier(ms monos, regions []Region, keep func([]bool) bool, box Rect, tol float64) *classifier {
 	c := &classifier{ms: ms, keep: keep, index: newYIndex(ms, box), tol: tol, side: sideTolerance * tol,
-		rules: make([]FillRule, len(regions)), w: make([]int, len(regions)), in: make([]bool, len(regions))}
+		rules: make([]FillRule, len(regions)), in: make([]bool, len(regions))}
+	for j := range c.ws {
+		c.ws[j].w = make([]int, len(regions))
+	}
 	for i, r := range regions {
 		c.rules[i] = r.Rule
 	}
@@ -238,7 +239,7 @@ func (c *classifier) piece(i int, u0, u1 float64, q0, q1 Point, dst []keptPiece)
 	} else if tan.Y < 0 {
 		down = -1
 	}
-	left, right := c.kept(mid.Add(n), i, up), c.kept(mid.Sub(n), i, down)
+	left, right := c.sides([2]Point{mid.Add(n), mid.Sub(n)}, i, [2]int{up, down})
 	if left == right {
 		return dst
 	}
@@ -291,7 +292,7 @@ func (c *classifier) clearance(i int, p Point, piece [3]Point, limit float64) fl
 		return true
 	}
 	for b := c.index.band(p.Y - limit); b <= c.index.band(p.Y+limit); b++ {
-		for _, k := range c.index.items[c.index.start[b]:c.index.start[b+1]] {
+		for _, k := range c.index.in(b) {
 			m := &c.ms[k]
 			if int(k) == i || !boxesMeet(m.box, near, 0) {
 				continue
@@ -304,38 +305,76 @@ func (c *classifier) clearance(i int, p Point, piece [3]Point, limit float64) fl
 	return r
 }
 
-// kept reports whether keep holds at p, a probe beside mono own whose crossing of p's ray, if p is
-// within its y range, is ownCross.
-func (c *classifier) kept(p Point, own, ownCross int) bool {
-	c.touched = c.touched[:0]
-	for _, k := range c.index.at(p.Y) {
+// windings accumulates the winding numbers of the regions about one probe.
+type windings struct {
+	w       []int // by region; zero for regions not in touched
+	touched []int // regions whose winding number has been changed
+}
+
+func (ws *windings) add(region, w int) {
+	if ws.w[region] == 0 {
+		ws.touched = append(ws.touched, region)
+	}
+	ws.w[region] += w
+}
+
+// sides reports whether keep holds at the probes ps[0] and ps[1] beside mono own, whose crossings of
+// the probes' rays (when the probe is within its y range) are ownCross. The probes lie within a band or
+// two of each other, so the pieces of a band are looked at once for both.
+func (c *classifier) sides(ps [2]Point, own int, ownCross [2]int) (bool, bool) {
+	b0, b1 := c.index.band(ps[0].Y), c.index.band(ps[1].Y)
+	if b0 == b1 {
+		c.accumulate(b0, ps, own, ownCross, 0, 1)
+	} else {
+		c.accumulate(b0, ps, own, ownCross, 0, 0)
+		c.accumulate(b1, ps, own, ownCross, 1, 1)
+	}
+	return c.decide(&c.ws[0]), c.decide(&c.ws[1])
+}
+
+// accumulate adds the crossings of the rays from probes ps[first..last] with the pieces of band b.
+func (c *classifier) accumulate(b int, ps [2]Point, own int, ownCross [2]int, first, last int) {
+	lo := Point{math.Min(ps[first].X, ps[last].X), math.Min(ps[first].Y, ps[last].Y)}
+	hi := Point{math.Max(ps[first].X, ps[last].X), math.Max(ps[first].Y, ps[last].Y)}
+	for _, k := range c.index.in(b) {
 		m := &c.ms[k]
-		if p.Y < m.box.Min.Y || p.Y > m.box.Max.Y || p.X > m.box.Max.X {
-			continue // the ray misses m, or both its ends lie on one side (step 0)
+		if hi.Y < m.box.Min.Y || lo.Y > m.box.Max.Y || lo.X > m.box.Max.X {
+			continue // the rays miss m, or both its ends lie on one side (step 0)
 		}
-		var w int
-		switch {
-		case p.X < m.box.Min.X:
-			w = step(m.a, m.b, p)
-		case int(k) != own:
-			w = monoWinding(m.s, m.t0, m.t1, m.a, m.b, p)
-		case step(m.a, m.b, p) != 0:
-			w = ownCross
-		}
-		if w != 0 {
-			if c.w[m.region] == 0 {
-				c.touched = append(c.touched, m.region)
+		for j := first; j <= last; j++ {
+			if w := c.crossing(m, int(k) == own, ps[j], ownCross[j]); w != 0 {
+				c.ws[j].add(m.region, w)
 			}
-			c.w[m.region] += w
 		}
 	}
-	for _, r := range c.touched {
-		c.in[r] = c.rules[r].inside(c.w[r])
+}
+
+// crossing returns the signed crossing of the ray from p towards +x with mono m; for the probe's own
+// mono, ownCross when p is within its y range.
+func (c *classifier) crossing(m *mono, own bool, p Point, ownCross int) int {
+	switch {
+	case p.Y < m.box.Min.Y || p.Y > m.box.Max.Y || p.X > m.box.Max.X:
+		return 0
+	case p.X < m.box.Min.X:
+		return step(m.a, m.b, p)
+	case !own:
+		return monoWinding(m.s, m.t0, m.t1, m.a, m.b, p)
+	case step(m.a, m.b, p) != 0:
+		return ownCross
+	}
+	return 0
+}
+
+// decide reports whether keep holds for the winding numbers ws, and clears ws.
+func (c *classifier) decide(ws *windings) bool {
+	for _, r := range ws.touched {
+		c.in[r] = c.rules[r].inside(ws.w[r])
 	}
 	k := c.keep(c.in)
-	for _, r := range c.touched {
-		c.w[r], c.in[r] = 0, false
+	for _, r := range ws.touched {
+		ws.w[r], c.in[r] = 0, false
 	}
+	ws.touched = ws.touched[:0]
 	return k
 }
 
@@ -471,8 +510,5 @@ func (x *yIndex) band(y float64) int {
 	return int(f)
 }
 
-// at returns the pieces that may cross the horizontal line at y.
-func (x *yIndex) at(y float64) []int32 {
-	k := x.band(y)
-	return x.items[x.start[k]:x.start[k+1]]
-}
+// in returns the pieces whose y range meets band b.
+func (x *yIndex) in(b int) []int32 { return x.items[x.start[b]:x.start[b+1]] }
