@@ -31,10 +31,10 @@ type Analysis struct {
 	Cautions                       []string
 	Body                           geom.Boundary // the material of the part (outline minus cut-outs)
 
-	// density is the one polynomial density of all the material, or nil when the density is not a
+	// poly is the one polynomial density of all the material, or nil when the density is not a
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
 	// moments of its disk (withHole).
-	density *geom.Poly
+	poly *geom.Poly
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -122,7 +122,7 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 		return nil, err
 	}
 	if len(d.Overlays) == 0 {
-		a.density = poly
+		a.poly = poly
 	}
 	regions := d.regions()
 	for i, ov := range d.Overlays {
@@ -273,7 +273,7 @@ func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt 
 // exactly the moments of its disk (IntegratePoly over the disk's circle) and its circle, turned
 // clockwise, joins the boundary. Otherwise the part is analysed afresh with the hole as a cut-out.
 func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis, error) {
-	if a.density == nil {
+	if a.poly == nil {
 		return Analyze(d.withHoles(h), opt)
 	}
 	part := *a
@@ -285,7 +285,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
 	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
-	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.density))); err != nil {
+	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.poly))); err != nil {
 		return nil, err
 	}
 	return &part, nil
