@@ -285,7 +285,7 @@ func (fr *frame) plumbLine() {
 	bob.Close()
 	fr.p.fill(&bob, colPlumb, ebiten.FillRuleNonZero)
 	if fr.tilted() {
-		fr.pill(tiltText(h.AngleDeg), fr.f.label, end.X+10*fr.u, end.Y+r, alignLeftMiddle, colInk)
+		fr.besideMark(tiltText(h.AngleDeg), fr.f.label, end, 10*fr.u, r, colInk)
 	}
 }
 
@@ -304,8 +304,8 @@ func (fr *frame) balancePoint() {
 	r := 10 * fr.u
 	fr.quartered(c, r, 1)
 	u := fr.doc.Units
-	fr.pill(fmt.Sprintf("balance point  x %s  y %s %s", fr.length(a.Centroid.X), fr.length(a.Centroid.Y), u),
-		fr.f.small, c.X+r+8*fr.u, c.Y+r+4*fr.u, alignLeftMiddle, colInk)
+	fr.besideMark(fmt.Sprintf("balance point  x %s  y %s %s", fr.length(a.Centroid.X), fr.length(a.Centroid.Y), u),
+		fr.f.small, c, r+8*fr.u, r+4*fr.u, colInk)
 }
 
 // quartered draws the centre-of-gravity symbol: a circle with opposite quarters filled.
@@ -670,6 +670,17 @@ func (fr *frame) emptyHint() {
 	drawText(fr.p.dst, "Draw the part's outline", fr.f.strong, cx, cy-12*u, alignCentreMiddle, colInk)
 	drawText(fr.p.dst, "O outline · R rectangle · C circle · L slot — or drop a part (.json) or drawing (.svg) here",
 		fr.f.label, cx, cy+12*u, alignCentreMiddle, colInkSoft)
+}
+
+// besideMark writes s on a label gap pixels to the right of the mark at c and dy below it, or to the
+// left when the right would run under the page's panel.
+func (fr *frame) besideMark(s string, face text.Face, c geom.Point, gap, dy float64, clr color.Color) {
+	w, _ := textSize(s, face)
+	if c.X+gap+w+10*fr.u > fr.w-fr.g.page.Right {
+		fr.pill(s, face, c.X-gap, c.Y+dy, alignRightMiddle, clr)
+		return
+	}
+	fr.pill(s, face, c.X+gap, c.Y+dy, alignLeftMiddle, clr)
 }
 
 // pill writes s on a white rounded label so it reads over the drawing.
