@@ -13,6 +13,7 @@
   const MAX_FILE_BYTES = 50 << 20;
   const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 }; // for answers
   const FIELD_DECIMALS = { mm: 2, cm: 3, m: 5, in: 4, ft: 5 }; // at most, for values shown in fields
+  const SHAPE_TOOLS = ["outline", "rect", "circle", "slot"]; // the tools whose shapes go into the chosen layer
   const KG_PER_LB = 0.45359237; // exact, by definition of the international pound
 
   const $ = (id) => document.getElementById(id);
@@ -384,6 +385,7 @@
     for (const b of document.querySelectorAll("[data-units]")) b.setAttribute("aria-pressed", String(b.dataset.units === u));
     if (state.tool) for (const b of document.querySelectorAll("[data-tool]")) b.setAttribute("aria-pressed", String(b.dataset.tool === state.tool));
     if (state.target) for (const b of document.querySelectorAll("[data-target]")) b.setAttribute("aria-pressed", String(b.dataset.target === state.target));
+    if (state.tool) $("targets").classList.toggle("idle", !SHAPE_TOOLS.includes(state.tool));
     if (typeof state.can_undo === "boolean") document.querySelector('[data-action="undo"]').disabled = !state.can_undo;
     if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
     if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = fmtField(state.hole_diameter);
@@ -405,7 +407,7 @@
     const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
     $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
-    $("balance-sub").textContent = "x, y in " + u + " from the drawing's origin";
+    $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
     const h = state.hang;
     const level = state.level;
     if (h) {
