@@ -290,7 +290,8 @@ func (fr *frame) plumbLine() {
 }
 
 // balancePoint draws the centroid as a quartered circle, the strongest mark on the canvas, with its
-// coordinates beside it; when the part hangs tilted, a lighter mark shows where it hangs.
+// coordinates beside it unless a shape is being drawn; when the part hangs tilted, a lighter mark
+// shows where it hangs.
 func (fr *frame) balancePoint() {
 	a := fr.res.a
 	if a == nil || fr.res.doc != fr.doc {
@@ -303,6 +304,9 @@ func (fr *frame) balancePoint() {
 	c := fr.screen(a.Centroid)
 	r := 10 * fr.u
 	fr.quartered(c, r, 1)
+	if fr.drawingShape() {
+		return
+	}
 	u := fr.doc.Units
 	fr.besideMark(fmt.Sprintf("balance point  x %s  y %s %s", fr.length(a.Centroid.X), fr.length(a.Centroid.Y), u),
 		fr.f.small, c, r+8*fr.u, r+4*fr.u, colInk)
@@ -656,12 +660,19 @@ func fitClauses(s string, face text.Face, width float64) string {
 	return out
 }
 
+// drawingShape reports whether a shape is under way: its preview and size then have the words
+// beside the pointer to themselves.
+func (fr *frame) drawingShape() bool {
+	_, drawing := fr.g.ed.Preview()
+	return drawing && fr.g.ed.Tool() != edit.ToolHole
+}
+
 // emptyHint invites a first shape when the part has no outline, unless one is being drawn or typed.
 func (fr *frame) emptyHint() {
 	if len(fr.doc.Outline.Loops) > 0 {
 		return
 	}
-	if _, drawing := fr.g.ed.Preview(); drawing && fr.g.ed.Tool() != edit.ToolHole || fr.g.ed.Typed() != "" {
+	if fr.drawingShape() || fr.g.ed.Typed() != "" {
 		return
 	}
 	u := fr.u
