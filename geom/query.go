@@ -10,6 +10,12 @@ import (
 func (b Boundary) Contains(p Point) bool {
 	w := 0
 	for _, s := range b.Pieces {
+		// A piece wholly above, below or right of p does not cross the ray from p towards +x;
+		// segmentWinding would find the same from the tight box.
+		r := coarseBox(s)
+		if p.Y < r.Min.Y || p.Y > r.Max.Y || p.X > r.Max.X {
+			continue
+		}
 		w += segmentWinding(s, s.Start(), p)
 	}
 	return w != 0
@@ -18,9 +24,16 @@ func (b Boundary) Contains(p Point) bool {
 // Distance returns the distance from p to the nearest point of b's pieces (the true curves), or +Inf
 // when b is empty.
 func (b Boundary) Distance(p Point) float64 {
+	// Every piece's start lies on it, so the nearest start bounds the answer from above; pieces whose
+	// coarse box lies no nearer are then skipped.
 	best := math.Inf(1)
 	for _, s := range b.Pieces {
-		if !usable(s) || boxDistance(s.Bounds(), p) >= best {
+		if usable(s) {
+			best = math.Min(best, s.Start().Dist(p))
+		}
+	}
+	for _, s := range b.Pieces {
+		if !usable(s) || boxDistance(coarseBox(s), p) >= best {
 			continue
 		}
 		_, d := nearest(s, 0, 1, p)
@@ -89,9 +102,16 @@ func (b Boundary) Transform(m Affine) Boundary {
 // Bounds returns the tightest axis-aligned rectangle holding b's pieces (those with finite data and a
 // proper shape).
 func (b Boundary) Bounds() Rect {
+	// The pieces' ends lie in the result; only a piece whose coarse box reaches beyond all the ends
+	// can widen it, and only such pieces need their tight bounds.
 	r := EmptyRect()
 	for _, s := range b.Pieces {
 		if usable(s) {
+			r = r.Extend(s.Start()).Extend(s.End())
+		}
+	}
+	for _, s := range b.Pieces {
+		if c := coarseBox(s); usable(s) && !(r.Contains(c.Min) && r.Contains(c.Max)) {
 			r = r.Union(s.Bounds())
 		}
 	}

@@ -2,6 +2,7 @@ package geom
 
 import (
 	"math"
+	"math/rand/v2"
 	"slices"
 	"testing"
 )
@@ -151,4 +152,76 @@ func blobSecondCrossing() float64 {
 		}
 	}
 	return c.At(lo).X
+}
+
+// queryShapes are the closed-form fixtures and a cubic blob, sheared, rotated and moved 10⁶ from the
+// origin, so that their arcs become rotated elliptical arcs whose coordinates keep few digits.
+func queryShapes() []Boundary {
+	m := SkewX(0.4).Then(Scale(1.7, 0.6)).Then(Rotate(0.5)).Then(Translate(4e5, -9e5))
+	blob := Loop{Cubic(Pt(0, 0), Pt(3, -1), Pt(4, 3), Pt(2, 2)), Cubic(Pt(2, 2), Pt(1, 3), Pt(-1, 1), Pt(0, 0))}
+	out := []Boundary{bnd(blob).Transform(m)}
+	for _, f := range closedFormShapes() {
+		out = append(out, f.b.Transform(m))
+	}
+	return out
+}
+
+// nearCurve returns random points within about 10⁻⁹ to 1 of the size of b from points on its pieces,
+// and at their ends (where pieces join).
+func nearCurve(rng *rand.Rand, b Boundary, n int) []Point {
+	size := b.Bounds().Size().Norm()
+	pts := make([]Point, n)
+	for i := range pts {
+		s := b.Pieces[rng.IntN(len(b.Pieces))]
+		t := rng.Float64()
+		if i%5 == 0 {
+			t = 0
+		}
+		off := Pt(rng.NormFloat64(), rng.NormFloat64()).Mul(size * math.Pow(10, -9*rng.Float64()))
+		pts[i] = s.At(t).Add(off)
+	}
+	return pts
+}
+
+// TestCoarseBoxHoldsBounds checks that the box the queries reject pieces with holds every piece's
+// tight bounds, for the pieces of queryShapes.
+func TestCoarseBoxHoldsBounds(t *testing.T) {
+	for _, b := range queryShapes() {
+		for i, s := range b.Pieces {
+			c, r := coarseBox(s), s.Bounds()
+			if !c.Contains(r.Min) || !c.Contains(r.Max) {
+				t.Errorf("%s %d: coarse box %v does not hold bounds %v", s.Kind, i, c, r)
+			}
+		}
+	}
+}
+
+// TestQueriesMatchExact compares Contains, Distance and Bounds, which skip pieces by their coarse
+// boxes, with the same answers computed from every piece, at random points near the curves far from
+// the origin.
+func TestQueriesMatchExact(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	for k, b := range queryShapes() {
+		wantBox := EmptyRect()
+		for _, s := range b.Pieces {
+			wantBox = wantBox.Union(s.Bounds())
+		}
+		if got := b.Bounds(); got != wantBox {
+			t.Errorf("shape %d: Bounds %v, want %v", k, got, wantBox)
+		}
+		for _, p := range nearCurve(rng, b, 400) {
+			w, d := 0, math.Inf(1)
+			for _, s := range b.Pieces {
+				w += segmentWinding(s, s.Start(), p)
+				_, ds := nearest(s, 0, 1, p)
+				d = math.Min(d, ds)
+			}
+			if got := b.Contains(p); got != (w != 0) {
+				t.Errorf("shape %d: Contains(%v) = %v, winding number %d", k, p, got, w)
+			}
+			if got := b.Distance(p); got != d {
+				t.Errorf("shape %d: Distance(%v) = %.17g, want %.17g", k, p, got, d)
+			}
+		}
+	}
 }
