@@ -646,10 +646,15 @@ func (fr *frame) baseline() float64 {
 	return fr.h - math.Max(rulerBottom*fr.u, fr.g.page.Bottom) - 14*fr.u
 }
 
-// fitClauses returns the leading " · "-separated clauses of s that fit in width, at least one.
+// fitClauses returns the leading " · "-separated clauses of s that fit in width, at least one; a
+// first clause too wide for width is cut to what comes before its colon (the tool's name).
 func fitClauses(s string, face text.Face, width float64) string {
 	parts := strings.Split(s, " · ")
 	out := parts[0]
+	if w, _ := textSize(out, face); w > width {
+		out, _, _ = strings.Cut(out, ":")
+		return out
+	}
 	for _, p := range parts[1:] {
 		next := out + " · " + p
 		if w, _ := textSize(next, face); w > width {
@@ -684,14 +689,17 @@ func (fr *frame) emptyHint() {
 }
 
 // besideMark writes s on a label gap pixels to the right of the mark at c and dy below it, or to the
-// left when the right would run under the page's panel.
+// left when the right would run under the page's panel; on a canvas too narrow for either it keeps
+// the label clear of the left ruler.
 func (fr *frame) besideMark(s string, face text.Face, c geom.Point, gap, dy float64, clr color.Color) {
 	w, _ := textSize(s, face)
-	if c.X+gap+w+10*fr.u > fr.w-fr.g.page.Right {
-		fr.pill(s, face, c.X-gap, c.Y+dy, alignRightMiddle, clr)
-		return
+	pad := 10 * fr.u
+	left := c.X + gap
+	if left+w+pad > fr.w-fr.g.page.Right {
+		left = c.X - gap - w
 	}
-	fr.pill(s, face, c.X+gap, c.Y+dy, alignLeftMiddle, clr)
+	left = max(left, rulerLeft*fr.u+pad)
+	fr.pill(s, face, left, c.Y+dy, alignLeftMiddle, clr)
 }
 
 // pill writes s on a white rounded label so it reads over the drawing.
