@@ -54,14 +54,12 @@ func appendMonos(dst monos, l Loop, region int) monos {
 		if prev := l[(i+len(l)-1)%len(l)]; usable(prev) {
 			a = prev.End()
 		}
-		var buf [8]float64
-		ts := s.extremes(buf[:0])
-		slices.Sort(ts)
+		var buf [9]float64
 		t0 := 0.0
-		for k := 0; k <= len(ts); k++ {
-			t1, b := 1.0, s.End()
-			if k < len(ts) {
-				t1, b = ts[k], s.At(ts[k])
+		for _, t1 := range monoCuts(s, a, buf[:0]) {
+			b := s.End()
+			if t1 < 1 {
+				b = s.At(t1)
 			}
 			if t1 > t0 && a != b {
 				dst = append(dst, mono{s: s, t0: t0, t1: t1, a: a, b: b, box: RectFromPoints(a, b),
@@ -71,6 +69,38 @@ func appendMonos(dst monos, l Loop, region int) monos {
 		}
 	}
 	return dst
+}
+
+// monoCuts appends to dst the parameters that end the monotone pieces of s, which starts at a: its
+// extremes in increasing order, then 1. Rounding puts an extreme that lies at an end of s (where a
+// quarter arc of a circle meets the next, or a Bézier leaves along an axis) a hair inside it, and the
+// sliver it would cut off would meet the neighbouring segment's pieces, other than the one it
+// joins, at their shared vertex. So an extreme within relTol times the segment's size of the previous
+// cut (a for the first) or, being the last, of the end of s is left out: the piece it stays in strays
+// from monotone by at most that distance, which is below the tolerance of any drawing holding s.
+func monoCuts(s Segment, a Point, dst []float64) []float64 {
+	var buf [8]float64
+	var pbuf [8]Point
+	ts, pts := s.extremes(buf[:0]), pbuf[:0]
+	slices.Sort(ts)
+	end := s.End()
+	box := RectFromPoints(a, end)
+	for _, t := range ts {
+		pts = append(pts, s.At(t))
+		box = box.Extend(pts[len(pts)-1])
+	}
+	size := box.Size()
+	sliver := relTol * math.Max(size.X, size.Y)
+	first, prev := len(dst), a
+	for k, t := range ts {
+		if t > 0 && t < 1 && pts[k].Dist(prev) > sliver {
+			dst, prev = append(dst, t), pts[k]
+		}
+	}
+	if len(dst) > first && prev.Dist(end) <= sliver {
+		dst = dst[:len(dst)-1]
+	}
+	return append(dst, 1)
 }
 
 // boxesMeet reports whether r and s come within tol of each other.
@@ -108,12 +138,33 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 	return dst
 }
 
-// joined reports whether h is only the vertex where piece h.i ends and the next piece of its loop
-// (h.j) starts, or the other way round. It assumes ms holds a single loop.
+// joined reports whether h is only the loop running through one place, not meeting itself: the way
+// along the loop between h's two points, through the pieces between them one way round or the other,
+// stays within a box of side jointGap times the smaller of the two segments' sizes. So contacts where
+// consecutive segments (or the pieces of one segment) meet are joined, also where rounding leaves a
+// sliver piece at the vertex or where curves leave it tangentially and stay within tol of each other
+// for a while; a loop that turns back onto itself within that box is missed. It assumes ms holds a
+// single loop.
 func (ms monos) joined(h hit) bool {
-	next := func(k int) int { return (k + 1) % len(ms) }
-	return h.ti == ms[h.i].t1 && h.tj == ms[h.j].t0 && h.j == next(h.i) ||
-		h.ti == ms[h.i].t0 && h.tj == ms[h.j].t1 && h.i == next(h.j)
+	near := jointGap * math.Min(segmentSize(ms[h.i].s), segmentSize(ms[h.j].s))
+	return ms.shortWay(h.i, h.ti, h.j, h.tj, near) || ms.shortWay(h.j, h.tj, h.i, h.ti, near)
+}
+
+// segmentSize returns the larger side of s's bounding box.
+func segmentSize(s Segment) float64 {
+	size := s.Bounds().Size()
+	return math.Max(size.X, size.Y)
+}
+
+// shortWay reports whether the loop from piece i at parameter ti forward to piece j at tj stays within
+// a box of side near. Each piece lies in its box, being monotone.
+func (ms monos) shortWay(i int, ti float64, j int, tj float64, near float64) bool {
+	small := func(r Rect) bool { return r.Max.X-r.Min.X <= near && r.Max.Y-r.Min.Y <= near }
+	box := RectFromPoints(ms[i].s.At(ti), ms[i].b)
+	for k := (i + 1) % len(ms); k != j && small(box); k = (k + 1) % len(ms) {
+		box = box.Union(ms[k].box)
+	}
+	return small(box.Union(RectFromPoints(ms[j].a, ms[j].s.At(tj))))
 }
 
 // param maps t, a parameter of m.s found by a solver, into m's interval: values within tol (as a

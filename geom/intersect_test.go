@@ -187,3 +187,21 @@ func TestNearest(t *testing.T) {
 		}
 	}
 }
+
+// TestMonoCutsLeaveNoSlivers checks that a turning point which rounding puts a hair inside a segment's
+// end does not cut a sliver off it: each quarter arc of an SVG circle (turning at both ends) and each
+// cubic of a leaf scaled to inches (turning at a tip) stays whole or is cut well inside.
+func TestMonoCutsLeaveNoSlivers(t *testing.T) {
+	loops := map[string]Loop{
+		"SVG bolt hole in inches": svgCircle(Pt(0.3, 1.2), 0.1325),
+		"SVG circle far away":     svgCircle(Pt(1e5, -3e4), 2),
+		"leaf in inches":          leaf().Transform(Scale(1/25.4, 1/25.4)),
+	}
+	for name, l := range loops {
+		for _, m := range appendMonos(nil, l, 0) {
+			if d := math.Min(m.t1-m.t0, m.a.Dist(m.b)/segmentSize(m.s)); d < 1e-6 {
+				t.Errorf("%s: segment %d has a sliver piece over [%g, %g]", name, m.seg, m.t0, m.t1)
+			}
+		}
+	}
+}

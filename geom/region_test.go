@@ -214,3 +214,119 @@ func TestRegionTransformAndBounds(t *testing.T) {
 		t.Errorf("bounds %v, want (1,0)–(3,2)", b)
 	}
 }
+
+// svgPathArcs returns the loop through pts (the first repeated at the end) drawn with SVG's endpoint
+// arcs of radius r (sweep flag 1) where arc[k] is set, and lines elsewhere: the way an SVG reader
+// builds it, with the rounding of the endpoint-to-centre conversion.
+func svgPathArcs(r float64, arc []bool, pts ...Point) Loop {
+	l := make(Loop, len(pts)-1)
+	for k := range l {
+		l[k] = Line(pts[k], pts[k+1])
+		if s, ok := SVGArc(pts[k], r, r, 0, false, true, pts[k+1]); ok && arc[k] {
+			l[k] = s
+		}
+	}
+	return l
+}
+
+// svgCircle is a circle as SVG 2 draws the circle element (W3C SVG 2, §10.4, from memory): a move to
+// (cx + r, cy), then four arcs through (cx, cy + r), (cx − r, cy) and (cx, cy − r) back to the start.
+func svgCircle(c Point, r float64) Loop {
+	return svgPathArcs(r, []bool{true, true, true, true},
+		c.Add(Pt(r, 0)), c.Add(Pt(0, r)), c.Add(Pt(-r, 0)), c.Add(Pt(0, -r)), c.Add(Pt(r, 0)))
+}
+
+// svgSlot is a slot of length l and width 2r from lo: a line, a half circle, a line and a half circle,
+// each joined to the next tangentially.
+func svgSlot(lo Point, l, r float64) Loop {
+	return svgPathArcs(r, []bool{false, true, false, true},
+		lo, lo.Add(Pt(l, 0)), lo.Add(Pt(l, 2*r)), lo.Add(Pt(0, 2*r)), lo)
+}
+
+// leaf is a cut-out of two cubic Béziers meeting at its tips (mm), as in a scrolled sign.
+func leaf() Loop {
+	return Loop{Cubic(Pt(150, 300), Pt(150, 360), Pt(190, 400), Pt(250, 400)),
+		Cubic(Pt(250, 400), Pt(230, 340), Pt(200, 300), Pt(150, 300))}
+}
+
+// warnsUnderScaling checks that r gets want self-crossing warnings at every scale and position,
+// whether it stands alone or sits in a larger drawing.
+func warnsUnderScaling(t *testing.T, name string, l Loop, want int) {
+	t.Helper()
+	const inch = 25.4 // mm, by definition (NIST SP 811, Appendix B)
+	moves := []struct {
+		name string
+		m    Affine
+	}{
+		{"as drawn", Identity()},
+		{"in inches", Scale(1/inch, 1/inch)},
+		{"inches to mm, y down", Scale(inch, -inch)},
+		{"thousandth", Scale(1e-3, 1e-3)},
+		{"far from the origin", Translate(1e5, -3e4)},
+		{"small and far", Scale(1/inch, 1/inch).Then(Translate(4321.123, 987.654))},
+		{"rotated", RotateAbout(Pt(0, 0), 0.3)},
+	}
+	for _, mv := range moves {
+		loop := l.Transform(mv.m)
+		b := loop.Bounds()
+		frame := RectLoop(b.Min.Sub(b.Size()), b.Max.Add(b.Size()))
+		for _, r := range []Region{{Loops: []Loop{loop}}, {Loops: []Loop{frame, loop}, Rule: EvenOdd}} {
+			warns, err := r.Check()
+			if err != nil {
+				t.Errorf("%s, %s: unexpected error %v", name, mv.name, err)
+				continue
+			}
+			if len(warns) != want {
+				t.Errorf("%s, %s, %d loops: warnings %v, want %d", name, mv.name, len(r.Loops), warns, want)
+			}
+		}
+	}
+}
+
+func TestCheckJointsAreNotSelfCrossings(t *testing.T) {
+	cases := []struct {
+		name string
+		l    Loop
+	}{
+		{"SVG circle about the origin", svgCircle(Pt(0, 0), 1)},
+		{"SVG bolt hole in inches", svgCircle(Pt(0.3, 1.2), 0.1325)},
+		{"SVG circle in mm", svgCircle(Pt(1.2*25.4, 2.8*25.4), 0.5*25.4)},
+		{"SVG circle off the origin", svgCircle(Pt(123.456, -78.9), 0.37)},
+		{"circle", Circle(Pt(3, 4), 2)},
+		{"full-turn arc", Loop{Arc(Pt(430, 180), 70, 0, 2*math.Pi)}},
+		{"leaf", leaf()},
+		{"mirrored leaf", leaf().Transform(Scale(-1, 1))},
+		{"slot", svgSlot(Pt(24.402, 127.598), 176, 12)},
+		{"slot in inches", svgSlot(Pt(1.1, 0.4), 2.5, 0.125)},
+		{"stadium", RoundedRect(Pt(0, 0), Pt(5, 2), 1)},
+		{"rounded rectangle", RoundedRect(Pt(-2, -1), Pt(2, 1.5), 0.7)},
+		// The cubic ends flat (y' and y" vanish at t = 1), where rounding puts its turning point
+		// a hair inside it; the second leaves the joint back along the same tangent.
+		{"cusp at a flat joint", Loop{Cubic(Pt(0, 0), Pt(1, 1), Pt(2, 1), Pt(3, 1)), Cubic(Pt(3, 1), Pt(2, 1), Pt(1, 2), Pt(0, 0))}},
+		{"flat joint", Loop{Cubic(Pt(0, 0), Pt(1, 1), Pt(2, 1), Pt(3, 1)), Cubic(Pt(3, 1), Pt(4, 1), Pt(3, -2), Pt(0, 0))}},
+		{"teardrop", teardrop()},
+	}
+	for _, c := range cases {
+		warnsUnderScaling(t, c.name, c.l, 0)
+	}
+}
+
+func TestCheckStillWarnsOfSelfCrossing(t *testing.T) {
+	quarter := Arc(Pt(0, 0), 1, 0, math.Pi/2)
+	cases := []struct {
+		name string
+		l    Loop
+	}{
+		{"bow tie", Polygon(Pt(0, 0), Pt(2, 2), Pt(2, 0), Pt(0, 2))},
+		{"pentagram", pentagram(1)},
+		{"figure-eight of two cubics", Loop{Cubic(Pt(0, 0), Pt(1, 2), Pt(3, -2), Pt(4, 0)), Cubic(Pt(4, 0), Pt(3, 2), Pt(1, -2), Pt(0, 0))}},
+		{"vertex touching an edge", Polygon(Pt(0, 0), Pt(4, 0), Pt(4, 3), Pt(2, 0), Pt(0, 3))},
+		{"passing twice through a point", Polygon(Pt(0, 0), Pt(4, 0), Pt(2, 2), Pt(4, 4), Pt(0, 4), Pt(2, 2))},
+		{"lines folding back", Loop{Line(Pt(0, 0), Pt(2, 0)), Line(Pt(2, 0), Pt(1, 0)), Line(Pt(1, 0), Pt(1, 1)), Line(Pt(1, 1), Pt(0, 0))}},
+		{"arc folding back", Loop{quarter, Arc(Pt(0, 0), 1, math.Pi/2, -math.Pi/4), Line(quarter.At(0.5), Pt(0, 0)), Line(Pt(0, 0), Pt(1, 0))}},
+		{"cubic with a loop", Loop{Cubic(Pt(0, 0), Pt(3, 2), Pt(-1, 2), Pt(2, 0)), Line(Pt(2, 0), Pt(0, 0))}},
+	}
+	for _, c := range cases {
+		warnsUnderScaling(t, c.name, c.l, 1)
+	}
+}
