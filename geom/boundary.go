@@ -14,17 +14,18 @@ type Boundary struct{ Pieces []Segment }
 // last place. It is loose for an arc of small sweep on a large ellipse, and meaningless (but
 // harmless to callers that then look closer) for a piece with NaN or infinite data.
 func coarseBox(s Segment) Rect {
-	n := s.Degree()
-	r := RectFromPoints(s.P[0], s.P[1])
-	for i := 2; i <= n; i++ {
-		r = r.Extend(s.P[i])
+	r := Rect{s.P[0], s.P[0]}.Extend(s.P[1])
+	switch s.Kind {
+	case KindCubic:
+		r = r.Extend(s.P[3])
+		fallthrough
+	case KindQuad:
+		r = r.Extend(s.P[2])
+	case KindArc:
+		h := max(math.Abs(s.RX), math.Abs(s.RY))
+		r = r.Extend(s.C.Sub(Pt(h, h))).Extend(s.C.Add(Pt(h, h)))
 	}
-	if s.Kind == KindArc {
-		h := math.Max(math.Abs(s.RX), math.Abs(s.RY))
-		r = r.Union(Rect{s.C.Sub(Pt(h, h)), s.C.Add(Pt(h, h))})
-	}
-	m := coarsePad * math.Max(math.Max(math.Abs(r.Min.X), math.Abs(r.Max.X)),
-		math.Max(math.Abs(r.Min.Y), math.Abs(r.Max.Y)))
+	m := coarsePad * max(math.Abs(r.Min.X), math.Abs(r.Max.X), math.Abs(r.Min.Y), math.Abs(r.Max.Y))
 	return Rect{r.Min.Sub(Pt(m, m)), r.Max.Add(Pt(m, m))}
 }
 

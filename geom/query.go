@@ -24,29 +24,31 @@ func (b Boundary) Contains(p Point) bool {
 // Distance returns the distance from p to the nearest point of b's pieces (the true curves), or +Inf
 // when b is empty.
 func (b Boundary) Distance(p Point) float64 {
-	// Every piece's start lies on it, so the nearest start bounds the answer from above; pieces whose
-	// coarse box lies no nearer are then skipped.
-	best := math.Inf(1)
-	for _, s := range b.Pieces {
-		if usable(s) {
-			best = math.Min(best, s.Start().Dist(p))
+	// Every piece passes through its start, so the nearest start bounds the answer from above; a
+	// piece whose coarse box lies no nearer cannot improve on it.
+	best, first, firstSq := math.Inf(1), -1, math.Inf(1)
+	for i, s := range b.Pieces {
+		if q := s.Start().Sub(p); q.Dot(q) < firstSq && usable(s) {
+			first, firstSq = i, q.Dot(q)
 		}
 	}
+	if first >= 0 {
+		best = b.Pieces[first].Start().Dist(p)
+	}
 	for _, s := range b.Pieces {
-		if !usable(s) || boxDistance(coarseBox(s), p) >= best {
+		dx, dy := boxGap(coarseBox(s), p)
+		if dx >= best || dy >= best || math.Hypot(dx, dy) >= best || !usable(s) {
 			continue
 		}
 		_, d := nearest(s, 0, 1, p)
-		best = math.Min(best, d)
+		best = min(best, d)
 	}
 	return best
 }
 
-// boxDistance returns the distance from p to the rectangle r (0 inside it).
-func boxDistance(r Rect, p Point) float64 {
-	dx := math.Max(0, math.Max(r.Min.X-p.X, p.X-r.Max.X))
-	dy := math.Max(0, math.Max(r.Min.Y-p.Y, p.Y-r.Max.Y))
-	return math.Hypot(dx, dy)
+// boxGap returns how far p lies outside the rectangle r along x and along y (0 within its extent).
+func boxGap(r Rect, p Point) (dx, dy float64) {
+	return max(0, r.Min.X-p.X, p.X-r.Max.X), max(0, r.Min.Y-p.Y, p.Y-r.Max.Y)
 }
 
 // LineHits returns, in increasing order, the parameters t at which the line p + t·dir meets b's pieces.
@@ -111,7 +113,7 @@ func (b Boundary) Bounds() Rect {
 		}
 	}
 	for _, s := range b.Pieces {
-		if c := coarseBox(s); usable(s) && !(r.Contains(c.Min) && r.Contains(c.Max)) {
+		if c := coarseBox(s); !(r.Contains(c.Min) && r.Contains(c.Max)) && usable(s) {
 			r = r.Union(s.Bounds())
 		}
 	}
