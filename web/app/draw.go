@@ -256,8 +256,13 @@ func (fr *frame) level() {
 	arm := r + 5*fr.u
 	fr.p.line(c.Add(geom.Pt(-arm, 0)), c.Add(geom.Pt(arm, 0)), fr.u, colLevel)
 	fr.p.line(c.Add(geom.Pt(0, -arm)), c.Add(geom.Pt(0, arm)), fr.u, colLevel)
-	// Written to the left: the hang hole's own marks and warnings, often close by, go to the right.
-	fr.pill("drill here to hang level", fr.f.small, c.X-arm-6*fr.u, c.Y, alignRightMiddle, colLevel)
+	// Written on the side away from the hang hole, whose marks are often close by.
+	const label = "drill here to hang level"
+	if hs := fr.doc.Holes; len(hs) > 0 && fr.screen(hs[0].At).X < c.X {
+		fr.besideMark(label, fr.f.small, c, arm+6*fr.u, 0, colLevel)
+		return
+	}
+	fr.pill(label, fr.f.small, c.X-arm-6*fr.u, c.Y, alignRightMiddle, colLevel)
 }
 
 // plumbLine draws the plumb line from the hang hole straight down through the balance point of the
