@@ -416,16 +416,23 @@
         (h.angle_deg > 0 ? " anticlockwise" : " clockwise");
       const lines = [tilt + " · hole Ø " + fmtLen(h.hole) + " " + u];
       const more = [];
-      if (Number.isFinite(h.tilt_per_mm_deg)) more.push(h.tilt_per_mm_deg.toFixed(2) + "° tilt per mm drilled off-line");
+      if (Number.isFinite(h.tilt_per_mm_deg)) more.push(tiltPerError(h.tilt_per_mm_deg));
       if (Number.isFinite(h.period_s)) more.push("swings in " + h.period_s.toFixed(2) + " s");
       if (more.length) lines.push(more.join(" · "));
-      if (level && Math.abs(h.angle_deg) >= 0.05) lines.push("Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y));
+      if (level && Math.abs(h.angle_deg) >= 0.05) lines.push("Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u);
       $("hang-sub").textContent = lines.join("\n");
     } else {
       $("hang").textContent = "—";
       $("hang-sub").textContent = (level ? "Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + "\n" : "") +
         "Place the hole with the Hole tool.";
     }
+  }
+
+  // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
+  // or per sixteenth of an inch (1.5875 mm, exact) on a part in inches or feet.
+  function tiltPerError(degPerMM) {
+    if (unitName() === "in" || unitName() === "ft") return (degPerMM * 25.4 / 16).toFixed(2) + "° tilt per 1/16 in drilled off-line";
+    return degPerMM.toFixed(2) + "° tilt per mm drilled off-line";
   }
 
   function renderDetails(u) {
