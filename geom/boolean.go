@@ -83,13 +83,11 @@ type cut struct {
 // cutList returns the cuts the hits call for inside the pieces, ordered by piece and parameter, after
 // moving together the hits of one touching point (snapHits).
 func cutList(ms monos, hits []hit, tol float64) []cut {
-	inner := func(i int, t float64) bool { return t != ms[i].t0 && t != ms[i].t1 }
-	hits = slices.DeleteFunc(hits, func(h hit) bool { return !inner(h.i, h.ti) && !inner(h.j, h.tj) })
 	ms.snapHits(hits, tol)
 	var cs []cut
 	for _, h := range hits {
 		for _, c := range [2]cut{{h.i, h.ti}, {h.j, h.tj}} {
-			if inner(c.mono, c.t) {
+			if c.t != ms[c.mono].t0 && c.t != ms[c.mono].t1 {
 				cs = append(cs, c)
 			}
 		}
@@ -105,47 +103,79 @@ func cutList(ms monos, hits []hit, tol float64) []cut {
 // down only to about √(tol·size), a few thousand tolerances.
 const contactRadius = 1e5
 
-// snapHits moves each hit lying within contactRadius of an earlier one (in order of x) onto that
-// one's point, when both its pieces pass within tol of that point and keep within tol of each other
-// on the way there. Where curves touch, and where several curves run through one touching point
-// (shared edges with a tangent curve), each pair's hit is computed separately and the results scatter
-// along the contact; snapped, all those pieces end at one point, coincident pieces are recognised as
-// one, and no gap opens in the boundary. Separate crossings are left alone: between them the curves
-// part by more than tol.
+// snapHits moves each hit lying within contactRadius of another onto that one's point, when both its
+// pieces pass within tol of that point and keep within tol of each other on the way there. Where
+// curves touch, and where several curves run through one touching point (shared edges with a tangent
+// curve), each pair's hit is computed separately and the results scatter along the contact; snapped,
+// all those pieces end at one point, coincident pieces are recognised as one, and no gap opens in the
+// boundary. Separate crossings are left alone: between them the curves part by more than tol.
+//
+// A hit at an end of either of its pieces is a vertex, exact by construction (and pieces running
+// along one another meet only at such hits): it stays, and the others snap onto the nearest vertex in
+// order of x on either side, failing that onto an earlier hit. Were vertices only targets from one
+// side, the outcome would hang on the sign of a rounding error in x: a hit left beside a vertex cuts a
+// sliver piece off a curve leaving the vertex tangentially to another (a high-order contact), and the
+// boundary opens there.
 func (ms monos) snapHits(hs []hit, tol float64) {
-	pts := make([]Point, len(hs))
-	order := make([]int, len(hs))
+	sn := snapper{ms: ms, hs: hs, pts: make([]Point, len(hs)), order: make([]int, len(hs)), tol: tol}
 	for k, h := range hs {
-		pts[k], order[k] = ms[h.i].s.At(h.ti), k
+		sn.pts[k], sn.order[k] = ms[h.i].s.At(h.ti), k
 	}
-	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(pts[i].X, pts[j].X) })
-	radius := contactRadius * tol
-	for n, k := range order {
-		for l := n - 1; l >= 0 && pts[k].X-pts[order[l]].X <= radius; l-- {
-			p := pts[order[l]]
-			d := p.Dist(pts[k])
-			if d <= tol {
-				break
-			}
-			if d > radius {
-				continue
-			}
-			if ti, tj, ok := ms.moveHit(hs[k], p, tol); ok {
-				hs[k].ti, hs[k].tj, pts[k] = ti, tj, p
-				break
-			}
+	slices.SortFunc(sn.order, func(i, j int) int { return cmp.Compare(sn.pts[i].X, sn.pts[j].X) })
+	vertex := func(k int) bool { return ms.atEnd(hs[k]) }
+	anyHit := func(int) bool { return true }
+	for n, k := range sn.order {
+		if vertex(k) || sn.onto(k, n-1, -1, vertex) || sn.onto(k, n+1, 1, vertex) {
+			continue
 		}
+		sn.onto(k, n-1, -1, anyHit)
 	}
 }
 
+// atEnd reports whether h lies at an end of either of its pieces.
+func (ms monos) atEnd(h hit) bool {
+	a, b := &ms[h.i], &ms[h.j]
+	return h.ti == a.t0 || h.ti == a.t1 || h.tj == b.t0 || h.tj == b.t1
+}
+
+// snapper moves hits (hs, at pts, indices sorted by x in order) together.
+type snapper struct {
+	ms    monos
+	hs    []hit
+	pts   []Point
+	order []int
+	tol   float64
+}
+
+// onto moves hit k onto the first hit that target accepts among order[from], order[from+step], ...
+// (while within contactRadius in x) and that moveHit allows moving to, and reports whether k now lies
+// within tol of such a hit.
+func (sn *snapper) onto(k, from, step int, target func(int) bool) bool {
+	radius := contactRadius * sn.tol
+	for l := from; l >= 0 && l < len(sn.order) && math.Abs(sn.pts[sn.order[l]].X-sn.pts[k].X) <= radius; l += step {
+		if !target(sn.order[l]) {
+			continue
+		}
+		p := sn.pts[sn.order[l]]
+		d := p.Dist(sn.pts[k])
+		if d <= sn.tol {
+			return true
+		}
+		if d > radius {
+			continue
+		}
+		if ti, tj, ok := sn.ms.moveHit(sn.hs[k], p, sn.tol); ok {
+			sn.hs[k].ti, sn.hs[k].tj, sn.pts[k] = ti, tj, p
+			return true
+		}
+	}
+	return false
+}
+
 // moveHit returns the parameters of the points of h's pieces nearest p, if both lie within tol of p
-// and the pieces keep together from h to p. A hit at an end of either piece stays: it is a vertex,
-// exact by construction (and pieces running along one another meet only at such hits).
+// and the pieces keep together from h to p.
 func (ms monos) moveHit(h hit, p Point, tol float64) (ti, tj float64, ok bool) {
 	a, b := &ms[h.i], &ms[h.j]
-	if h.ti == a.t0 || h.ti == a.t1 || h.tj == b.t0 || h.tj == b.t1 {
-		return 0, 0, false
-	}
 	ti, di := nearest(a.s, a.t0, a.t1, p)
 	tj, dj := nearest(b.s, b.t0, b.t1, p)
 	if di > tol || dj > tol || !ms.together(h.i, h.ti, ti, h.j, tol) {

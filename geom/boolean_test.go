@@ -316,3 +316,33 @@ func TestCloseUpDropsDanglingPieces(t *testing.T) {
 		}
 	}
 }
+
+// TestTangentSpurKeepsArea adds to a cusped Bézier loop an out-and-back line (no area) leaving the
+// cusp along the tangent of the curve there, which follows it to third order (x = 2t³ against y = 18t),
+// so that the two stay within the tolerance over a short stretch and their computed crossings scatter
+// along it. Turned by any multiple of 15°, and by 105° changed in its last bits, the region keeps the
+// area of the loop alone: the spur neither cuts a sliver off the curve at the cusp nor opens the
+// boundary there.
+func TestTangentSpurKeepsArea(t *testing.T) {
+	loop := Loop{Cubic(Pt(2, 0), Pt(0, 0.5), Pt(0, 0), Pt(0, 0)), Cubic(Pt(0, 0), Pt(0, 6), Pt(0, 0), Pt(2, 0))}
+	spur := Polygon(Pt(0, 0), Pt(0, 3.5))
+	want := unitMoments(loopRegion(loop).Boundary()).M
+	var angles []float64
+	for k := range 24 {
+		angles = append(angles, float64(k)*math.Pi/12)
+	}
+	a := 7 * math.Pi / 12
+	for range 4 {
+		a = math.Nextafter(a, 0)
+	}
+	for range 9 {
+		angles = append(angles, a)
+		a = math.Nextafter(a, 4)
+	}
+	for _, a := range angles {
+		r := loopRegion(loop, spur).Transform(Rotate(a))
+		if got := unitMoments(r.Boundary()).M; math.Abs(got-want) > 1e-9*want {
+			t.Errorf("turned by %.17g: area %.17g, want %.17g (the loop's alone)", a, got, want)
+		}
+	}
+}
