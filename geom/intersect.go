@@ -109,9 +109,19 @@ func boxesMeet(r, s Rect, tol float64) bool {
 }
 
 // findHits appends to dst every point where two of the pieces meet (cross, touch or overlap, within
-// tol). Only pairs whose boxes meet are intersected: the boxes are swept in order of their left edges,
-// keeping the list of those still open.
+// tol), pair by pair in the order of sweep.
 func findHits(ms monos, tol float64, dst []hit) []hit {
+	ms.sweep(tol, func(j, i int) bool {
+		dst = ms.intersect(j, i, tol, dst)
+		return true
+	})
+	return dst
+}
+
+// sweep calls visit(j, i) for every pair of pieces whose boxes come within tol of each other, until
+// visit returns false: the boxes are swept in order of their left edges, keeping the list of those
+// still open (j among them, i the box being added).
+func (ms monos) sweep(tol float64, visit func(j, i int) bool) {
 	order := make([]int, len(ms))
 	for i := range order {
 		order[i] = i
@@ -129,13 +139,12 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 		}
 		active = active[:k]
 		for _, j := range active {
-			if boxesMeet(ms[j].box, bi, tol) {
-				dst = ms.intersect(j, i, tol, dst)
+			if boxesMeet(ms[j].box, bi, tol) && !visit(j, i) {
+				return
 			}
 		}
 		active = append(active, i)
 	}
-	return dst
 }
 
 // joined reports whether h is only the loop running through one place, not meeting itself: the way
@@ -146,7 +155,16 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 // for a while; a loop that turns back onto itself within that box is missed. It assumes ms holds a
 // single loop.
 func (ms monos) joined(h hit) bool {
-	near := jointGap * math.Min(segmentSize(ms[h.i].s), segmentSize(ms[h.j].s))
+	// chordSize bounds segmentSize from below, and a box small beside a smaller side is small beside a
+	// larger one: the cheap bound settles the usual contact at a vertex without Segment.Bounds.
+	si, sj := ms[h.i].s, ms[h.j].s
+	return ms.joinedWithin(h, jointGap*math.Min(chordSize(si), chordSize(sj))) ||
+		ms.joinedWithin(h, jointGap*math.Min(segmentSize(si), segmentSize(sj)))
+}
+
+// joinedWithin reports whether the way along the loop between h's two points, one way round or the
+// other, stays within a box of side near.
+func (ms monos) joinedWithin(h hit, near float64) bool {
 	return ms.shortWay(h.i, h.ti, h.j, h.tj, near) || ms.shortWay(h.j, h.tj, h.i, h.ti, near)
 }
 
@@ -154,6 +172,35 @@ func (ms monos) joined(h hit) bool {
 func segmentSize(s Segment) float64 {
 	size := s.Bounds().Size()
 	return math.Max(size.X, size.Y)
+}
+
+// chordSize returns the larger side of the box of s's end points, which Segment.Bounds starts from:
+// it is at most segmentSize(s).
+func chordSize(s Segment) float64 {
+	size := RectFromPoints(s.Start(), s.End()).Size()
+	return math.Max(size.X, size.Y)
+}
+
+// jointOnly reports whether every hit of pieces i and j, consecutive in the loop (one ending where the
+// other starts), is joined, without finding the hits. The hits lie within a few tol of both pieces
+// (solvers accept points within tol of both curves, and snapping an end parameter moves a point by
+// about tol more; the first piece of a segment starts at the previous segment's end, within tol of
+// its own start), so, taking 16·tol for that, within the common part of the two boxes widened by it.
+// When that part, with the shared vertex, fits in half the side that joined compares the way between
+// the two points of a hit with (the chordSize bound of it), each hit is joined.
+func (ms monos) jointOnly(i, j int, tol float64) bool {
+	n := len(ms)
+	a, b := &ms[i], &ms[j]
+	switch {
+	case j == (i+1)%n && a.b == b.a, i == (j+1)%n && b.b == a.a:
+	default:
+		return false
+	}
+	m := 16 * tol
+	lo := Pt(math.Max(a.box.Min.X, b.box.Min.X)-m, math.Max(a.box.Min.Y, b.box.Min.Y)-m)
+	hi := Pt(math.Min(a.box.Max.X, b.box.Max.X)+m, math.Min(a.box.Max.Y, b.box.Max.Y)+m)
+	near := jointGap * math.Min(chordSize(a.s), chordSize(b.s))
+	return hi.X-lo.X <= near/2 && hi.Y-lo.Y <= near/2
 }
 
 // shortWay reports whether the loop from piece i at parameter ti forward to piece j at tj stays within

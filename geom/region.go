@@ -180,15 +180,25 @@ func degenerate(s Segment, tol float64) string {
 }
 
 // selfCrossing reports two segments of l that cross, touch or overlap other than where consecutive
-// segments meet.
+// segments meet: the first hit of findHits that is not joined. It goes pair by pair, stopping at that
+// hit, and skips the pairs of consecutive pieces whose hits are all joined (jointOnly).
 func selfCrossing(l Loop, tol float64) (a, b int, ok bool) {
 	ms := appendMonos(nil, l, 0)
-	for _, h := range findHits(ms, tol, nil) {
-		if !ms.joined(h) {
-			return min(ms[h.i].seg, ms[h.j].seg), max(ms[h.i].seg, ms[h.j].seg), true
+	hs := make([]hit, 0, 2*maxCrossings)
+	ms.sweep(tol, func(j, i int) bool {
+		if ms.jointOnly(j, i, tol) {
+			return true
 		}
-	}
-	return 0, 0, false
+		hs = ms.intersect(j, i, tol, hs[:0])
+		for _, h := range hs {
+			if !ms.joined(h) {
+				a, b, ok = min(ms[h.i].seg, ms[h.j].seg), max(ms[h.i].seg, ms[h.j].seg), true
+				return false
+			}
+		}
+		return true
+	})
+	return a, b, ok
 }
 
 // Winding returns the winding number of r's loops about p: the number of times they go around p

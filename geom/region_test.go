@@ -3,6 +3,7 @@ package geom
 import (
 	"errors"
 	"math"
+	"math/rand/v2"
 	"strings"
 	"testing"
 )
@@ -328,5 +329,86 @@ func TestCheckStillWarnsOfSelfCrossing(t *testing.T) {
 	}
 	for _, c := range cases {
 		warnsUnderScaling(t, c.name, c.l, 1)
+	}
+}
+
+// randomLoop returns a loop of n segments through random points of the square [0, 10]², each a line,
+// a quadratic or cubic Bézier with random control points, or an arc, so that it often crosses itself.
+func randomLoop(rng *rand.Rand, n int) Loop {
+	pt := func() Point { return Pt(10*rng.Float64(), 10*rng.Float64()) }
+	first := pt()
+	l, a := make(Loop, 0, n), first
+	for k := range n {
+		b := pt()
+		if k == n-1 {
+			b = first
+		}
+		switch rng.IntN(4) {
+		case 0:
+			l = append(l, Line(a, b))
+		case 1:
+			l = append(l, Quad(a, pt(), b))
+		case 2:
+			l = append(l, Cubic(a, pt(), pt(), b))
+		default:
+			r := a.Dist(b) * (0.5 + 2*rng.Float64())
+			arc, ok := SVGArc(a, r, r*(1+rng.Float64()), 360*rng.Float64(), rng.IntN(2) == 0, rng.IntN(2) == 0, b)
+			if !ok {
+				arc = Line(a, b)
+			}
+			l = append(l, arc)
+		}
+		a = b
+	}
+	return l
+}
+
+// TestSelfCrossingSkipsOnlyJoinedPairs checks the shortcuts of selfCrossing against the search they
+// replace: every hit of a pair that jointOnly skips is joined, and selfCrossing reports the segments
+// of the first hit of findHits that is not joined.
+func TestSelfCrossingSkipsOnlyJoinedPairs(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 5))
+	loops := []Loop{pentagram(1), teardrop(), leaf(), svgSlot(Pt(1.1, 0.4), 2.5, 0.125), svgCircle(Pt(0.3, 1.2), 0.1325),
+		RoundedRect(Pt(-2, -1), Pt(2, 1.5), 0.7)}
+	far := Scale(1e-3, 1e-3).Then(Translate(4321.123, 987.654))
+	for range 200 {
+		l := randomLoop(rng, 2+rng.IntN(12))
+		loops = append(loops, l, l.Transform(far))
+	}
+	skipped, crossing := 0, 0
+	for k, l := range loops {
+		r := Region{Loops: []Loop{l}}
+		if _, err := r.Check(); err != nil {
+			continue
+		}
+		tol := tolerance(r.Bounds())
+		ms := appendMonos(nil, l, 0)
+		ms.sweep(tol, func(j, i int) bool {
+			if !ms.jointOnly(j, i, tol) {
+				return true
+			}
+			skipped++
+			for _, h := range ms.intersect(j, i, tol, nil) {
+				if !ms.joined(h) {
+					t.Errorf("loop %d: pieces %d and %d skipped, but their hit %+v is not joined", k, j, i, h)
+				}
+			}
+			return true
+		})
+		var want [2]int
+		wantOK := false
+		for _, h := range findHits(ms, tol, nil) {
+			if !ms.joined(h) {
+				want, wantOK = [2]int{min(ms[h.i].seg, ms[h.j].seg), max(ms[h.i].seg, ms[h.j].seg)}, true
+				break
+			}
+		}
+		crossing += map[bool]int{true: 1}[wantOK]
+		if a, b, ok := selfCrossing(l, tol); ok != wantOK || [2]int{a, b} != want && ok {
+			t.Errorf("loop %d: selfCrossing = %d, %d, %v; the full search finds %v, %v", k, a, b, ok, want, wantOK)
+		}
+	}
+	if skipped == 0 || crossing == 0 || crossing == len(loops) {
+		t.Errorf("%d pairs skipped, %d of %d loops crossing: the loops miss a case", skipped, crossing, len(loops))
 	}
 }
