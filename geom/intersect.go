@@ -122,14 +122,20 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 // visit returns false: the boxes are swept in order of their left edges, keeping the list of those
 // still open (j among them, i the box being added).
 func (ms monos) sweep(tol float64, visit func(j, i int) bool) {
-	order := make([]int, len(ms))
-	for i := range order {
-		order[i] = i
+	// Sorting the left edges beside the indices keeps the comparisons within one small slice (the
+	// order is the one sorting the indices by ms[i].box.Min.X gives, ties included).
+	type edge struct {
+		x float64
+		i int
 	}
-	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(ms[i].box.Min.X, ms[j].box.Min.X) })
+	order := make([]edge, len(ms))
+	for i := range order {
+		order[i] = edge{ms[i].box.Min.X, i}
+	}
+	slices.SortFunc(order, func(a, b edge) int { return cmp.Compare(a.x, b.x) })
 	active := make([]int, 0, 64)
-	for _, i := range order {
-		bi := ms[i].box
+	for _, e := range order {
+		i, bi := e.i, ms[e.i].box
 		k := 0
 		for _, j := range active {
 			if ms[j].box.Max.X+tol >= bi.Min.X {
@@ -147,19 +153,19 @@ func (ms monos) sweep(tol float64, visit func(j, i int) bool) {
 	}
 }
 
-// joined reports whether h is only the loop running through one place, not meeting itself: the way
+// joined reports whether h, a hit of the single loop ms, is only the loop running through one place, not meeting itself: the way
 // along the loop between h's two points, through the pieces between them one way round or the other,
 // stays within a box of side jointGap times the smaller of the two segments' sizes. So contacts where
 // consecutive segments (or the pieces of one segment) meet are joined, also where rounding leaves a
 // sliver piece at the vertex or where curves leave it tangentially and stay within tol of each other
-// for a while; a loop that turns back onto itself within that box is missed. It assumes ms holds a
-// single loop.
-func (ms monos) joined(h hit) bool {
+// for a while; a loop that turns back onto itself within that box is missed. chord holds chordSize of
+// the loop's segments.
+func (ms monos) joined(h hit, chord []float64) bool {
 	// chordSize bounds segmentSize from below, and a box small beside a smaller side is small beside a
 	// larger one: the cheap bound settles the usual contact at a vertex without Segment.Bounds.
-	si, sj := ms[h.i].s, ms[h.j].s
-	return ms.joinedWithin(h, jointGap*math.Min(chordSize(si), chordSize(sj))) ||
-		ms.joinedWithin(h, jointGap*math.Min(segmentSize(si), segmentSize(sj)))
+	a, b := &ms[h.i], &ms[h.j]
+	return ms.joinedWithin(h, jointGap*math.Min(chord[a.seg], chord[b.seg])) ||
+		ms.joinedWithin(h, jointGap*math.Min(segmentSize(a.s), segmentSize(b.s)))
 }
 
 // joinedWithin reports whether the way along the loop between h's two points, one way round or the
@@ -187,8 +193,9 @@ func chordSize(s Segment) float64 {
 // about tol more; the first piece of a segment starts at the previous segment's end, within tol of
 // its own start), so, taking 16·tol for that, within the common part of the two boxes widened by it.
 // When that part, with the shared vertex, fits in half the side that joined compares the way between
-// the two points of a hit with (the chordSize bound of it), each hit is joined.
-func (ms monos) jointOnly(i, j int, tol float64) bool {
+// the two points of a hit with (the bound of it from chord, which holds chordSize of the loop's
+// segments), each hit is joined.
+func (ms monos) jointOnly(i, j int, tol float64, chord []float64) bool {
 	n := len(ms)
 	a, b := &ms[i], &ms[j]
 	switch {
@@ -199,7 +206,7 @@ func (ms monos) jointOnly(i, j int, tol float64) bool {
 	m := 16 * tol
 	lo := Pt(math.Max(a.box.Min.X, b.box.Min.X)-m, math.Max(a.box.Min.Y, b.box.Min.Y)-m)
 	hi := Pt(math.Min(a.box.Max.X, b.box.Max.X)+m, math.Min(a.box.Max.Y, b.box.Max.Y)+m)
-	near := jointGap * math.Min(chordSize(a.s), chordSize(b.s))
+	near := jointGap * math.Min(chord[a.seg], chord[b.seg])
 	return hi.X-lo.X <= near/2 && hi.Y-lo.Y <= near/2
 }
 

@@ -183,15 +183,17 @@ func degenerate(s Segment, tol float64) string {
 // segments meet: the first hit of findHits that is not joined. It goes pair by pair, stopping at that
 // hit, and skips the pairs of consecutive pieces whose hits are all joined (jointOnly).
 func selfCrossing(l Loop, tol float64) (a, b int, ok bool) {
-	ms := appendMonos(nil, l, 0)
+	// Most segments are one monotone piece or two; the room saves growing the list piece by piece.
+	ms := appendMonos(make(monos, 0, len(l)+len(l)/2), l, 0)
+	chord := chordSizes(l)
 	hs := make([]hit, 0, 2*maxCrossings)
 	ms.sweep(tol, func(j, i int) bool {
-		if ms.jointOnly(j, i, tol) {
+		if ms.jointOnly(j, i, tol, chord) {
 			return true
 		}
 		hs = ms.intersect(j, i, tol, hs[:0])
 		for _, h := range hs {
-			if !ms.joined(h) {
+			if !ms.joined(h, chord) {
 				a, b, ok = min(ms[h.i].seg, ms[h.j].seg), max(ms[h.i].seg, ms[h.j].seg), true
 				return false
 			}
@@ -199,6 +201,15 @@ func selfCrossing(l Loop, tol float64) (a, b int, ok bool) {
 		return true
 	})
 	return a, b, ok
+}
+
+// chordSizes returns chordSize of each segment of l.
+func chordSizes(l Loop) []float64 {
+	chord := make([]float64, len(l))
+	for k, s := range l {
+		chord[k] = chordSize(s)
+	}
+	return chord
 }
 
 // Winding returns the winding number of r's loops about p: the number of times they go around p
@@ -233,11 +244,7 @@ func (r Region) Transform(m Affine) Region {
 func (r Region) Bounds() Rect {
 	b := EmptyRect()
 	for _, l := range r.Loops {
-		for _, s := range l {
-			if usable(s) {
-				b = b.Union(s.Bounds())
-			}
-		}
+		b = b.Union(Boundary{Pieces: l}.Bounds())
 	}
 	return b
 }

@@ -382,14 +382,14 @@ func TestSelfCrossingSkipsOnlyJoinedPairs(t *testing.T) {
 			continue
 		}
 		tol := tolerance(r.Bounds())
-		ms := appendMonos(nil, l, 0)
+		ms, chord := appendMonos(nil, l, 0), chordSizes(l)
 		ms.sweep(tol, func(j, i int) bool {
-			if !ms.jointOnly(j, i, tol) {
+			if !ms.jointOnly(j, i, tol, chord) {
 				return true
 			}
 			skipped++
 			for _, h := range ms.intersect(j, i, tol, nil) {
-				if !ms.joined(h) {
+				if !ms.joined(h, chord) {
 					t.Errorf("loop %d: pieces %d and %d skipped, but their hit %+v is not joined", k, j, i, h)
 				}
 			}
@@ -398,7 +398,7 @@ func TestSelfCrossingSkipsOnlyJoinedPairs(t *testing.T) {
 		var want [2]int
 		wantOK := false
 		for _, h := range findHits(ms, tol, nil) {
-			if !ms.joined(h) {
+			if !ms.joined(h, chord) {
 				want, wantOK = [2]int{min(ms[h.i].seg, ms[h.j].seg), max(ms[h.i].seg, ms[h.j].seg)}, true
 				break
 			}
