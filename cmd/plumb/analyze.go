@@ -14,7 +14,9 @@ radii of gyration of each part, with the integration error estimate and warnings
 (.json) or an SVG drawing (lengths in mm); a directory is searched for both. The material comes from
 the part file or from --material and --thickness, or --density.
 Formats: text (a table with units), json (one object per line, keys file, units, area, mass,
-centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file).`
+centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file;
+stderr gets a summary line: the count and total mass per material). A long batch shows a progress
+bar when stderr is a terminal.`
 
 func runAnalyze(args []string, stdout, stderr io.Writer) int {
 	fs := newFlags("analyze", "plumb analyze [flags] FILE|DIR...", analyzeAbout, stderr)
@@ -39,8 +41,10 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 		return usageError(stderr, "analyze", "%v", err)
 	}
 	opt := sketch.AnalyzeOptions{Tol: *tol}
-	b := &batch{stderr: stderr}
-	b.run(files, func(path string) error {
+	prog := newProgress(stderr, files)
+	b := &batch{stderr: prog}
+	var tot totals
+	b.run(files, prog.each(func(path string) error {
 		p, err := loadPart(path, rf.r)
 		if err != nil {
 			return err
@@ -53,8 +57,13 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 		if err != nil {
 			return err
 		}
+		tot.add(a)
 		return out.write(&sketch.Report{File: path, Doc: p.doc, Analysis: a, Warnings: p.warnings})
-	})
+	}))
+	prog.finish()
+	if *format == "csv" {
+		tot.write(prog)
+	}
 	if err := out.close(); err != nil {
 		fmt.Fprintf(stderr, "plumb: %v\n", err)
 		return exitFailed
