@@ -65,7 +65,16 @@ func (s total) text() string {
 	if s.count == 1 {
 		n = "1 part"
 	}
-	return fmt.Sprintf("%s, %.4g kg (%.4g lb)", n, s.mass, s.mass/0.45359237)
+	return fmt.Sprintf("%s, %s kg (%s lb)", n, fourDigits(s.mass), fourDigits(s.mass/0.45359237))
+}
+
+// fourDigits formats v to four significant digits, or to whole units from 10,000 up (never with an
+// exponent).
+func fourDigits(v float64) string {
+	if v >= 1e4 {
+		return fmt.Sprintf("%.0f", v)
+	}
+	return fmt.Sprintf("%.4g", v)
 }
 
 // progress draws a bar on stderr during a long batch when stderr is a terminal: it appears once the

@@ -112,3 +112,11 @@ func TestAnalyzeCSVSummary(t *testing.T) {
 		t.Errorf("a JSON run printed a summary: %q", stderr.String())
 	}
 }
+
+func TestFourDigits(t *testing.T) {
+	for v, want := range map[float64]string{0.25: "0.25", 9.3696: "9.37", 1234.56: "1235", 16561.2: "16561"} {
+		if got := fourDigits(v); got != want {
+			t.Errorf("fourDigits(%g) = %s, want %s", v, got, want)
+		}
+	}
+}
