@@ -191,23 +191,41 @@ func chordSize(s Segment) float64 {
 // other starts), is joined, without finding the hits. The hits lie within a few tol of both pieces
 // (solvers accept points within tol of both curves, and snapping an end parameter moves a point by
 // about tol more; the first piece of a segment starts at the previous segment's end, within tol of
-// its own start), so, taking 16·tol for that, within the common part of the two boxes widened by it.
-// When that part, with the shared vertex, fits in half the side that joined compares the way between
-// the two points of a hit with (the bound of it from chord, which holds chordSize of the loop's
-// segments), each hit is joined.
+// its own start), so, taking m = 16·tol for that, within the common part of the two boxes widened by
+// m. When that part fits in half the side that joined compares the way between the two points of a
+// hit with (the bound of it from chord, which holds chordSize of the loop's segments), each hit is
+// joined. Where the boxes share a side (at an extreme inside a segment) the common part is long, and
+// each piece is cut about an eighth of that side from the shared vertex: when the far part of
+// each (its box, the piece being monotone) stays more than m from the other piece's box, the hits lie
+// in the near parts, and it is enough that these fit.
 func (ms monos) jointOnly(i, j int, tol float64, chord []float64) bool {
 	n := len(ms)
-	a, b := &ms[i], &ms[j]
 	switch {
-	case j == (i+1)%n && a.b == b.a, i == (j+1)%n && b.b == a.a:
+	case j == (i+1)%n && ms[i].b == ms[j].a:
+	case i == (j+1)%n && ms[j].b == ms[i].a:
+		i, j = j, i
 	default:
 		return false
 	}
+	a, b := &ms[i], &ms[j] // a ends where b starts
 	m := 16 * tol
+	near := jointGap * math.Min(chord[a.seg], chord[b.seg])
 	lo := Pt(math.Max(a.box.Min.X, b.box.Min.X)-m, math.Max(a.box.Min.Y, b.box.Min.Y)-m)
 	hi := Pt(math.Min(a.box.Max.X, b.box.Max.X)+m, math.Min(a.box.Max.Y, b.box.Max.Y)+m)
-	near := jointGap * math.Min(chord[a.seg], chord[b.seg])
-	return hi.X-lo.X <= near/2 && hi.Y-lo.Y <= near/2
+	if hi.X-lo.X <= near/2 && hi.Y-lo.Y <= near/2 {
+		return true
+	}
+	da := (a.t1 - a.t0) * near / 8 / a.a.Dist(a.b)
+	db := (b.t1 - b.t0) * near / 8 / b.a.Dist(b.b)
+	if !(da < a.t1-a.t0 && db < b.t1-b.t0) {
+		return false
+	}
+	qa, qb := a.s.At(a.t1-da), b.s.At(b.t0+db)
+	if boxesMeet(RectFromPoints(a.a, qa), b.box, m) || boxesMeet(RectFromPoints(qb, b.b), a.box, m) {
+		return false
+	}
+	size := RectFromPoints(qa, qb).Extend(a.b).Size()
+	return size.X+2*m <= near/2 && size.Y+2*m <= near/2
 }
 
 // shortWay reports whether the loop from piece i at parameter ti forward to piece j at tj stays within
