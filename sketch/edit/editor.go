@@ -4,6 +4,7 @@ import (
 	"cmp"
 	"fmt"
 	"math"
+	"slices"
 
 	"plumb/density"
 	"plumb/geom"
@@ -30,14 +31,7 @@ var toolNames = [...]string{"select", "outline", "rect", "circle", "slot", "hole
 func (t Tool) String() string { return toolNames[t] }
 
 // ParseTool returns the tool with the given name.
-func ParseTool(name string) (Tool, error) {
-	for i, n := range toolNames {
-		if n == name {
-			return Tool(i), nil
-		}
-	}
-	return 0, fmt.Errorf("unknown tool %q (want one of %v)", name, toolNames)
-}
+func ParseTool(name string) (Tool, error) { return parseName[Tool]("tool", toolNames[:], name) }
 
 // Target is the layer that new shapes go to.
 type Target uint8
@@ -56,12 +50,15 @@ func (t Target) String() string { return targetNames[t] }
 
 // ParseTarget returns the target with the given name.
 func ParseTarget(name string) (Target, error) {
-	for i, n := range targetNames {
-		if n == name {
-			return Target(i), nil
-		}
+	return parseName[Target]("target", targetNames[:], name)
+}
+
+// parseName returns the index of name in names as a T, or an error naming the kind of thing sought.
+func parseName[T ~uint8](kind string, names []string, name string) (T, error) {
+	if i := slices.Index(names, name); i >= 0 {
+		return T(i), nil
 	}
-	return 0, fmt.Errorf("unknown target %q (want one of %v)", name, targetNames)
+	return 0, fmt.Errorf("unknown %s %q (want one of %v)", kind, name, names)
 }
 
 // Mods are the modifier keys held during an event.
