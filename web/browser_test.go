@@ -8,6 +8,7 @@ package web
 // $TMPDIR/plumb-browser-artifacts and logs its path.
 
 import (
+	"bytes"
 	"context"
 	"encoding/json"
 	"fmt"
@@ -746,20 +747,67 @@ func TestSaveExportAndReportDownload(t *testing.T) {
 		{"svg", "Bakery-blade-sign.svg", "plumb.exportSVG()"},
 		{"report", "Bakery-blade-sign-report.txt", "plumb.report()"},
 	} {
-		b.do(chromedp.Click(chromedp.CSS(fmt.Sprintf(`[data-action=%q]`, c.action))))
-		path := filepath.Join(dir, c.file)
-		var got []byte
-		for deadline := time.Now().Add(15 * time.Second); time.Now().Before(deadline); time.Sleep(100 * time.Millisecond) {
-			if got, err = os.ReadFile(path); err == nil {
-				break
-			}
-		}
+		got, err := b.downloadBy(c.action, filepath.Join(dir, c.file))
 		if err != nil {
-			t.Errorf("%s: no download %s: %v", c.action, c.file, err)
+			t.Error(err)
 			continue
 		}
 		if want := eval[string](b, c.bridge); string(got) != want || want == "" {
 			t.Errorf("%s: %s holds %d bytes, %s gives %d", c.action, c.file, len(got), c.bridge, len(want))
 		}
 	}
+
+	// The drilling template on the paper chosen, which the page remembers. A PDF file begins with
+	// "%PDF-" (ISO 32000-1:2008, §7.5.2); a page box is given in points, 1/72 in (§8.3.2.3), so ANSI
+	// letter, 8.5 × 11 in, is 612 × 792 pt, upright or turned.
+	eval[any](b, `(() => {
+		const p = document.getElementById("paper");
+		p.value = "letter";
+		p.dispatchEvent(new Event("change"));
+		return null;
+	})()`)
+	if got := eval[string](b, `localStorage.getItem("plumb.paper") || ""`); got != "letter" {
+		t.Errorf("paper choice stored as %q, want letter", got)
+	}
+	pdf, err := b.downloadBy("template", filepath.Join(dir, "Bakery-blade-sign-template.pdf"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.HasPrefix(pdf, []byte("%PDF-")) {
+		t.Errorf("template starts %q, want %%PDF-", pdf[:min(len(pdf), 8)])
+	}
+	// Plausible: more than the page drawing alone, less than the whole page with the app.
+	if len(pdf) < 5_000 || len(pdf) > 5_000_000 {
+		t.Errorf("template is %d bytes, want between 5 kB and 5 MB", len(pdf))
+	}
+	if !bytes.Contains(pdf, []byte("/MediaBox [0 0 612.00 792.00]")) && !bytes.Contains(pdf, []byte("/MediaBox [0 0 792.00 612.00]")) {
+		t.Errorf("template has no letter-size page box")
+	}
+	t.Logf("drilling template on letter: %d bytes", len(pdf))
+
+	// A part without a hole gets the suggested level-hang hole.
+	b.load(partJSON(t, plainPlate()), "plate.json")
+	if got := eval[string](b, `(() => { const r = plumb.templatePDF("A4"); return r instanceof Uint8Array ? "" : r.error; })()`); got != "" {
+		t.Errorf("templatePDF of a plate without a hole: %s", got)
+	}
+	// A part that cannot be analysed has no template; the bridge says why.
+	if msg := eval[string](b, `(plumb.newPart(), plumb.templatePDF("A4").error || "")`); msg == "" {
+		t.Errorf("templatePDF of an empty part gave no error")
+	}
+}
+
+// downloadBy clicks the panel button of the action and returns the file it downloads to path.
+func (b *browser) downloadBy(action, path string) ([]byte, error) {
+	b.t.Helper()
+	b.do(chromedp.Click(chromedp.CSS(fmt.Sprintf(`[data-action=%q]`, action))))
+	var (
+		got []byte
+		err error
+	)
+	for deadline := time.Now().Add(15 * time.Second); time.Now().Before(deadline); time.Sleep(100 * time.Millisecond) {
+		if got, err = os.ReadFile(path); err == nil {
+			return got, nil
+		}
+	}
+	return nil, fmt.Errorf("%s: no download %s: %v", action, filepath.Base(path), err)
 }

@@ -14,6 +14,7 @@ import (
 	"plumb/density"
 	"plumb/sketch"
 	"plumb/sketch/edit"
+	"plumb/sketch/shop"
 )
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
@@ -23,6 +24,7 @@ import (
 //	exportSVG() → string    the part 1:1 in millimetres
 //	saveJSON() → string     the part file
 //	report() → string       the plain-text report with the cautions
+//	templatePDF(paper) → Uint8Array | {error}   the 1:1 drilling template on "A4", "letter", "A3" or "tabloid"
 //	undo(), redo(), newPart(), fit()
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
@@ -45,11 +47,22 @@ func installBridge(g *Game) {
 		g.mu.Unlock()
 		return parseJSON(b)
 	})
-	fn("exportSVG", func([]js.Value) any { return g.read(g.exportSVG) })
+	fn("exportSVG", func([]js.Value) any { return read(g, g.exportSVG) })
 	fn("saveJSON", func([]js.Value) any {
-		return g.read(func() string { b, _ := g.ed.Document().Save(); return string(b) })
+		return read(g, func() string { b, _ := g.ed.Document().Save(); return string(b) })
 	})
-	fn("report", func([]js.Value) any { return g.read(g.report) })
+	fn("report", func([]js.Value) any { return read(g, g.report) })
+	fn("templatePDF", func(a []js.Value) any {
+		return read(g, func() any {
+			b, err := g.templatePDF(str(a, 0))
+			if err != nil {
+				return map[string]any{"error": err.Error()}
+			}
+			u := js.Global().Get("Uint8Array").New(len(b))
+			js.CopyBytesToJS(u, b)
+			return u
+		})
+	})
 	fn("undo", func([]js.Value) any { return g.change(func() any { return g.ed.Undo() }) })
 	fn("redo", func([]js.Value) any { return g.change(func() any { return g.ed.Redo() }) })
 	fn("newPart", func([]js.Value) any {
@@ -123,7 +136,7 @@ func (g *Game) change(f func() any) any {
 }
 
 // read runs f on the current part without changing it.
-func (g *Game) read(f func() string) any {
+func read[T any](g *Game, f func() T) T {
 	g.mu.Lock()
 	defer g.mu.Unlock()
 	g.refresh()
@@ -265,4 +278,34 @@ func (g *Game) report() string {
 		fmt.Fprintf(&buf, "cautions: %v\n", err)
 	}
 	return buf.String()
+}
+
+// templatePDF returns the 1:1 drilling template of the part on the named paper, marking the hang hole
+// (the first hole) or, when the part has none, the suggested level-hang hole.
+func (g *Game) templatePDF(paperName string) ([]byte, error) {
+	paper, err := shop.PaperSize(paperName)
+	if err != nil {
+		return nil, err
+	}
+	r := g.res
+	if r.err != nil {
+		return nil, fmt.Errorf("cannot analyse the part: %w", r.err)
+	}
+	p := shop.Part{Doc: r.doc}
+	switch {
+	case r.hang != nil:
+		p.Hang = r.hang
+	case len(r.doc.Holes) > 0:
+		return nil, fmt.Errorf("cannot hang the part from its hole: %w", r.hangErr)
+	case r.level != nil && r.level.Hang != nil:
+		p.Hang, p.Warnings = r.level.Hang, r.level.Warnings
+	default:
+		return nil, errors.New("no hole to mark: the part has no hang hole and no level-hang hole could be found; add a hole with the Hole tool")
+	}
+	p.Analysis = p.Hang.Part
+	var buf bytes.Buffer
+	if err := shop.Template(&buf, p, shop.TemplateOptions{Paper: paper}); err != nil {
+		return nil, err
+	}
+	return buf.Bytes(), nil
 }

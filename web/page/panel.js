@@ -10,6 +10,7 @@
   const PREVIOUS = "plumb.previous"; // the part the demo replaced when the page was opened with #demo
   const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
   const FOLDED = "plumb.panelFolded";
+  const PAPER = "plumb.paper"; // the paper chosen for the drilling template
   const MAX_FILE_BYTES = 50 << 20;
   const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 }; // for answers
   const FIELD_DECIMALS = { mm: 2, cm: 3, m: 5, in: 4, ft: 5 }; // at most, for values shown in fields
@@ -190,8 +191,9 @@
     return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
-  function download(text, name, type) {
-    const url = URL.createObjectURL(new Blob([text], { type }));
+  // download offers data (a string or a Uint8Array) as a file.
+  function download(data, name, type) {
+    const url = URL.createObjectURL(new Blob([data], { type }));
     const a = document.createElement("a");
     a.href = url;
     a.download = name;
@@ -513,6 +515,11 @@
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
     report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    template: () => {
+      const pdf = app.templatePDF($("paper").value);
+      if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
+      else toast("Drilling template: " + pdf.error, true);
+    },
     copy: () => copyText(resultsText()),
     help: showHelp,
     cautions: showCautions,
@@ -621,6 +628,9 @@
     window.addEventListener("hashchange", () => {
       if (restored && location.hash === "#demo") showDemo(app.saveJSON());
     });
+    const paper = readStore(PAPER);
+    if ([...$("paper").options].some((o) => o.value === paper)) $("paper").value = paper;
+    $("paper").addEventListener("change", () => writeStore(PAPER, $("paper").value));
     if (readStore(FOLDED)) $("fold").click();
   }
 
