@@ -24,6 +24,25 @@ func drawingPlate(units string) *Document {
 	return d
 }
 
+// writeHungSVG draws d with its analysis and its hang from its first hole, and returns the drawing and
+// the analysis.
+func writeHungSVG(t *testing.T, d *Document) ([]byte, *Analysis) {
+	t.Helper()
+	a, err := Analyze(d, AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	h, err := HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, HangOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := WriteSVG(d, a, h)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return out, a
+}
+
 // findElement returns the first element in e's tree that satisfies match.
 func findElement(e *element, match func(*element) bool) *element {
 	if match(e) {
@@ -44,18 +63,7 @@ func TestWriteSVG(t *testing.T) {
 	}{{"mm", 1}, {"in", 25.4}} {
 		t.Run(tt.units, func(t *testing.T) {
 			d := drawingPlate(tt.units)
-			a, err := Analyze(d, AnalyzeOptions{})
-			if err != nil {
-				t.Fatal(err)
-			}
-			h, err := HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, HangOptions{})
-			if err != nil {
-				t.Fatal(err)
-			}
-			out, err := WriteSVG(d, a, h)
-			if err != nil {
-				t.Fatal(err)
-			}
+			out, a := writeHungSVG(t, d)
 			root, err := parseXML(out)
 			if err != nil {
 				t.Fatalf("%v\n%s", err, out)
@@ -155,18 +163,7 @@ func TestPathData(t *testing.T) {
 // marks group (doubler tint, hole, plumb line, balance point, labels) is skipped with a warning.
 func TestWriteSVGReadsBack(t *testing.T) {
 	d := drawingPlate("mm")
-	a, err := Analyze(d, AnalyzeOptions{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	h, err := HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, HangOptions{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	out, err := WriteSVG(d, a, h)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out, _ := writeHungSVG(t, d)
 	back, warnings, err := ReadSVG(out, SVGOptions{})
 	if err != nil {
 		t.Fatalf("ReadSVG of WriteSVG's output: %v", err)
