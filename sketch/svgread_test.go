@@ -200,7 +200,7 @@ func TestReadSVGReadings(t *testing.T) {
 func TestReadSVGWarnings(t *testing.T) {
 	svg := mmSVG(`<rect width="10" height="10"/>` +
 		`<image id="logo" href="http://example.com/logo.png" width="5" height="5"/>` +
-		`<inkscape:thing xmlns:inkscape="http://www.inkscape.org/namespaces/inkscape"/>` +
+		`<editor:thing xmlns:editor="http://example.com/ns/drawing-editor"/>` +
 		`<use href="other.svg#part"/>` +
 		`<path d="M0 50h10" stroke="#000" fill="none"/>` +
 		`<rect clip-path="url(#c)" x="50" width="1" height="1"/>` +
