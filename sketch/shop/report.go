@@ -205,7 +205,7 @@ func hangAngle(deg float64) string {
 	case math.Abs(deg) < 0.05:
 		return "level"
 	case deg > 0:
-		return fmt.Sprintf("turned %.1f° anticlockwise", deg)
+		return fmt.Sprintf("turned %.1f° counter-clockwise", deg)
 	}
 	return fmt.Sprintf("turned %.1f° clockwise", -deg)
 }

@@ -610,7 +610,7 @@ func hangText(h *sketch.Hang) string {
 	case math.Abs(h.AngleDeg) < 0.05:
 		return "hangs level; " + tilt
 	case h.AngleDeg > 0:
-		return fmt.Sprintf("hangs turned %.1f° anticlockwise from as drawn; %s", h.AngleDeg, tilt)
+		return fmt.Sprintf("hangs turned %.1f° counter-clockwise from as drawn; %s", h.AngleDeg, tilt)
 	}
 	return fmt.Sprintf("hangs turned %.1f° clockwise from as drawn; %s", -h.AngleDeg, tilt)
 }

@@ -179,7 +179,7 @@ func (fr *frame) ghost() {
 
 // tiltText says which way and how far the part turns when hung.
 func tiltText(deg float64) string {
-	dir := "anticlockwise"
+	dir := "counter-clockwise"
 	if deg < 0 {
 		dir = "clockwise"
 	}

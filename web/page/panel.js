@@ -415,7 +415,7 @@
     if (h) {
       $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
       const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
-        (h.angle_deg > 0 ? " anticlockwise" : " clockwise");
+        (h.angle_deg > 0 ? " counter-clockwise" : " clockwise");
       const lines = [tilt + " · hole Ø " + fmtLen(h.hole) + " " + u];
       const more = [];
       if (Number.isFinite(h.tilt_per_mm_deg)) more.push(tiltPerError(h.tilt_per_mm_deg));
