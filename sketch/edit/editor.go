@@ -294,25 +294,25 @@ func (e *Editor) Undo() bool {
 	if e.cancelDrawing() {
 		return true
 	}
-	if len(e.undo) == 0 {
-		return false
-	}
-	e.redo = append(e.redo, e.doc)
-	prev := e.undo[len(e.undo)-1]
-	e.undo = e.undo[:len(e.undo)-1]
-	e.setDoc(prev)
-	return true
+	return e.step(&e.undo, &e.redo)
 }
 
 // Redo takes again the step last undone and reports whether there was one.
 func (e *Editor) Redo() bool {
 	e.cancelDrawing()
-	if len(e.redo) == 0 {
+	return e.step(&e.redo, &e.undo)
+}
+
+// step makes the last document of from current, keeping the current one at the end of to, and
+// reports whether from had one.
+func (e *Editor) step(from, to *[]*sketch.Document) bool {
+	n := len(*from)
+	if n == 0 {
 		return false
 	}
-	e.undo = append(e.undo, e.doc)
-	next := e.redo[len(e.redo)-1]
-	e.redo = e.redo[:len(e.redo)-1]
+	*to = append(*to, e.doc)
+	next := (*from)[n-1]
+	*from = (*from)[:n-1]
 	e.setDoc(next)
 	return true
 }
