@@ -8,6 +8,8 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"plumb/density"
 )
 
 // Summary is the result object that `plumb analyze --format json` prints, one per file, and that the
@@ -251,8 +253,18 @@ func (r *Report) hangRows(t *table, u string) {
 func hangRows(t *table, label string, h *Hang, u string) {
 	t.row(label, fmt.Sprintf("from (%s, %s) %s, hole %s %s: turns %s° (counter-clockwise +)",
 		formatNumber(h.At.X), formatNumber(h.At.Y), u, formatNumber(h.Diameter), u, formatNumber(h.AngleDeg)))
-	t.row("", fmt.Sprintf("%s %s to the balance point, tilt %s° per mm of drilling error, swing period %s s",
-		formatNumber(h.Arm), u, formatNumber(h.TiltPerMM), formatNumber(h.PeriodS)))
+	t.row("", fmt.Sprintf("%s %s to the balance point, tilt %s of drilling error, swing period %s s",
+		formatNumber(h.Arm), u, drillingTilt(h, u), formatNumber(h.PeriodS)))
+}
+
+// drillingTilt gives the tilt per millimetre of lateral drilling error and, on parts drawn in inches
+// or feet, per 1/16 in too, the size a shop working in inches thinks in.
+func drillingTilt(h *Hang, u string) string {
+	s := formatNumber(h.TiltPerMM) + "° per mm"
+	if unit, err := density.LengthUnit(u); err == nil && (u == "in" || u == "ft") {
+		s += fmt.Sprintf(" (%s° per 1/16 in)", formatNumber(tiltDeg(h.Arm, density.Inch/16/unit.MM)))
+	}
+	return s
 }
 
 // WriteCautions writes the cautions that close every text report.

@@ -153,3 +153,15 @@ func TestFormatNumber(t *testing.T) {
 		}
 	}
 }
+
+// TestDrillingTiltInInches checks the shop-sized tilt figure: a hole 1 in above the balance point
+// drilled 1/16 in off-line tilts the part by atan(1/16) = 3.5763° (tilt = atan(e/d), checkvalues.md).
+func TestDrillingTiltInInches(t *testing.T) {
+	h := &Hang{Arm: 1, TiltPerMM: tiltDeg(1, 1/25.4)}
+	if got := drillingTilt(h, "in"); !strings.Contains(got, "(3.57633° per 1/16 in)") {
+		t.Errorf("drillingTilt = %q, want the tilt per 1/16 in, 3.57633°", got)
+	}
+	if got := drillingTilt(h, "mm"); strings.Contains(got, "1/16") {
+		t.Errorf("drillingTilt on a metric part = %q, want millimetres only", got)
+	}
+}
