@@ -15,6 +15,7 @@ import (
 	"plumb/sketch"
 	"plumb/sketch/edit"
 	"plumb/sketch/shop"
+	"plumb/sketch/svg"
 )
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
@@ -174,7 +175,7 @@ func (g *Game) load(text, name string) any {
 	)
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
-		doc, warnings, err = sketch.ReadSVG([]byte(text), sketch.SVGOptions{Name: base})
+		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
@@ -251,7 +252,7 @@ func sameSpec(a, b density.Spec) bool {
 
 // exportSVG returns the part as a 1:1 SVG with the balance point and hang marked.
 func (g *Game) exportSVG() string {
-	b, err := sketch.WriteSVG(g.ed.Document(), g.res.a, g.res.hang)
+	b, err := svg.Write(g.ed.Document(), g.res.a, g.res.hang)
 	if err != nil {
 		js.Global().Get("console").Call("error", "plumb: export SVG: "+err.Error())
 		return ""

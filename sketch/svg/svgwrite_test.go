@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"math"
@@ -8,35 +8,36 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch"
 )
 
 // drawingPlate is a 200 × 100 part with a round cut-out, a doubler and a hang hole.
-func drawingPlate(units string) *Document {
-	d := NewDocument()
+func drawingPlate(units string) *sketch.Document {
+	d := sketch.NewDocument()
 	d.Name = "test plate <A&B>"
 	d.Units = units
 	d.Material = density.Spec{Material: "steel", Thickness: "2 mm"}
 	d.Outline = geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(200, 100))}}
 	d.Cutouts = []geom.Region{{Loops: []geom.Loop{geom.Circle(geom.Pt(150, 50), 20)}}}
-	d.Overlays = []Overlay{{Name: "doubler", Material: d.Material,
+	d.Overlays = []sketch.Overlay{{Name: "doubler", Material: d.Material,
 		Region: geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(10, 10), geom.Pt(60, 40))}}}}
-	d.Holes = []Hole{{At: geom.Pt(100, 90), Diameter: 6}}
+	d.Holes = []sketch.Hole{{At: geom.Pt(100, 90), Diameter: 6}}
 	return d
 }
 
 // writeHungSVG draws d with its analysis and its hang from its first hole, and returns the drawing and
 // the analysis.
-func writeHungSVG(t *testing.T, d *Document) ([]byte, *Analysis) {
+func writeHungSVG(t *testing.T, d *sketch.Document) ([]byte, *sketch.Analysis) {
 	t.Helper()
-	a, err := Analyze(d, AnalyzeOptions{})
+	a, err := sketch.Analyze(d, sketch.AnalyzeOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	h, err := HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, HangOptions{})
+	h, err := sketch.HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, sketch.HangOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	out, err := WriteSVG(d, a, h)
+	out, err := Write(d, a, h)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -115,14 +116,14 @@ func TestWriteSVG(t *testing.T) {
 func TestWriteSVGWithoutAnalysis(t *testing.T) {
 	d := drawingPlate("mm")
 	d.Material = density.Spec{}
-	out, err := WriteSVG(d, nil, nil)
+	out, err := Write(d, nil, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if strings.Contains(string(out), "balance-point") || !strings.Contains(string(out), "Caution: ") {
 		t.Errorf("drawing without analysis:\n%s", out)
 	}
-	if _, err := WriteSVG(NewDocument(), nil, nil); err == nil {
+	if _, err := Write(sketch.NewDocument(), nil, nil); err == nil {
 		t.Error("an empty part was drawn")
 	}
 }
@@ -159,14 +160,14 @@ func TestPathData(t *testing.T) {
 	}
 }
 
-// TestWriteSVGReadsBack checks that a drawing written by WriteSVG reads back as the same metal: the
+// TestWriteSVGReadsBack checks that a drawing written by Write reads back as the same metal: the
 // marks group (doubler tint, hole, plumb line, balance point, labels) is skipped with a warning.
 func TestWriteSVGReadsBack(t *testing.T) {
 	d := drawingPlate("mm")
 	out, _ := writeHungSVG(t, d)
-	back, warnings, err := ReadSVG(out, SVGOptions{})
+	back, warnings, err := Read(out, Options{})
 	if err != nil {
-		t.Fatalf("ReadSVG of WriteSVG's output: %v", err)
+		t.Fatalf("Read of Write's output: %v", err)
 	}
 	if len(warnings) == 0 || !strings.Contains(strings.Join(warnings, "\n"), "marks") {
 		t.Errorf("warnings %q do not say the marks were skipped", warnings)

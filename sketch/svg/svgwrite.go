@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"encoding/xml"
@@ -11,9 +11,10 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch"
 )
 
-// Drawing sizes of WriteSVG, in millimetres on paper.
+// Drawing sizes of Write, in millimetres on paper.
 const (
 	drawMargin   = 10  // around the part
 	drawMinWidth = 150 // room for the label under small parts
@@ -23,13 +24,13 @@ const (
 	drawScaleBar = 50  // length of the scale bar
 )
 
-// WriteSVG draws the part at 1:1 for printing at 100 %: width, height and viewBox in millimetres, the
+// Write draws the part at 1:1 for printing at 100 %: width, height and viewBox in millimetres, the
 // material tinted with cut-outs left empty, overlays in a second tint, the hang holes, and a label
 // with the part's name, materials and the cautions, above a 50 mm scale bar to check the print. With
 // an analysis a it marks the balance point (a quartered circle) and gives mass and weight; with a
 // hang it draws that hole and the plumb line from it through the balance point of the part as hung.
 // Either may be nil.
-func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
+func Write(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang) ([]byte, error) {
 	unit := density.Length{Name: "mm", MM: 1}
 	if d.Units != "" {
 		var err error
@@ -93,7 +94,7 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 }
 
 // marksAttr tags the groups of a drawn part that are not its metal (overlay tints, holes, the balance
-// point, the plumb line, labels), so that ReadSVG reads a drawing written by WriteSVG back as the part.
+// point, the plumb line, labels), so that Read reads a drawing written by Write back as the part.
 const marksAttr = `data-plumb="marks"`
 
 // svgWriter collects the drawing's elements, mapping document coordinates to paper.
@@ -179,7 +180,7 @@ func (w *svgWriter) hole(at geom.Point, dia float64) {
 
 // plumbLine draws the hang hole and a dashed line from it through the balance point of the part as
 // hung (the direction that ends up straight down), out past the part, ending in a bob.
-func (w *svgWriter) plumbLine(h *Hang, box geom.Rect) {
+func (w *svgWriter) plumbLine(h *sketch.Hang, box geom.Rect) {
 	w.hole(h.At, h.Diameter)
 	at, g := w.toPaper.Apply(h.At), w.toPaper.Apply(h.Centroid)
 	dir := g.Sub(at)
@@ -231,7 +232,7 @@ func (w *svgWriter) centroidMark(c geom.Point) {
 }
 
 // label writes the text block and scale bar from paper height top down, and returns the page height.
-func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Length, width, top float64) float64 {
+func (w *svgWriter) label(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang, unit density.Length, width, top float64) float64 {
 	var lines []string
 	lines = append(lines, partTitle(d))
 	if a != nil {
@@ -246,7 +247,7 @@ func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Len
 			unit.Name, hang.Diameter, unit.Name))
 	}
 	lines = append(lines, "Print at 100 % (actual size) and check the scale bar before marking metal.")
-	for _, c := range Cautions() {
+	for _, c := range sketch.Cautions() {
 		lines = append(lines, wrap("Caution: "+c, width-2*drawMargin)...)
 	}
 	y := top
@@ -263,7 +264,7 @@ func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Len
 	return y + drawMargin
 }
 
-func partTitle(d *Document) string {
+func partTitle(d *sketch.Document) string {
 	if d.Name == "" {
 		return "Part"
 	}
