@@ -327,9 +327,11 @@ func (r *svgReader) collect(e *element) {
 	}
 }
 
-// rootTransform maps the root's user space to the document: through the viewBox onto the viewport
-// of the root's width and height in millimetres, then y up. Without a viewBox, user units are px;
-// without width and height, the viewBox's units are px. A transform on the root applies to its
+// rootTransform maps the root's user space to the document: scaled by the viewBox-to-millimetre scale
+// of the root's viewport, then y up, so that document x = s·x_user and document y = −s·y_user. The
+// viewBox's offset (min-x, min-y) and the preserveAspectRatio alignment only say which part of the
+// drawing a viewer shows; they do not move the drawing's own origin. Without a viewBox, user units are
+// px; without width and height, the viewBox's units are px. A transform on the root applies to its
 // content, as a group's would. It also returns the viewport that percentages refer to, in user units.
 func (r *svgReader) rootTransform(root *element) (geom.Affine, viewport, error) {
 	flip := geom.Scale(1, -1)
@@ -381,7 +383,9 @@ func (r *svgReader) rootTransform(root *element) (geom.Affine, viewport, error) 
 	if err != nil {
 		return geom.Affine{}, viewport{}, err
 	}
-	return own.Then(viewportTransform(vb, size[0], size[1], asp)).Then(flip), viewport{W: vb.W, H: vb.H}, nil
+	m := viewportTransform(vb, size[0], size[1], asp)
+	m.E, m.F = 0, 0
+	return own.Then(m).Then(flip), viewport{W: vb.W, H: vb.H}, nil
 }
 
 func transformAttr(e *element) (geom.Affine, error) {

@@ -63,8 +63,12 @@ func TestReadSVGUnits(t *testing.T) {
 			geom.Pt(0, -10), geom.Pt(25.4, 0)},
 		{"y flips", `width="200mm" height="200mm" viewBox="0 0 200 200"`, `x="10" y="20" width="30" height="40"`,
 			geom.Pt(10, -60), geom.Pt(40, -20)},
-		{"viewBox origin", `width="20mm" height="20mm" viewBox="-10 -10 20 20"`, `x="-10" y="-10" width="20" height="20"`,
-			geom.Pt(0, -20), geom.Pt(20, 0)},
+		{"viewBox offset keeps the origin", `width="20mm" height="20mm" viewBox="-10 -10 20 20"`,
+			`x="-10" y="-10" width="20" height="20"`, geom.Pt(-10, -10), geom.Pt(10, 10)},
+		{"viewBox offset, scaled", `width="40mm" height="20mm" viewBox="-50 -450 20 10"`,
+			`x="-40" y="-445" width="10" height="5"`, geom.Pt(-80, 880), geom.Pt(-60, 890)},
+		{"viewBox offset, centred", `width="100mm" height="20mm" viewBox="100 100 10 10"`,
+			`x="100" y="100" width="10" height="10"`, geom.Pt(200, -220), geom.Pt(220, -200)},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -70,10 +70,11 @@ func TestWriteSVG(t *testing.T) {
 				t.Fatalf("%v\n%s", err, out)
 			}
 			// The page is given in millimetres and its viewBox in the same numbers, so 1 user unit
-			// prints as 1 mm.
+			// prints as 1 mm; the viewBox's offset keeps the document's origin.
 			w, h2 := root.attrs["width"], root.attrs["height"]
-			if !strings.HasSuffix(w, "mm") || !strings.HasSuffix(h2, "mm") ||
-				root.attrs["viewBox"] != "0 0 "+strings.TrimSuffix(w, "mm")+" "+strings.TrimSuffix(h2, "mm") {
+			vb := strings.Fields(root.attrs["viewBox"])
+			if !strings.HasSuffix(w, "mm") || !strings.HasSuffix(h2, "mm") || len(vb) != 4 ||
+				vb[2] != strings.TrimSuffix(w, "mm") || vb[3] != strings.TrimSuffix(h2, "mm") {
 				t.Errorf("page %s × %s, viewBox %q", w, h2, root.attrs["viewBox"])
 			}
 			part := findElement(root, func(e *element) bool { return e.attrs["id"] == "part" })
@@ -87,6 +88,10 @@ func TestWriteSVG(t *testing.T) {
 					box = box.Union(s.Bounds())
 				}
 			}
+			doc := d.Body().Bounds()
+			if min := geom.Pt(doc.Min.X*tt.mm, -doc.Max.Y*tt.mm); box.Min.Dist(min) > 1e-3 {
+				t.Errorf("part drawn from %v, want %v (the document's coordinates in mm, y down)", box.Min, min)
+			}
 			if size := box.Size(); math.Abs(size.X-200*tt.mm) > 1e-3 || math.Abs(size.Y-100*tt.mm) > 1e-3 {
 				t.Errorf("part drawn %v × %v mm, want %v × %v", size.X, size.Y, 200*tt.mm, 100*tt.mm)
 			}
@@ -98,7 +103,7 @@ func TestWriteSVG(t *testing.T) {
 				t.Fatal("no balance point mark")
 			}
 			cx, _ := strconv.ParseFloat(mark.kids[0].attrs["cx"], 64)
-			if want := box.Min.X + a.Centroid.X*tt.mm; math.Abs(cx-want) > 1e-3 {
+			if want := a.Centroid.X * tt.mm; math.Abs(cx-want) > 1e-3 {
 				t.Errorf("balance point drawn at x %v, want %v", cx, want)
 			}
 			text := string(out)
