@@ -103,7 +103,7 @@ const marksAttr = `data-plumb="marks"`
 
 // svgWriter collects the drawing's elements, mapping document coordinates to the drawing's user space.
 type svgWriter struct {
-	b       strings.Builder
+	b      strings.Builder
 	toUser geom.Affine
 }
 
