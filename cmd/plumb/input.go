@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -61,14 +60,6 @@ func (m *materialFlags) apply(d *sketch.Document) {
 	for i := range d.Overlays {
 		d.Overlays[i].Material.Params = m.params.merge(d.Overlays[i].Material.Params)
 	}
-}
-
-// requireMaterial reports a part that has no material from its file or the flags.
-func requireMaterial(d *sketch.Document) error {
-	if strings.TrimSpace(d.Material.Material) == "" && strings.TrimSpace(d.Material.Formula) == "" {
-		return errors.New("no material: give --material NAME --thickness T, or --density EXPR")
-	}
-	return nil
 }
 
 // paramFlag collects repeated --param name=value flags.

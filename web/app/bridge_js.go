@@ -166,7 +166,8 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part.
+// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// came with a material (has_material), so that the page can give a drawing without one the panel's.
 func (g *Game) load(text, name string) any {
 	var (
 		doc      *sketch.Document
@@ -194,7 +195,7 @@ func (g *Game) load(text, name string) any {
 	for i, w := range warnings {
 		out[i] = w
 	}
-	return map[string]any{"ok": true, "error": "", "warnings": out}
+	return map[string]any{"ok": true, "error": "", "warnings": out, "has_material": doc.HasMaterial()}
 }
 
 // setMaterial checks the material spec the panel sends and, when it is sound, gives it to the part.
