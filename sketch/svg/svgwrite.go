@@ -12,6 +12,7 @@ import (
 	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch"
+	"plumb/sketch/contour"
 )
 
 // Drawing sizes of Write, in millimetres on paper.
@@ -59,7 +60,7 @@ func Write(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang) ([]byte, e
 
 	w := &svgWriter{toUser: toUser}
 	w.printf(`<g id="part">`)
-	loops, err := chainLoops(body.Pieces, regionTol(box))
+	loops, err := contour.Boundary(body.Pieces, contour.Tol(box))
 	if err != nil {
 		return nil, err
 	}
