@@ -12,7 +12,7 @@ import (
 	"plumb/sketch/svg"
 )
 
-const convertAbout = `Converts SVG drawings to part files (.json) and part files to 1:1 SVG drawings (sizes in mm,
+const convertAbout = `Converts SVG and DXF drawings to part files (.json) and part files to 1:1 SVG drawings (sizes in mm,
 with the balance point, hang holes and plumb line when the material is known), ready to print at 100 %.
 Each output is written beside its input with the other extension, or to --out (a file for one input,
 a directory for several); "-" writes to standard output. Existing files are kept unless --force.`
@@ -36,7 +36,7 @@ func runConvert(args []string, stdout, stderr io.Writer) int {
 	if len(files) == 0 {
 		return usageError(stderr, "convert", "no files given")
 	}
-	c := &converter{out: *out, force: *force, stdout: stdout, stderr: stderr, material: mf, reading: rf.r}
+	c := &converter{out: *out, force: *force, stdout: stdout, stderr: stderr, material: mf, reading: rf}
 	if info, err := os.Stat(c.out); err == nil && info.IsDir() {
 		c.outDir = true
 	}
@@ -54,7 +54,7 @@ type converter struct {
 	outDir, force  bool
 	stdout, stderr io.Writer
 	material       materialFlags
-	reading        svg.Reading
+	reading        readingFlag
 }
 
 func (c *converter) convert(path string) error {
@@ -68,7 +68,7 @@ func (c *converter) convert(path string) error {
 	c.material.apply(p.doc)
 	var data []byte
 	ext := ".json"
-	if p.fromSVG {
+	if p.fromDrawing {
 		data, err = p.doc.Save()
 	} else {
 		ext = ".svg"

@@ -89,7 +89,7 @@ func (s *shopFlags) check(fs *flag.FlagSet, files []string) error {
 // part reads the file and analyses it with the holes asked for: --at, --level, or the part file's own.
 // Warnings from reading and from the analysis go to stderr as well as onto the pages.
 func (s *shopFlags) part(path string, stderr io.Writer) (shop.Part, error) {
-	in, err := loadPart(path, s.hang.reading.r)
+	in, err := loadPart(path, s.hang.reading)
 	if err != nil {
 		return shop.Part{}, err
 	}

@@ -240,7 +240,11 @@ func (w *svgWriter) centroidMark(c geom.Point) {
 func (w *svgWriter) label(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang, unit density.Length, width, top float64) float64 {
 	var lines []string
 	lines = append(lines, partTitle(d))
-	if a != nil {
+	switch {
+	case a != nil && a.NoMaterial:
+		lines = append(lines, fmt.Sprintf("No material given: mass unknown; balance point x %.5g, y %.5g %s (from the shape)",
+			a.Centroid.X, a.Centroid.Y, unit.Name))
+	case a != nil:
 		lines = append(lines, fmt.Sprintf("Mass %.4g kg (weight %.4g N, %.4g lbf); balance point x %.5g, y %.5g %s",
 			a.Mass, a.WeightN, a.WeightLbf, a.Centroid.X, a.Centroid.Y, unit.Name))
 		for _, m := range a.Materials {

@@ -13,6 +13,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/dxf"
 	"plumb/sketch/edit"
 	"plumb/sketch/shop"
 	"plumb/sketch/svg"
@@ -166,7 +167,7 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// load reads a part file or an SVG or DXF drawing and makes it the part. The answer says whether the part
 // came with a material (has_material), so that the page can give a drawing without one the panel's.
 func (g *Game) load(text, name string) any {
 	var (
@@ -174,10 +175,13 @@ func (g *Game) load(text, name string) any {
 		warnings []string
 		err      error
 	)
-	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
-		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	switch {
+	case strings.EqualFold(path.Ext(name), ".dxf"):
+		doc, warnings, err = dxf.Read([]byte(text), dxf.Options{Name: base})
+	case strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<"):
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
-	} else {
+	default:
 		doc, err = sketch.Load([]byte(text))
 	}
 	if err != nil {

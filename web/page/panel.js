@@ -200,7 +200,7 @@
   // baseName names downloaded files after the part, or else after the file it came from.
   function baseName() {
     const name = partName || (state && state.file) || "part";
-    return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
+    return name.replace(/\.(json|svg|dxf)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
   // download offers data (a string or a Uint8Array) as a file.
