@@ -94,7 +94,8 @@ const (
 // stroke, display and visibility from attributes, style attributes and simple style sheets. The part
 // is in millimetres with y up: document x = SVG x and document y = −SVG y after the viewBox and all
 // transforms. Shapes in other namespaces, defs and other non-rendered elements are skipped; other
-// unknown elements are skipped with a warning. Text must be converted to paths first. Nothing outside
+// unknown elements are skipped with a warning, and so is text (its lettering does not count until
+// converted to paths). Nothing outside
 // the file is ever fetched, and entities are never expanded.
 func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	limit := opt.MaxBytes
@@ -452,7 +453,7 @@ var nonRendered = []string{"defs", "symbol", "clipPath", "mask", "marker", "patt
 	"radialGradient", "filter", "title", "desc", "metadata", "style", "script", "font", "font-face",
 	"cursor", "view"}
 
-// textElements cannot be read: glyph outlines depend on fonts.
+// textElements are skipped with a warning: glyph outlines depend on fonts.
 var textElements = []string{"text", "tspan", "textPath", "tref", "flowRoot", "flowPara"}
 
 func (r *svgReader) children(e *element, ctx inherited, uses int) error {
@@ -483,7 +484,8 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 		return nil
 	}
 	if slices.Contains(textElements, e.name) {
-		return &Error{Element: e.String(), Msg: "text is not read: convert text to paths first"}
+		r.warn("%s: text skipped: lettering does not count until it is converted to paths", e)
+		return nil
 	}
 	own, err := transformAttr(e)
 	if err != nil {
