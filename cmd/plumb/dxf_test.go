@@ -101,3 +101,39 @@ func TestAnalyzeDXF(t *testing.T) {
 		t.Errorf("--layers NOTES: exit %d, stderr %q; want no cut lines", r.code, r.stderr)
 	}
 }
+
+// TestCutfile writes the blade sign back as DXF and SVG cut files with its level hang hole and reads
+// them: each gives the part with the hole removed, as plumb hang analyses it.
+func TestCutfile(t *testing.T) {
+	plumb := buildPlumb(t)
+	dir := t.TempDir()
+	hang := plumb("hang", "testdata/bakery-sign.json", "--level", "--hole", "8", "--format", "json")
+	if hang.code != 0 {
+		t.Fatalf("hang: exit %d: %s", hang.code, hang.stderr)
+	}
+	want := jsonLines(t, hang.stdout)[0]
+	for _, ext := range []string{".dxf", ".svg"} {
+		out := dir + "/sign-cut" + ext
+		r := plumb("cutfile", "testdata/bakery-sign.json", "--level", "--hole", "8", "-o", out)
+		if r.code != 0 {
+			t.Fatalf("cutfile %s: exit %d: %s", ext, r.code, r.stderr)
+		}
+		r = plumb("analyze", "--format", "json", out)
+		if r.code != 0 {
+			t.Fatalf("analyze %s: exit %d: %s", ext, r.code, r.stderr)
+		}
+		got := jsonLines(t, r.stdout)[0]
+		area := num(t, want, "area")
+		wantNear(t, ext+" area", num(t, got, "area")/area, 1, 1e-12)
+		wantNear(t, ext+" centroid x", num(t, got, "centroid", "x"), num(t, want, "centroid", "x"), 1e-11)
+		wantNear(t, ext+" centroid y", num(t, got, "centroid", "y"), num(t, want, "centroid", "y"), 1e-11)
+	}
+	r := plumb("cutfile", "testdata/bakery-sign.json", "--level", "-o", dir+"/x.dxf")
+	if r.code != 1 || !strings.Contains(r.stderr, "diameter") {
+		t.Errorf("a pin in a cut file: exit %d, stderr %q", r.code, r.stderr)
+	}
+	r = plumb("cutfile", "testdata/bakery-sign.json", "-o", dir+"/x.pdf")
+	if r.code != 2 {
+		t.Errorf("-o x.pdf: exit %d, want a usage error", r.code)
+	}
+}

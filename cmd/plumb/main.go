@@ -46,6 +46,7 @@ func commands() []command {
 		{"convert", "SVG or DXF drawing to part file (.json); part file to a 1:1 SVG drawing", runConvert},
 		{"template", "a full-size (1:1) drilling template as PDF, tiled over pages", runTemplate},
 		{"report", "a one-page part report as PDF or Markdown", runReport},
+		{"cutfile", "the part as a DXF or SVG cut file with the hang hole(s) in it", runCutfile},
 		{"materials", "the sheet materials and gauges, with their sources", runMaterials},
 		{"build", "build the browser app into one offline HTML file", runBuild},
 		{"serve", "build the browser app and serve it on 127.0.0.1 with a demo part", runServe},

@@ -52,7 +52,7 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	return exitOK
 }
 
-// shopFlags are the options of plumb template and plumb report: the holes to mark, taken as plumb hang
+// shopFlags are the options of plumb template, report and cutfile: the holes to mark, taken as plumb hang
 // takes them, the material, how to read SVG, and the output file.
 type shopFlags struct {
 	hang hangFlags
@@ -79,7 +79,7 @@ func (s *shopFlags) check(fs *flag.FlagSet, files []string) error {
 	}
 	switch {
 	case len(files) != 1:
-		return errors.New("give one part file (.json or .svg)")
+		return errors.New("give one part file or drawing (.json, .svg or .dxf)")
 	case s.out == "":
 		return errors.New("give the output file with -o")
 	}

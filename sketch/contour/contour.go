@@ -70,6 +70,16 @@ func join(a, b geom.Segment) (geom.Segment, geom.Segment) {
 	return a, b
 }
 
+// OfBoundary returns the closed loops of a boundary (material on the left of each), for writing it
+// out as contours.
+func OfBoundary(b geom.Boundary) ([]geom.Loop, error) {
+	box := b.Bounds()
+	if box.IsEmpty() {
+		return nil, errors.New("the part has no material")
+	}
+	return Boundary(b.Pieces, Tol(box))
+}
+
 // ErrNotClosed reports boundary pieces that do not link into closed loops.
 var ErrNotClosed = errors.New("the boundary does not close into loops")
 

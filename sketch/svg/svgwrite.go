@@ -118,12 +118,13 @@ func (w *svgWriter) path(segs []geom.Segment, attrs string) {
 	if len(segs) == 0 {
 		return
 	}
-	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toUser), attrs)
+	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toUser, num), attrs)
 }
 
-// pathData writes segments as SVG path data after mapping them by m, starting a subpath wherever a
-// segment does not begin at the previous one's end, and closing each subpath that returns to its start.
-func pathData(segs []geom.Segment, m geom.Affine) string {
+// pathData writes segments as SVG path data after mapping them by m, with numbers formatted by f,
+// starting a subpath wherever a segment does not begin at the previous one's end, and closing each
+// subpath that returns to its start.
+func pathData(segs []geom.Segment, m geom.Affine, f func(float64) string) string {
 	var b strings.Builder
 	var start, cur geom.Point
 	for i, s := range segs {
@@ -133,9 +134,9 @@ func pathData(segs []geom.Segment, m geom.Affine) string {
 				b.WriteString("Z")
 			}
 			start = s.Start()
-			fmt.Fprintf(&b, "M%s ", pair(start))
+			fmt.Fprintf(&b, "M%s %s ", f(start.X), f(start.Y))
 		}
-		writeSegment(&b, s)
+		writeSegment(&b, s, f)
 		cur = s.End()
 	}
 	if cur.Dist(start) <= 1e-9 {
@@ -147,26 +148,27 @@ func pathData(segs []geom.Segment, m geom.Affine) string {
 // writeSegment writes one segment's path command. Arcs are written in pieces of at most a quarter
 // turn: near a half turn, the centre SVG recovers from the end points (W3C SVG 1.1, F.6.5) is
 // ill-conditioned, and rounding the end points would move it.
-func writeSegment(b *strings.Builder, s geom.Segment) {
+func writeSegment(b *strings.Builder, s geom.Segment, f func(float64) string) {
+	pt := func(p geom.Point) string { return f(p.X) + " " + f(p.Y) }
 	switch s.Kind {
 	case geom.KindLine:
-		fmt.Fprintf(b, "L%s ", pair(s.P[1]))
+		fmt.Fprintf(b, "L%s ", pt(s.P[1]))
 	case geom.KindQuad:
-		fmt.Fprintf(b, "Q%s %s ", pair(s.P[1]), pair(s.P[2]))
+		fmt.Fprintf(b, "Q%s %s ", pt(s.P[1]), pt(s.P[2]))
 	case geom.KindCubic:
-		fmt.Fprintf(b, "C%s %s %s ", pair(s.P[1]), pair(s.P[2]), pair(s.P[3]))
+		fmt.Fprintf(b, "C%s %s %s ", pt(s.P[1]), pt(s.P[2]), pt(s.P[3]))
 	case geom.KindArc:
 		if math.Abs(s.Sweep) > math.Pi/2 {
 			h1, h2 := s.Split(0.5)
-			writeSegment(b, h1)
-			writeSegment(b, h2)
+			writeSegment(b, h1, f)
+			writeSegment(b, h2, f)
 			return
 		}
 		sweep := 0
 		if s.Sweep > 0 {
 			sweep = 1
 		}
-		fmt.Fprintf(b, "A%s %s %s 0 %d %s ", num(s.RX), num(s.RY), num(s.Rot*180/math.Pi), sweep, pair(s.P[1]))
+		fmt.Fprintf(b, "A%s %s %s 0 %d %s ", f(s.RX), f(s.RY), f(s.Rot*180/math.Pi), sweep, pt(s.P[1]))
 	}
 }
 

@@ -21,12 +21,13 @@ import (
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
 //
-//	load(text, filename) → {ok, error, warnings}   a part file (JSON) or an SVG drawing
+//	load(text, filename) → {ok, error, warnings, has_material}   a part file (JSON), SVG or DXF drawing
 //	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
 //	exportSVG() → string    the part 1:1 in millimetres
 //	saveJSON() → string     the part file
 //	report() → string       the plain-text report with the cautions
 //	templatePDF(paper) → Uint8Array | {error}   the 1:1 drilling template on "A4", "letter", "A3" or "tabloid"
+//	cutFile("dxf"|"svg") → string | {error}     the part as a cut file with its hang holes (or the level hole)
 //	undo(), redo(), newPart(), fit()
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
@@ -63,6 +64,15 @@ func installBridge(g *Game) {
 			u := js.Global().Get("Uint8Array").New(len(b))
 			js.CopyBytesToJS(u, b)
 			return u
+		})
+	})
+	fn("cutFile", func(a []js.Value) any {
+		return read(g, func() any {
+			b, err := g.cutFile(str(a, 0))
+			if err != nil {
+				return map[string]any{"error": err.Error()}
+			}
+			return string(b)
 		})
 	})
 	fn("undo", func([]js.Value) any { return g.change(func() any { return g.ed.Undo() }) })
@@ -314,4 +324,21 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
+}
+
+// cutFile returns the part as a DXF or SVG cut file (format "dxf" or "svg") with its hang holes as
+// circles; a part without holes gets the level-hang hole when there is one.
+func (g *Game) cutFile(format string) ([]byte, error) {
+	d := g.ed.Document()
+	holes := d.Holes
+	if lv := g.res.level; len(holes) == 0 && lv != nil && lv.Hang != nil {
+		holes = []sketch.Hole{{At: lv.At, Diameter: lv.Diameter}}
+	}
+	switch format {
+	case "dxf":
+		return dxf.Write(d, holes)
+	case "svg":
+		return svg.WriteCut(d, holes)
+	}
+	return nil, fmt.Errorf("unknown cut file format %q: want dxf or svg", format)
 }

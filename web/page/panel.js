@@ -535,6 +535,12 @@
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
     report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    cutfile: () => {
+      const format = $("cut-format").value;
+      const text = app.cutFile(format);
+      if (typeof text === "string") download(text, baseName() + "-cut." + format, format === "svg" ? "image/svg+xml" : "application/dxf");
+      else toast("Cut file: " + text.error, true);
+    },
     template: () => {
       const pdf = app.templatePDF($("paper").value);
       if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
