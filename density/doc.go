@@ -72,7 +72,10 @@
 // rho*t/1000 costs nothing per point), writes e^v as exp(v), and records whether the formula is a
 // polynomial in x and y: made of constants, x, y, even powers of r, +, −, ×, division by a
 // constant and whole powers, up to total degree 24. Polynomial returns its terms, which lets geom
-// choose an exact integration rule. Names lists the variables and parameters used.
+// choose an exact integration rule. PolynomialAbout gives the same terms in u = x − x0,
+// v = y − y0, expanded after reading x as u + x0 (and y as v + y0): for a point near the part, a
+// formula written about a far point, k·(x − 1e6)²·(y − 1e6), keeps its digits instead of cancelling
+// in terms about the origin. Names lists the variables and parameters used.
 //
 // Program.Eval works on batches: it runs a flat list of instructions, each a tight loop over a
 // column of up to 256 points, with constants held in the instructions and x² and x³ written as

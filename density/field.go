@@ -162,6 +162,13 @@ func (f *Field) Eval(xs, ys, out []float64) { f.prog.Eval(xs, ys, out) }
 // unit, when it is one.
 func (f *Field) Polynomial() (Polynomial, bool) { return f.prog.Polynomial() }
 
+// PolynomialAbout returns the density as a polynomial in u = x − x0 and v = y − y0 (document
+// units), in kg per square document unit, when it is one. Take (x0, y0) near the part: the
+// coefficients are then formed without cancellation however far the part lies from the origin.
+func (f *Field) PolynomialAbout(x0, y0 float64) (Polynomial, bool) {
+	return f.prog.PolynomialAbout(x0, y0)
+}
+
 // Constant returns the density in kg per square document unit when it does not vary.
 func (f *Field) Constant() (float64, bool) { return f.prog.Constant() }
 
