@@ -100,9 +100,12 @@
 //
 // Gauge numbers mean different thicknesses for different materials, so a Gauge always carries its
 // thickness in mm and inches. Steel uses the Manufacturers' Standard Gauge (defined by weight:
-// lb/ft² ÷ 41.82 per inch); stainless steel commonly uses the same numbers (common practice; some
-// mills' stainless tables differ slightly: confirm with the supplier). Galvanized steel has its own
-// gauge, the steel gauge's weight plus 2.5 oz/ft² of zinc. Aluminium, brass and copper sheet use
+// lb/ft² ÷ 41.82 per inch). Galvanized steel has its own gauge, the steel gauge's weight plus
+// 2.5 oz/ft² of zinc. Carbon and galvanized steel given by one of these gauges weigh the table's
+// lb/ft² (Gauge.LbFt2, Material.GaugeWeight), the basis the gauge is defined on: about 2.4 % more
+// than the rounded thickness × 7850 kg/m³. Stainless steel takes the Manufacturers' Standard Gauge
+// thicknesses (common practice; some mills' stainless tables differ slightly: confirm with the
+// supplier) times its own density. Aluminium, brass and copper sheet use
 // the Brown & Sharpe gauge (ASTM B258: 0.005 in × 92^((36 − n)/39)).
 //
 // # Domain

@@ -119,11 +119,15 @@ func (s Spec) materialField(doc Length) (*Field, error) {
 		return nil, &FieldError{Field: "thickness", Col: 1, Msg: fmt.Sprintf("thickness is %s %s; it must be more than zero", formatValue(v), q.unit.Name)}
 	}
 	perUnit := mat.ArealDensity(q.unit.MM) // kg/m² per unit of thickness
-	f := newField(q.prog, perUnit*perDocUnit2(doc), "thickness", q.unit.Name, doc)
 	thickness := strings.TrimSpace(s.Thickness)
 	if q.gauge != nil {
 		thickness = q.gauge.String()
 	}
+	if g := q.gauge; g != nil && g.LbFt2 > 0 && mat.GaugeWeight {
+		perUnit = g.KgM2() / v // the gauge's defining weight, spread over its thickness
+		thickness += fmt.Sprintf(", %s lb/ft² by the gauge's weight basis", formatValue(g.LbFt2))
+	}
+	f := newField(q.prog, perUnit*perDocUnit2(doc), "thickness", q.unit.Name, doc)
 	switch {
 	case isConst:
 		f.thick = v * q.unit.MM

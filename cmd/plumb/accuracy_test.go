@@ -81,4 +81,35 @@ func TestCommandLineAccuracy(t *testing.T) {
 			}
 		}
 	})
+
+	// A one-foot square (304.8 mm, exact) of 16 ga sheet: carbon steel weighs the gauge table's
+	// 2.5 lb/ft² (Manufacturers' Standard Gauge weight column, from memory) = 2.5 × 0.45359237 kg;
+	// galvanized 2.5 lb/ft² + 2.5 oz/ft² of zinc; stainless 304 the gauge thickness 0.0598 in
+	// (1.51892 mm) × 7930 kg/m³ × 0.09290304 m².
+	t.Run("steel gauge weights", func(t *testing.T) {
+		path := writeRectPart(t, 0, 0, 304.8, 304.8, "1", nil)
+		for _, tt := range []struct {
+			material string
+			kg       float64
+		}{
+			{"steel", 2.5 * 0.45359237},
+			{"galvanized", (2.5 + 2.5/16) * 0.45359237},
+			{"stainless-304", 1.51892e-3 * 7930 * 0.09290304},
+		} {
+			for _, cmd := range []string{"analyze", "hang"} {
+				args := []string{cmd, path, "--material", tt.material, "--thickness", "16 ga", "--format", "json"}
+				if cmd == "hang" {
+					args = append(args, "--at", "152.4,250")
+				}
+				m := analyzeJSON(t, plumb, args...)
+				wantNear(t, tt.material+" mass", num(t, m, "mass"), tt.kg, 1e-12)
+			}
+		}
+		r := plumb("materials")
+		for _, want := range []string{"41.82 lb/ft² per inch", "stainless steel 304, stainless steel 316: the table's thickness × the material's density"} {
+			if !strings.Contains(r.stdout, want) {
+				t.Errorf("plumb materials does not say %q", want)
+			}
+		}
+	})
 }
