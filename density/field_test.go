@@ -78,7 +78,6 @@ func TestFieldConstant(t *testing.T) {
 	}
 }
 
-
 func TestFieldVarying(t *testing.T) {
 	// A sign panel tapering from 6 mm at x = 0 to 2 mm at x = 1200 mm, in steel (7850 kg/m³).
 	taper := Spec{Material: "steel", Thickness: "t0 + (t1 - t0)*x/1200 mm", Params: map[string]float64{"t0": 6, "t1": 2}}
