@@ -39,7 +39,13 @@ type Analysis struct {
 	// poly is the one polynomial density of all the material, or nil when the density is not a
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
 	// moments of its disk (withHole).
-	poly *geom.Poly
+	poly *localPoly
+}
+
+// localPoly is a polynomial density given about a point near the part: ρ(x, y) = p(x − at.X, y − at.Y).
+type localPoly struct {
+	at geom.Point
+	p  geom.Poly
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -252,7 +258,7 @@ func overlayName(ov Overlay, i int) string {
 
 // addDensity integrates the density spec over b and records its description and error estimate. shape,
 // when not nil, holds b's area moments; the density's polynomial is returned when it is one.
-func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *geom.Poly, error) {
+func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *localPoly, error) {
 	if spec.Material == "" && spec.Formula == "" {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
 	}
@@ -284,16 +290,17 @@ func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density
 // integrateField integrates f over b: exactly when f is a polynomial (after checking its sign on the
 // part), adaptively otherwise. A constant density scales b's area moments shape, when given. The
 // density's polynomial is returned when it is one.
-func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *geom.Poly, error) {
-	if p, ok := f.Polynomial(); ok {
+func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *localPoly, error) {
+	at := b.Pieces[0].Start()
+	if p, ok := f.PolynomialAbout(at.X, at.Y); ok {
 		if err := checkPolynomialDensity(b, f); err != nil {
 			return geom.Result{}, nil, err
 		}
-		g := toGeomPoly(p)
+		g := &localPoly{at: at, p: toGeomPoly(p)}
 		if c, ok := f.Constant(); ok && shape != nil {
-			return geom.Result{Moments: shape.Scale(c)}, &g, nil
+			return geom.Result{Moments: shape.Scale(c)}, g, nil
 		}
-		return geom.Result{Moments: b.IntegratePoly(g)}, &g, nil
+		return geom.Result{Moments: b.IntegratePolyAbout(at, g.p)}, g, nil
 	}
 	r, err := b.Integrate(f, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
 	var de *geom.DensityError
@@ -320,7 +327,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
 	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
-	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.poly))); err != nil {
+	if err := part.setMoments(a.Origin.Sub(disk.IntegratePolyAbout(a.poly.at, a.poly.p))); err != nil {
 		return nil, err
 	}
 	return &part, nil
