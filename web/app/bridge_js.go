@@ -29,6 +29,8 @@ import (
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
 //	setCornerRadius(r) (new rectangles, document units) → {ok, error}
+//	setEdgeDistance(e) (document units, 0: the common-practice rule) → {ok, error}
+//	placeSuggestedHole() → {ok, error}   the hang hole at the level-hang (else least-tilt) position
 //	shortcuts() → [{key, action}]
 //
 // After every change it calls window.plumbUI.onChange(state, partJSON).
@@ -109,6 +111,27 @@ func installBridge(g *Game) {
 				return outcome(fmt.Errorf("corner radius must be a number, 0 or more"))
 			}
 			g.ed.SetCornerRadius(v.Float())
+			return outcome(nil)
+		})
+	})
+	fn("setEdgeDistance", func(a []js.Value) any {
+		return g.change(func() any {
+			v := arg(a, 0)
+			if v.Type() != js.TypeNumber {
+				return outcome(fmt.Errorf("edge distance must be a number"))
+			}
+			return outcome(g.ed.SetEdgeDistance(v.Float()))
+		})
+	})
+	fn("placeSuggestedHole", func([]js.Value) any {
+		return g.change(func() any {
+			g.refresh()
+			g.refreshLevel()
+			at, ok := g.res.suggested()
+			if !ok {
+				return outcome(errors.New("no hole position found yet: the part must be sound and have material above its balance point or beside it"))
+			}
+			g.ed.PlaceHangHole(at)
 			return outcome(nil)
 		})
 	})

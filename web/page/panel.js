@@ -401,6 +401,7 @@
       renderAnswers(u);
       renderDetails(u);
     }
+    renderEdge(u);
     renderWarnings();
   }
 
@@ -410,24 +411,56 @@
     $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
     $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
+    renderHang(u);
+  }
+
+  // renderHang shows the hang hole: the placed one with its tilt, else the answer a fabricator came
+  // for, the level-hang hole (or, where none exists, the least-tilt position), one click from placed.
+  function renderHang(u) {
     const h = state.hang;
     const level = state.level;
+    const tilts = state.least_tilt || [];
+    const suggested = level || tilts[0] || null;
+    const lines = [];
+    $("hang").classList.toggle("suggested", !h && suggested !== null);
     if (h) {
       $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
-      const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
-        (h.angle_deg > 0 ? " counter-clockwise" : " clockwise");
-      const lines = [tilt + " · hole Ø " + fmtLen(h.hole) + " " + u];
+      lines.push(tiltWords(h.angle_deg) + " · hole Ø " + fmtLen(h.hole) + " " + u);
       const more = [];
       if (Number.isFinite(h.tilt_per_mm_deg)) more.push(tiltPerError(h.tilt_per_mm_deg));
       if (Number.isFinite(h.period_s)) more.push("swings in " + h.period_s.toFixed(2) + " s");
       if (more.length) lines.push(more.join(" · "));
       if (level && Math.abs(h.angle_deg) >= 0.05) lines.push("Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u);
-      $("hang-sub").textContent = lines.join("\n");
+    } else if (level) {
+      $("hang").textContent = fmtLen(level.x) + ", " + fmtLen(level.y);
+      lines.push("Drill here: hangs level · hole Ø " + fmtLen(level.diameter) + " " + u);
+    } else if (tilts.length) {
+      $("hang").textContent = fmtLen(tilts[0].x) + ", " + fmtLen(tilts[0].y);
+      lines.push("No hole hangs this part level. Least tilt here: " + tiltWords(tilts[0].angle_deg));
+      for (const t of tilts.slice(1)) lines.push("Other side: " + fmtLen(t.x) + ", " + fmtLen(t.y) + " " + u + ", " + tiltWords(t.angle_deg));
     } else {
       $("hang").textContent = "—";
-      $("hang-sub").textContent = (level ? "Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + "\n" : "") +
-        "Place the hole with the Hole tool.";
+      lines.push(state.level_pending ? "Finding the level-hang hole…" : "Place the hole with the Hole tool.");
     }
+    $("hang-sub").textContent = lines.join("\n");
+    const movable = suggested && (!h || (level && Math.abs(h.angle_deg) >= 0.05));
+    $("place-hole").hidden = !movable;
+    $("place-hole").textContent = h ? "Move the hole to hang level" : level ? "Place the hole here" : "Place the hole at least tilt";
+  }
+
+  // tiltWords says how a part hangs from a hole: level, or how far and which way it turns.
+  function tiltWords(deg) {
+    if (Math.abs(deg) < 0.05) return "hangs level";
+    return "tilts " + fmtDeg(Math.abs(deg)) + (deg > 0 ? " counter-clockwise" : " clockwise");
+  }
+
+  // renderEdge shows the edge distance in effect: the one typed, or the rule's as the placeholder.
+  function renderEdge(u) {
+    const e = state.edge;
+    if (!e) { $("edge-hint").textContent = ""; return; }
+    if (document.activeElement !== $("edge")) $("edge").value = e.asked ? fmtField(e.min) : "";
+    $("edge").placeholder = fmtField(e.min);
+    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")";
   }
 
   // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
@@ -521,6 +554,10 @@
       else toast("Drilling template: " + pdf.error, true);
     },
     copy: () => copyText(resultsText()),
+    "place-hole": () => {
+      const r = app.placeSuggestedHole();
+      if (!r.ok) toast("Hang hole: " + r.error, true);
+    },
     help: showHelp,
     cautions: showCautions,
     close: closeOverlays,
@@ -619,6 +656,14 @@
       if (!app || !(d >= 0)) return;
       const r = app.setHoleDiameter(d);
       if (!r.ok) toast("Hole diameter: " + r.error, true);
+      refresh();
+    });
+    $("edge").addEventListener("change", () => {
+      const text = $("edge").value.trim();
+      const e = text === "" ? 0 : Number(text);
+      if (!app || !(e >= 0)) return;
+      const r = app.setEdgeDistance(e);
+      if (!r.ok) toast("Edge distance: " + r.error, true);
       refresh();
     });
     $("material-list").replaceChildren(...presets.materials.map((m) =>
