@@ -13,6 +13,7 @@ import (
 	"github.com/chromedp/cdproto/input"
 	"github.com/chromedp/chromedp"
 
+	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch"
 )
@@ -217,4 +218,79 @@ func TestScreenshots(t *testing.T) {
 	b.load(partJSON(t, uPart()), "u.json")
 	b.waitFor(`plumb.state().level_pending === false`)
 	shot("u")
+}
+
+// TestStaleFiguresGreyed checks that while the material field holds an error the figures are greyed
+// and say which material they belong to, and that fixing the field brings them back.
+func TestStaleFiguresGreyed(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	b.load(partJSON(t, plainPlate()), "plate.json")
+	eval[any](b, `document.getElementById("material").select()`)
+	b.typeInto("material", "unobtainium")
+	b.waitFor(`document.getElementById("material-error").textContent !== ""`)
+	if !eval[bool](b, `document.getElementById("answers").classList.contains("stale")`) {
+		t.Error("figures are not greyed while the material is in error")
+	}
+	if note := eval[string](b, `document.getElementById("stale-note").textContent`); !strings.Contains(note, "aluminium 5052") {
+		t.Errorf("stale note %q does not name the material the figures are for", note)
+	}
+	eval[any](b, `document.getElementById("material").select()`)
+	b.typeInto("material", "aluminium 5052")
+	b.waitFor(`document.getElementById("material-error").textContent === ""`)
+	if eval[bool](b, `document.getElementById("answers").classList.contains("stale")`) {
+		t.Error("figures stay greyed after the material was fixed")
+	}
+}
+
+// TestNewPartTakesTheLastChoices checks that a new part starts in the units and material chosen last,
+// also after a reload, and that a drawing without a material takes the material.
+func TestNewPartTakesTheLastChoices(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	b.load(partJSON(t, plainPlate()), "plate.json")
+	b.do(chromedp.Click(chromedp.CSS(`[data-units="in"]`)))
+	eval[any](b, `document.getElementById("material").select()`)
+	b.typeInto("material", "steel")
+	eval[any](b, `document.getElementById("thickness").select()`)
+	b.typeInto("thickness", "16 ga")
+	b.waitFor(`JSON.parse(plumb.saveJSON()).material.thickness === "16 ga"`)
+	b.do(chromedp.Reload())
+	b.waitStarted()
+	b.load(partJSON(t, plainPlate()), "plate.json") // in mm, aluminium
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="new"]`)))
+	b.frames(2)
+	d := b.savedPart()
+	if d.Units != "in" || d.Material.Material != "steel" || d.Material.Thickness != "16 ga" {
+		t.Errorf("new part in %q of %+v, want in, steel 16 ga", d.Units, d.Material)
+	}
+	svg, err := os.ReadFile(filepath.Join("..", "testdata", "blade-sign-cut.svg"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	b.drop(string(svg), "blade-sign-cut.svg")
+	if d := b.savedPart(); d.Material.Material != "steel" {
+		t.Errorf("dropped drawing has material %+v, want the steel chosen last", d.Material)
+	}
+	if s := b.state(); s.Error != "" {
+		t.Errorf("dropped drawing: %s", s.Error)
+	}
+}
+
+// TestUnitChangeWeightJumpNote checks the note on a part whose density formula reads x and y: in
+// inches the same numbers mean other places, and the weight of k·x²·y changes by 25.4³ (1 in = 25.4 mm
+// exactly).
+func TestUnitChangeWeightJumpNote(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	d := plainPlate()
+	d.Material = density.Spec{Formula: "k*x^2*y", Unit: "kg/m2", Params: map[string]float64{"k": 1e-6}}
+	b.load(partJSON(t, d), "formula.json")
+	b.do(chromedp.Click(chromedp.CSS(`[data-units="in"]`)))
+	b.waitFor(`!document.getElementById("units-note").hidden`)
+	if text := eval[string](b, `document.getElementById("units-note-text").textContent`); !strings.Contains(text, "formula") {
+		t.Errorf("note %q does not point at the formula", text)
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="undo-units"]`)))
+	b.waitFor(`plumb.state().units.length === "mm"`)
 }

@@ -8,6 +8,7 @@ import (
 
 	"github.com/hajimehoshi/ebiten/v2"
 
+	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch/edit"
 )
@@ -28,8 +29,18 @@ type Game struct {
 	autoFit bool        // the view is a fit the user has not touched since: it follows resizes
 	page    edit.Insets // canvas edges the page's toolbar and panel cover, device pixels
 
+	chosen choice // the units and material the user chose last
+
 	ready     bool // window.plumbUI.ready has been called
 	toldState uiState
+}
+
+// choice is the units and material the user chose last, for a new part and for a drawing that gives
+// no material.
+type choice struct {
+	units    string
+	spec     density.Spec
+	haveSpec bool
 }
 
 // uiState is what the page shows beside the analysis: it is told again when any of it changes.

@@ -11,6 +11,8 @@
   const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
   const FOLDED = "plumb.panelFolded";
   const PAPER = "plumb.paper"; // the paper chosen for the drilling template
+  const CHOSEN = "plumb.chosen"; // the units and material chosen last: {units, material}
+  const GUIDE_DONE = "plumb.guideDone"; // the first-minute guide was closed
   const MAX_FILE_BYTES = 50 << 20;
   const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 }; // for answers
   const FIELD_DECIMALS = { mm: 2, cm: 3, m: 5, in: 4, ft: 5 }; // at most, for values shown in fields
@@ -33,6 +35,13 @@
   }
   function writeStore(key, value) {
     try { localStorage.setItem(key, value); return true; } catch { return false; }
+  }
+  // remember keeps one of the choices a new part starts with (units or material) for later visits.
+  function remember(key, value) {
+    let c = {};
+    try { c = JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { c = {}; }
+    c[key] = value;
+    writeStore(CHOSEN, JSON.stringify(c));
   }
   let toastTimer = 0;
   function toast(msg, bad) {
@@ -100,6 +109,10 @@
   function ready() {
     app = window.plumb;
     timing.readyMs = performance.now();
+    try {
+      const chosen = JSON.parse(readStore(CHOSEN) || "null");
+      if (chosen) app.setDefaults(chosen);
+    } catch { /* a choice that cannot be read is forgotten: the part's own units and material serve */ }
     try {
       restore(readStore(AUTOSAVE));
     } catch (e) {
@@ -170,6 +183,7 @@
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
       return false;
     }
+    $("units-note").hidden = true;
     refresh();
     const warnings = r.warnings || [];
     if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
@@ -309,6 +323,7 @@
     if (!err) {
       const r = app.setMaterial(spec);
       if (!r.ok) err = r.error || { msg: "not accepted" };
+      else remember("material", spec);
     }
     showMaterialError(err);
     showThickness();
@@ -317,9 +332,19 @@
 
   function showMaterialError(err) {
     for (const f of Object.keys(FIELD_INPUT)) underline($(FIELD_INPUT[f]), err && err.field === f ? err.col || 0 : -1);
-    if (!err) { $("material-error").textContent = ""; return; }
+    if (!err) { $("material-error").textContent = ""; renderStale(); return; }
     const where = FIELD_LABEL[err.field] ? FIELD_LABEL[err.field] + (err.col ? ", column " + err.col : "") + ": " : "";
     $("material-error").textContent = where + err.msg;
+    renderStale();
+  }
+
+  // renderStale greys the figures while the material fields hold an error: they are still those of the
+  // last material that worked, which the note names.
+  function renderStale() {
+    const stale = $("material-error").textContent !== "" && state !== null && !state.error;
+    $("answers").classList.toggle("stale", stale);
+    $("stale-note").textContent = stale ? "Greyed: these figures are for " + (state.material || "the last material that worked") +
+      ", the last material that worked. Fix the field above to update them." : "";
   }
 
   // underline marks the character at 1-based column col of an input (past the end: the place after it);
@@ -394,6 +419,8 @@
     $("material-desc").textContent = state.material || "";
     $("part-error").textContent = state.error || "";
     if (state.error) {
+      $("place-hole").hidden = true;
+      $("hang").classList.remove("suggested");
       for (const id of ["weight", "balance", "hang"]) $(id).textContent = "—";
       for (const id of ["weight-sub", "balance-sub", "hang-sub"]) $(id).textContent = "";
       $("details-rows").replaceChildren();
@@ -402,6 +429,7 @@
       renderDetails(u);
     }
     renderEdge(u);
+    renderStale();
     renderWarnings();
   }
 
@@ -561,11 +589,33 @@
     help: showHelp,
     cautions: showCautions,
     close: closeOverlays,
+    "dismiss-units-note": () => { $("units-note").hidden = true; },
+    "undo-units": () => { app.undo(); $("units-note").hidden = true; },
     "restore-previous": () => {
       const prev = readStore(PREVIOUS);
       if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
     },
   };
+
+  // changeUnits converts the part to another unit. The part keeps its size, so its weight stays, except
+  // where a density formula reads x and y: a weight that jumps more than 100-fold gets a note.
+  function changeUnits(units) {
+    const before = state && !state.error ? state.mass : NaN;
+    const from = unitName();
+    const r = app.setUnits(units);
+    if (!r.ok) { toast("Units: " + r.error, true); return; }
+    remember("units", units);
+    refresh();
+    const after = state && !state.error ? state.mass : NaN;
+    const ratio = after / before;
+    const jumped = units !== from && Number.isFinite(ratio) && (ratio > 100 || ratio < 0.01);
+    $("units-note").hidden = !jumped;
+    if (jumped) {
+      $("units-note-text").textContent = "The weight went from " + fmtSig(before) + " kg to " + fmtSig(after) +
+        " kg with the change from " + from + " to " + units + ": the density formula reads x and y in " + units +
+        " now. Check the formula, or undo the change.";
+    }
+  }
 
   function onClick(e) {
     const b = e.target.closest("button");
@@ -581,7 +631,7 @@
       app.setTarget(d.target);
       for (const x of document.querySelectorAll("[data-target]")) x.setAttribute("aria-pressed", String(x === b));
     } else if (d.units) {
-      app.setUnits(d.units);
+      changeUnits(d.units);
     } else if (d.mode) {
       setMode(d.mode);
       // Switching to an empty field waits for the user to type; otherwise the part takes the other kind.
