@@ -294,3 +294,34 @@ func TestUnitChangeWeightJumpNote(t *testing.T) {
 	b.do(chromedp.Click(chromedp.CSS(`[data-action="undo-units"]`)))
 	b.waitFor(`plumb.state().units.length === "mm"`)
 }
+
+// TestSelectDragMovesShape checks that with the Select tool a drag that starts inside a filled shape
+// moves the shape, and that the same drag with Space held pans the view instead.
+func TestSelectDragMovesShape(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	b.load(partJSON(t, plainPlate()), "plate.json")
+	eval[any](b, `(plumb.fit(), plumb.setTool("select"), document.querySelector("canvas").focus(), null)`)
+	b.frames(3)
+	// Fit shows the whole plate left of the panel; (230, 330) is well inside it, away from corners.
+	b.drag(230, 330, 290, 330)
+	b.waitFor(`JSON.parse(plumb.saveJSON()).outline.loops.length === 1`)
+	box := b.savedPart().Outline.Bounds()
+	if box.Min.X <= 1 || math.Abs(box.Min.Y) > 1e-9 || !near(box.Size().X, 400, 1e-12, 0) {
+		t.Fatalf("after the drag the plate spans %v, want it moved right, same size", box)
+	}
+	moved := box.Min.X
+	// Space held: the drag pans, the part stays.
+	if _, err := chromedp.Call(b.ctx, input.DispatchKeyEvent, input.DispatchKeyEventParams{Type: input.DispatchKeyEventTypeRawKeyDown, Key: " ", Code: "Space", WindowsVirtualKeyCode: 32}); err != nil {
+		t.Fatal(err)
+	}
+	b.frames(holdFrames)
+	b.drag(230, 330, 290, 330)
+	if _, err := chromedp.Call(b.ctx, input.DispatchKeyEvent, input.DispatchKeyEventParams{Type: input.DispatchKeyEventTypeKeyUp, Key: " ", Code: "Space", WindowsVirtualKeyCode: 32}); err != nil {
+		t.Fatal(err)
+	}
+	b.frames(holdFrames)
+	if x := b.savedPart().Outline.Bounds().Min.X; x != moved {
+		t.Errorf("a Space-drag moved the part from x = %g to %g; it must pan", moved, x)
+	}
+}

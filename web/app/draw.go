@@ -623,7 +623,7 @@ func (fr *frame) scaleBar() {
 
 // toolHints describe each tool in a line at the bottom of the canvas.
 var toolHints = map[edit.Tool]string{
-	edit.ToolSelect:  "Select: drag points, curve handles, shapes and holes · Delete removes · type x,y or +dx,+dy and Enter to move",
+	edit.ToolSelect:  "Select: drag inside a shape to move it, or drag its points, curve handles and holes · Space-drag pans · Delete removes · type x,y or +dx,+dy and Enter to move",
 	edit.ToolOutline: "Outline: click points · drag to pull a curve · A arcs on/off · click the first point or Enter to close · type x,y  +dx,+dy  length  length at angle",
 	edit.ToolRect:    "Rectangle: drag, or click two corners · type w,h or w,h,r (corner radius) and Enter",
 	edit.ToolCircle:  "Circle: click the centre, then the rim · type the radius and Enter",
