@@ -231,6 +231,18 @@ func (d *Document) edgeRule(dia float64, opt HangOptions, unit density.Length) e
 	}
 }
 
+// EdgeRule returns the least distance from the edge of a hole of diameter dia to the part's edges that
+// the hang calculations keep, in document units, and where it comes from ("as asked", "1.5 ×
+// thickness, common practice", ...).
+func (d *Document) EdgeRule(dia float64, opt HangOptions) (float64, string, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return 0, "", err
+	}
+	r := d.edgeRule(dia, opt, unit)
+	return r.min, r.source, nil
+}
+
 // thickness returns the base material's thickness in document units, when it is a plain length or gauge.
 func (d *Document) thickness(unit density.Length) (float64, bool) {
 	s := d.Material.Thickness
