@@ -169,8 +169,7 @@ func (d *Document) HasMaterial() bool {
 // out, since their densities only mean something beside the base material's.
 func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Length) (*Analysis, error) {
 	a.NoMaterial = true
-	one := geom.ConstPoly(1)
-	a.poly = &one
+	a.poly = &localPoly{p: geom.ConstPoly(1)}
 	a.Warnings = append(a.Warnings, fmt.Sprintf("no material given: area, balance point and second moments are "+
 		"those of the shape (per unit areal density, second moments in %s⁴); mass and weight need a material "+
 		"and thickness or an areal-density formula (command line: --material NAME --thickness T, or --density EXPR)",
