@@ -70,16 +70,34 @@
     $("loading-msg").textContent = msg;
   }
 
-  function decodeBase64(text) {
-    const bin = atob(text);
-    const bytes = new Uint8Array(bin.length);
-    for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
-    return bytes;
+  // unpack7 reverses the Go side's Pack7 (web/page/pack.go): seven bits a character; characters from
+  // U+0100 carry one of the three values that cannot stand in a script element and the seven bits after it.
+  const UNSAFE_GROUPS = [0x00, 0x0d, 0x3c];
+  function unpack7(text, n) {
+    const out = new Uint8Array(n);
+    let acc = 0, bits = 0, o = 0;
+    const put = (g) => {
+      acc = (acc << 7) | g;
+      bits += 7;
+      if (bits >= 8) {
+        bits -= 8;
+        if (o < n) out[o++] = (acc >> bits) & 0xff;
+        acc &= (1 << bits) - 1;
+      }
+    };
+    for (let i = 0; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c < 0x80) { put(c); continue; }
+      put(UNSAFE_GROUPS[(c - 0x100) >> 7]);
+      put((c - 0x100) & 0x7f);
+    }
+    if (o !== n) throw new Error("the packed app holds " + o + " bytes, not " + n);
+    return out;
   }
 
   async function startApp() {
     const holder = $("plumb-module");
-    const packed = decodeBase64(holder.textContent.trim());
+    const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
     const module = await new Response(stream).arrayBuffer();
