@@ -106,6 +106,9 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
+	if err := d.CheckExtent(); err != nil {
+		return nil, err
+	}
 	a := &Analysis{Cautions: Cautions()}
 	crossed, err := a.checkRegions(d)
 	if err != nil {

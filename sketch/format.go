@@ -93,6 +93,9 @@ func Load(data []byte) (*Document, error) {
 	if err := loadDocument(root, d); err != nil {
 		return nil, err
 	}
+	if err := d.CheckExtent(); err != nil {
+		return nil, err
+	}
 	return d, nil
 }
 

@@ -157,6 +157,9 @@ func loadPart(path string, reading sketch.Reading) (part, error) {
 	}
 	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
 	d, warnings, err := sketch.ReadSVG(data, sketch.SVGOptions{Reading: reading, Name: name})
+	if err == nil {
+		err = d.CheckExtent()
+	}
 	return part{doc: d, warnings: warnings, fromSVG: true}, err
 }
 

@@ -175,6 +175,9 @@ func (g *Game) load(text, name string) any {
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
 		doc, warnings, err = sketch.ReadSVG([]byte(text), sketch.SVGOptions{Name: base})
+		if err == nil {
+			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
+		}
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
