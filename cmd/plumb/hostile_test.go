@@ -75,4 +75,40 @@ func TestHostileInput(t *testing.T) {
 			t.Errorf("files %q: convert wrote output for a refused part", left)
 		}
 	})
+
+	t.Run("impossible results", func(t *testing.T) {
+		files := map[string]string{
+			"dense.json": squareJSON("mm", 0, 1000, "1e307"),
+			"e155.svg":   `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100"><rect x="1e155" y="1e155" width="1e154" height="1e154"/></svg>`,
+			"scale.svg":  `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100"><rect transform="scale(1e300)" width="10" height="10"/></svg>`,
+		}
+		dir := writeFiles(t, files)
+		for name := range files {
+			for _, format := range []string{"text", "json", "csv"} {
+				r := plumb("analyze", "--format", format, "--density", "1e307", filepath.Join(dir, name))
+				wantFailure(t, r, exitFailed, name)
+				if out := r.stdout + r.stderr; strings.Contains(out, "Inf") || strings.Contains(out, "NaN") {
+					t.Errorf("%s as %s: %q", name, format, out)
+				}
+			}
+		}
+		r := plumb("analyze", "--format", "json", filepath.Join(dir, "dense.json"))
+		wantFailure(t, r, exitFailed, "material: the part's first moment about y is too large to compute")
+	})
+
+	t.Run("a CSV total beyond float64", func(t *testing.T) {
+		// 1 m² at 1.5e307 kg/m²: every result of each part is finite (weight 1.47e308 N), the
+		// total of 13 is not.
+		files := map[string]string{}
+		for i := range 13 {
+			files[fmt.Sprintf("p%02d.json", i)] = squareJSON("m", 0, 1, "1.5e307")
+		}
+		r := plumb("analyze", "--format", "csv", writeFiles(t, files))
+		if r.code != 0 || strings.Count(r.stdout, "\n") != 14 {
+			t.Fatalf("exit %d, stdout %q, stderr %q", r.code, r.stdout, r.stderr)
+		}
+		if strings.Contains(r.stdout+r.stderr, "Inf") || !strings.Contains(r.stderr, "13 parts, more mass than") {
+			t.Errorf("stderr %q", r.stderr)
+		}
+	})
 }

@@ -203,6 +203,10 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m["tool"], m["target"] = ed.Tool().String(), ed.Target().String()
 	m["arc"], m["can_undo"], m["can_redo"] = ed.ArcMode(), ed.CanUndo(), ed.CanRedo()
 	m["hole_diameter"], m["corner_radius"] = ed.HoleDiameter(), ed.CornerRadius()
-	b, _ := json.Marshal(m)
+	b, err := json.Marshal(m)
+	if err != nil { // a number that is not finite: say so rather than hand the page nothing
+		b, _ = json.Marshal(map[string]any{"file": file, "error": "the results cannot be shown: a result is not a finite number",
+			"warnings": []string{}, "cautions": sketch.Cautions()})
+	}
 	return b
 }
