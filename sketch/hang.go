@@ -154,11 +154,24 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 	h.Hanging = part.Body.Transform(h.Pose)
 	if opt.MaxTiltDeg > 0 && opt.DrillTol > 0 {
 		if need := ArmForTilt(opt.MaxTiltDeg, opt.DrillTol); h.Arm < need {
-			h.Warnings = append(h.Warnings, fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° the hole needs to be at least %s %s from the balance point (it is %s)",
-				formatNumber(opt.DrillTol), unit.Name, formatNumber(tiltDeg(h.Arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg), formatNumber(need), unit.Name, formatNumber(h.Arm)))
+			h.Warnings = append(h.Warnings, tiltWarning(h.Arm, need, size, opt, unit))
 		}
 	}
 	return h
+}
+
+// tiltWarning says that a drilling error of opt.DrillTol tilts a part hung at arm from its balance
+// point by more than opt.MaxTiltDeg, and how far the hole would need to be (need); a need beyond the
+// part's size (or beyond float64) is said as such.
+func tiltWarning(arm, need, size float64, opt HangOptions, unit density.Length) string {
+	msg := fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° ", formatNumber(opt.DrillTol),
+		unit.Name, formatNumber(tiltDeg(arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg))
+	if need > size || math.IsInf(need, 0) {
+		return msg + fmt.Sprintf("the hole would need to be farther from the balance point than the part is large (%s %s)",
+			formatNumber(size), unit.Name)
+	}
+	return msg + fmt.Sprintf("the hole needs to be at least %s %s from the balance point (it is %s)",
+		formatNumber(need), unit.Name, formatNumber(arm))
 }
 
 // halfTurnDeg converts an angle in radians to degrees in (−180, 180].

@@ -111,4 +111,130 @@ func TestHostileInput(t *testing.T) {
 			t.Errorf("stderr %q", r.stderr)
 		}
 	})
+
+	t.Run("every flag of every command", func(t *testing.T) {
+		walkFlags(t, plumb)
+	})
 }
+
+// flagValues are the values every flag is tried with.
+var flagValues = []string{"-1", "0", "NaN", "Inf", "1e308", "text"}
+
+// numericFlags take numbers only (for --at and --param, inside "X,Y" and "name=value"): NaN, Inf and
+// text must be usage errors.
+var numericFlags = map[string]bool{"tol": true, "hole": true, "angle": true, "edge": true, "tilt": true,
+	"drill-tol": true, "overlap": true, "at": true, "param": true, "port": true}
+
+// boolFlags are given as --flag=value.
+var boolFlags = map[string]bool{"level": true, "force": true, "gauges": true}
+
+// flagContext gives the other flags a flag needs to take effect.
+var flagContext = map[string][]string{
+	"angle": {"--at", "100,350", "--at", "500,350"}, "tilt": {"--drill-tol", "1"}, "drill-tol": {"--tilt", "5"},
+	"unit": {"--density", "8"}, "thickness": {"--material", "steel"}, "param": {"--density", "k"},
+}
+
+// walkFlags runs every flag that `plumb help COMMAND` lists with each of flagValues: no run may
+// panic, print NaN or Inf, or end other than 0, 1 or 2, and a number flag given no finite number is a
+// usage error.
+func walkFlags(t *testing.T, plumb func(args ...string) plumbRun) {
+	dir := t.TempDir()
+	base := map[string][]string{
+		"analyze":   {"testdata/bakery-sign.json"},
+		"hang":      {"testdata/bakery-sign.json"},
+		"convert":   {"testdata/bakery-sign.json", "--force", "--out", filepath.Join(dir, "out.svg")},
+		"template":  {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
+		"report":    {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
+		"materials": {},
+		// build and serve would build the app: an extra operand stops them after the flags.
+		"build": {"extra"},
+		"serve": {"extra"},
+	}
+	runs := 0
+	defer func() {
+		if runs < 50*len(flagValues) { // the commands have over 50 flags between them, besides outputs
+			t.Errorf("only %d runs: the flag lists were not found in the help", runs)
+		}
+	}()
+	for _, c := range commands() {
+		flags := helpFlags(t, plumb, c.name)
+		for _, name := range flags {
+			if name == "o" || name == "out" {
+				continue // output paths: the write tests try them
+			}
+			for _, v := range flagValues {
+				args := append([]string{c.name}, base[c.name]...)
+				args = append(args, flagContext[name]...)
+				args = append(args, flagArgs(name, v)...)
+				r := plumb(args...)
+				runs++
+				checkFlagRun(t, args, v, r, numericFlags[name] && (v == "NaN" || v == "Inf" || v == "text"))
+			}
+		}
+	}
+}
+
+// flagArgs writes the flag name with the value v.
+func flagArgs(name, v string) []string {
+	switch {
+	case boolFlags[name]:
+		return []string{"--" + name + "=" + v}
+	case name == "at":
+		return []string{"--at", v + "," + v}
+	case name == "param":
+		return []string{"--param", "k=" + v}
+	}
+	return []string{"--" + name, v}
+}
+
+// checkFlagRun checks one run of walkFlags.
+func checkFlagRun(t *testing.T, args []string, v string, r plumbRun, wantUsage bool) {
+	t.Helper()
+	echo := strings.NewReplacer(`"`+v+`"`, "", `"`+v+","+v+`"`, "", `"k=`+v+`"`, "", `"`+strings.ToLower(v)+`"`, "")
+	out := r.stdout + echo.Replace(r.stderr)
+	switch {
+	case r.code < 0 || r.code > 2 || strings.Contains(r.stderr, "goroutine"):
+		t.Errorf("plumb %q: exit %d, stderr %q", args, r.code, r.stderr)
+	case wantUsage && r.code != exitUsage:
+		t.Errorf("plumb %q: exit %d, want a usage error (2); stderr %q", args, r.code, r.stderr)
+	case strings.Contains(out, "NaN") || strings.Contains(out, "Inf"):
+		t.Errorf("plumb %q printed NaN or Inf: %q", args, out)
+	}
+}
+
+// helpFlags returns the names of the flags `plumb help COMMAND` lists.
+func helpFlags(t *testing.T, plumb func(args ...string) plumbRun, command string) []string {
+	t.Helper()
+	r := plumb("help", command)
+	var names []string
+	_, section, _ := strings.Cut(r.stdout, "\nflags (before or after the files):\n")
+	section, _, _ = strings.Cut(section, "\nCautions:")
+	for line := range strings.Lines(section) {
+		if rest, ok := strings.CutPrefix(line, "  -"); ok {
+			name, _, _ := strings.Cut(strings.TrimSpace(rest), " ")
+			names = append(names, name)
+		}
+	}
+	for _, name := range names {
+		_, known := flagKinds[name]
+		if !known {
+			t.Errorf("plumb %s: flag -%s is not classified in the flag walk (numericFlags, boolFlags or stringFlags)", command, name)
+		}
+	}
+	return names
+}
+
+// flagKinds lists every flag the walk knows, so that a new flag must be classified.
+var flagKinds = func() map[string]bool {
+	m := map[string]bool{}
+	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "format", "paper", "o", "out"} {
+		m[name] = true
+	}
+	for name := range numericFlags {
+		m[name] = true
+	}
+	for name := range boolFlags {
+		m[name] = true
+	}
+	return m
+}()

@@ -31,13 +31,25 @@ func (m *materialFlags) register(fs *flag.FlagSet) {
 	fs.Var(m.params, "param", "formula parameter `name=value` (repeatable), e.g. --param k=2e-6")
 }
 
-// check reports contradictory material flags.
+// check reports contradictory material flags, an unknown --unit and a --density formula that does
+// not parse. Names in the formula, and the material and thickness, may depend on the part file (its
+// parameters and own materials), so they are checked with each file.
 func (m *materialFlags) check() error {
 	switch {
 	case m.formula != "" && (m.material != "" || m.thickness != ""):
 		return fmt.Errorf("give either --density or --material and --thickness, not both")
 	case m.unit != "" && m.formula == "":
 		return fmt.Errorf("--unit goes with --density")
+	}
+	if m.unit != "" {
+		if _, err := density.ArealUnit(m.unit); err != nil {
+			return fmt.Errorf("--unit: %v", err)
+		}
+	}
+	if m.formula != "" {
+		if _, err := density.Parse(m.formula); err != nil {
+			return fmt.Errorf("--density: %v", err)
+		}
 	}
 	return nil
 }
@@ -87,9 +99,9 @@ func (p paramFlag) Set(s string) error {
 	if !ok || name == "" {
 		return fmt.Errorf("want name=value, found %q", s)
 	}
-	v, err := strconv.ParseFloat(strings.TrimSpace(value), 64)
-	if err != nil {
-		return fmt.Errorf("parameter %s: %q is not a number", name, value)
+	v, ok := finite(value)
+	if !ok {
+		return fmt.Errorf("parameter %s: %q is not a finite number", name, value)
 	}
 	p[name] = v
 	return nil

@@ -174,7 +174,7 @@ func TestCommandLine(t *testing.T) {
 			t.Errorf("no material: exit %d, stderr %q", r.code, r.stderr)
 		}
 		r = plumb("analyze", "testdata/bracket.svg", "--density", "2*(x")
-		if r.code != 1 || !strings.Contains(r.stderr, "col") {
+		if r.code != 2 || !strings.Contains(r.stderr, "--density: col 5") {
 			t.Errorf("bad formula: exit %d, stderr %q, want the column", r.code, r.stderr)
 		}
 	})

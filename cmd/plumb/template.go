@@ -27,7 +27,8 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	var s shopFlags
 	s.register(fs)
 	paperName := fs.String("paper", "A4", "paper `size`: A4, letter, A3 or tabloid")
-	overlap := fs.Float64("overlap", shop.DefaultOverlap, "`mm` of paper that neighbouring pages share")
+	var overlap float64
+	floatFlag(fs, &overlap, "overlap", shop.DefaultOverlap, 0, 50, "a width from 0 to 50 mm", "`mm` of paper that neighbouring pages share")
 	files, err := parseArgs(fs, args)
 	if err != nil {
 		return usageStatus(err)
@@ -42,7 +43,7 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	p, err := s.part(files[0], stderr)
 	if err == nil {
 		err = writeOutput(s.out, files[0], stdout, func(w io.Writer) error {
-			return shop.Template(w, p, shop.TemplateOptions{Paper: paper, Overlap: *overlap})
+			return shop.Template(w, p, shop.TemplateOptions{Paper: paper, Overlap: overlap})
 		})
 	}
 	if err != nil {
@@ -63,9 +64,7 @@ func (s *shopFlags) register(fs *flag.FlagSet) {
 	h := &s.hang
 	fs.Var(&h.at, "at", "hang hole centre `X,Y` in the part's unit (give twice for two chains)")
 	fs.BoolVar(&h.level, "level", false, "mark the hole that hangs the part level (as drawn)")
-	fs.Float64Var(&h.hole, "hole", 0, "hole `diameter` in the part's unit (0: a pin; without --at or --level, replaces the part file's)")
-	fs.Float64Var(&h.leg, "angle", 90, "two chains: leg `angle` to the horizontal in degrees (90: vertical chains)")
-	fs.Float64Var(&h.opt.Edge, "edge", 0, "least `distance` from the hole's edge to any edge of the part (0: max(1.5 × thickness, hole))")
+	h.registerHole(fs, "hole `diameter` in the part's unit (0: a pin; without --at or --level, replaces the part file's)")
 	h.material.register(fs)
 	h.reading.register(fs)
 	fs.StringVar(&s.out, "o", "", "output `file`")
