@@ -28,7 +28,7 @@ func runBuild(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "plumb build: %v\n", err)
 		return exitFailed
 	}
-	if err := os.WriteFile(*out, html, 0o644); err != nil {
+	if err := writeFileAtomic(*out, html, true); err != nil {
 		fmt.Fprintf(stderr, "plumb build: %v\n", err)
 		return exitFailed
 	}

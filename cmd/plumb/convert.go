@@ -1,7 +1,6 @@
 package main
 
 import (
-	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -109,22 +108,7 @@ func (c *converter) write(in, ext string, data []byte) error {
 	case c.out != "":
 		target = c.out
 	}
-	flags := os.O_WRONLY | os.O_CREATE | os.O_TRUNC
-	if !c.force {
-		flags |= os.O_EXCL
-	}
-	f, err := os.OpenFile(target, flags, 0o644)
-	if errors.Is(err, os.ErrExist) {
-		return fmt.Errorf("%s exists (use --force to overwrite)", target)
-	}
-	if err != nil {
-		return err
-	}
-	if _, err := f.Write(data); err != nil {
-		f.Close()
-		return err
-	}
-	if err := f.Close(); err != nil {
+	if err := writeFileAtomic(target, data, c.force); err != nil {
 		return err
 	}
 	fmt.Fprintf(c.stdout, "%s → %s\n", in, target)

@@ -1,7 +1,9 @@
 package main
 
 import (
+	"bytes"
 	"fmt"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -54,7 +56,8 @@ func wantFailure(t *testing.T, r plumbRun, code int, want ...string) {
 // TestHostileInput runs the built command on inputs made to break it: each must end in a result or a
 // message naming the place, never a panic, NaN, Inf or a partial file.
 func TestHostileInput(t *testing.T) {
-	plumb := buildPlumb(t)
+	bin := buildPlumbBinary(t)
+	plumb := runner(t, bin)
 
 	t.Run("coordinates out of range", func(t *testing.T) {
 		dir := writeFiles(t, map[string]string{
@@ -110,6 +113,53 @@ func TestHostileInput(t *testing.T) {
 		if strings.Contains(r.stdout+r.stderr, "Inf") || !strings.Contains(r.stderr, "13 parts, more mass than") {
 			t.Errorf("stderr %q", r.stderr)
 		}
+	})
+
+	t.Run("a write that fails", func(t *testing.T) {
+		// ulimit -f 16 (blocks of 512 or 1024 bytes, by shell) stops every file at 8 or 16 KB with
+		// EFBIG, as a full disk stops it with ENOSPC; Go ignores SIGXFSZ, so the write returns the error.
+		limited := runner(t, "sh", "-c", `ulimit -f 16 && exec "$0" "$@"`, bin)
+		dir := t.TempDir()
+		big := filepath.Join(dir, "big.json")
+		var segs []string
+		for i := range 600 { // a 600-sided polygon makes a part file and an SVG over 16 KB
+			a0, a1 := 2*math.Pi*float64(i)/600, 2*math.Pi*float64(i+1)/600
+			segs = append(segs, fmt.Sprintf(`{"line": [[%.12f, %.12f], [%.12f, %.12f]]}`, 100*math.Cos(a0), 100*math.Sin(a0), 100*math.Cos(a1), 100*math.Sin(a1)))
+		}
+		part := `{"format": "plumb-part", "version": 1, "material": {"formula": "8", "unit": "kg/m2"},
+			"outline": {"loops": [{"segments": [` + strings.Join(segs, ",\n") + `]}]}}`
+		if err := os.WriteFile(big, []byte(part), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		for _, c := range []struct {
+			name string
+			args []string
+			out  string
+		}{
+			{"template", []string{"template", "testdata/gate-panel.json", "--level", "-o"}, "t.pdf"},
+			{"report", []string{"report", "testdata/gate-panel.json", "-o"}, "r.pdf"},
+			{"convert", []string{"convert", big, "--out"}, "c.svg"},
+		} {
+			out := filepath.Join(dir, c.out)
+			r := limited(append(c.args, out)...)
+			wantFailure(t, r, exitFailed, "cannot write "+out)
+			if left, _ := filepath.Glob(filepath.Join(dir, "*"+c.out+"*")); len(left) > 0 {
+				t.Errorf("%s left %q", c.name, left)
+			}
+			// The same command with room to write succeeds, so the limit was what stopped it.
+			if r := plumb(append(c.args, out)...); r.code != 0 {
+				t.Errorf("%s without the limit: exit %d, %s", c.name, r.code, r.stderr)
+			}
+		}
+		// An existing output is replaced whole or kept: a failed write leaves the old file.
+		old := filepath.Join(dir, "r.pdf")
+		before, _ := os.ReadFile(old)
+		wantFailure(t, limited("report", "testdata/gate-panel.json", "-o", old), exitFailed, "cannot write "+old)
+		if after, _ := os.ReadFile(old); !bytes.Equal(after, before) {
+			t.Error("a failed report changed the existing output")
+		}
+		wantFailure(t, plumb("report", "testdata/gate-panel.json", "-o", filepath.Join(dir, "no-such-folder", "r.pdf")),
+			exitFailed, "cannot write "+filepath.Join(dir, "no-such-folder", "r.pdf"))
 	})
 
 	t.Run("every flag of every command", func(t *testing.T) {

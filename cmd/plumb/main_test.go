@@ -21,14 +21,25 @@ type plumbRun struct {
 // buildPlumb builds the command into a temporary directory and returns a function that runs it.
 func buildPlumb(t *testing.T) func(args ...string) plumbRun {
 	t.Helper()
+	return runner(t, buildPlumbBinary(t))
+}
+
+// buildPlumbBinary builds the command into a temporary directory and returns its path.
+func buildPlumbBinary(t *testing.T) string {
+	t.Helper()
 	bin := filepath.Join(t.TempDir(), "plumb")
 	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
 		t.Fatalf("go build: %v\n%s", err, out)
 	}
+	return bin
+}
+
+// runner returns a function that runs the program with the arguments prefix followed by its own.
+func runner(t *testing.T, program string, prefix ...string) func(args ...string) plumbRun {
 	return func(args ...string) plumbRun {
 		t.Helper()
 		var stdout, stderr bytes.Buffer
-		cmd := exec.Command(bin, args...)
+		cmd := exec.Command(program, append(slices.Clone(prefix), args...)...)
 		cmd.Stdout, cmd.Stderr = &stdout, &stderr
 		err := cmd.Run()
 		code := 0

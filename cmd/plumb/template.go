@@ -125,8 +125,8 @@ func (s *shopFlags) part(path string, stderr io.Writer) (shop.Part, error) {
 	return p, nil
 }
 
-// writeOutput renders into memory and then writes the file, so that a failure leaves no partial file,
-// and refuses to write over the input.
+// writeOutput renders into memory and then writes the file whole (writeFileAtomic), so that a failure
+// leaves no partial file, and refuses to write over the input.
 func writeOutput(out, in string, stdout io.Writer, render func(io.Writer) error) error {
 	if same, _ := samePath(out, in); same {
 		return fmt.Errorf("-o %s would overwrite the part file", out)
@@ -135,7 +135,7 @@ func writeOutput(out, in string, stdout io.Writer, render func(io.Writer) error)
 	if err := render(&buf); err != nil {
 		return err
 	}
-	if err := os.WriteFile(out, buf.Bytes(), 0o644); err != nil {
+	if err := writeFileAtomic(out, buf.Bytes(), true); err != nil {
 		return err
 	}
 	fmt.Fprintf(stdout, "%s → %s\n", in, out)
