@@ -9,17 +9,18 @@ import (
 
 // The coordinate range Plumb computes in. maxReachMM is 10⁹ m: a thousand times the largest sheet
 // anyone cuts, and small enough that squares of coordinates (second moments) stay far inside float64.
-// minRelativeSize keeps a part at least a millionth of its distance from the origin across: the
-// moments about the origin then keep about ten of float64's sixteen digits when they are moved to the
-// balance point, and a screen's worth of grid lines over the part are distinct numbers.
+// minRelativeSize keeps a part at least 10⁻⁸ of its distance from the origin across: its coordinates
+// then resolve the part to about 2·10⁻⁸ of its size (float64's 2.2·10⁻¹⁶ spacing scaled by 10⁸), which
+// geom's tolerances (10⁻⁹ of the drawing's size) and the editor's snapping still work within; the
+// moments are taken about a point of the part, so they lose nothing to the distance.
 const (
 	maxReachMM      = 1e12
-	minRelativeSize = 1e-6
+	minRelativeSize = 1e-8
 )
 
 // CheckExtent reports a part whose coordinates lie outside the range Plumb computes in: any point of
 // a region or hole farther than 10⁹ m from the origin along x or y (or not a number), or an outline
-// smaller across than a millionth of its distance from the origin. The error names the region, or
+// smaller across than 10⁻⁸ of its distance from the origin. The error names the region, or
 // the hole, at its JSON path. Load and Analyze call it; a reader of other formats (SVG, DXF) or an
 // editor calls it before keeping a part.
 func (d *Document) CheckExtent() error {
@@ -62,7 +63,7 @@ func checkRelativeSize(box geom.Rect, unit string) error {
 		return nil
 	}
 	return &PathError{Path: "outline", Msg: fmt.Sprintf("the part is %.3g %s across but lies %.3g %s from the origin; "+
-		"a part must be at least a millionth of its distance from the origin across (move it nearer the origin)",
+		"a part must be at least 10⁻⁸ of its distance from the origin across (move it nearer the origin)",
 		across, unit, reach, unit)}
 }
 

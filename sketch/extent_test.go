@@ -33,9 +33,9 @@ func TestCheckExtent(t *testing.T) {
 		{"1e10 m in m", squarePart("m", 1e10, 1), "outline: coordinates reach 1e+10 m"},
 		{"a cut-out far off", far, "cutouts[0]: coordinates reach 2e+12 mm"},
 		{"a hole far off", farHole, "holes[0]: coordinates reach 1e+13 mm"},
-		{"a millionth of its distance across", squarePart("mm", 1e7, 11), ""},
-		{"below a millionth of its distance", squarePart("mm", 1e7, 9), "outline: the part is 9 mm across but lies 1e+07 mm from the origin"},
-		{"a speck off the origin", squarePart("mm", 5e3, 1e-3), "the part is 0.001 mm across but lies 5e+03 mm"},
+		{"1e-8 of its distance across", squarePart("mm", 1e9, 11), ""},
+		{"below 1e-8 of its distance", squarePart("mm", 1e9, 9), "outline: the part is 9 mm across but lies 1e+09 mm from the origin"},
+		{"a speck off the origin", squarePart("mm", 5e5, 1e-3), "the part is 0.001 mm across but lies 5e+05 mm"},
 		{"an empty part", NewDocument(), ""},
 	}
 	for _, tt := range tests {
