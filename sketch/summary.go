@@ -10,6 +10,7 @@ import (
 	"reflect"
 	"strconv"
 	"strings"
+	"unicode"
 
 	"plumb/density"
 )
@@ -245,9 +246,9 @@ func (r *Report) WriteCSV(w *csv.Writer) error {
 	if a.NoMaterial {
 		mass, wn, wlbf = "", "", ""
 	}
-	return w.Write([]string{s.File, s.Units.Length, s.Units.Mass, g(s.Area), mass, wn, wlbf,
+	return w.Write([]string{Printable(s.File), s.Units.Length, s.Units.Mass, g(s.Area), mass, wn, wlbf,
 		g(s.Centroid.X), g(s.Centroid.Y), g(s.Inertia.Ixx), g(s.Inertia.Iyy), g(s.Inertia.Ixy),
-		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), strings.Join(s.Warnings, "; ")})
+		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), Printable(strings.Join(s.Warnings, "; "))})
 }
 
 // WriteText writes the report as a readable table with units. The cautions are left to the caller,
@@ -367,13 +368,31 @@ func (t *table) write(w io.Writer, title string) error {
 		width = max(width, len([]rune(l)))
 	}
 	var b strings.Builder
-	b.WriteString(title + "\n")
+	b.WriteString(Printable(title) + "\n")
 	for i, l := range t.labels {
-		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + t.values[i] + "\n")
+		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + Printable(t.values[i]) + "\n")
 	}
 	b.WriteString("\n")
 	_, err := io.WriteString(w, b.String())
 	return err
+}
+
+// Printable returns s as one line safe to show on a terminal: tabs and line breaks become spaces and
+// every other control character (C0, DEL, C1, which carry terminal escape sequences) is dropped.
+// Names and paths come from files, and a file can hold anything.
+func Printable(s string) string {
+	if !strings.ContainsFunc(s, unicode.IsControl) {
+		return s
+	}
+	return strings.Map(func(r rune) rune {
+		switch {
+		case r == '\t' || r == '\n' || r == '\r':
+			return ' '
+		case unicode.IsControl(r):
+			return -1
+		}
+		return r
+	}, s)
 }
 
 // formatNumber prints v with six significant digits, in plain decimals between 0.001 and 1e9 and in

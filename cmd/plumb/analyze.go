@@ -64,7 +64,7 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 		tot.write(prog)
 	}
 	if err := out.close(); err != nil {
-		fmt.Fprintf(stderr, "plumb: %v\n", err)
+		say(stderr, "plumb: %v", err)
 		return exitFailed
 	}
 	return b.status()

@@ -64,7 +64,7 @@ func (t *totals) write(w io.Writer) error {
 	if t.unweighed > 0 {
 		line += fmt.Sprintf("; %d without a material (mass unknown, not in the total)", t.unweighed)
 	}
-	_, err := fmt.Fprintln(w, line)
+	_, err := fmt.Fprintln(w, sketch.Printable(line))
 	return err
 }
 

@@ -111,14 +111,20 @@ func runHang(args []string, stdout, stderr io.Writer) int {
 		return err
 	})
 	if err := out.close(); err != nil {
-		fmt.Fprintf(stderr, "plumb: %v\n", err)
+		say(stderr, "plumb: %v", err)
 		return exitFailed
 	}
 	return b.status()
 }
 
-// errNoLevel is returned with a report when no level hole exists; the report offers alternatives.
-var errNoLevel = errors.New("no hole hangs this part level (see the warnings for the least-tilt positions)")
+// noLevelError is returned with a report when no level hole exists: the warnings list the least-tilt
+// positions, or say why there are none.
+func noLevelError(lv *sketch.Level) error {
+	if len(lv.Alternatives) == 0 {
+		return errors.New("no hole hangs this part level, and no position has room for the hole (see the warnings)")
+	}
+	return errors.New("no hole hangs this part level (the warnings list the least-tilt positions)")
+}
 
 // hang runs the hang asked for on one document.
 func (h *hangFlags) hang(d *sketch.Document) (*sketch.Report, error) {
@@ -132,7 +138,7 @@ func (h *hangFlags) hang(d *sketch.Document) (*sketch.Report, error) {
 			if err != nil {
 				return nil, err
 			}
-			return &sketch.Report{Analysis: whole, Level: lv}, errNoLevel
+			return &sketch.Report{Analysis: whole, Level: lv}, noLevelError(lv)
 		}
 		return &sketch.Report{Analysis: lv.Hang.Part, Level: lv}, nil
 	}

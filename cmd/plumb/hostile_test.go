@@ -160,6 +160,54 @@ func TestHostileInput(t *testing.T) {
 			exitFailed, "cannot write "+filepath.Join(dir, "no-such-folder", "r.pdf"))
 	})
 
+	t.Run("messages", func(t *testing.T) {
+		square := squareJSON("mm", 0, 100, "")
+		twoPieces := strings.Replace(square, `]}]}}`, `]}, {"segments": [
+			{"line": [[200, 0], [300, 0]]}, {"line": [[300, 0], [300, 100]]},
+			{"line": [[300, 100], [200, 100]]}, {"line": [[200, 100], [200, 0]]}]}]}}`, 1)
+		dir := writeFiles(t, map[string]string{
+			"dup.json":        strings.Replace(square, `"units": "mm",`, `"units": "mm", "units": "in",`, 1),
+			"escape.json":     strings.Replace(square, `"version": 1,`, `"version": 1, "name": "sign \u001b]0;title\u0007\u001b[2J",`, 1),
+			"bad\x1b[2J.json": "{",
+			"no-area.json": `{"format": "plumb-part", "version": 1, "material": {"formula": "8", "unit": "kg/m2"},
+				"outline": {"loops": [{"segments": [{"line": [[0, 0], [100, 0]]}, {"line": [[100, 0], [0, 0]]}]}]}}`,
+			"plain.svg":       `<svg xmlns="http://www.w3.org/2000/svg" width="10mm" height="10mm">` + strings.Repeat("<g/>", 1<<17+1) + `</svg>`,
+			"empty.svg":       `<svg xmlns="http://www.w3.org/2000/svg" width="10mm" height="10mm"><rect fill="none" width="5" height="5"/></svg>`,
+			"two-pieces.json": twoPieces,
+			"too-big.json":    strings.Repeat(" ", 16<<20) + square,
+		})
+		in := func(name string) string { return filepath.Join(dir, name) }
+		wantFailure(t, plumb("analyze", in("dup.json")), exitFailed, `units: the key "units" is given twice in one object`)
+		wantFailure(t, plumb("analyze", "testdata/bakery-sign.json", "--density", strings.Repeat("1(", 70)+"1"+strings.Repeat(")", 70)),
+			exitUsage, "--density: col 129: formula is nested more than 64 levels deep")
+		r := plumb("analyze", in("escape.json"), in("bad\x1b[2J.json"))
+		if strings.ContainsAny(r.stdout+r.stderr, "\x1b\x07") || !strings.Contains(r.stdout, "sign ]0;title[2J") || !strings.Contains(r.stderr, "bad[2J.json") {
+			t.Errorf("control characters: stdout %q, stderr %q", r.stdout, r.stderr)
+		}
+		wantFailure(t, plumb("analyze", in("no-area.json")), exitFailed, "the part has no material (the outline encloses no area)")
+		wantFailure(t, plumb("analyze", "--density", "8", in("plain.svg")), exitFailed, "the drawing has more than 131072 elements")
+		wantFailure(t, plumb("convert", in("empty.svg")), exitFailed, in("empty.json")+" not written: no visible shapes")
+		wantFailure(t, plumb("analyze", in("too-big.json")), exitFailed, "too-big.json: the file is 16777", "more than the limit of 16777216")
+
+		r = plumb("hang", in("two-pieces.json"), "--at", "50,90")
+		if r.code != 0 || !strings.Contains(r.stdout, "the part is 2 separate pieces of material") {
+			t.Errorf("two pieces: exit %d, stdout %q", r.code, r.stdout)
+		}
+		// The U has no material above its balance point: the least-tilt holes are listed, in the
+		// hang's report and the template's messages; a hole too big for any place says so.
+		r = plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "8")
+		if !strings.Contains(r.stdout, "least tilt: a hole at (") || !strings.Contains(r.stderr, "the warnings list the least-tilt positions") {
+			t.Errorf("U level: stdout %q, stderr %q", r.stdout, r.stderr)
+		}
+		r = plumb("template", "testdata/u-bracket.json", "--level", "--hole", "8", "-o", in("u.pdf"))
+		wantFailure(t, r, exitFailed, "warning: least tilt: a hole at (")
+		r = plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "60")
+		wantFailure(t, r, exitFailed, "no position has room for the hole")
+		if !strings.Contains(r.stdout, "no position on the part has room for a 60 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
+			t.Errorf("U level, 60 mm hole: stdout %q", r.stdout)
+		}
+	})
+
 	t.Run("every flag of every command", func(t *testing.T) {
 		walkFlags(t, plumb)
 	})

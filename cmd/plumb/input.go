@@ -151,7 +151,7 @@ type part struct {
 
 // loadPart reads a part file (.json) or an SVG drawing.
 func loadPart(path string, reading svg.Reading) (part, error) {
-	data, err := os.ReadFile(path)
+	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes))
 	if err != nil {
 		return part{}, err
 	}
@@ -165,6 +165,27 @@ func loadPart(path string, reading svg.Reading) (part, error) {
 		err = d.CheckExtent()
 	}
 	return part{doc: d, warnings: warnings, fromSVG: true}, err
+}
+
+// readLimited reads the file at path, refusing one over limit bytes before reading it whole (a
+// device or a growing file is read up to one byte past the limit).
+func readLimited(path string, limit int) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	if info, err := f.Stat(); err == nil && info.Size() > int64(limit) {
+		return nil, fmt.Errorf("the file is %d bytes, more than the limit of %d (16 MiB)", info.Size(), limit)
+	}
+	data, err := io.ReadAll(io.LimitReader(f, int64(limit)+1))
+	if err != nil {
+		return nil, err
+	}
+	if len(data) > limit {
+		return nil, fmt.Errorf("the file is more than the limit of %d bytes (16 MiB)", limit)
+	}
+	return data, nil
 }
 
 // isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
@@ -227,7 +248,7 @@ func (b *batch) fail(path string, err error) {
 	if pe, ok := err.(*fs.PathError); ok {
 		err = pe.Err
 	}
-	fmt.Fprintf(b.stderr, "plumb: %s: %v\n", path, err)
+	say(b.stderr, "plumb: %s: %v", path, err)
 }
 
 // status reports the failures at the end of a batch and returns the exit status.

@@ -47,7 +47,7 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 		})
 	}
 	if err != nil {
-		fmt.Fprintf(stderr, "plumb: %s: %v\n", files[0], err)
+		say(stderr, "plumb: %s: %v", files[0], err)
 		return exitFailed
 	}
 	return exitOK
@@ -97,7 +97,7 @@ func (s *shopFlags) part(path string, stderr io.Writer) (shop.Part, error) {
 	warnings := in.warnings
 	defer func() {
 		for _, w := range warnings {
-			fmt.Fprintf(stderr, "plumb: %s: warning: %s\n", path, w)
+			say(stderr, "plumb: %s: warning: %s", path, w)
 		}
 	}()
 	if !s.hang.level && len(s.hang.at) == 0 && len(in.doc.Holes) == 0 {
@@ -138,7 +138,7 @@ func writeOutput(out, in string, stdout io.Writer, render func(io.Writer) error)
 	if err := writeFileAtomic(out, buf.Bytes(), true); err != nil {
 		return err
 	}
-	fmt.Fprintf(stdout, "%s → %s\n", in, out)
+	say(stdout, "%s → %s", in, out)
 	return nil
 }
 
