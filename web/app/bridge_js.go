@@ -223,6 +223,9 @@ func (g *Game) load(text, name string, restored bool) any {
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
+		if err == nil {
+			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
+		}
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
