@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"plumb/density"
 	"plumb/geom"
@@ -25,16 +26,26 @@ type Analysis struct {
 	I1, I2, AngleDeg               float64      // central principal moments; axis of I1 from +x, degrees in (−90, 90]
 	Kx, Ky                         float64      // radii of gyration, sqrt(Ixx/Mass), sqrt(Iyy/Mass)
 	RelErr                         float64      // estimated relative error of the integrals (0 when exact)
-	LimitHit                       bool         // the work limit stopped refinement before Tol was met
-	Materials                      []string     // the base density, then each overlay's, described for reports
-	Warnings                       []string
-	Cautions                       []string
-	Body                           geom.Boundary // the material of the part (outline minus cut-outs)
+	// NoMaterial is set when the part has no base material: the moments are then those of the shape
+	// itself, per unit areal density (density 1 per square document unit), so Mass equals Area, the
+	// second moments are in unit⁴, WeightN and WeightLbf are 0, and a warning says how to add one.
+	NoMaterial bool
+	LimitHit   bool     // the work limit stopped refinement before Tol was met
+	Materials  []string // the base density, then each overlay's, described for reports
+	Warnings   []string
+	Cautions   []string
+	Body       geom.Boundary // the material of the part (outline minus cut-outs)
 
 	// poly is the one polynomial density of all the material, or nil when the density is not a
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
 	// moments of its disk (withHole).
-	poly *geom.Poly
+	poly *localPoly
+}
+
+// localPoly is a polynomial density given about a point near the part: ρ(x, y) = p(x − at.X, y − at.Y).
+type localPoly struct {
+	at geom.Point
+	p  geom.Poly
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -117,6 +128,9 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if a.Body.IsEmpty() || a.Area <= 0 {
 		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
 	}
+	if !d.HasMaterial() {
+		return a.shapeOnly(d, shape, unit)
+	}
 	total, poly, err := a.addDensity(a.Body, &shape, d.Material, "material", unit, opt)
 	if err != nil {
 		return nil, err
@@ -139,6 +153,32 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 		total = total.Add(m)
 	}
 	if err := a.setMoments(total); err != nil {
+		return nil, err
+	}
+	return a, nil
+}
+
+// HasMaterial reports whether the part's base material is given: a material name or an areal-density
+// formula.
+func (d *Document) HasMaterial() bool {
+	return strings.TrimSpace(d.Material.Material) != "" || strings.TrimSpace(d.Material.Formula) != ""
+}
+
+// shapeOnly completes the analysis of a part without a base material from its area moments shape:
+// the balance point, second moments and hang hole follow from the geometry alone. Overlays are left
+// out, since their densities only mean something beside the base material's.
+func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Length) (*Analysis, error) {
+	a.NoMaterial = true
+	a.poly = &localPoly{p: geom.ConstPoly(1)}
+	a.Warnings = append(a.Warnings, fmt.Sprintf("no material given: area, balance point and second moments are "+
+		"those of the shape (per unit areal density, second moments in %s⁴); mass and weight need a material "+
+		"and thickness or an areal-density formula (command line: --material NAME --thickness T, or --density EXPR)",
+		unit.Name))
+	for i, ov := range d.Overlays {
+		a.Warnings = append(a.Warnings, fmt.Sprintf("overlays[%d] (%s) is not counted: the part has no base material",
+			i, overlayName(ov, i)))
+	}
+	if err := a.setMoments(shape); err != nil {
 		return nil, err
 	}
 	return a, nil
@@ -217,7 +257,7 @@ func overlayName(ov Overlay, i int) string {
 
 // addDensity integrates the density spec over b and records its description and error estimate. shape,
 // when not nil, holds b's area moments; the density's polynomial is returned when it is one.
-func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *geom.Poly, error) {
+func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *localPoly, error) {
 	if spec.Material == "" && spec.Formula == "" {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
 	}
@@ -249,16 +289,17 @@ func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density
 // integrateField integrates f over b: exactly when f is a polynomial (after checking its sign on the
 // part), adaptively otherwise. A constant density scales b's area moments shape, when given. The
 // density's polynomial is returned when it is one.
-func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *geom.Poly, error) {
-	if p, ok := f.Polynomial(); ok {
+func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *localPoly, error) {
+	at := b.Pieces[0].Start()
+	if p, ok := f.PolynomialAbout(at.X, at.Y); ok {
 		if err := checkPolynomialDensity(b, f); err != nil {
 			return geom.Result{}, nil, err
 		}
-		g := toGeomPoly(p)
+		g := &localPoly{at: at, p: toGeomPoly(p)}
 		if c, ok := f.Constant(); ok && shape != nil {
-			return geom.Result{Moments: shape.Scale(c)}, &g, nil
+			return geom.Result{Moments: shape.Scale(c)}, g, nil
 		}
-		return geom.Result{Moments: b.IntegratePoly(g)}, &g, nil
+		return geom.Result{Moments: b.IntegratePolyAbout(at, g.p)}, g, nil
 	}
 	r, err := b.Integrate(f, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
 	var de *geom.DensityError
@@ -285,7 +326,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
 	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
-	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.poly))); err != nil {
+	if err := part.setMoments(a.Origin.Sub(disk.IntegratePolyAbout(a.poly.at, a.poly.p))); err != nil {
 		return nil, err
 	}
 	return &part, nil
@@ -419,8 +460,10 @@ func (a *Analysis) setMoments(m geom.Moments) error {
 	}
 	a.Origin = m
 	a.Mass = m.M
-	a.WeightN = m.M * standardGravity
-	a.WeightLbf = a.WeightN / newtonsPerLbf
+	if !a.NoMaterial {
+		a.WeightN = m.M * standardGravity
+		a.WeightLbf = a.WeightN / newtonsPerLbf
+	}
 	a.Centroid = m.Centroid()
 	a.Ixx, a.Iyy, a.Ixy = m.Central()
 	if math.Abs(a.Ixy) <= roundingIxy*(a.Ixx+a.Iyy) {

@@ -189,7 +189,8 @@ type edgeState struct {
 }
 
 // stateJSON returns the object window.plumb.state() gives: the keys of `plumb analyze --format json`
-// for the part, plus the hang, the level hole, timings, the material, weights, cautions, an error
+// for the part, plus the hang, the level hole, timings, the material (no_material when the part has
+// none, and mass and weights are then null), weights, cautions, an error
 // when the part cannot be analysed, and the editor's tool, target and undo state.
 func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m := map[string]any{}
@@ -198,6 +199,10 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 		b, _ := json.Marshal(rep.Summary())
 		_ = json.Unmarshal(b, &m)
 		m["weight_n"], m["weight_lbf"] = r.a.WeightN, r.a.WeightLbf
+		if r.a.NoMaterial {
+			m["weight_n"], m["weight_lbf"] = nil, nil
+		}
+		m["no_material"] = r.a.NoMaterial
 		if len(r.a.Materials) > 0 {
 			m["material"], m["overlay_materials"] = r.a.Materials[0], r.a.Materials[1:]
 		}

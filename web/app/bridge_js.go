@@ -16,6 +16,7 @@ import (
 	"plumb/sketch"
 	"plumb/sketch/edit"
 	"plumb/sketch/shop"
+	"plumb/sketch/svg"
 )
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
@@ -197,7 +198,8 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part.
+// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// came with a material (has_material), so that the page can give a drawing without one the panel's.
 func (g *Game) load(text, name string) any {
 	var (
 		doc      *sketch.Document
@@ -206,7 +208,7 @@ func (g *Game) load(text, name string) any {
 	)
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
-		doc, warnings, err = sketch.ReadSVG([]byte(text), sketch.SVGOptions{Name: base})
+		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
@@ -229,7 +231,7 @@ func (g *Game) load(text, name string) any {
 	for i, w := range warnings {
 		out[i] = w
 	}
-	return map[string]any{"ok": true, "error": "", "warnings": out}
+	return map[string]any{"ok": true, "error": "", "warnings": out, "has_material": doc.HasMaterial()}
 }
 
 // setMaterial checks the material spec the panel sends and, when it is sound, gives it to the part and
@@ -334,7 +336,7 @@ func sameSpec(a, b density.Spec) bool {
 
 // exportSVG returns the part as a 1:1 SVG with the balance point and hang marked.
 func (g *Game) exportSVG() string {
-	b, err := sketch.WriteSVG(g.ed.Document(), g.res.a, g.res.hang)
+	b, err := svg.Write(g.ed.Document(), g.res.a, g.res.hang)
 	if err != nil {
 		js.Global().Get("console").Call("error", "plumb: export SVG: "+err.Error())
 		return ""

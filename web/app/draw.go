@@ -73,6 +73,7 @@ func (g *Game) Draw(screen *ebiten.Image) {
 		f: g.fonts.facesFor(g.dpr), res: g.res, doc: g.ed.Document()}
 	screen.Fill(colBackground)
 	fr.grid()
+	fr.origin()
 	fr.ghost()
 	fr.part()
 	fr.holes()
@@ -148,6 +149,21 @@ func (fr *frame) grid() {
 		sy := math.Round(fr.screen(geom.Pt(0, y)).Y)
 		fr.p.rect(0, sy, fr.w, one, gridColour(y, major, step))
 	}
+}
+
+// origin marks the drawing's own origin (0, 0), from which positions and density formulas are
+// measured: a ring with short arms along +x and +y and the label "0,0".
+func (fr *frame) origin() {
+	u := fr.u
+	o := fr.screen(geom.Pt(0, 0))
+	if o.X < -20*u || o.Y < -20*u || o.X > fr.w+20*u || o.Y > fr.h+20*u {
+		return
+	}
+	arm := 18 * u
+	fr.p.line(o, o.Add(geom.Pt(arm, 0)), 1.5*u, colInkSoft)
+	fr.p.line(o, o.Add(geom.Pt(0, -arm)), 1.5*u, colInkSoft)
+	fr.p.circle(o, 4*u, 1.5*u, colInkSoft)
+	drawText(fr.p.dst, "0,0", fr.f.small, o.X+6*u, o.Y+4*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
 }
 
 func gridColour(v, major, step float64) color.Color {

@@ -186,9 +186,21 @@
     $("units-note").hidden = true;
     refresh();
     const warnings = r.warnings || [];
-    if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
+    const adopted = !quiet && r.has_material === false && adoptPanelMaterial();
+    if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
+    else if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
     else if (!quiet) toast("Opened " + name);
     return true;
+  }
+
+  // adoptPanelMaterial gives a part opened without a material the material in the panel's fields, when
+  // they hold one; it returns what was given, or "" when the fields are empty (the part then stays
+  // without a material and the panel says so).
+  function adoptPanelMaterial() {
+    const filled = mode === "sheet" ? $("material").value.trim() : $("formula").value.trim();
+    if (filled === "") return "";
+    sendMaterial();
+    return $("material-error").textContent === "" ? filled : "";
   }
 
   function openFile(file) {
@@ -416,7 +428,9 @@
     if (typeof state.can_undo === "boolean") document.querySelector('[data-action="undo"]').disabled = !state.can_undo;
     if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
     if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = fmtField(state.hole_diameter);
-    $("material-desc").textContent = state.material || "";
+    $("material-desc").textContent = state.no_material
+      ? "No material: area, balance point and hang hole are from the shape alone. Choose a material for the weight."
+      : state.material ? "Figures computed from: " + state.material : "";
     $("part-error").textContent = state.error || "";
     if (state.error) {
       $("place-hole").hidden = true;
@@ -434,9 +448,14 @@
   }
 
   function renderAnswers(u) {
-    $("weight").textContent = fmtSig(state.mass) + " kg";
-    const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
-    $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    if (state.no_material) {
+      $("weight").textContent = "—";
+      $("weight-sub").textContent = "no material: choose one for the weight";
+    } else {
+      $("weight").textContent = fmtSig(state.mass) + " kg";
+      const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
+      $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    }
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
     $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
     renderHang(u);
@@ -499,10 +518,11 @@
   }
 
   function renderDetails(u) {
-    const kgu2 = "kg·" + u + "²";
+    // Without a material the second moments are the shape's, per unit areal density (u⁴).
+    const kgu2 = state.no_material ? u + "⁴ (shape only)" : "kg·" + u + "²";
     const rows = [
       ["Area", fmtSig(state.area) + " " + u + "²"],
-      ["Mass", fmtSig(state.mass, 6) + " kg"],
+      ["Mass", state.no_material ? "unknown (no material)" : fmtSig(state.mass, 6) + " kg"],
       ["Ixx (about the balance point)", fmtSig(state.inertia.ixx) + " " + kgu2],
       ["Iyy", fmtSig(state.inertia.iyy) + " " + kgu2],
       ["Ixy", fmtSig(state.inertia.ixy) + " " + kgu2],
