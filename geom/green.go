@@ -8,33 +8,36 @@ import "math"
 // rounding for arcs. For a constant density, lines use the closed-form triangle-fan terms instead (see
 // fanSums), the fastest exact form, and the other pieces are converted to the same form.
 //
-// The work is done about a local origin, the start of the first piece, and shifted back (Moments keeps
-// the local values). Any point within the part's extent serves: it bounds the local coordinates by the
-// part's size, so rounding does not grow with the part's distance from the origin, and unlike the
-// bounding-box centre it needs no extra pass over the pieces.
+// The work is done about a local origin and shifted back (Moments keeps the local values): Combine's
+// origin where b has one (see Boundary), else the start of the first piece. Any point within the
+// part's extent serves: it bounds the local coordinates by the part's size, so rounding does not grow
+// with the part's distance from the origin, and unlike the bounding-box centre it needs no extra pass
+// over the pieces.
 func (b Boundary) IntegratePoly(p Poly) Moments {
 	p.check()
 	if len(b.Pieces) == 0 {
 		return Moments{}
 	}
-	c := b.Pieces[0].Start()
+	c, pieces, d := b.frame()
 	acc := newGreenSums(p.Deg + 2)
 	var fan fanSums
-	for i := range b.Pieces {
-		s := &b.Pieces[i]
+	for i := range pieces {
+		s := &pieces[i]
+		if s.Kind == KindLine && acc.deg <= 2 {
+			fan.add(s.P[0].Sub(d), s.P[1].Sub(d))
+			continue
+		}
+		local := s.translated(d.Mul(-1))
 		switch {
 		case s.Kind == KindArc && acc.deg > 2:
-			acc.arc(s.translated(c.Mul(-1)), nil)
+			acc.arc(local, nil)
 		case s.Kind == KindArc:
-			acc.arc(s.translated(c.Mul(-1)), &fan)
-		case acc.deg > 2:
-			acc.segment(s.translated(c.Mul(-1)))
-		case s.Kind == KindLine:
-			fan.add(s.P[0].Sub(c), s.P[1].Sub(c))
+			acc.arc(local, &fan)
 		default:
-			local := s.translated(c.Mul(-1))
 			acc.segment(local)
-			acc.fanCorrection(local.Start(), local.End())
+			if acc.deg <= 2 {
+				acc.fanCorrection(local.Start(), local.End())
+			}
 		}
 	}
 	fan.addTo(acc)
