@@ -169,11 +169,7 @@ type part struct {
 
 // loadPart reads a part file (.json), an SVG drawing or a DXF drawing.
 func loadPart(path string, rf readingFlag) (part, error) {
-	limit := max(sketch.MaxPartBytes, svg.DefaultMaxBytes)
-	if isDXF(path) {
-		limit = dxf.DefaultMaxBytes
-	}
-	data, err := readLimited(path, limit)
+	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes, dxf.DefaultMaxBytes))
 	if err != nil {
 		return part{}, err
 	}
@@ -195,9 +191,6 @@ func loadPart(path string, rf readingFlag) (part, error) {
 	return part{doc: d, warnings: warnings, fromDrawing: true}, err
 }
 
-// isDXF tells a DXF drawing by its extension.
-func isDXF(path string) bool { return strings.EqualFold(filepath.Ext(path), ".dxf") }
-
 // readLimited reads the file at path, refusing one over limit bytes before reading it whole (a
 // device or a growing file is read up to one byte past the limit).
 func readLimited(path string, limit int) ([]byte, error) {
@@ -218,6 +211,9 @@ func readLimited(path string, limit int) ([]byte, error) {
 	}
 	return data, nil
 }
+
+// isDXF tells a DXF drawing by its extension.
+func isDXF(path string) bool { return strings.EqualFold(filepath.Ext(path), ".dxf") }
 
 // isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
 func isSVG(path string, data []byte) bool {
