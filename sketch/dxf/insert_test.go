@@ -125,6 +125,11 @@ func TestReadWarnings(t *testing.T) {
 	if len(d.Outline.Loops) != 2 {
 		t.Errorf("%d contours, want the square and the closed triangle", len(d.Outline.Loops))
 	}
+	xref := [][]g{{{0, "BLOCK"}, {2, "FRAME"}, {70, 4}, {10, 0}, {20, 0}, {1, "frame.dxf"}}, {{0, "ENDBLK"}}}
+	_, warnings = read(t, dxfText(4, xref, square, []g{{0, "INSERT"}, {5, "B7"}, {8, "CUT"}, {2, "FRAME"}}), Options{})
+	if !strings.Contains(strings.Join(warnings, "\n"), `skipped INSERT (handle B7, layer CUT, line`) {
+		t.Errorf("an external reference is not said to be skipped: %q", warnings)
+	}
 	d, warnings = read(t, dxfText(4, nil, square, etch, circle(50, 50, 10)), Options{SkipLayers: []string{"etch"}})
 	if len(d.Outline.Loops) != 2 || strings.Contains(strings.Join(warnings, "\n"), "open contour") {
 		t.Errorf("--skip-layers etch: %d contours, warnings %q", len(d.Outline.Loops), warnings)

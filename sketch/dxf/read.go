@@ -247,6 +247,10 @@ func (r *reader) insert(e *entity, m geom.Affine, layer, name string, depth int)
 	if !ok {
 		return &Error{Entity: name, Msg: fmt.Sprintf("refers to block %q, which the file does not define", bname)}
 	}
+	if b.external {
+		r.warn("skipped %s: block %q refers to another file, which is not read", name, bname)
+		return nil
+	}
 	o, err := ocs(e)
 	var skip errSkip
 	if errors.As(err, &skip) {
