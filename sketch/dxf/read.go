@@ -62,6 +62,7 @@ func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	d.Name = opt.Name
 	var toDoc geom.Affine
 	d.Units, toDoc = r.units()
+	r.unit = d.Units
 	if err := r.walk(f.entities, toDoc, "", "", 0); err != nil {
 		return nil, nil, err
 	}
@@ -83,6 +84,7 @@ type piece struct {
 type reader struct {
 	f        *file
 	opt      Options
+	unit     string // the document's unit, for messages
 	closed   []piece
 	open     []piece
 	approx   float64 // area bound of approximated curves, in square document units
@@ -365,7 +367,7 @@ func (r *reader) region(join float64) (geom.Region, error) {
 		}
 	}
 	for _, c := range open {
-		r.warn("skipped an open contour (its ends are %.4g apart, more than %.4g): %s", c.Gap, join, chainText(r.open, c))
+		r.warn("skipped an open contour (its ends are %.4g %s apart; pieces join within %g mm): %s", c.Gap, r.unit, joinMM, chainText(r.open, c))
 	}
 	if len(reg.Loops) == 0 {
 		return reg, &Error{Msg: "the drawing has no closed contours to cut (see the warnings for what was skipped)"}
