@@ -24,7 +24,7 @@ const (
 	// inserts could otherwise multiply without end.
 	maxEntities = 1 << 20
 	// maxSegments bounds the segments of the part.
-	maxSegments = 1 << 21
+	maxSegments = 1 << 20
 	// maxWarnings is the number of warnings Read lists before summing up the rest.
 	maxWarnings = 20
 	// joinMM is the largest gap (in mm) between the ends of pieces that are chained into one contour,
