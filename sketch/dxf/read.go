@@ -190,6 +190,10 @@ func (r *reader) walk(ents []*entity, m geom.Affine, layer0, in string, depth in
 			r.filtered++
 			continue
 		}
+		if why := hidden(e); why != "" {
+			r.warn("skipped %s: %s", name, why)
+			continue
+		}
 		read, ok := readers[e.typ]
 		if !ok {
 			r.warn("skipped %s: %s", name, cmp.Or(skipReasons[e.typ], "not a cut line"))
@@ -200,6 +204,18 @@ func (r *reader) walk(ents []*entity, m geom.Affine, layer0, in string, depth in
 		}
 	}
 	return nil
+}
+
+// hidden says why an entity is not part of the drawing's model: on a paper-space layout (group 67 = 1:
+// title blocks, viewports) or made invisible (group 60 = 1); "" when it is part of it.
+func hidden(e *entity) string {
+	switch {
+	case groupText(e, 67) == "1":
+		return "it is on a paper-space layout, not in the drawing's model"
+	case groupText(e, 60) == "1":
+		return "it is invisible"
+	}
+	return ""
 }
 
 // describe names an entity for messages with the layer it is read on and the block it is in.
