@@ -314,6 +314,7 @@
 
   function loadText(text, name, quiet) {
     if (!app) { toast("Still loading; try again in a moment."); return false; }
+    const panel = panelMaterial(); // before loading: showing a part without a material empties the fields
     const r = app.load(text, name);
     if (!r.ok) {
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
@@ -322,19 +323,28 @@
     $("units-note").hidden = true;
     refresh();
     const warnings = r.warnings || [];
-    const adopted = !quiet && r.has_material === false && adoptPanelMaterial();
+    const adopted = !quiet && r.has_material === false && adoptPanelMaterial(panel);
     if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
     else if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
     else if (!quiet) toast("Opened " + name);
     return true;
   }
 
-  // adoptPanelMaterial gives a part opened without a material the material in the panel's fields, when
-  // they hold one; it returns what was given, or "" when the fields are empty (the part then stays
-  // without a material and the panel says so).
-  function adoptPanelMaterial() {
-    const filled = mode === "sheet" ? $("material").value.trim() : $("formula").value.trim();
+  // panelMaterial returns what the material fields hold: the mode and the field values.
+  function panelMaterial() {
+    const ids = ["material", "thickness", "formula", "density-unit", "params"];
+    return { mode, values: Object.fromEntries(ids.map((id) => [id, $(id).value])) };
+  }
+
+  // adoptPanelMaterial gives a part opened without a material the material the panel's fields held
+  // before it was opened (panel, from panelMaterial), when they held one; it returns what was given,
+  // or "" when they were empty (the part then stays without a material and the panel says so).
+  function adoptPanelMaterial(panel) {
+    const v = panel.values;
+    const filled = (panel.mode === "sheet" ? v.material : v.formula).trim();
     if (filled === "") return "";
+    for (const [id, value] of Object.entries(v)) $(id).value = value;
+    setMode(panel.mode);
     sendMaterial();
     return $("material-error").textContent === "" ? filled : "";
   }
