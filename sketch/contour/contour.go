@@ -200,14 +200,26 @@ func (x endIndex) add(p geom.Point, i int) {
 	x.m[k] = append(x.m[k], i)
 }
 
+// maxCandidates bounds the ends nearest looks at in one cell. Drawings have a few ends per cell; a
+// hostile file could pile up a million there, and trying them all for every join would take a million
+// squared steps. Ends past the bound are not joined, so their pieces stay open.
+const maxCandidates = 64
+
 // nearest returns the unused piece with an end nearest to p, within the cell size, and whether it
-// must be turned around (its end, not its start, is at p); -1 when there is none.
+// must be turned around (its end, not its start, is at p); -1 when there is none. Used pieces are
+// dropped from the cells as they are met, and an end exactly at p is taken at once.
 func (x endIndex) nearest(p geom.Point, pieces [][]geom.Segment, used []bool) (int, bool) {
 	best, reversed, bestDist := -1, false, x.cell
 	k := x.key(p)
 	for dx := int64(-1); dx <= 1; dx++ {
 		for dy := int64(-1); dy <= 1; dy++ {
-			for _, i := range x.m[[2]int64{k[0] + dx, k[1] + dy}] {
+			key := [2]int64{k[0] + dx, k[1] + dy}
+			list := x.m[key]
+			if len(list) <= maxCandidates {
+				list = slices.DeleteFunc(list, func(i int) bool { return used[i] })
+				x.m[key] = list
+			}
+			for _, i := range list[:min(len(list), maxCandidates)] {
 				if used[i] {
 					continue
 				}
@@ -217,6 +229,9 @@ func (x endIndex) nearest(p geom.Point, pieces [][]geom.Segment, used []bool) (i
 				if d := end(pieces[i]).Dist(p); d < bestDist {
 					best, reversed, bestDist = i, true, d
 				}
+			}
+			if bestDist == 0 {
+				return best, reversed
 			}
 		}
 	}
