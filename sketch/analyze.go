@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"plumb/density"
 	"plumb/geom"
@@ -30,11 +31,34 @@ type Analysis struct {
 	Warnings                       []string
 	Cautions                       []string
 	Body                           geom.Boundary // the material of the part (outline minus cut-outs)
+	// Pieces are the connected pieces of material that come off the table after cutting, largest area
+	// first: one when the part holds together.
+	Pieces []Piece
+
+	// layers are the material and each overlay's material on the part, with their densities, in the
+	// order they were integrated: Pieces splits them.
+	layers []layer
 
 	// poly is the one polynomial density of all the material, or nil when the density is not a
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
 	// moments of its disk (withHole).
 	poly *geom.Poly
+}
+
+// Piece is one connected piece of a part's material: one outer edge with its holes. Lengths are in the
+// document unit, masses in kg.
+type Piece struct {
+	Body     geom.Boundary
+	Area     float64
+	Mass     float64
+	Centroid geom.Point
+	Origin   geom.Moments // mass moments about the document origin, overlays included
+}
+
+// layer is material of one density: the part's base material or an overlay where it lies on the part.
+type layer struct {
+	b geom.Boundary
+	f *density.Field
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -141,7 +165,79 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err := a.setMoments(total); err != nil {
 		return nil, err
 	}
+	if err := a.splitPieces(unit, opt); err != nil {
+		return nil, err
+	}
 	return a, nil
+}
+
+// splitPieces fills in Pieces: the connected pieces of the body, each with the mass of every layer on
+// it, and a warning naming the islands when there is more than one. A piece of an overlay's material
+// lies on one piece of the body, the one its boundary runs in or along.
+func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
+	comps := a.Body.Components()
+	if len(comps) <= 1 {
+		a.Pieces = a.whole()
+		return nil
+	}
+	a.Pieces = make([]Piece, len(comps))
+	for i, c := range comps {
+		a.Pieces[i].Body, a.Pieces[i].Area = c, c.IntegratePoly(geom.ConstPoly(1)).M
+	}
+	for li, l := range a.layers {
+		parts := comps
+		if li > 0 {
+			parts = l.b.Components()
+		}
+		for k, part := range parts {
+			if li > 0 {
+				k = holdingPiece(comps, part)
+			}
+			r, _, err := integrateField(part, nil, l.f, opt)
+			if err != nil {
+				return err
+			}
+			a.RelErr = math.Max(a.RelErr, r.RelErr)
+			a.Pieces[k].Origin = a.Pieces[k].Origin.Add(r.Moments)
+		}
+	}
+	for i := range a.Pieces {
+		p := &a.Pieces[i]
+		p.Mass, p.Centroid = p.Origin.M, p.Origin.Centroid()
+	}
+	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s %s fall out unless bridged",
+		len(a.Pieces), pieceList(a.Pieces[1:]), unit.Name))
+	return nil
+}
+
+// whole returns the part as its one piece.
+func (a *Analysis) whole() []Piece {
+	return []Piece{{Body: a.Body, Area: a.Area, Mass: a.Mass, Centroid: a.Centroid, Origin: a.Origin}}
+}
+
+// holdingPiece returns the index of the piece of comps that part lies on: the one around or along the
+// middle of part's first boundary piece.
+func holdingPiece(comps []geom.Boundary, part geom.Boundary) int {
+	p := part.Pieces[0].At(0.5)
+	tol := 1e-9 * partSize(part)
+	for i, c := range comps {
+		if c.Contains(p) || c.Distance(p) <= tol {
+			return i
+		}
+	}
+	return 0
+}
+
+// pieceList lists the centroids of pieces as "(x, y), (x, y)".
+func pieceList(pieces []Piece) string {
+	var b strings.Builder
+	for i, p := range pieces {
+		if i > 0 {
+			b.WriteString(", ")
+		}
+		fmt.Fprintf(&b, "(%s, %s)", formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y))
+	}
+	return b.String()
 }
 
 // material returns the boundary of the part's material and its area moments (density 1). One outline
@@ -234,6 +330,7 @@ func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
 	a.Materials = append(a.Materials, f.Describe())
+	a.layers = append(a.layers, layer{b, f})
 	r, poly, err := integrateField(b, shape, f, opt)
 	if err != nil {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
@@ -271,9 +368,10 @@ func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt 
 // withHole returns the analysis of the part with the round hole h removed. When the hole lies inside
 // the material (as checkHole makes sure) and one polynomial density covers all of it, the hole removes
 // exactly the moments of its disk (IntegratePoly over the disk's circle) and its circle, turned
-// clockwise, joins the boundary. Otherwise the part is analysed afresh with the hole as a cut-out.
+// clockwise, joins the boundary. Otherwise (other densities, or a part in several pieces) the part is
+// analysed afresh with the hole as a cut-out.
 func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis, error) {
-	if a.poly == nil {
+	if a.poly == nil || len(a.Pieces) > 1 {
 		return Analyze(d.withHoles(h), opt)
 	}
 	part := *a
@@ -288,6 +386,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.poly))); err != nil {
 		return nil, err
 	}
+	part.Pieces = part.whole()
 	return &part, nil
 }
 

@@ -14,7 +14,7 @@ radii of gyration of each part, with the integration error estimate and warnings
 (.json) or an SVG drawing (lengths in mm); a directory is searched for both. The material comes from
 the part file or from --material and --thickness, or --density.
 Formats: text (a table with units), json (one object per line, keys file, units, area, mass,
-centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file;
+centroid, inertia, principal, error_estimate, pieces, warnings), csv (a header row, then one row per file;
 stderr gets a summary line: the count and total mass per material). A long batch shows a progress
 bar when stderr is a terminal.`
 
