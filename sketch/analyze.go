@@ -78,33 +78,12 @@ func Cautions() []string {
 	}
 }
 
-// Body returns the boundary of the part's material: the outline minus every cut-out.
+// Body returns the boundary of the part's material: the outline minus every cut-out and the lettering
+// cut out of it, with separate lettering. Lettering that cannot be laid out is left out (Analyze
+// reports it).
 func (d *Document) Body() geom.Boundary {
-	return geom.Combine(outlineMinusCutouts, d.regions()...)
-}
-
-// regions lists the outline followed by the cut-outs, the order outlineMinusCutouts expects.
-func (d *Document) regions() []geom.Region {
-	return append([]geom.Region{d.Outline}, d.Cutouts...)
-}
-
-// outlineMinusCutouts keeps the points in the outline (in[0]) and in no cut-out (in[1:]).
-func outlineMinusCutouts(in []bool) bool {
-	if !in[0] {
-		return false
-	}
-	for _, c := range in[1:] {
-		if c {
-			return false
-		}
-	}
-	return true
-}
-
-// onOverlay keeps the points of the part's material that the overlay (the last region) covers.
-func onOverlay(in []bool) bool {
-	n := len(in) - 1
-	return in[n] && outlineMinusCutouts(in[:n])
+	p, _ := d.plan()
+	return geom.Combine(p.keep, p.regions...)
 }
 
 // lengthUnit returns the document's length unit (millimetres when unset).
@@ -135,8 +114,12 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
+	p, err := d.plan()
+	if err != nil {
+		return nil, err
+	}
 	var shape geom.Moments
-	a.Body, shape = d.material(crossed)
+	a.Body, shape = d.material(p, crossed)
 	a.Area = shape.M
 	if a.Body.IsEmpty() || a.Area <= 0 {
 		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
@@ -145,13 +128,12 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
-	if len(d.Overlays) == 0 {
+	if len(p.overlays) == 0 {
 		a.poly = poly
 	}
-	regions := d.regions()
-	for i, ov := range d.Overlays {
-		path := fmt.Sprintf("overlays[%d]", i)
-		b := geom.Combine(onOverlay, append(regions, ov.Region)...)
+	for i, ov := range p.overlays {
+		path := p.paths[i]
+		b := geom.Combine(p.onOverlay, append(p.regions, ov.Region)...)
 		if b.IsEmpty() {
 			a.Warnings = append(a.Warnings, fmt.Sprintf("%s (%s) does not lie on the part's material", path, overlayName(ov, i)))
 			continue
@@ -240,13 +222,14 @@ func pieceList(pieces []Piece) string {
 	return b.String()
 }
 
-// material returns the boundary of the part's material and its area moments (density 1). One outline
-// loop that neither crosses nor touches itself (crossed is false), with no cut-outs, bounds its inside
+// material returns the boundary of the part's material laid out by p and its area moments (density 1).
+// One outline loop that neither crosses nor touches itself (crossed is false), with no cut-outs or
+// lettering, bounds its inside
 // under either fill rule: the boundary is the loop itself, turned counter-clockwise, and there are no
 // intersections to look for. Anything else goes through Combine.
-func (d *Document) material(crossed bool) (geom.Boundary, geom.Moments) {
-	if crossed || len(d.Cutouts) > 0 || len(d.Outline.Loops) != 1 {
-		b := geom.Combine(outlineMinusCutouts, d.regions()...)
+func (d *Document) material(p plan, crossed bool) (geom.Boundary, geom.Moments) {
+	if crossed || len(p.regions) > 1 || len(d.Outline.Loops) != 1 {
+		b := geom.Combine(p.keep, p.regions...)
 		return b, b.IntegratePoly(geom.ConstPoly(1))
 	}
 	loop := d.Outline.Loops[0]
@@ -276,8 +259,10 @@ func (a *Analysis) checkRegions(d *Document) (crossed bool, err error) {
 		}
 		return nil
 	}
-	if err := check("outline", d.Outline); err != nil {
-		return false, err
+	if len(d.Outline.Loops) > 0 || !d.hasSeparateText() {
+		if err := check("outline", d.Outline); err != nil {
+			return false, err
+		}
 	}
 	crossed = len(a.Warnings) > 0
 	for i, c := range d.Cutouts {
@@ -291,6 +276,17 @@ func (a *Analysis) checkRegions(d *Document) (crossed bool, err error) {
 		}
 	}
 	return crossed, nil
+}
+
+// hasSeparateText reports whether the part has lettering cut as pieces of its own, which is material
+// without an outline.
+func (d *Document) hasSeparateText() bool {
+	for _, t := range d.Texts {
+		if t.role() == RoleSeparate {
+			return true
+		}
+	}
+	return false
 }
 
 // validationPath extends a region's path with the loop and segment a validation problem names.

@@ -144,15 +144,21 @@ func pieceAt(pieces []Piece, p geom.Point) int {
 }
 
 // onPiece returns the part cut down to piece i of its analysis whole, with that piece's analysis and
-// a warning naming the pieces that drop out (which says how the piece was chosen): a copy of d whose outline is the piece's material (the
-// cut-outs already applied), overlays kept. A part in one piece, or i < 0 (no piece), comes back as it is.
+// a warning naming the pieces that drop out (which says how the piece was chosen): a copy of d whose
+// outline is the piece's material (cut-outs and lettering cut out or separate already applied),
+// overlays and added lettering kept. A part in one piece, or i < 0 (no piece), comes back as it is.
 func onPiece(d *Document, whole *Analysis, i int, which string, unit density.Length, opt HangOptions) (*Document, *Analysis, string, error) {
 	if len(whole.Pieces) <= 1 || i < 0 {
 		return d, whole, "", nil
 	}
 	c := *d
 	c.Outline = geom.Region{Loops: whole.Pieces[i].Body.Loops()}
-	c.Cutouts = nil
+	c.Cutouts, c.Texts = nil, nil
+	for _, t := range d.Texts {
+		if t.role() == RoleAdded {
+			c.Texts = append(c.Texts, t)
+		}
+	}
 	a, err := Analyze(&c, opt.Analyze)
 	if err != nil {
 		return nil, nil, "", err
