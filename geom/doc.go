@@ -23,7 +23,9 @@
 // For a monomial f = x^i y^j this is ∬ x^i y^j dA = ∮ x^(i+1)/(i+1) · y^j dy. On a segment P(t), t ∈ [0, 1],
 // the line integral is ∫₀¹ x(t)^(i+1)/(i+1) · y(t)^j · y'(t) dt. For lines and Béziers of degree k the
 // integrand is a polynomial of degree k(i+j+2) − 1 in t, so Gauss–Legendre with ⌈k(i+j+2)/2⌉ nodes
-// integrates it exactly (Boundary.IntegratePoly). Arcs give trigonometric polynomials; they are cut into
+// integrates it exactly (Boundary.IntegratePoly;
+// Boundary.IntegratePolyAbout takes the polynomial in coordinates about a point near the part, so
+// that a density written about a far point is never expanded into terms that cancel). Arcs give trigonometric polynomials; they are cut into
 // pieces of at most 90° and integrated with enough nodes that the Gauss–Legendre remainder is below the
 // rounding level.
 //

@@ -18,6 +18,18 @@ func (b Boundary) IntegratePoly(p Poly) Moments {
 		return Moments{}
 	}
 	c := b.Pieces[0].Start()
+	return b.IntegratePolyAbout(c, p.Shift(c))
+}
+
+// IntegratePolyAbout is IntegratePoly for a density given about the point c: ρ(x, y) = p(x − c.X,
+// y − c.Y). Take c near the part (within its extent, or about as close): the work is done in
+// coordinates about c, so a density written about a far point, whose coefficients about the
+// origin would cancel, keeps its digits (density.Field.PolynomialAbout gives such coefficients).
+func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
+	p.check()
+	if len(b.Pieces) == 0 {
+		return Moments{}
+	}
 	acc := newGreenSums(p.Deg + 2)
 	var fan fanSums
 	for i := range b.Pieces {
@@ -35,7 +47,7 @@ func (b Boundary) IntegratePoly(p Poly) Moments {
 		acc.fanCorrection(local.Start(), local.End())
 	}
 	fan.addTo(acc)
-	return momentsAbout(c, acc.moments(p.Shift(c)))
+	return momentsAbout(c, acc.moments(p))
 }
 
 // PolygonMoments returns the moments of the uniform unit density over the polygon through pts (closed

@@ -130,15 +130,31 @@ func (m Moments) Polar(p Point) float64 {
 // (−π/2, π/2]) from +x of the axis about which the second moment is i1. The second moment about the
 // centroidal axis at angle a is I(a) = (ixx+iyy)/2 + (ixx−iyy)/2·cos 2a − ixy·sin 2a (Mohr's circle;
 // Beer & Johnston, Vector Mechanics for Engineers: Statics, §9.9).
+//
+// i1 = (ixx+iyy)/2 + √(((ixx−iyy)/2)² + ixy²) involves no cancellation; i2 is the determinant
+// ixx·iyy − ixy² (the product of the two) divided by i1, rather than the difference of the circle's
+// centre and radius, which loses the small moment of a long thin part (a 2000 × 0.5 slot) entirely.
+// The determinant is formed with fused multiply-adds, so it is as exact as its inputs allow.
 func (m Moments) Principal() (i1, i2, angle float64) {
 	ixx, iyy, ixy := m.Central()
 	mid, half := (ixx+iyy)/2, (ixx-iyy)/2
-	r := math.Hypot(half, ixy)
+	i1 = mid + math.Hypot(half, ixy)
 	angle = math.Atan2(-ixy, half) / 2
 	if angle <= -math.Pi/2 {
 		angle += math.Pi
 	}
-	return mid + r, mid - r, angle
+	if i1 == 0 {
+		return 0, 0, angle
+	}
+	return i1, det2(ixx, iyy, ixy) / i1, angle
+}
+
+// det2 returns a·b − c² to within a few units in the last place of the result, by Kahan's fused
+// multiply-add form: c² is split into its rounded value and the exact remainder, so the subtraction
+// cancels nothing but exact digits.
+func det2(a, b, c float64) float64 {
+	cc := c * c
+	return math.FMA(a, b, -cc) - math.FMA(c, c, -cc)
 }
 
 // Gyration returns the radii of gyration about the centroidal axes parallel to x and y:

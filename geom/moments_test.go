@@ -89,3 +89,26 @@ func TestPrincipalAgainstEigen(t *testing.T) {
 		}
 	}
 }
+
+// TestPrincipalSlot checks the small principal moment of a long thin slot (a rectangle with
+// semicircular ends), 2000 long overall and 0.5 wide, lying along x and turned by a quarter turn.
+// About its long axis it is the rectangle's L·w³/12 plus the πr⁴/4 of the full circle that the two
+// ends make (Beer & Johnston, Statics, Fig. 9.12). Formed as mid − r, i2 was lost entirely at this
+// aspect ratio.
+func TestPrincipalSlot(t *testing.T) {
+	const length, w = 2000.0, 0.5
+	r, l := w/2, length-w
+	want := l*w*w*w/12 + math.Pi*r*r*r*r/4
+	slot := RoundedRect(Pt(-length/2, -r), Pt(length/2, r), r)
+	for _, c := range []struct {
+		name string
+		m    Affine
+	}{{"along x", Identity()}, {"along y", Affine{B: 1, C: -1}}} {
+		m := bnd(slot.Transform(c.m)).IntegratePoly(ConstPoly(1))
+		i1, i2, _ := m.Principal()
+		if !near(i2, want, 1e-13, 0) {
+			t.Errorf("%s: principal (%v, %v), want i2 = %v (rel. error %.1e)", c.name, i1, i2, want,
+				math.Abs(i2-want)/want)
+		}
+	}
+}

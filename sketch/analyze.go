@@ -26,11 +26,15 @@ type Analysis struct {
 	I1, I2, AngleDeg               float64      // central principal moments; axis of I1 from +x, degrees in (−90, 90]
 	Kx, Ky                         float64      // radii of gyration, sqrt(Ixx/Mass), sqrt(Iyy/Mass)
 	RelErr                         float64      // estimated relative error of the integrals (0 when exact)
-	LimitHit                       bool         // the work limit stopped refinement before Tol was met
-	Materials                      []string     // the base density, then each overlay's, described for reports
-	Warnings                       []string
-	Cautions                       []string
-	Body                           geom.Boundary // the material of the part (outline minus cut-outs)
+	// NoMaterial is set when the part has no base material: the moments are then those of the shape
+	// itself, per unit areal density (density 1 per square document unit), so Mass equals Area, the
+	// second moments are in unit⁴, WeightN and WeightLbf are 0, and a warning says how to add one.
+	NoMaterial bool
+	LimitHit   bool     // the work limit stopped refinement before Tol was met
+	Materials  []string // the base density, then each overlay's, described for reports
+	Warnings   []string
+	Cautions   []string
+	Body       geom.Boundary // the material of the part (outline minus cut-outs)
 	// Pieces are the connected pieces of material that come off the table after cutting, largest area
 	// first: one when the part holds together.
 	Pieces []Piece
@@ -42,7 +46,13 @@ type Analysis struct {
 	// poly is the one polynomial density of all the material, or nil when the density is not a
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
 	// moments of its disk (withHole).
-	poly *geom.Poly
+	poly *localPoly
+}
+
+// localPoly is a polynomial density given about a point near the part: ρ(x, y) = p(x − at.X, y − at.Y).
+type localPoly struct {
+	at geom.Point
+	p  geom.Poly
 }
 
 // Piece is one connected piece of a part's material: one outer edge with its holes. Lengths are in the
@@ -124,6 +134,9 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if a.Body.IsEmpty() || a.Area <= 0 {
 		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
 	}
+	if !d.HasMaterial() {
+		return a.shapeOnly(d, shape, unit)
+	}
 	total, poly, err := a.addDensity(a.Body, &shape, d.Material, "material", unit, opt)
 	if err != nil {
 		return nil, err
@@ -154,7 +167,8 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 }
 
 // splitPieces fills in Pieces: the connected pieces of the body, each with the mass of every layer on
-// it, and a warning naming the islands when there is more than one. A piece of an overlay's material
+// it (or its area, for a part without material), and a warning naming the islands when there is more
+// than one. A piece of an overlay's material
 // lies on one piece of the body, the one its boundary runs in or along.
 func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 	comps := a.Body.Components()
@@ -165,6 +179,11 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 	a.Pieces = make([]Piece, len(comps))
 	for i, c := range comps {
 		a.Pieces[i].Body, a.Pieces[i].Area = c, c.IntegratePoly(geom.ConstPoly(1)).M
+	}
+	if a.NoMaterial {
+		for i, c := range comps {
+			a.Pieces[i].Origin = c.IntegratePoly(geom.ConstPoly(1))
+		}
 	}
 	for li, l := range a.layers {
 		parts := comps
@@ -220,6 +239,35 @@ func pieceList(pieces []Piece) string {
 		fmt.Fprintf(&b, "(%s, %s)", formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y))
 	}
 	return b.String()
+}
+
+// HasMaterial reports whether the part's base material is given: a material name or an areal-density
+// formula.
+func (d *Document) HasMaterial() bool {
+	return strings.TrimSpace(d.Material.Material) != "" || strings.TrimSpace(d.Material.Formula) != ""
+}
+
+// shapeOnly completes the analysis of a part without a base material from its area moments shape:
+// the balance point, second moments and hang hole follow from the geometry alone. Overlays are left
+// out, since their densities only mean something beside the base material's.
+func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Length) (*Analysis, error) {
+	a.NoMaterial = true
+	a.poly = &localPoly{p: geom.ConstPoly(1)}
+	a.Warnings = append(a.Warnings, fmt.Sprintf("no material given: area, balance point and second moments are "+
+		"those of the shape (per unit areal density, second moments in %s⁴); mass and weight need a material "+
+		"and thickness or an areal-density formula (command line: --material NAME --thickness T, or --density EXPR)",
+		unit.Name))
+	for i, ov := range d.Overlays {
+		a.Warnings = append(a.Warnings, fmt.Sprintf("overlays[%d] (%s) is not counted: the part has no base material",
+			i, overlayName(ov, i)))
+	}
+	if err := a.setMoments(shape); err != nil {
+		return nil, err
+	}
+	if err := a.splitPieces(unit, AnalyzeOptions{}); err != nil {
+		return nil, err
+	}
+	return a, nil
 }
 
 // material returns the boundary of the part's material laid out by p and its area moments (density 1).
@@ -309,7 +357,7 @@ func overlayName(ov Overlay, i int) string {
 
 // addDensity integrates the density spec over b and records its description and error estimate. shape,
 // when not nil, holds b's area moments; the density's polynomial is returned when it is one.
-func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *geom.Poly, error) {
+func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *localPoly, error) {
 	if spec.Material == "" && spec.Formula == "" {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
 	}
@@ -342,16 +390,17 @@ func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density
 // integrateField integrates f over b: exactly when f is a polynomial (after checking its sign on the
 // part), adaptively otherwise. A constant density scales b's area moments shape, when given. The
 // density's polynomial is returned when it is one.
-func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *geom.Poly, error) {
-	if p, ok := f.Polynomial(); ok {
+func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *localPoly, error) {
+	at := b.Pieces[0].Start()
+	if p, ok := f.PolynomialAbout(at.X, at.Y); ok {
 		if err := checkPolynomialDensity(b, f); err != nil {
 			return geom.Result{}, nil, err
 		}
-		g := toGeomPoly(p)
+		g := &localPoly{at: at, p: toGeomPoly(p)}
 		if c, ok := f.Constant(); ok && shape != nil {
-			return geom.Result{Moments: shape.Scale(c)}, &g, nil
+			return geom.Result{Moments: shape.Scale(c)}, g, nil
 		}
-		return geom.Result{Moments: b.IntegratePoly(g)}, &g, nil
+		return geom.Result{Moments: b.IntegratePolyAbout(at, g.p)}, g, nil
 	}
 	r, err := b.Integrate(f, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
 	var de *geom.DensityError
@@ -379,7 +428,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
 	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
-	if err := part.setMoments(a.Origin.Sub(disk.IntegratePoly(*a.poly))); err != nil {
+	if err := part.setMoments(a.Origin.Sub(disk.IntegratePolyAbout(a.poly.at, a.poly.p))); err != nil {
 		return nil, err
 	}
 	part.Pieces = part.whole()
@@ -514,8 +563,10 @@ func (a *Analysis) setMoments(m geom.Moments) error {
 	}
 	a.Origin = m
 	a.Mass = m.M
-	a.WeightN = m.M * standardGravity
-	a.WeightLbf = a.WeightN / newtonsPerLbf
+	if !a.NoMaterial {
+		a.WeightN = m.M * standardGravity
+		a.WeightLbf = a.WeightN / newtonsPerLbf
+	}
 	a.Centroid = m.Centroid()
 	a.Ixx, a.Iyy, a.Ixy = m.Central()
 	if math.Abs(a.Ixy) <= roundingIxy*(a.Ixx+a.Iyy) {

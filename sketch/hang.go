@@ -70,7 +70,8 @@ type Level struct {
 // Chain is one of two chains a part hangs from.
 type Chain struct {
 	At       geom.Point
-	Vertical float64 // N, the chain's share of the weight by the lever rule
+	Share    float64 // the fraction of the part's weight the chain carries, by the lever rule
+	Vertical float64 // N, the chain's share of the weight (0 when the part has no material)
 	Tension  float64 // N, along the chain: Vertical / sin(leg angle)
 }
 
@@ -271,6 +272,18 @@ func (d *Document) edgeRule(dia float64, opt HangOptions, unit density.Length) e
 	default:
 		return edgeRule{dia, "one hole diameter, common practice"}
 	}
+}
+
+// EdgeRule returns the least distance from the edge of a hole of diameter dia to the part's edges that
+// the hang calculations keep, in document units, and where it comes from ("as asked", "1.5 ×
+// thickness, common practice", ...).
+func (d *Document) EdgeRule(dia float64, opt HangOptions) (float64, string, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return 0, "", err
+	}
+	r := d.edgeRule(dia, opt, unit)
+	return r.min, r.source, nil
 }
 
 // thickness returns the base material's thickness in document units, when it is a plain length or gauge.
@@ -585,10 +598,13 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	}
 	lift.Part, lift.Centroid, lift.WeightN = part, part.Centroid, part.WeightN
 	lift.Factor = 1 / math.Sin(legDeg*math.Pi/180)
-	va := part.WeightN * (b.X - part.Centroid.X) / (b.X - a.X)
-	lift.Chains = [2]Chain{
-		{At: a, Vertical: va, Tension: va * lift.Factor},
-		{At: b, Vertical: part.WeightN - va, Tension: (part.WeightN - va) * lift.Factor},
+	sa := (b.X - part.Centroid.X) / (b.X - a.X)
+	for i, c := range [2]struct {
+		at    geom.Point
+		share float64
+	}{{a, sa}, {b, 1 - sa}} {
+		v := c.share * part.WeightN
+		lift.Chains[i] = Chain{At: c.at, Share: c.share, Vertical: v, Tension: v * lift.Factor}
 	}
 	lift.warn(unit)
 	return lift, nil
@@ -604,7 +620,7 @@ func (l *Lift) warn(unit density.Length) {
 	if l.LegDeg < minLegDeg {
 		l.Warnings = append(l.Warnings, fmt.Sprintf("legs at %s° to the horizontal: rigging guidance (ASME B30.9) advises against legs below 30°", formatNumber(l.LegDeg)))
 	}
-	if l.LegDeg < 90 && math.Abs(l.Chains[0].Vertical-l.Chains[1].Vertical) > 1e-6*l.WeightN {
+	if l.LegDeg < 90 && math.Abs(l.Chains[0].Share-l.Chains[1].Share) > 1e-6 {
 		l.Warnings = append(l.Warnings, "the load is off centre: equal leg angles need two anchor points; on one hook the part turns until its balance point is below the hook")
 	}
 }

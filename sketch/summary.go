@@ -16,11 +16,13 @@ import (
 // browser app reports. Its keys are fixed: other programs read them. Lengths are in the document unit,
 // mass in kg, second moments in kg·unit² about the centroid:
 // ixx = ∬(y−ȳ)² dm, iyy = ∬(x−x̄)² dm, ixy = ∬(x−x̄)(y−ȳ) dm.
+// A part without a material has mass null and second moments per unit areal density (dm = dA, in
+// unit⁴); units.inertia says which.
 type Summary struct {
 	File          string    `json:"file"`
 	Units         Units     `json:"units"`
 	Area          float64   `json:"area"`
-	Mass          float64   `json:"mass"`
+	Mass          *float64  `json:"mass"`
 	Centroid      XY        `json:"centroid"`
 	Inertia       Inertia   `json:"inertia"`
 	Principal     Principal `json:"principal"`
@@ -39,10 +41,11 @@ type Summary struct {
 	Chains []ChainSummary `json:"chains,omitempty"`
 }
 
-// Units names the length and mass units of a Summary.
+// Units names the length, mass and second-moment units of a Summary.
 type Units struct {
-	Length string `json:"length"`
-	Mass   string `json:"mass"`
+	Length  string `json:"length"`
+	Mass    string `json:"mass"`
+	Inertia string `json:"inertia"` // kg·unit², or unit⁴ for a part without a material
 }
 
 // XY is a point in a Summary.
@@ -87,11 +90,13 @@ type HoleSummary struct {
 	Diameter float64 `json:"diameter"`
 }
 
-// ChainSummary is one chain of a two-chain hang; forces in newtons.
+// ChainSummary is one chain of a two-chain hang: its share of the weight and the forces in newtons
+// (null for a part without a material).
 type ChainSummary struct {
-	At       XY      `json:"at"`
-	Vertical float64 `json:"vertical_n"`
-	Tension  float64 `json:"tension_n"`
+	At       XY       `json:"at"`
+	Share    float64  `json:"share"`
+	Vertical *float64 `json:"vertical_n"`
+	Tension  *float64 `json:"tension_n"`
 }
 
 // Summarize builds the summary of an analysed part.
@@ -100,11 +105,15 @@ func Summarize(file string, d *Document, a *Analysis) Summary {
 	if units == "" {
 		units = "mm"
 	}
+	inertia, mass := "kg·"+units+"²", &a.Mass
+	if a.NoMaterial {
+		inertia, mass = units+"⁴", nil
+	}
 	return Summary{
 		File:          file,
-		Units:         Units{Length: units, Mass: "kg"},
+		Units:         Units{Length: units, Mass: "kg", Inertia: inertia},
 		Area:          a.Area,
-		Mass:          a.Mass,
+		Mass:          mass,
 		Centroid:      xy(a.Centroid.X, a.Centroid.Y),
 		Inertia:       Inertia{Ixx: a.Ixx, Iyy: a.Iyy, Ixy: a.Ixy},
 		Principal:     Principal{I1: a.I1, I2: a.I2, AngleDeg: a.AngleDeg},
@@ -158,7 +167,11 @@ func (r *Report) Summary() Summary {
 		}
 	case r.Lift != nil:
 		for _, c := range r.Lift.Chains {
-			s.Chains = append(s.Chains, ChainSummary{At: xy(c.At.X, c.At.Y), Vertical: c.Vertical, Tension: c.Tension})
+			cs := ChainSummary{At: xy(c.At.X, c.At.Y), Share: c.Share}
+			if !r.Analysis.NoMaterial {
+				cs.Vertical, cs.Tension = &c.Vertical, &c.Tension
+			}
+			s.Chains = append(s.Chains, cs)
 		}
 	}
 	return s
@@ -203,7 +216,11 @@ func (r *Report) WriteCSV(w *csv.Writer) error {
 	s := r.Summary()
 	a := r.Analysis
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
-	return w.Write([]string{s.File, s.Units.Length, s.Units.Mass, g(s.Area), g(s.Mass), g(a.WeightN), g(a.WeightLbf),
+	mass, wn, wlbf := g(a.Mass), g(a.WeightN), g(a.WeightLbf)
+	if a.NoMaterial {
+		mass, wn, wlbf = "", "", ""
+	}
+	return w.Write([]string{s.File, s.Units.Length, s.Units.Mass, g(s.Area), mass, wn, wlbf,
 		g(s.Centroid.X), g(s.Centroid.Y), g(s.Inertia.Ixx), g(s.Inertia.Iyy), g(s.Inertia.Ixy),
 		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), strings.Join(s.Warnings, "; ")})
 }
@@ -225,12 +242,18 @@ func (r *Report) WriteText(w io.Writer) error {
 		t.row(label, m)
 	}
 	t.row("area", formatNumber(a.Area)+" "+u+"²")
-	t.row("mass", formatNumber(a.Mass)+" kg")
-	t.row("weight", fmt.Sprintf("%s N (%s lbf)", formatNumber(a.WeightN), formatNumber(a.WeightLbf)))
+	iu, dm := "kg·"+u+"²", "dm"
+	if a.NoMaterial {
+		t.row("material", "none given: mass and weight unknown; second moments per unit areal density")
+		iu, dm = u+"⁴", "dA"
+	} else {
+		t.row("mass", formatNumber(a.Mass)+" kg")
+		t.row("weight", fmt.Sprintf("%s N (%s lbf)", formatNumber(a.WeightN), formatNumber(a.WeightLbf)))
+	}
 	t.row("balance point", fmt.Sprintf("x %s, y %s %s (centroid)", formatNumber(a.Centroid.X), formatNumber(a.Centroid.Y), u))
-	t.row("about centroid", fmt.Sprintf("ixx %s, iyy %s, ixy %s kg·%s²", formatNumber(a.Ixx), formatNumber(a.Iyy), formatNumber(a.Ixy), u))
-	t.row("about origin", fmt.Sprintf("∬x² dm %s, ∬y² dm %s, ∬xy dm %s kg·%s²", formatNumber(a.Origin.Sxx), formatNumber(a.Origin.Syy), formatNumber(a.Origin.Sxy), u))
-	t.row("principal", fmt.Sprintf("i1 %s, i2 %s kg·%s², axis of i1 at %s° from x", formatNumber(a.I1), formatNumber(a.I2), u, formatNumber(a.AngleDeg)))
+	t.row("about centroid", fmt.Sprintf("ixx %s, iyy %s, ixy %s %s", formatNumber(a.Ixx), formatNumber(a.Iyy), formatNumber(a.Ixy), iu))
+	t.row("about origin", fmt.Sprintf("∬x² %s %s, ∬y² %s %s, ∬xy %s %s %s", dm, formatNumber(a.Origin.Sxx), dm, formatNumber(a.Origin.Syy), dm, formatNumber(a.Origin.Sxy), iu))
+	t.row("principal", fmt.Sprintf("i1 %s, i2 %s %s, axis of i1 at %s° from x", formatNumber(a.I1), formatNumber(a.I2), iu, formatNumber(a.AngleDeg)))
 	t.row("gyration", fmt.Sprintf("kx %s, ky %s %s", formatNumber(a.Kx), formatNumber(a.Ky), u))
 	t.row("error estimate", errorText(a))
 	if len(a.Pieces) > 1 {
@@ -270,8 +293,12 @@ func (r *Report) hangRows(t *table, u string) {
 		l := r.Lift
 		t.row("chains", fmt.Sprintf("legs at %s° to horizontal, sling-angle factor %s", formatNumber(l.LegDeg), formatNumber(l.Factor)))
 		for i, c := range l.Chains {
-			t.row(fmt.Sprintf("chain %d", i+1), fmt.Sprintf("at (%s, %s) %s: vertical %s N, tension %s N (%s lbf)",
-				formatNumber(c.At.X), formatNumber(c.At.Y), u, formatNumber(c.Vertical), formatNumber(c.Tension), formatNumber(c.Tension/newtonsPerLbf)))
+			load := fmt.Sprintf("vertical %s N, tension %s N (%s lbf)", formatNumber(c.Vertical), formatNumber(c.Tension), formatNumber(c.Tension/newtonsPerLbf))
+			if r.Analysis.NoMaterial {
+				load = "forces unknown without a material"
+			}
+			t.row(fmt.Sprintf("chain %d", i+1), fmt.Sprintf("at (%s, %s) %s: %s %% of the weight, %s",
+				formatNumber(c.At.X), formatNumber(c.At.Y), u, formatNumber(100*c.Share), load))
 		}
 	}
 }

@@ -50,9 +50,6 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 			return err
 		}
 		mf.apply(p.doc)
-		if err := requireMaterial(p.doc); err != nil {
-			return err
-		}
 		a, err := sketch.Analyze(p.doc, opt)
 		if err != nil {
 			return err

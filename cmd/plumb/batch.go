@@ -14,9 +14,10 @@ import (
 
 // totals sums a batch's masses per material for the summary line after a CSV batch.
 type totals struct {
-	order []string // materials in the order first met
-	by    map[string]*total
-	all   total
+	order     []string // materials in the order first met
+	by        map[string]*total
+	all       total
+	unweighed int // parts without a material: their mass is unknown and left out of the totals
 }
 
 type total struct {
@@ -26,6 +27,10 @@ type total struct {
 
 // add counts one analysed part under its base material's description.
 func (t *totals) add(a *sketch.Analysis) {
+	if a.NoMaterial {
+		t.unweighed++
+		return
+	}
 	key := "material not described"
 	if len(a.Materials) > 0 {
 		key = a.Materials[0]
@@ -48,12 +53,15 @@ func (t *totals) add(a *sketch.Analysis) {
 // write writes the summary line: the count and total mass of the batch, then of each material. It
 // goes to stderr, leaving standard output a plain CSV table.
 func (t *totals) write(w io.Writer) error {
-	if t.all.count == 0 {
+	if t.all.count == 0 && t.unweighed == 0 {
 		return nil
 	}
 	line := "plumb: total " + t.all.text()
 	for _, key := range t.order {
 		line += "; " + key + ": " + t.by[key].text()
+	}
+	if t.unweighed > 0 {
+		line += fmt.Sprintf("; %d without a material (mass unknown, not in the total)", t.unweighed)
 	}
 	_, err := fmt.Fprintln(w, line)
 	return err

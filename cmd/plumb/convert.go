@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"plumb/sketch"
+	"plumb/sketch/svg"
 )
 
 const convertAbout = `Converts SVG drawings to part files (.json) and part files to 1:1 SVG drawings (sizes in mm,
@@ -53,7 +54,7 @@ type converter struct {
 	outDir, force  bool
 	stdout, stderr io.Writer
 	material       materialFlags
-	reading        sketch.Reading
+	reading        svg.Reading
 }
 
 func (c *converter) convert(path string) error {
@@ -85,7 +86,7 @@ func (c *converter) drawing(path string, d *sketch.Document) ([]byte, error) {
 	a, err := sketch.Analyze(d, sketch.AnalyzeOptions{})
 	if err != nil {
 		fmt.Fprintf(c.stderr, "plumb: %s: note: drawn without the balance point: %v\n", path, err)
-		return sketch.WriteSVG(d, nil, nil)
+		return svg.Write(d, nil, nil)
 	}
 	var h *sketch.Hang
 	if len(d.Holes) > 0 {
@@ -93,7 +94,7 @@ func (c *converter) drawing(path string, d *sketch.Document) ([]byte, error) {
 			fmt.Fprintf(c.stderr, "plumb: %s: note: drawn without the plumb line: %v\n", path, err)
 		}
 	}
-	return sketch.WriteSVG(d, a, h)
+	return svg.Write(d, a, h)
 }
 
 // write puts the output where --out says, refusing to overwrite unless --force.

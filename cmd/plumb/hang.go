@@ -94,9 +94,6 @@ func runHang(args []string, stdout, stderr io.Writer) int {
 			return err
 		}
 		h.material.apply(p.doc)
-		if err := requireMaterial(p.doc); err != nil {
-			return err
-		}
 		r, err := h.hang(p.doc)
 		if r != nil {
 			r.File, r.Doc, r.Warnings = path, p.doc, p.warnings

@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -14,6 +13,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/svg"
 )
 
 // materialFlags override a part's base material from the command line.
@@ -62,14 +62,6 @@ func (m *materialFlags) apply(d *sketch.Document) {
 	}
 }
 
-// requireMaterial reports a part that has no material from its file or the flags.
-func requireMaterial(d *sketch.Document) error {
-	if strings.TrimSpace(d.Material.Material) == "" && strings.TrimSpace(d.Material.Formula) == "" {
-		return errors.New("no material: give --material NAME --thickness T, or --density EXPR")
-	}
-	return nil
-}
-
 // paramFlag collects repeated --param name=value flags.
 type paramFlag map[string]float64
 
@@ -108,13 +100,13 @@ func (p paramFlag) merge(file map[string]float64) map[string]float64 {
 }
 
 // readingFlag selects how SVG drawings are read.
-type readingFlag struct{ r sketch.Reading }
+type readingFlag struct{ r svg.Reading }
 
 func (f *readingFlag) String() string {
 	switch f.r {
-	case sketch.ReadFilled:
+	case svg.ReadFilled:
 		return "filled"
-	case sketch.ReadCutFile:
+	case svg.ReadCutFile:
 		return "cut"
 	}
 	return "auto"
@@ -123,11 +115,11 @@ func (f *readingFlag) String() string {
 func (f *readingFlag) Set(s string) error {
 	switch s {
 	case "auto":
-		f.r = sketch.ReadAuto
+		f.r = svg.ReadAuto
 	case "filled":
-		f.r = sketch.ReadFilled
+		f.r = svg.ReadFilled
 	case "cut":
-		f.r = sketch.ReadCutFile
+		f.r = svg.ReadCutFile
 	default:
 		return fmt.Errorf("want auto, filled or cut, found %q", s)
 	}
@@ -146,7 +138,7 @@ type part struct {
 }
 
 // loadPart reads a part file (.json) or an SVG drawing.
-func loadPart(path string, reading sketch.Reading) (part, error) {
+func loadPart(path string, reading svg.Reading) (part, error) {
 	data, err := os.ReadFile(path)
 	if err != nil {
 		return part{}, err
@@ -156,7 +148,7 @@ func loadPart(path string, reading sketch.Reading) (part, error) {
 		return part{doc: d}, err
 	}
 	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
-	d, warnings, err := sketch.ReadSVG(data, sketch.SVGOptions{Reading: reading, Name: name})
+	d, warnings, err := svg.Read(data, svg.Options{Reading: reading, Name: name})
 	return part{doc: d, warnings: warnings, fromSVG: true}, err
 }
 

@@ -83,6 +83,11 @@ func lookup(name string) (command, bool) {
 	return command{}, false
 }
 
+// coordinatesAbout says where a drawing's coordinates come from, for positions (--at) and formulas.
+const coordinatesAbout = `Coordinates: x to the right, y up, from the drawing's own origin. An SVG drawing keeps its
+own user coordinates scaled to mm with y flipped (x = s·x_svg, y = −s·y_svg; the viewBox offset does
+not move the origin); a part file keeps its own. --at X,Y and density formulas use these coordinates.`
+
 // writeUsage writes the command list and the cautions.
 func writeUsage(w io.Writer) {
 	fmt.Fprint(w, "plumb: weight, balance point and hang holes of flat sheet parts\n\n")
@@ -92,7 +97,7 @@ func writeUsage(w io.Writer) {
 		fmt.Fprintf(tw, "  %s\t%s\n", c.name, c.summary)
 	}
 	tw.Flush()
-	fmt.Fprint(w, "\nRun 'plumb help COMMAND' for a command's flags.\n\n")
+	fmt.Fprint(w, "\n"+coordinatesAbout+"\n\nRun 'plumb help COMMAND' for a command's flags.\n\n")
 	sketch.WriteCautions(w)
 }
 

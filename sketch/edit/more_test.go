@@ -264,3 +264,37 @@ func TestChangesOutOfSightAreFitted(t *testing.T) {
 		}
 	})
 }
+
+func TestPlaceHangHoleAddsThenMoves(t *testing.T) {
+	e := newTestEditor()
+	drawRect(e, geom.Pt(0, 0), geom.Pt(100, 60))
+	e.PlaceHangHole(geom.Pt(50, 50))
+	if h := e.Document().Holes; len(h) != 1 || h[0].At != geom.Pt(50, 50) || h[0].Diameter != defaultHoleMM {
+		t.Fatalf("holes after the first placing: %+v", h)
+	}
+	e.PlaceHangHole(geom.Pt(40, 45))
+	if h := e.Document().Holes; len(h) != 1 || h[0].At != geom.Pt(40, 45) {
+		t.Fatalf("holes after the second placing: %+v", h)
+	}
+	if !e.Undo() || e.Document().Holes[0].At != geom.Pt(50, 50) {
+		t.Fatal("undo did not put the hole back")
+	}
+}
+
+func TestEdgeDistanceKeepsItsSizeAcrossUnits(t *testing.T) {
+	e := newTestEditor()
+	drawRect(e, geom.Pt(0, 0), geom.Pt(100, 60))
+	if err := e.SetEdgeDistance(25.4); err != nil {
+		t.Fatal(err)
+	}
+	if err := e.SetUnits("in"); err != nil {
+		t.Fatal(err)
+	}
+	// 25.4 mm is 1 in exactly (international yard and pound, 1959).
+	if got := e.EdgeDistance(); math.Abs(got-1) > 1e-12 {
+		t.Errorf("edge distance %g in, want 1", got)
+	}
+	if e.SetEdgeDistance(-1) == nil {
+		t.Error("a negative edge distance was accepted")
+	}
+}

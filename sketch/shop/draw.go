@@ -57,6 +57,9 @@ func (p Part) facts() (facts, error) {
 	if len(p.Analysis.Materials) > 0 {
 		f.material = p.Analysis.Materials[0]
 	}
+	if p.Analysis.NoMaterial {
+		f.material = "none given (the shape alone: no mass or weight)"
+	}
 	if len(f.cautions) == 0 {
 		f.cautions = sketch.Cautions()
 	}
@@ -86,6 +89,25 @@ func massText(kg float64) string {
 		return fmt.Sprintf("%.1f g (%.2f lb)", kg*1000, kg/0.45359237)
 	}
 	return fmt.Sprintf("%.3g kg (%.3g lb)", kg, kg/0.45359237)
+}
+
+// unknownMass is what the mass and weight lines say for a part without a material.
+const unknownMass = "unknown (no material given)"
+
+// massOf formats the analysed part's mass, or says it is unknown.
+func massOf(a *sketch.Analysis) string {
+	if a.NoMaterial {
+		return unknownMass
+	}
+	return massText(a.Mass)
+}
+
+// weightOf formats the analysed part's weight, or says it is unknown.
+func weightOf(a *sketch.Analysis) string {
+	if a.NoMaterial {
+		return unknownMass
+	}
+	return weightText(a.WeightN, a.WeightLbf)
 }
 
 // weightText formats a weight in newtons with its pound-force equivalent.

@@ -649,7 +649,7 @@ func (d *drawing) band(s sheet, lay Layout, page int) {
 		lines = append(lines, "Thickness: "+d.thick)
 	}
 	lines = append(lines,
-		"Mass: "+massText(d.Analysis.Mass)+" · weight "+weightText(d.Analysis.WeightN, d.Analysis.WeightLbf),
+		"Mass: "+massOf(d.Analysis)+" · weight "+weightOf(d.Analysis),
 		"Printed "+d.date)
 	for _, l := range lines {
 		y = s.wrap(x, y, cw, 3.4, l)

@@ -8,6 +8,7 @@ import (
 
 	"github.com/hajimehoshi/ebiten/v2"
 
+	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch/edit"
 )
@@ -28,8 +29,18 @@ type Game struct {
 	autoFit bool        // the view is a fit the user has not touched since: it follows resizes
 	page    edit.Insets // canvas edges the page's toolbar and panel cover, device pixels
 
+	chosen choice // the units and material the user chose last
+
 	ready     bool // window.plumbUI.ready has been called
 	toldState uiState
+}
+
+// choice is the units and material the user chose last, for a new part and for a drawing that gives
+// no material.
+type choice struct {
+	units    string
+	spec     density.Spec
+	haveSpec bool
 }
 
 // uiState is what the page shows beside the analysis: it is told again when any of it changes.
@@ -40,13 +51,14 @@ type uiState struct {
 	arc        bool
 	undo, redo bool
 	holeDia    float64
+	edge       float64
 	radius     float64
 	level      bool // the level-hole search has run
 }
 
 func newGame() *Game {
 	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true}
-	g.res = analyse(g.ed.Document(), g.ed.Rev())
+	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0)
 	// The empty starting part is nothing to tell: the page loads the autosaved or demo part when it
 	// is ready, and that load is the first change it hears of.
 	g.toldState = g.uiState()
@@ -55,8 +67,8 @@ func newGame() *Game {
 
 // refresh reanalyses the part if it changed since the last analysis.
 func (g *Game) refresh() {
-	if g.res.rev != g.ed.Rev() {
-		g.res = analyse(g.ed.Document(), g.ed.Rev())
+	if g.res.rev != g.ed.Rev() || g.res.edge != g.ed.EdgeDistance() {
+		g.res = analyse(g.ed.Document(), g.ed.Rev(), g.ed.EdgeDistance())
 		g.ed.SetGuides(g.guides())
 	}
 }
@@ -65,8 +77,9 @@ func (g *Game) refresh() {
 // analysed. It takes several analyses, so Update runs it on the frame after a change, never inside a
 // call from the page (typing in the panel's fields stays quick).
 func (g *Game) refreshLevel() {
-	if g.res.err == nil && (!g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter()) && !g.ed.Dragging() {
-		g.res.findLevel(g.ed.HoleDiameter())
+	stale := !g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter() || g.res.levelEdge != g.ed.EdgeDistance()
+	if g.res.err == nil && stale && !g.ed.Dragging() {
+		g.res.findLevel(g.ed.HoleDiameter(), g.ed.EdgeDistance())
 		g.ed.SetGuides(g.guides())
 	}
 }
@@ -86,7 +99,7 @@ func (g *Game) guides() []geom.Point {
 // uiState returns what the page shows of the editor and the analysis now.
 func (g *Game) uiState() uiState {
 	return uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
-		g.ed.HoleDiameter(), g.ed.CornerRadius(), g.res.levelDone}
+		g.ed.HoleDiameter(), g.ed.EdgeDistance(), g.ed.CornerRadius(), g.res.levelDone}
 }
 
 // pending returns what the page must be told after this change, if anything: a reanalysis or a

@@ -182,6 +182,8 @@ func (g *Game) setCursorShape() {
 	switch {
 	case g.in.panning:
 		shape = ebiten.CursorShapeMove
+	case g.ed.Tool() == edit.ToolSelect && g.ed.Hover().Kind == edit.SelShape:
+		shape = ebiten.CursorShapeMove // a drag moves the whole shape
 	case g.ed.Tool() == edit.ToolSelect && g.ed.Hover().Kind != edit.SelNone:
 		shape = ebiten.CursorShapePointer
 	case g.ed.Tool() == edit.ToolSelect:

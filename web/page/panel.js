@@ -11,6 +11,8 @@
   const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
   const FOLDED = "plumb.panelFolded";
   const PAPER = "plumb.paper"; // the paper chosen for the drilling template
+  const CHOSEN = "plumb.chosen"; // the units and material chosen last: {units, material}
+  const GUIDE_DONE = "plumb.guideDone"; // the first-minute guide was closed
   const MAX_FILE_BYTES = 50 << 20;
   const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 }; // for answers
   const FIELD_DECIMALS = { mm: 2, cm: 3, m: 5, in: 4, ft: 5 }; // at most, for values shown in fields
@@ -33,6 +35,13 @@
   }
   function writeStore(key, value) {
     try { localStorage.setItem(key, value); return true; } catch { return false; }
+  }
+  // remember keeps one of the choices a new part starts with (units or material) for later visits.
+  function remember(key, value) {
+    let c = {};
+    try { c = JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { c = {}; }
+    c[key] = value;
+    writeStore(CHOSEN, JSON.stringify(c));
   }
   let toastTimer = 0;
   function toast(msg, bad) {
@@ -100,6 +109,10 @@
   function ready() {
     app = window.plumb;
     timing.readyMs = performance.now();
+    try {
+      const chosen = JSON.parse(readStore(CHOSEN) || "null");
+      if (chosen) app.setDefaults(chosen);
+    } catch { /* a choice that cannot be read is forgotten: the part's own units and material serve */ }
     try {
       restore(readStore(AUTOSAVE));
     } catch (e) {
@@ -170,11 +183,24 @@
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
       return false;
     }
+    $("units-note").hidden = true;
     refresh();
     const warnings = r.warnings || [];
-    if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
+    const adopted = !quiet && r.has_material === false && adoptPanelMaterial();
+    if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
+    else if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
     else if (!quiet) toast("Opened " + name);
     return true;
+  }
+
+  // adoptPanelMaterial gives a part opened without a material the material in the panel's fields, when
+  // they hold one; it returns what was given, or "" when the fields are empty (the part then stays
+  // without a material and the panel says so).
+  function adoptPanelMaterial() {
+    const filled = mode === "sheet" ? $("material").value.trim() : $("formula").value.trim();
+    if (filled === "") return "";
+    sendMaterial();
+    return $("material-error").textContent === "" ? filled : "";
   }
 
   function openFile(file) {
@@ -309,6 +335,7 @@
     if (!err) {
       const r = app.setMaterial(spec);
       if (!r.ok) err = r.error || { msg: "not accepted" };
+      else remember("material", spec);
     }
     showMaterialError(err);
     showThickness();
@@ -317,9 +344,19 @@
 
   function showMaterialError(err) {
     for (const f of Object.keys(FIELD_INPUT)) underline($(FIELD_INPUT[f]), err && err.field === f ? err.col || 0 : -1);
-    if (!err) { $("material-error").textContent = ""; return; }
+    if (!err) { $("material-error").textContent = ""; renderStale(); return; }
     const where = FIELD_LABEL[err.field] ? FIELD_LABEL[err.field] + (err.col ? ", column " + err.col : "") + ": " : "";
     $("material-error").textContent = where + err.msg;
+    renderStale();
+  }
+
+  // renderStale greys the figures while the material fields hold an error: they are still those of the
+  // last material that worked, which the note names.
+  function renderStale() {
+    const stale = $("material-error").textContent !== "" && state !== null && !state.error;
+    $("answers").classList.toggle("stale", stale);
+    $("stale-note").textContent = stale ? "Greyed: these figures are for " + (state.material || "the last material that worked") +
+      ", the last material that worked. Fix the field above to update them." : "";
   }
 
   // underline marks the character at 1-based column col of an input (past the end: the place after it);
@@ -391,9 +428,13 @@
     if (typeof state.can_undo === "boolean") document.querySelector('[data-action="undo"]').disabled = !state.can_undo;
     if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
     if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = fmtField(state.hole_diameter);
-    $("material-desc").textContent = state.material || "";
+    $("material-desc").textContent = state.no_material
+      ? "No material: area, balance point and hang hole are from the shape alone. Choose a material for the weight."
+      : state.material ? "Figures computed from: " + state.material : "";
     $("part-error").textContent = state.error || "";
     if (state.error) {
+      $("place-hole").hidden = true;
+      $("hang").classList.remove("suggested");
       for (const id of ["weight", "balance", "hang"]) $(id).textContent = "—";
       for (const id of ["weight-sub", "balance-sub", "hang-sub"]) $(id).textContent = "";
       $("details-rows").replaceChildren();
@@ -401,33 +442,72 @@
       renderAnswers(u);
       renderDetails(u);
     }
+    renderEdge(u);
+    renderStale();
     renderWarnings();
   }
 
   function renderAnswers(u) {
-    $("weight").textContent = fmtSig(state.mass) + " kg";
-    const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
-    $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    if (state.no_material) {
+      $("weight").textContent = "—";
+      $("weight-sub").textContent = "no material: choose one for the weight";
+    } else {
+      $("weight").textContent = fmtSig(state.mass) + " kg";
+      const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
+      $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    }
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
     $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
+    renderHang(u);
+  }
+
+  // renderHang shows the hang hole: the placed one with its tilt, else the answer a fabricator came
+  // for, the level-hang hole (or, where none exists, the least-tilt position), one click from placed.
+  function renderHang(u) {
     const h = state.hang;
     const level = state.level;
+    const tilts = state.least_tilt || [];
+    const suggested = level || tilts[0] || null;
+    const lines = [];
+    $("hang").classList.toggle("suggested", !h && suggested !== null);
     if (h) {
       $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
-      const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
-        (h.angle_deg > 0 ? " counter-clockwise" : " clockwise");
-      const lines = [tilt + " · hole Ø " + fmtLen(h.hole) + " " + u];
+      lines.push(tiltWords(h.angle_deg) + " · hole Ø " + fmtLen(h.hole) + " " + u);
       const more = [];
       if (Number.isFinite(h.tilt_per_mm_deg)) more.push(tiltPerError(h.tilt_per_mm_deg));
       if (Number.isFinite(h.period_s)) more.push("swings in " + h.period_s.toFixed(2) + " s");
       if (more.length) lines.push(more.join(" · "));
       if (level && Math.abs(h.angle_deg) >= 0.05) lines.push("Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u);
-      $("hang-sub").textContent = lines.join("\n");
+    } else if (level) {
+      $("hang").textContent = fmtLen(level.x) + ", " + fmtLen(level.y);
+      lines.push("Drill here: hangs level · hole Ø " + fmtLen(level.diameter) + " " + u);
+    } else if (tilts.length) {
+      $("hang").textContent = fmtLen(tilts[0].x) + ", " + fmtLen(tilts[0].y);
+      lines.push("No hole hangs this part level. Least tilt here: " + tiltWords(tilts[0].angle_deg));
+      for (const t of tilts.slice(1)) lines.push("Other side: " + fmtLen(t.x) + ", " + fmtLen(t.y) + " " + u + ", " + tiltWords(t.angle_deg));
     } else {
       $("hang").textContent = "—";
-      $("hang-sub").textContent = (level ? "Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + "\n" : "") +
-        "Place the hole with the Hole tool.";
+      lines.push(state.level_pending ? "Finding the level-hang hole…" : "Place the hole with the Hole tool.");
     }
+    $("hang-sub").textContent = lines.join("\n");
+    const movable = suggested && (!h || (level && Math.abs(h.angle_deg) >= 0.05));
+    $("place-hole").hidden = !movable;
+    $("place-hole").textContent = h ? "Move the hole to hang level" : level ? "Place the hole here" : "Place the hole at least tilt";
+  }
+
+  // tiltWords says how a part hangs from a hole: level, or how far and which way it turns.
+  function tiltWords(deg) {
+    if (Math.abs(deg) < 0.05) return "hangs level";
+    return "tilts " + fmtDeg(Math.abs(deg)) + (deg > 0 ? " counter-clockwise" : " clockwise");
+  }
+
+  // renderEdge shows the edge distance in effect: the one typed, or the rule's as the placeholder.
+  function renderEdge(u) {
+    const e = state.edge;
+    if (!e) { $("edge-hint").textContent = ""; return; }
+    if (document.activeElement !== $("edge")) $("edge").value = e.asked ? fmtField(e.min) : "";
+    $("edge").placeholder = fmtField(e.min);
+    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")";
   }
 
   // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
@@ -438,10 +518,11 @@
   }
 
   function renderDetails(u) {
-    const kgu2 = "kg·" + u + "²";
+    // Without a material the second moments are the shape's, per unit areal density (u⁴).
+    const kgu2 = state.no_material ? u + "⁴ (shape only)" : "kg·" + u + "²";
     const rows = [
       ["Area", fmtSig(state.area) + " " + u + "²"],
-      ["Mass", fmtSig(state.mass, 6) + " kg"],
+      ["Mass", state.no_material ? "unknown (no material)" : fmtSig(state.mass, 6) + " kg"],
       ["Ixx (about the balance point)", fmtSig(state.inertia.ixx) + " " + kgu2],
       ["Iyy", fmtSig(state.inertia.iyy) + " " + kgu2],
       ["Ixy", fmtSig(state.inertia.ixy) + " " + kgu2],
@@ -521,14 +602,40 @@
       else toast("Drilling template: " + pdf.error, true);
     },
     copy: () => copyText(resultsText()),
+    "place-hole": () => {
+      const r = app.placeSuggestedHole();
+      if (!r.ok) toast("Hang hole: " + r.error, true);
+    },
     help: showHelp,
     cautions: showCautions,
     close: closeOverlays,
+    "dismiss-units-note": () => { $("units-note").hidden = true; },
+    "undo-units": () => { app.undo(); $("units-note").hidden = true; },
     "restore-previous": () => {
       const prev = readStore(PREVIOUS);
       if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
     },
   };
+
+  // changeUnits converts the part to another unit. The part keeps its size, so its weight stays, except
+  // where a density formula reads x and y: a weight that jumps more than 100-fold gets a note.
+  function changeUnits(units) {
+    const before = state && !state.error ? state.mass : NaN;
+    const from = unitName();
+    const r = app.setUnits(units);
+    if (!r.ok) { toast("Units: " + r.error, true); return; }
+    remember("units", units);
+    refresh();
+    const after = state && !state.error ? state.mass : NaN;
+    const ratio = after / before;
+    const jumped = units !== from && Number.isFinite(ratio) && (ratio > 100 || ratio < 0.01);
+    $("units-note").hidden = !jumped;
+    if (jumped) {
+      $("units-note-text").textContent = "The weight went from " + fmtSig(before) + " kg to " + fmtSig(after) +
+        " kg with the change from " + from + " to " + units + ": the density formula reads x and y in " + units +
+        " now. Check the formula, or undo the change.";
+    }
+  }
 
   function onClick(e) {
     const b = e.target.closest("button");
@@ -544,7 +651,7 @@
       app.setTarget(d.target);
       for (const x of document.querySelectorAll("[data-target]")) x.setAttribute("aria-pressed", String(x === b));
     } else if (d.units) {
-      app.setUnits(d.units);
+      changeUnits(d.units);
     } else if (d.mode) {
       setMode(d.mode);
       // Switching to an empty field waits for the user to type; otherwise the part takes the other kind.
@@ -619,6 +726,14 @@
       if (!app || !(d >= 0)) return;
       const r = app.setHoleDiameter(d);
       if (!r.ok) toast("Hole diameter: " + r.error, true);
+      refresh();
+    });
+    $("edge").addEventListener("change", () => {
+      const text = $("edge").value.trim();
+      const e = text === "" ? 0 : Number(text);
+      if (!app || !(e >= 0)) return;
+      const r = app.setEdgeDistance(e);
+      if (!r.ok) toast("Edge distance: " + r.error, true);
       refresh();
     });
     $("material-list").replaceChildren(...presets.materials.map((m) =>
