@@ -156,3 +156,18 @@ func (p plan) onOverlay(in []bool) bool {
 	n := len(in) - 1
 	return in[n] && p.keep(in[:n])
 }
+
+// Overlaid returns the part's overlays followed by its added lettering as overlays of its own
+// (named after the text, with the part's material when it gives none). Lettering that cannot be laid
+// out is left out (Analyze reports it).
+func (d *Document) Overlaid() []Overlay {
+	p, _ := d.plan()
+	return p.overlays
+}
+
+// OnMaterial returns the boundary of the part of region r that lies on the part's material, as an
+// overlay's density counts there.
+func (d *Document) OnMaterial(r geom.Region) geom.Boundary {
+	p, _ := d.plan()
+	return geom.Combine(p.onOverlay, append(p.regions[:len(p.regions):len(p.regions)], r)...)
+}

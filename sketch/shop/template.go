@@ -210,9 +210,8 @@ type hole struct {
 
 func newDrawing(p Part, f facts) *drawing {
 	d := &drawing{Part: p, facts: f, mm: f.unit.MM}
-	regions := append([]geom.Region{p.Doc.Outline}, p.Doc.Cutouts...)
-	for _, o := range p.Doc.Overlays {
-		if b := geom.Combine(onMaterial, append(regions[:len(regions):len(regions)], o.Region)...); !b.IsEmpty() {
+	for _, o := range p.Doc.Overlaid() {
+		if b := p.Doc.OnMaterial(o.Region); !b.IsEmpty() {
 			d.overlays = append(d.overlays, b)
 			d.names = append(d.names, o.Name)
 		}
@@ -245,21 +244,6 @@ func newDrawing(p Part, f facts) *drawing {
 	}
 	d.plumbEnd = h.Add(down.Mul(reach))
 	return d
-}
-
-// onMaterial keeps the points of an overlay (the last region) that lie on the part: in the outline (the
-// first) and in no cut-out (the others).
-func onMaterial(in []bool) bool {
-	last := len(in) - 1
-	if !in[0] || !in[last] {
-		return false
-	}
-	for _, cut := range in[1:last] {
-		if cut {
-			return false
-		}
-	}
-	return true
 }
 
 // edgeDistance returns the signed distance from p along the unit direction dir (or against it) to the
