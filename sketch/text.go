@@ -69,6 +69,9 @@ func (t Text) Shape(path string) (letter.Shape, error) {
 		return letter.Shape{}, &PathError{Path: path + ".stencil", Msg: "stencil bridges are for lettering cut out of the part"}
 	}
 	sh, err := t.Lettering().Shape()
+	if err == nil && !finiteBox(sh.Region.Bounds()) {
+		return sh, &PathError{Path: path + ".height", Msg: "the lettering reaches beyond the range of numbers"}
+	}
 	var fe *letter.FieldError
 	if errors.As(err, &fe) {
 		field := fe.Field
@@ -79,6 +82,9 @@ func (t Text) Shape(path string) (letter.Shape, error) {
 	}
 	return sh, err
 }
+
+// finiteBox reports whether r is empty or has finite corners.
+func finiteBox(r geom.Rect) bool { return r.IsEmpty() || (r.Min.IsFinite() && r.Max.IsFinite()) }
 
 // plan is what a part's material is made of, with its lettering turned into regions: regions[0] is
 // the outline, regions[1:1+cuts] are cut away (the cut-outs, then lettering cut out), and the regions
