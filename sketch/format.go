@@ -2,6 +2,7 @@ package sketch
 
 import (
 	"bytes"
+	"cmp"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -224,7 +225,7 @@ func loadText(n node, unit density.Length) (Text, error) {
 	if err := obj.stringFields(field[string]{"text", &t.Text}, field[string]{"font", &t.Font}, field[string]{"role", &role}); err != nil {
 		return t, err
 	}
-	t.Role = TextRole(role)
+	t.Role = TextRole(cmp.Or(role, string(RoleCutout)))
 	if _, err := obj.need("text"); err != nil {
 		return t, err
 	}

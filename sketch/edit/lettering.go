@@ -40,6 +40,9 @@ func defaultTextStyle(units string) TextStyle {
 
 // styleOf returns the style of the lettering t.
 func styleOf(t sketch.Text) TextStyle {
+	if t.Role == "" {
+		t.Role = sketch.RoleCutout
+	}
 	return TextStyle{Font: t.Font, Height: t.Height, Role: t.Role, AngleDeg: t.AngleDeg, Spacing: t.Spacing, Stencil: t.Stencil}
 }
 
@@ -106,7 +109,7 @@ func (e *Editor) startLettering(s geom.Point, m Mods) {
 // a baseline start placed. It reports whether it used the key.
 func (e *Editor) letterKey(key string, m Mods) bool {
 	i, selected := e.selectedText()
-	if e.tool != ToolLetter || m&ModCtrl != 0 || (!selected && e.letterAt == nil) {
+	if !e.Writing() || m&ModCtrl != 0 {
 		return false
 	}
 	switch {
@@ -224,4 +227,11 @@ func pickText(d *sketch.Document, p geom.Point) (int, bool) {
 		}
 	}
 	return 0, false
+}
+
+// Writing reports whether keys type into lettering: the Lettering tool has a line selected or a
+// baseline start placed. Space is then a space, not a pan.
+func (e *Editor) Writing() bool {
+	_, selected := e.selectedText()
+	return e.tool == ToolLetter && (selected || e.letterAt != nil)
 }
