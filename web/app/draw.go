@@ -238,20 +238,27 @@ func (fr *frame) part() {
 }
 
 // loosePieces shades the pieces of material that come apart from the largest after cutting (the
-// counters of cut-out letters, islands inside cut-outs) and labels each where it lies.
+// counters of cut-out letters, islands inside cut-outs), numbers each where it lies, and says below
+// the part what the shading means.
 func (fr *frame) loosePieces() {
 	a := fr.res.a
 	if a == nil || fr.res.doc != fr.doc || len(a.Pieces) < 2 {
 		return
 	}
-	for _, p := range a.Pieces[1:] {
+	for i, p := range a.Pieces[1:] {
 		fr.fillBoundary(p.Body, colLoose)
 		fr.dashedSegs(p.Body.Pieces, 1.2, 4, 3, colLooseEdge)
-	}
-	for i, p := range a.Pieces[1:] {
 		c := fr.screen(p.Centroid)
-		fr.pill(fmt.Sprintf("loose %d", i+1), fr.f.small, c.X, c.Y, alignCentreMiddle, colLooseEdge)
+		drawText(fr.p.dst, strconv.Itoa(i+1), fr.f.small, c.X, c.Y, alignCentreMiddle, colLooseEdge)
 	}
+	n := len(a.Pieces) - 1
+	label := fmt.Sprintf("%d loose pieces (shaded) fall out after cutting unless bridged", n)
+	if n == 1 {
+		label = "1 loose piece (shaded) falls out after cutting unless bridged"
+	}
+	b := fr.res.body.Bounds()
+	c := fr.screen(geom.Pt((b.Min.X+b.Max.X)/2, b.Min.Y))
+	fr.pill(label, fr.f.small, c.X, c.Y+16*fr.u, alignCentreMiddle, colLooseEdge)
 }
 
 // textError marks lettering that cannot be laid out with a dashed cross at its baseline's start.
