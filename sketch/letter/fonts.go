@@ -10,20 +10,18 @@ import (
 	"golang.org/x/image/font/gofont/gobolditalic"
 	"golang.org/x/image/font/gofont/goitalic"
 	"golang.org/x/image/font/gofont/gomedium"
-	"golang.org/x/image/font/gofont/gomediumitalic"
 	"golang.org/x/image/font/gofont/gomono"
 	"golang.org/x/image/font/gofont/gomonobold"
-	"golang.org/x/image/font/gofont/gomonobolditalic"
-	"golang.org/x/image/font/gofont/gomonoitalic"
 	"golang.org/x/image/font/gofont/goregular"
 	"golang.org/x/image/font/gofont/gosmallcaps"
-	"golang.org/x/image/font/gofont/gosmallcapsitalic"
 )
 
 // DefaultFont is the font of lettering that names none.
 const DefaultFont = "go-regular"
 
-// fontFiles lists the fonts Plumb ships, by the names part files use, in the order menus show them.
+// fontFiles lists the fonts Plumb ships, by the names part files use, in the order menus show them:
+// eight of the twelve Go fonts (the mono and small-capital italics and medium italic are left out to
+// keep the offline page near its 5 MB goal).
 var fontFiles = []struct {
 	name string
 	ttf  []byte
@@ -32,14 +30,10 @@ var fontFiles = []struct {
 	{"go-medium", gomedium.TTF},
 	{"go-bold", gobold.TTF},
 	{"go-italic", goitalic.TTF},
-	{"go-medium-italic", gomediumitalic.TTF},
 	{"go-bold-italic", gobolditalic.TTF},
 	{"go-mono", gomono.TTF},
 	{"go-mono-bold", gomonobold.TTF},
-	{"go-mono-italic", gomonoitalic.TTF},
-	{"go-mono-bold-italic", gomonobolditalic.TTF},
 	{"go-smallcaps", gosmallcaps.TTF},
-	{"go-smallcaps-italic", gosmallcapsitalic.TTF},
 }
 
 // Fonts returns the names of the fonts lettering may use.
