@@ -3,6 +3,8 @@ package letter
 import (
 	"fmt"
 	"math"
+	"sync"
+	"sync/atomic"
 	"unicode"
 
 	"github.com/golang/freetype/truetype"
@@ -60,8 +62,36 @@ func fieldErr(field, format string, args ...any) error {
 	return &FieldError{Field: field, Msg: fmt.Sprintf(format, args...)}
 }
 
-// Shape lays the text out and returns its geometry.
+// maxCached is the most laid-out lettering shapes kept; the cache starts afresh beyond it. An editing
+// session has a few lines of lettering, each asked for many times per change.
+const maxCached = 256
+
+// shapes caches laid-out lettering by its Text value (layout is pure), and cached counts its entries.
+var (
+	shapes sync.Map // Text → Shape
+	cached atomic.Int64
+)
+
+// Shape lays the text out and returns its geometry. Shapes are cached by value and shared: callers
+// must not modify the loops of the Region.
 func (t Text) Shape() (Shape, error) {
+	if v, ok := shapes.Load(t); ok {
+		return v.(Shape), nil
+	}
+	sh, err := t.layout()
+	if err != nil {
+		return Shape{}, err
+	}
+	if cached.Add(1) > maxCached {
+		shapes.Clear()
+		cached.Store(1)
+	}
+	shapes.Store(t, sh)
+	return sh, nil
+}
+
+// layout lays the text out.
+func (t Text) layout() (Shape, error) {
 	fc, err := t.check()
 	if err != nil {
 		return Shape{}, err
