@@ -67,13 +67,21 @@ func innermost(outers []Boundary, hole Boundary) int {
 }
 
 // closedGroups returns b's pieces grouped by connection: two pieces are in one group when an end of
-// one lies within Combine's coincidence distance (sideTolerance × tolerance) of an end of the other.
+// one lies within Combine's coincidence distance (sideTolerance × tolerance, on the box of the ends) of
+// an end of the other. A boundary in one group comes back as it is, without copying.
 func (b Boundary) closedGroups() []Boundary {
 	n := len(b.Pieces)
 	if n == 0 {
 		return nil
 	}
-	d := sideTolerance * tolerance(b.Bounds())
+	box := EmptyRect()
+	for _, s := range b.Pieces {
+		box = box.Extend(s.Start()).Extend(s.End())
+	}
+	d := sideTolerance * tolerance(box)
+	if chained(b.Pieces, d) {
+		return []Boundary{b}
+	}
 	type end struct {
 		p Point
 		i int
@@ -84,29 +92,44 @@ func (b Boundary) closedGroups() []Boundary {
 	}
 	slices.SortFunc(ends, func(a, b end) int { return cmp.Compare(a.p.X, b.p.X) })
 	u := newUnionFind(n)
+	groups := n
 	for k, e := range ends {
 		for _, f := range ends[k+1:] {
 			if f.p.X > e.p.X+d {
 				break
 			}
-			if e.p.Dist(f.p) <= d {
-				u.union(e.i, f.i)
+			if e.p.Dist(f.p) <= d && u.union(e.i, f.i) {
+				groups--
 			}
 		}
 	}
-	index := make(map[int]int)
-	var groups []Boundary
+	if groups == 1 {
+		return []Boundary{b}
+	}
+	index := make(map[int]int, groups)
+	out := make([]Boundary, 0, groups)
 	for i, s := range b.Pieces {
 		r := u.find(i)
 		g, ok := index[r]
 		if !ok {
-			g = len(groups)
+			g = len(out)
 			index[r] = g
-			groups = append(groups, Boundary{})
+			out = append(out, Boundary{})
 		}
-		groups[g].Pieces = append(groups[g].Pieces, s)
+		out[g].Pieces = append(out[g].Pieces, s)
 	}
-	return groups
+	return out
+}
+
+// chained reports whether the pieces form one closed chain in their order, each starting within d of
+// where the one before it ends (as a single loop does): then they are one group, found without sorting.
+func chained(ps []Segment, d float64) bool {
+	for i, s := range ps {
+		if s.Start().Dist(ps[(i+len(ps)-1)%len(ps)].End()) > d {
+			return false
+		}
+	}
+	return true
 }
 
 // unionFind is a disjoint-set forest with path halving.
@@ -128,7 +151,12 @@ func (u unionFind) find(i int) int {
 	return i
 }
 
-func (u unionFind) union(i, j int) { u[u.find(i)] = u.find(j) }
+// union joins the sets of i and j and reports whether they were apart.
+func (u unionFind) union(i, j int) bool {
+	a, b := u.find(i), u.find(j)
+	u[a] = b
+	return a != b
+}
 
 // Loops assembles b's pieces into closed loops, each piece starting where the one before it ends (moved
 // onto that end where Combine left them apart by less than its coincidence distance), so that
