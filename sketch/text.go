@@ -3,6 +3,7 @@ package sketch
 import (
 	"errors"
 	"fmt"
+	"slices"
 
 	"plumb/density"
 	"plumb/geom"
@@ -100,7 +101,7 @@ type plan struct {
 // plan lays out the part's lettering. Lettering that cannot be laid out is left out of the plan, and
 // the first such problem is returned with it.
 func (d *Document) plan() (plan, error) {
-	p := plan{regions: append([]geom.Region{d.Outline}, d.Cutouts...), overlays: d.Overlays}
+	p := plan{regions: append([]geom.Region{d.Outline}, d.Cutouts...), overlays: slices.Clip(d.Overlays)}
 	for i := range d.Overlays {
 		p.paths = append(p.paths, fmt.Sprintf("overlays[%d]", i))
 	}
