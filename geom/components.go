@@ -35,6 +35,9 @@ func (b Boundary) Components() []Boundary {
 			holes = append(holes, c)
 		}
 	}
+	if len(outers) == 0 { // no group bounds positive area (a degenerate boundary): keep it whole
+		return []Boundary{b}
+	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	edges := make([]Boundary, len(outers))
 	for i, o := range outers {
@@ -54,8 +57,8 @@ func (b Boundary) Components() []Boundary {
 }
 
 // innermost returns the index of the last of outers (outer edges sorted largest first) that winds
-// around the middle of hole's first piece: the smallest outer edge around the hole. A hole around which none winds (which a valid
-// boundary never has) goes with the first, so that no material is lost.
+// around the middle of hole's first piece: the smallest outer edge around the hole. A hole around
+// which none winds (which a valid boundary never has) goes with the first, so that no material is lost.
 func innermost(outers []Boundary, hole Boundary) int {
 	p := hole.Pieces[0].At(0.5)
 	for i := len(outers) - 1; i >= 0; i-- {
