@@ -78,6 +78,18 @@ func (p *Program) Polynomial() (Polynomial, bool) {
 	return Polynomial{Deg: p.poly.Deg, Terms: append([]Term(nil), p.poly.Terms...)}, p.isPol
 }
 
+// PolynomialAbout reports whether the formula is a polynomial in x and y and returns its terms in
+// u = x − x0 and v = y − y0, found by reading x as u + x0 and y as v + y0 before expanding. Use it
+// with a point near where the formula is evaluated: a formula written about a far point,
+// (x − 1e6)²·(y − 1e6), keeps all its digits about (x0, y0) near (1e6, 1e6), while its terms about
+// the origin cancel.
+func (p *Program) PolynomialAbout(x0, y0 float64) (Polynomial, bool) {
+	if !p.isPol {
+		return Polynomial{}, false
+	}
+	return expansion{x0: x0, y0: y0}.terms(p.root)
+}
+
 func checkParams(params map[string]float64) error {
 	for _, k := range keys(params) {
 		if err := checkParamName(k); err != nil {

@@ -237,3 +237,34 @@ func TestEvalDoesNotAllocate(t *testing.T) {
 		t.Errorf("Eval allocates %v times per call", n)
 	}
 }
+
+// TestPolynomialAbout checks the terms of formulas expanded about a point: by the binomial theorem,
+// (u + 1)²(v + 2) = u²v + 2u² + 2uv + 4u + v + 2, and r² about (3, 4) is u² + 6u + v² + 8v + 25.
+func TestPolynomialAbout(t *testing.T) {
+	tests := []struct {
+		src    string
+		x0, y0 float64
+		deg    int
+		terms  []Term
+	}{
+		{"(x-1e6)^2*(y-1e6)", 1e6 + 1, 1e6 + 2, 3, []Term{{0, 0, 2}, {1, 0, 4}, {0, 1, 1}, {2, 0, 2}, {1, 1, 2}, {2, 1, 1}}},
+		{"(x-5e9)^2*(y-5e9)", 5e9 + 1, 5e9 + 2, 3, []Term{{0, 0, 2}, {1, 0, 4}, {0, 1, 1}, {2, 0, 2}, {1, 1, 2}, {2, 1, 1}}},
+		{"r^2", 3, 4, 2, []Term{{0, 0, 25}, {1, 0, 6}, {0, 1, 8}, {2, 0, 1}, {0, 2, 1}}},
+		{"7", 1e9, 1e9, 0, []Term{{0, 0, 7}}},
+	}
+	for _, tt := range tests {
+		p, err := Compile(tt.src, nil)
+		if err != nil {
+			t.Fatalf("Compile(%q): %v", tt.src, err)
+		}
+		got, ok := p.PolynomialAbout(tt.x0, tt.y0)
+		if !ok || got.Deg != tt.deg || !reflect.DeepEqual(got.Terms, tt.terms) {
+			t.Errorf("Compile(%q).PolynomialAbout(%g, %g) = %+v, %v; want degree %d %+v", tt.src, tt.x0, tt.y0, got, ok, tt.deg, tt.terms)
+		}
+	}
+	if p, _ := Compile("sin(x)", nil); p != nil {
+		if _, ok := p.PolynomialAbout(1, 2); ok {
+			t.Error("sin(x) expanded as a polynomial")
+		}
+	}
+}

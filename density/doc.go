@@ -72,7 +72,10 @@
 // rho*t/1000 costs nothing per point), writes e^v as exp(v), and records whether the formula is a
 // polynomial in x and y: made of constants, x, y, even powers of r, +, −, ×, division by a
 // constant and whole powers, up to total degree 24. Polynomial returns its terms, which lets geom
-// choose an exact integration rule. Names lists the variables and parameters used.
+// choose an exact integration rule. PolynomialAbout gives the same terms in u = x − x0,
+// v = y − y0, expanded after reading x as u + x0 (and y as v + y0): for a point near the part, a
+// formula written about a far point, k·(x − 1e6)²·(y − 1e6), keeps its digits instead of cancelling
+// in terms about the origin. Names lists the variables and parameters used.
 //
 // Program.Eval works on batches: it runs a flat list of instructions, each a tight loop over a
 // column of up to 256 points, with constants held in the instructions and x² and x³ written as
@@ -97,9 +100,12 @@
 //
 // Gauge numbers mean different thicknesses for different materials, so a Gauge always carries its
 // thickness in mm and inches. Steel uses the Manufacturers' Standard Gauge (defined by weight:
-// lb/ft² ÷ 41.82 per inch); stainless steel commonly uses the same numbers (common practice; some
-// mills' stainless tables differ slightly: confirm with the supplier). Galvanized steel has its own
-// gauge, the steel gauge's weight plus 2.5 oz/ft² of zinc. Aluminium, brass and copper sheet use
+// lb/ft² ÷ 41.82 per inch). Galvanized steel has its own gauge, the steel gauge's weight plus
+// 2.5 oz/ft² of zinc. Carbon and galvanized steel given by one of these gauges weigh the table's
+// lb/ft² (Gauge.LbFt2, Material.GaugeWeight), the basis the gauge is defined on: about 2.4 % more
+// than the rounded thickness × 7850 kg/m³. Stainless steel takes the Manufacturers' Standard Gauge
+// thicknesses (common practice; some mills' stainless tables differ slightly: confirm with the
+// supplier) times its own density. Aluminium, brass and copper sheet use
 // the Brown & Sharpe gauge (ASTM B258: 0.005 in × 92^((36 − n)/39)).
 //
 // # Domain

@@ -119,11 +119,15 @@ func (s Spec) materialField(doc Length) (*Field, error) {
 		return nil, &FieldError{Field: "thickness", Col: 1, Msg: fmt.Sprintf("thickness is %s %s; it must be more than zero", formatValue(v), q.unit.Name)}
 	}
 	perUnit := mat.ArealDensity(q.unit.MM) // kg/m² per unit of thickness
-	f := newField(q.prog, perUnit*perDocUnit2(doc), "thickness", q.unit.Name, doc)
 	thickness := strings.TrimSpace(s.Thickness)
 	if q.gauge != nil {
 		thickness = q.gauge.String()
 	}
+	if g := q.gauge; g != nil && g.LbFt2 > 0 && mat.GaugeWeight {
+		perUnit = g.KgM2() / v // the gauge's defining weight, spread over its thickness
+		thickness += fmt.Sprintf(", %s lb/ft² by the gauge's weight basis", formatValue(g.LbFt2))
+	}
+	f := newField(q.prog, perUnit*perDocUnit2(doc), "thickness", q.unit.Name, doc)
 	switch {
 	case isConst:
 		f.thick = v * q.unit.MM
@@ -162,6 +166,13 @@ func (f *Field) Eval(xs, ys, out []float64) { f.prog.Eval(xs, ys, out) }
 // unit, when it is one.
 func (f *Field) Polynomial() (Polynomial, bool) { return f.prog.Polynomial() }
 
+// PolynomialAbout returns the density as a polynomial in u = x − x0 and v = y − y0 (document
+// units), in kg per square document unit, when it is one. Take (x0, y0) near the part: the
+// coefficients are then formed without cancellation however far the part lies from the origin.
+func (f *Field) PolynomialAbout(x0, y0 float64) (Polynomial, bool) {
+	return f.prog.PolynomialAbout(x0, y0)
+}
+
 // Constant returns the density in kg per square document unit when it does not vary.
 func (f *Field) Constant() (float64, bool) { return f.prog.Constant() }
 
@@ -189,8 +200,13 @@ func (e *DomainError) Error() string {
 	default:
 		what = formatValue(v) + " " + e.f.unit
 	}
-	d := e.f.doc.Name
-	return fmt.Sprintf("%s is %s at x = %s %s, y = %s %s", e.f.quantity, what, formatValue(e.X), d, formatValue(e.Y), d)
+	return fmt.Sprintf("%s is %s at %s", e.f.quantity, what, e.f.Where(e.X, e.Y))
+}
+
+// Where names the point (x, y) in the document unit: "x = 120 mm, y = 40 mm".
+func (f *Field) Where(x, y float64) string {
+	d := f.doc.Name
+	return fmt.Sprintf("x = %s %s, y = %s %s", formatValue(x), d, formatValue(y), d)
 }
 
 // DomainError describes a density value (in kg per square document unit) found at (x, y), in the

@@ -8,12 +8,18 @@ import (
 
 // Gauge is one row of a sheet gauge table: gauge Number of System is MM millimetres (In inches)
 // thick. Gauge numbers mean different thicknesses in different systems, so a gauge is always shown
-// with its thickness.
+// with its thickness. LbFt2 is the weight in lb/ft² that defines a gauge of a weight-based table
+// (the steel gauges), or 0 for a table defined by thickness.
 type Gauge struct {
 	System string
 	Number int
 	MM, In float64
+	LbFt2  float64
 }
+
+// KgM2 returns the defining weight of a weight-based gauge in kg/m² (0 for a gauge defined by
+// thickness): LbFt2 × 0.45359237 kg / (0.3048 m)², both factors exact by definition.
+func (g Gauge) KgM2() float64 { return g.LbFt2 * Pound / (Foot * Foot / 1e6) }
 
 // String shows the gauge with its thickness: "16 ga (1.52 mm, 0.0598 in)".
 func (g Gauge) String() string {
@@ -46,7 +52,9 @@ var msgWeight = [...]float64{
 	27: 0.6875, 28: 0.625, 29: 0.5625, 30: 0.5,
 }
 
-// msgLbPerFt2PerInch is the weight of steel sheet 1 in thick on which the gauge is based.
+// msgLbPerFt2PerInch is the weight of steel sheet 1 in thick on which the gauge is based: 41.82
+// lb/ft² per inch, about 8039 kg/m³ (0.45359237 kg × 41.82 / (0.3048² m² × 0.0254 m)), some 2.4 %
+// above the 7850 kg/m³ of structural steel. A sheet ordered by gauge weighs the table's lb/ft².
 const msgLbPerFt2PerInch = 41.82
 
 // galvCoating is the coating allowance of the galvanized sheet gauge: 2.5 oz/ft² (0.15625 lb/ft²)
@@ -58,13 +66,13 @@ const galvCoating = 2.5 / 16
 var gaugeSystems = []gaugeSystem{
 	{
 		key: GaugeSteel, name: "Manufacturers' Standard Gauge (steel sheet)",
-		source:  "AISI Manufacturers' Standard Gauge: weight in lb/ft² ÷ 41.82, rounded to 0.0001 in",
+		source:  "AISI Manufacturers' Standard Gauge: defined by weight in lb/ft²; thickness = weight ÷ 41.82 lb/ft² per inch, rounded to 0.0001 in",
 		aliases: []string{"steel", "msg", "manufacturers standard gauge"},
 		rows:    weightGauges(GaugeSteel, 3, 0),
 	},
 	{
 		key: GaugeGalvanized, name: "galvanized steel sheet gauge",
-		source:  "Manufacturers' Standard Gauge weight + 2.5 oz/ft² zinc, ÷ 41.82, rounded to 0.0001 in",
+		source:  "defined by weight: Manufacturers' Standard Gauge weight + 2.5 oz/ft² zinc; thickness = weight ÷ 41.82 lb/ft² per inch, rounded to 0.0001 in",
 		aliases: []string{"galvanized", "galvanised", "galv", "zinc-coated steel"},
 		rows:    weightGauges(GaugeGalvanized, 8, galvCoating),
 	},
@@ -80,8 +88,9 @@ var gaugeSystems = []gaugeSystem{
 func weightGauges(system string, first int, extra float64) []Gauge {
 	var rows []Gauge
 	for n := first; n < len(msgWeight); n++ {
-		in := math.Round((msgWeight[n]+extra)/msgLbPerFt2PerInch*1e4) / 1e4
-		rows = append(rows, Gauge{System: system, Number: n, In: in, MM: in * Inch})
+		w := msgWeight[n] + extra
+		in := math.Round(w/msgLbPerFt2PerInch*1e4) / 1e4
+		rows = append(rows, Gauge{System: system, Number: n, In: in, MM: in * Inch, LbFt2: w})
 	}
 	return rows
 }
@@ -98,16 +107,18 @@ func brownSharpeGauges(first, last int) []Gauge {
 }
 
 // GaugeTable names a gauge system: Key (as in Material.GaugeSystem), Name, and Source, the
-// definition the table is built from.
+// definition the table is built from. ByWeight marks a table defined by weight per area (its rows
+// carry Gauge.LbFt2).
 type GaugeTable struct {
 	Key, Name, Source string
+	ByWeight          bool
 }
 
 // GaugeTables lists the gauge systems.
 func GaugeTables() []GaugeTable {
 	tables := make([]GaugeTable, len(gaugeSystems))
 	for i, s := range gaugeSystems {
-		tables[i] = GaugeTable{Key: s.key, Name: s.name, Source: s.source}
+		tables[i] = GaugeTable{Key: s.key, Name: s.name, Source: s.source, ByWeight: s.rows[0].LbFt2 > 0}
 	}
 	return tables
 }

@@ -122,3 +122,34 @@ func TestGaugeErrors(t *testing.T) {
 		t.Errorf("Gauges(birmingham) = %v, want nil", rows)
 	}
 }
+
+// TestSteelGaugeWeights checks the weight column of the steel gauge tables against the published
+// Manufacturers' Standard Gauge weights in lb/ft² (from memory: confirm against a printed table):
+// 10 = 5.625, 12 = 4.375, 14 = 3.125, 16 = 2.5, 18 = 2.0, 20 = 1.5, 22 = 1.25; galvanized adds
+// 2.5 oz/ft² of zinc (16 ga galvanized 2.656 lb/ft², from memory). Each weight in kg/m² uses the
+// exact definitions 1 lb = 0.45359237 kg, 1 ft = 0.3048 m.
+func TestSteelGaugeWeights(t *testing.T) {
+	tests := []struct {
+		system string
+		lbFt2  map[int]float64
+	}{
+		{"steel", map[int]float64{10: 5.625, 12: 4.375, 14: 3.125, 16: 2.5, 18: 2.0, 20: 1.5, 22: 1.25}},
+		{"galvanized", map[int]float64{16: 2.65625}},
+	}
+	for _, tt := range tests {
+		for _, g := range Gauges(tt.system) {
+			want, ok := tt.lbFt2[g.Number]
+			if !ok {
+				continue
+			}
+			if g.LbFt2 != want || math.Abs(g.KgM2()-want*0.45359237/(0.3048*0.3048)) > 1e-12 {
+				t.Errorf("%s %d ga: %v lb/ft², %v kg/m²; want %v lb/ft²", tt.system, g.Number, g.LbFt2, g.KgM2(), want)
+			}
+		}
+	}
+	for _, g := range Gauges("aluminium") {
+		if g.LbFt2 != 0 {
+			t.Fatalf("Brown & Sharpe %d ga has a weight %v; the table is defined by thickness", g.Number, g.LbFt2)
+		}
+	}
+}

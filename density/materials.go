@@ -11,7 +11,9 @@ import (
 // per millimetre of total thickness, in kg/m² per mm. Approx marks values that vary across
 // suppliers by more than a few per cent. Source says where the value comes from. GaugeSystem is
 // the key of the gauge table used for the material (GaugeSteel, GaugeGalvanized, GaugeNonFerrous),
-// or "" when the trade does not give it in gauges.
+// or "" when the trade does not give it in gauges. GaugeWeight marks the materials whose gauges are
+// defined by their weight (carbon and galvanized steel): a sheet given by such a gauge weighs the
+// table's lb/ft², not its rounded thickness times Density.
 type Material struct {
 	Key, Name   string
 	Density     float64
@@ -19,6 +21,7 @@ type Material struct {
 	Source      string
 	Areal       bool
 	GaugeSystem string
+	GaugeWeight bool
 }
 
 // ArealDensity returns the material's areal density in kg/m² for a sheet thickness in mm.
@@ -56,14 +59,14 @@ func (m Material) label() string {
 // materials is the built-in table. The volumetric values are nominal densities from the sources
 // named; actual sheet may differ by a few per cent.
 var materials = []Material{
-	{Key: "steel", Name: "carbon steel", Density: 7850, GaugeSystem: GaugeSteel,
-		Source: "EN 1993-1-1 (Eurocode 3) §3.2.6: 7850 kg/m³ for structural steel"},
+	{Key: "steel", Name: "carbon steel", Density: 7850, GaugeSystem: GaugeSteel, GaugeWeight: true,
+		Source: "EN 1993-1-1 (Eurocode 3) §3.2.6: 7850 kg/m³ for structural steel; by gauge, the gauge's weight (41.82 lb/ft² per inch)"},
 	{Key: "stainless-304", Name: "stainless steel 304", Density: 7930, GaugeSystem: GaugeSteel,
-		Source: "ASTM A240 type 304 data sheets: 7930 kg/m³ (7900–8030 across data sheets)"},
+		Source: "ASTM A240 type 304 data sheets: 7930 kg/m³ (7900–8030 across data sheets); by gauge, the Manufacturers' Standard Gauge thickness × 7930 kg/m³"},
 	{Key: "stainless-316", Name: "stainless steel 316", Density: 8000, GaugeSystem: GaugeSteel,
-		Source: "ASTM A240 type 316 data sheets: 7980–8000 kg/m³ (from memory)"},
-	{Key: "galvanized-steel", Name: "galvanized steel", Density: 7850, Approx: true, GaugeSystem: GaugeGalvanized,
-		Source: "steel 7850 kg/m³ (EN 1993-1-1); the zinc coating (about 7140 kg/m³, mass by coating class) is counted in the galvanized gauge thickness"},
+		Source: "ASTM A240 type 316 data sheets: 7980–8000 kg/m³ (from memory); by gauge, the Manufacturers' Standard Gauge thickness × 8000 kg/m³"},
+	{Key: "galvanized-steel", Name: "galvanized steel", Density: 7850, Approx: true, GaugeSystem: GaugeGalvanized, GaugeWeight: true,
+		Source: "steel 7850 kg/m³ (EN 1993-1-1); by gauge, the galvanized gauge's weight (steel gauge weight + 2.5 oz/ft² of zinc)"},
 	{Key: "aluminium-5052", Name: "aluminium 5052", Density: 2680, GaugeSystem: GaugeNonFerrous,
 		Source: "Aluminum Association, Aluminum Standards and Data, nominal densities: 5052 2.68 g/cm³"},
 	{Key: "aluminium-6061", Name: "aluminium 6061", Density: 2700, GaugeSystem: GaugeNonFerrous,

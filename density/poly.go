@@ -94,8 +94,18 @@ func (p poly) toPower(n int) (poly, bool) {
 
 // polynomialOf expands n into terms when it is a polynomial in x and y: built from constants, x, y,
 // r², +, −, ×, division by a constant, and whole powers from 0 to maxPolyDegree.
-func polynomialOf(n *node) (Polynomial, bool) {
-	p, ok := expand(n)
+func polynomialOf(n *node) (Polynomial, bool) { return expansion{}.terms(n) }
+
+// expansion expands a formula into a polynomial in u = x − x0 and v = y − y0: every x is read as
+// u + x0 and every y as v + y0 before anything is multiplied out. A formula written about a point
+// near (x0, y0), such as (x − 1e6)²·(y − 1e6) for a part near (1e6, 1e6), then has small, exactly
+// formed constants (x0 − 1e6 is exact when x0 is within a factor of two of 1e6, by Sterbenz's
+// lemma) and no terms that cancel, where its expansion about the origin would lose every digit.
+type expansion struct{ x0, y0 float64 }
+
+// terms expands n into terms in u and v when it is a polynomial.
+func (e expansion) terms(n *node) (Polynomial, bool) {
+	p, ok := e.expand(n)
 	if !ok {
 		return Polynomial{}, false
 	}
@@ -116,19 +126,25 @@ func polynomialOf(n *node) (Polynomial, bool) {
 	return out, true
 }
 
-func expand(n *node) (poly, bool) {
+// variable returns the monomial u (i = 1) or v (j = 1) plus the constant at: x or y in the
+// local frame.
+func variable(i, j int, at float64) poly {
+	return monomial(i, j, 1).plus(monomial(0, 0, at), 1)
+}
+
+func (e expansion) expand(n *node) (poly, bool) {
 	switch n.op {
 	case opConst:
 		return monomial(0, 0, n.k), true
 	case opX:
-		return monomial(1, 0, 1), true
+		return variable(1, 0, e.x0), true
 	case opY:
-		return monomial(0, 1, 1), true
+		return variable(0, 1, e.y0), true
 	case opPow:
-		return expandPower(n.args[0], n.args[1])
+		return e.expandPower(n.args[0], n.args[1])
 	case opDiv:
 		if d := n.args[1]; d.isConst() {
-			a, ok := expand(n.args[0])
+			a, ok := e.expand(n.args[0])
 			return newPoly(0).plus(a, 1/d.k), ok
 		}
 		return poly{}, false
@@ -136,11 +152,11 @@ func expand(n *node) (poly, bool) {
 	default:
 		return poly{}, false
 	}
-	a, ok := expand(n.args[0])
+	a, ok := e.expand(n.args[0])
 	if !ok || n.op == opNeg {
 		return newPoly(0).plus(a, -1), ok
 	}
-	b, ok := expand(n.args[1])
+	b, ok := e.expand(n.args[1])
 	switch {
 	case !ok:
 		return poly{}, false
@@ -153,16 +169,18 @@ func expand(n *node) (poly, bool) {
 }
 
 // expandPower expands base^exp for a whole exponent; r^(2m) is (x² + y²)^m.
-func expandPower(base, exp *node) (poly, bool) {
+func (e expansion) expandPower(base, exp *node) (poly, bool) {
 	n := exp.k
 	if !exp.isConst() || n != math.Trunc(n) || n < 0 || n > maxPolyDegree {
 		return poly{}, false
 	}
 	if base.op == opR && int(n)%2 == 0 {
-		rr := monomial(2, 0, 1).plus(monomial(0, 2, 1), 1)
-		return rr.toPower(int(n) / 2)
+		x, y := variable(1, 0, e.x0), variable(0, 1, e.y0)
+		xx, _ := x.times(x)
+		yy, _ := y.times(y)
+		return xx.plus(yy, 1).toPower(int(n) / 2)
 	}
-	b, ok := expand(base)
+	b, ok := e.expand(base)
 	if !ok {
 		return poly{}, false
 	}

@@ -18,7 +18,24 @@ func (b Boundary) IntegratePoly(p Poly) Moments {
 	if len(b.Pieces) == 0 {
 		return Moments{}
 	}
-	c, pieces, d := b.frame()
+	c, _, _ := b.frame()
+	return b.IntegratePolyAbout(c, p.Shift(c))
+}
+
+// IntegratePolyAbout is IntegratePoly for a density given about the point c: ρ(x, y) = p(x − c.X,
+// y − c.Y). Take c near the part (within its extent, or about as close): the work is done in
+// coordinates about a local origin o near the part (see IntegratePoly), with the density shifted from c
+// to o only when they differ, so a density written about a far point, whose coefficients about the
+// origin would cancel, keeps its digits (density.Field.PolynomialAbout gives such coefficients).
+func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
+	p.check()
+	if len(b.Pieces) == 0 {
+		return Moments{}
+	}
+	o, pieces, d := b.frame()
+	if o != c {
+		p = p.Shift(o.Sub(c))
+	}
 	acc := newGreenSums(p.Deg + 2)
 	var fan fanSums
 	for i := 0; i < len(pieces); i++ {
@@ -41,7 +58,7 @@ func (b Boundary) IntegratePoly(p Poly) Moments {
 		}
 	}
 	fan.addTo(acc)
-	return momentsAbout(c, acc.moments(p.Shift(c)))
+	return momentsAbout(o, acc.moments(p))
 }
 
 // PolygonMoments returns the moments of the uniform unit density over the polygon through pts (closed

@@ -372,3 +372,18 @@ func TestIntegratePolyNaNArcTerminates(t *testing.T) {
 		}
 	}
 }
+
+// TestIntegratePolyAbout integrates ρ = u²·v, u = x − c.X, v = y − c.Y, over [c.X, c.X + 2] ×
+// [c.Y, c.Y + 3] far from the origin: ∬u²v = (2³/3)(3²/2) = 12, ∬u³v = (2⁴/4)(3²/2) = 18 (so
+// x̄ − c.X = 1.5), ∬u²v² = (2³/3)(3³/3) = 24 (so ȳ − c.Y = 2).
+func TestIntegratePolyAbout(t *testing.T) {
+	c := Pt(5e9+0.5, -3e9+0.25)
+	b := Boundary{Pieces: RectLoop(c, c.Add(Pt(2, 3)))}
+	p := NewPoly(3)
+	p.C[PolyIndex(2, 1)] = 1
+	m := b.IntegratePolyAbout(c, p)
+	got := m.CentroidFrom(c)
+	if math.Abs(m.M-12) > 1e-13*12 || math.Abs(got.X-1.5) > 1e-13 || math.Abs(got.Y-2) > 1e-13 {
+		t.Errorf("mass %v, centroid from c %v; want 12, (1.5, 2)", m.M, got)
+	}
+}

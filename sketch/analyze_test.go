@@ -205,7 +205,6 @@ func TestAnalyzeErrors(t *testing.T) {
 		{"negative polynomial", func() *Document { return plate(100, 100, "x - 50") }, []string{"material", "density is −", "at x = ", "mm"}},
 		{"negative constant", func() *Document { return plate(100, 100, "-2") }, []string{"material", "density is −2 kg/m²"}},
 		{"negative elsewhere", func() *Document { return plate(100, 100, "sqrt(x) - 5") }, []string{"material", "density is −", "at x = "}},
-		{"no material", func() *Document { d := plate(100, 100, ""); d.Material = density.Spec{}; return d }, []string{"material", "no material"}},
 		{"bad formula", func() *Document { return plate(100, 100, "2 * (x") }, []string{"material.formula", "col 7"}},
 		{"cut away", func() *Document {
 			d := plate(100, 100, "1")
@@ -218,6 +217,13 @@ func TestAnalyzeErrors(t *testing.T) {
 			return d
 		}, []string{"overlays[0].material", "density is −1"}},
 		{"bad units", func() *Document { d := plate(100, 100, "1"); d.Units = "furlong"; return d }, []string{"units"}},
+		{"no area, no cut-outs", func() *Document {
+			d := plate(100, 100, "1")
+			d.Outline.Loops[0] = geom.Loop{geom.Line(geom.Pt(0, 0), geom.Pt(100, 0)), geom.Line(geom.Pt(100, 0), geom.Pt(0, 0))}
+			return d
+		}, []string{"outline", "the outline encloses no area"}},
+		// 1e307 kg/m² over 1 m² overflows the first moment ∬x dm in kg·mm (over 1.8e308).
+		{"density overflows the moments", func() *Document { return plate(1000, 1000, "1e307") }, []string{"material", "first moment", "too large to compute"}},
 		// Negative only within 2 mm of the centre, far from every edge: the interior grid finds it.
 		{"negative inside", func() *Document { return plate(100, 100, bowl) }, []string{"material", "density is −4 kg/m²", "at x = 50"}},
 	} {
@@ -327,4 +333,51 @@ var flowerDensities = []struct {
 	{"polynomial-corners", areal("8 + 0.001*x*y"), false},
 	{"negative", areal("8 + 0.004*x*y"), true},
 	{"exp-sin", areal("exp(x/200)*(2 + sin(y/50))"), false},
+}
+
+// TestAnalyzeNoMaterial analyses a semicircle of radius r = 50 on the diameter from (−40, 20) to
+// (60, 20) without a material: the shape alone fixes area, balance point and second moments (per unit
+// areal density), and the level hole; mass and weight stay unknown. Closed forms from the published
+// "List of centroids" and "List of second moments of area": area πr²/2, ȳ = 4r/(3π) above the
+// diameter, centroidal Ix = (π/8 − 8/(9π))r⁴, Iy = πr⁴/8 about the axis of symmetry.
+func TestAnalyzeNoMaterial(t *testing.T) {
+	const r = 50.0
+	c := geom.Pt(10, 20)
+	d := NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{{geom.Arc(c, r, 0, math.Pi), geom.Line(geom.Pt(c.X-r, c.Y), geom.Pt(c.X+r, c.Y))}}}
+	d.Overlays = []Overlay{{Name: "doubler", Region: rectRegion(0, 20, 20, 40), Material: areal("5")}}
+	a, err := Analyze(d, AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r4 := math.Pow(r, 4)
+	checkNear(t, "area", a.Area, math.Pi*r*r/2, 1e-14, 0)
+	checkNear(t, "centroid x", a.Centroid.X, c.X, 1e-14, r)
+	checkNear(t, "centroid y", a.Centroid.Y, c.Y+4*r/(3*math.Pi), 1e-14, r)
+	checkNear(t, "ixx", a.Ixx, (math.Pi/8-8/(9*math.Pi))*r4, 1e-12, r4)
+	checkNear(t, "iyy", a.Iyy, math.Pi*r4/8, 1e-12, r4)
+	checkNear(t, "ixy", a.Ixy, 0, 1e-12, r4)
+	if !a.NoMaterial || a.WeightN != 0 || a.WeightLbf != 0 || len(a.Materials) != 0 {
+		t.Errorf("NoMaterial %v, weights %v N, %v lbf, materials %q: want a shape-only analysis", a.NoMaterial, a.WeightN, a.WeightLbf, a.Materials)
+	}
+	warnings := strings.Join(a.Warnings, "\n")
+	for _, want := range []string{"no material", "--material", "overlays[0]"} {
+		if !strings.Contains(warnings, want) {
+			t.Errorf("warnings %q do not mention %q", warnings, want)
+		}
+	}
+	lv, err := LevelHole(d, 6, HangOptions{})
+	if err != nil || lv.Hang == nil {
+		t.Fatalf("level hole: %v, %+v", err, lv)
+	}
+	checkNear(t, "level hole x", lv.At.X, c.X, 1e-9, r)
+	lift, err := TwoChains(d, geom.Pt(c.X-30, c.Y+10), geom.Pt(c.X+30, c.Y+10), 6, 90, HangOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, ch := range lift.Chains {
+		if !near(ch.Share, 0.5, 1e-12, 1) || ch.Vertical != 0 {
+			t.Errorf("chain %d: share %v, vertical %v N; want half the unknown weight", i, ch.Share, ch.Vertical)
+		}
+	}
 }

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"plumb/density"
 	"plumb/geom"
@@ -70,7 +71,8 @@ type Level struct {
 // Chain is one of two chains a part hangs from.
 type Chain struct {
 	At       geom.Point
-	Vertical float64 // N, the chain's share of the weight by the lever rule
+	Share    float64 // the fraction of the part's weight the chain carries, by the lever rule
+	Vertical float64 // N, the chain's share of the weight (0 when the part has no material)
 	Tension  float64 // N, along the chain: Vertical / sin(leg angle)
 }
 
@@ -152,13 +154,29 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 	}
 	h.Pose = geom.RotateAbout(at, h.AngleDeg*math.Pi/180)
 	h.Hanging = part.Body.Transform(h.Pose)
+	if w := piecesWarning(part.Body, "it hangs from the hole as shown"); w != "" {
+		h.Warnings = append(h.Warnings, w)
+	}
 	if opt.MaxTiltDeg > 0 && opt.DrillTol > 0 {
 		if need := ArmForTilt(opt.MaxTiltDeg, opt.DrillTol); h.Arm < need {
-			h.Warnings = append(h.Warnings, fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° the hole needs to be at least %s %s from the balance point (it is %s)",
-				formatNumber(opt.DrillTol), unit.Name, formatNumber(tiltDeg(h.Arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg), formatNumber(need), unit.Name, formatNumber(h.Arm)))
+			h.Warnings = append(h.Warnings, tiltWarning(h.Arm, need, size, opt, unit))
 		}
 	}
 	return h
+}
+
+// tiltWarning says that a drilling error of opt.DrillTol tilts a part hung at arm from its balance
+// point by more than opt.MaxTiltDeg, and how far the hole would need to be (need); a need beyond the
+// part's size (or beyond float64) is said as such.
+func tiltWarning(arm, need, size float64, opt HangOptions, unit density.Length) string {
+	msg := fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° ", formatNumber(opt.DrillTol),
+		unit.Name, formatNumber(tiltDeg(arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg))
+	if need > size || math.IsInf(need, 0) {
+		return msg + fmt.Sprintf("the hole would need to be farther from the balance point than the part is large (%s %s)",
+			formatNumber(size), unit.Name)
+	}
+	return msg + fmt.Sprintf("the hole needs to be at least %s %s from the balance point (it is %s)",
+		formatNumber(need), unit.Name, formatNumber(arm))
 }
 
 // halfTurnDeg converts an angle in radians to degrees in (−180, 180].
@@ -228,6 +246,18 @@ func (d *Document) edgeRule(dia float64, opt HangOptions, unit density.Length) e
 	default:
 		return edgeRule{dia, "one hole diameter, common practice"}
 	}
+}
+
+// EdgeRule returns the least distance from the edge of a hole of diameter dia to the part's edges that
+// the hang calculations keep, in document units, and where it comes from ("as asked", "1.5 ×
+// thickness, common practice", ...).
+func (d *Document) EdgeRule(dia float64, opt HangOptions) (float64, string, error) {
+	unit, err := d.lengthUnit()
+	if err != nil {
+		return 0, "", err
+	}
+	r := d.edgeRule(dia, opt, unit)
+	return r.min, r.source, nil
 }
 
 // thickness returns the base material's thickness in document units, when it is a plain length or gauge.
@@ -424,8 +454,17 @@ func (s *holeSearch) noLevel(lv *Level, x float64, material bool) (*Level, error
 		return nil, err
 	}
 	lv.Alternatives = alts
-	lv.Warnings = append(lv.Warnings, fmt.Sprintf("use a least-tilt position, hang from two holes, or add a tab reaching above the balance point at x = %s %s",
-		formatNumber(x), u))
+	if len(alts) == 0 {
+		lv.Warnings = append(lv.Warnings, fmt.Sprintf("no position on the part has room for a %s %s hole with %s %s edge distance: use a smaller hole or give a smaller edge distance",
+			formatNumber(s.dia), u, formatNumber(s.rule.min), u))
+		return lv, nil
+	}
+	places := make([]string, len(alts))
+	for i, h := range alts {
+		places[i] = fmt.Sprintf("(%s, %s) %s turns the part %s°", formatNumber(h.At.X), formatNumber(h.At.Y), u, formatNumber(h.AngleDeg))
+	}
+	lv.Warnings = append(lv.Warnings, fmt.Sprintf("least tilt: a hole at %s; or hang from two holes, or add a tab reaching above the balance point at x = %s %s",
+		strings.Join(places, ", or at "), formatNumber(x), u))
 	return lv, nil
 }
 
@@ -524,12 +563,18 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	}
 	lift.Part, lift.Centroid, lift.WeightN = part, part.Centroid, part.WeightN
 	lift.Factor = 1 / math.Sin(legDeg*math.Pi/180)
-	va := part.WeightN * (b.X - part.Centroid.X) / (b.X - a.X)
-	lift.Chains = [2]Chain{
-		{At: a, Vertical: va, Tension: va * lift.Factor},
-		{At: b, Vertical: part.WeightN - va, Tension: (part.WeightN - va) * lift.Factor},
+	sa := (b.X - part.Centroid.X) / (b.X - a.X)
+	for i, c := range [2]struct {
+		at    geom.Point
+		share float64
+	}{{a, sa}, {b, 1 - sa}} {
+		v := c.share * part.WeightN
+		lift.Chains[i] = Chain{At: c.at, Share: c.share, Vertical: v, Tension: v * lift.Factor}
 	}
 	lift.warn(unit)
+	if w := piecesWarning(part.Body, "the chain loads hold"); w != "" {
+		lift.Warnings = append(lift.Warnings, w)
+	}
 	return lift, nil
 }
 
@@ -543,7 +588,7 @@ func (l *Lift) warn(unit density.Length) {
 	if l.LegDeg < minLegDeg {
 		l.Warnings = append(l.Warnings, fmt.Sprintf("legs at %s° to the horizontal: rigging guidance (ASME B30.9) advises against legs below 30°", formatNumber(l.LegDeg)))
 	}
-	if l.LegDeg < 90 && math.Abs(l.Chains[0].Vertical-l.Chains[1].Vertical) > 1e-6*l.WeightN {
+	if l.LegDeg < 90 && math.Abs(l.Chains[0].Share-l.Chains[1].Share) > 1e-6 {
 		l.Warnings = append(l.Warnings, "the load is off centre: equal leg angles need two anchor points; on one hook the part turns until its balance point is below the hook")
 	}
 }

@@ -388,3 +388,27 @@ func TestHoleFromWholeAnalysis(t *testing.T) {
 		})
 	}
 }
+
+// TestEdgeRule checks the edge distance kept: the one asked for, else max(1.5 × thickness, D)
+// (common practice), else D when the thickness is not known.
+func TestEdgeRule(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		d    *Document
+		dia  float64
+		opt  HangOptions
+		want float64
+	}{
+		{"1.5 × 3 mm thickness", steelPlate(200, 100), 4, HangOptions{}, 4.5},
+		{"hole wider than 1.5 × thickness", steelPlate(200, 100), 8, HangOptions{}, 8},
+		{"asked for", steelPlate(200, 100), 8, HangOptions{Edge: 12}, 12},
+		{"thickness not known", plate(200, 100, "3"), 6, HangOptions{}, 6},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			got, source, err := tc.d.EdgeRule(tc.dia, tc.opt)
+			if err != nil || got != tc.want || source == "" {
+				t.Errorf("EdgeRule = %g (%q), %v; want %g", got, source, err, tc.want)
+			}
+		})
+	}
+}

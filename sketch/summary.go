@@ -3,11 +3,14 @@ package sketch
 import (
 	"encoding/csv"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"math"
+	"reflect"
 	"strconv"
 	"strings"
+	"unicode"
 
 	"plumb/density"
 )
@@ -16,11 +19,13 @@ import (
 // browser app reports. Its keys are fixed: other programs read them. Lengths are in the document unit,
 // mass in kg, second moments in kg·unit² about the centroid:
 // ixx = ∬(y−ȳ)² dm, iyy = ∬(x−x̄)² dm, ixy = ∬(x−x̄)(y−ȳ) dm.
+// A part without a material has mass null and second moments per unit areal density (dm = dA, in
+// unit⁴); units.inertia says which.
 type Summary struct {
 	File          string    `json:"file"`
 	Units         Units     `json:"units"`
 	Area          float64   `json:"area"`
-	Mass          float64   `json:"mass"`
+	Mass          *float64  `json:"mass"`
 	Centroid      XY        `json:"centroid"`
 	Inertia       Inertia   `json:"inertia"`
 	Principal     Principal `json:"principal"`
@@ -36,10 +41,11 @@ type Summary struct {
 	Chains []ChainSummary `json:"chains,omitempty"`
 }
 
-// Units names the length and mass units of a Summary.
+// Units names the length, mass and second-moment units of a Summary.
 type Units struct {
-	Length string `json:"length"`
-	Mass   string `json:"mass"`
+	Length  string `json:"length"`
+	Mass    string `json:"mass"`
+	Inertia string `json:"inertia"` // kg·unit², or unit⁴ for a part without a material
 }
 
 // XY is a point in a Summary.
@@ -77,11 +83,13 @@ type HoleSummary struct {
 	Diameter float64 `json:"diameter"`
 }
 
-// ChainSummary is one chain of a two-chain hang; forces in newtons.
+// ChainSummary is one chain of a two-chain hang: its share of the weight and the forces in newtons
+// (null for a part without a material).
 type ChainSummary struct {
-	At       XY      `json:"at"`
-	Vertical float64 `json:"vertical_n"`
-	Tension  float64 `json:"tension_n"`
+	At       XY       `json:"at"`
+	Share    float64  `json:"share"`
+	Vertical *float64 `json:"vertical_n"`
+	Tension  *float64 `json:"tension_n"`
 }
 
 // Summarize builds the summary of an analysed part.
@@ -90,11 +98,15 @@ func Summarize(file string, d *Document, a *Analysis) Summary {
 	if units == "" {
 		units = "mm"
 	}
+	inertia, mass := "kg·"+units+"²", &a.Mass
+	if a.NoMaterial {
+		inertia, mass = units+"⁴", nil
+	}
 	return Summary{
 		File:          file,
-		Units:         Units{Length: units, Mass: "kg"},
+		Units:         Units{Length: units, Mass: "kg", Inertia: inertia},
 		Area:          a.Area,
-		Mass:          a.Mass,
+		Mass:          mass,
 		Centroid:      xy(a.Centroid.X, a.Centroid.Y),
 		Inertia:       Inertia{Ixx: a.Ixx, Iyy: a.Iyy, Ixy: a.Ixy},
 		Principal:     Principal{I1: a.I1, I2: a.I2, AngleDeg: a.AngleDeg},
@@ -138,7 +150,11 @@ func (r *Report) Summary() Summary {
 		}
 	case r.Lift != nil:
 		for _, c := range r.Lift.Chains {
-			s.Chains = append(s.Chains, ChainSummary{At: xy(c.At.X, c.At.Y), Vertical: c.Vertical, Tension: c.Tension})
+			cs := ChainSummary{At: xy(c.At.X, c.At.Y), Share: c.Share}
+			if !r.Analysis.NoMaterial {
+				cs.Vertical, cs.Tension = &c.Vertical, &c.Tension
+			}
+			s.Chains = append(s.Chains, cs)
 		}
 	}
 	return s
@@ -162,8 +178,48 @@ func (r *Report) warnings() []string {
 	return w
 }
 
+// checkFinite reports the first number of the report that is not finite, by its summary key, so that
+// no writer ever prints NaN or Inf. Analyze and the hanging calculations refuse such results with
+// their cause; this is the last guard.
+func (r *Report) checkFinite() error {
+	if path, bad := nonFinite(reflect.ValueOf(r.Summary()), ""); bad {
+		return fmt.Errorf("the result %s is not a finite number", path)
+	}
+	hangs := []*Hang{r.Hang}
+	if r.Level != nil {
+		hangs = append(hangs, r.Level.Hang)
+		hangs = append(hangs, r.Level.Alternatives...)
+	}
+	for _, h := range hangs {
+		if h != nil && !allFinite(h.Arm, h.TiltPerMM, h.PeriodS) {
+			return errors.New("the result hang is not a finite number")
+		}
+	}
+	if r.Lift != nil && !allFinite(r.Lift.Factor, r.Lift.WeightN) {
+		return errors.New("the result chains is not a finite number")
+	}
+	a := r.Analysis
+	if !allFinite(a.WeightN, a.WeightLbf, a.Kx, a.Ky, a.Origin.Sxx, a.Origin.Syy, a.Origin.Sxy) {
+		return errors.New("the result weight or moments is not a finite number")
+	}
+	return nil
+}
+
+// allFinite reports whether every v is a finite number.
+func allFinite(vs ...float64) bool {
+	for _, v := range vs {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return false
+		}
+	}
+	return true
+}
+
 // WriteJSON writes the report's summary as one line of JSON.
 func (r *Report) WriteJSON(w io.Writer) error {
+	if err := r.checkFinite(); err != nil {
+		return err
+	}
 	b, err := json.Marshal(r.Summary())
 	if err != nil {
 		return err
@@ -180,17 +236,27 @@ func CSVHeader() []string {
 
 // WriteCSV writes the report as one CSV row under CSVHeader; warnings are joined by "; ".
 func (r *Report) WriteCSV(w *csv.Writer) error {
+	if err := r.checkFinite(); err != nil {
+		return err
+	}
 	s := r.Summary()
 	a := r.Analysis
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
-	return w.Write([]string{s.File, s.Units.Length, s.Units.Mass, g(s.Area), g(s.Mass), g(a.WeightN), g(a.WeightLbf),
+	mass, wn, wlbf := g(a.Mass), g(a.WeightN), g(a.WeightLbf)
+	if a.NoMaterial {
+		mass, wn, wlbf = "", "", ""
+	}
+	return w.Write([]string{Printable(s.File), s.Units.Length, s.Units.Mass, g(s.Area), mass, wn, wlbf,
 		g(s.Centroid.X), g(s.Centroid.Y), g(s.Inertia.Ixx), g(s.Inertia.Iyy), g(s.Inertia.Ixy),
-		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), strings.Join(s.Warnings, "; ")})
+		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), Printable(strings.Join(s.Warnings, "; "))})
 }
 
 // WriteText writes the report as a readable table with units. The cautions are left to the caller,
 // which prints them once after a batch (WriteCautions).
 func (r *Report) WriteText(w io.Writer) error {
+	if err := r.checkFinite(); err != nil {
+		return err
+	}
 	t := &table{}
 	a, u := r.Analysis, r.Summary().Units.Length
 	title := r.File
@@ -205,12 +271,18 @@ func (r *Report) WriteText(w io.Writer) error {
 		t.row(label, m)
 	}
 	t.row("area", formatNumber(a.Area)+" "+u+"²")
-	t.row("mass", formatNumber(a.Mass)+" kg")
-	t.row("weight", fmt.Sprintf("%s N (%s lbf)", formatNumber(a.WeightN), formatNumber(a.WeightLbf)))
+	iu, dm := "kg·"+u+"²", "dm"
+	if a.NoMaterial {
+		t.row("material", "none given: mass and weight unknown; second moments per unit areal density")
+		iu, dm = u+"⁴", "dA"
+	} else {
+		t.row("mass", formatNumber(a.Mass)+" kg")
+		t.row("weight", fmt.Sprintf("%s N (%s lbf)", formatNumber(a.WeightN), formatNumber(a.WeightLbf)))
+	}
 	t.row("balance point", fmt.Sprintf("x %s, y %s %s (centroid)", formatNumber(a.Centroid.X), formatNumber(a.Centroid.Y), u))
-	t.row("about centroid", fmt.Sprintf("ixx %s, iyy %s, ixy %s kg·%s²", formatNumber(a.Ixx), formatNumber(a.Iyy), formatNumber(a.Ixy), u))
-	t.row("about origin", fmt.Sprintf("∬x² dm %s, ∬y² dm %s, ∬xy dm %s kg·%s²", formatNumber(a.Origin.Sxx), formatNumber(a.Origin.Syy), formatNumber(a.Origin.Sxy), u))
-	t.row("principal", fmt.Sprintf("i1 %s, i2 %s kg·%s², axis of i1 at %s° from x", formatNumber(a.I1), formatNumber(a.I2), u, formatNumber(a.AngleDeg)))
+	t.row("about centroid", fmt.Sprintf("ixx %s, iyy %s, ixy %s %s", formatNumber(a.Ixx), formatNumber(a.Iyy), formatNumber(a.Ixy), iu))
+	t.row("about origin", fmt.Sprintf("∬x² %s %s, ∬y² %s %s, ∬xy %s %s %s", dm, formatNumber(a.Origin.Sxx), dm, formatNumber(a.Origin.Syy), dm, formatNumber(a.Origin.Sxy), iu))
+	t.row("principal", fmt.Sprintf("i1 %s, i2 %s %s, axis of i1 at %s° from x", formatNumber(a.I1), formatNumber(a.I2), iu, formatNumber(a.AngleDeg)))
 	t.row("gyration", fmt.Sprintf("kx %s, ky %s %s", formatNumber(a.Kx), formatNumber(a.Ky), u))
 	t.row("error estimate", errorText(a))
 	r.hangRows(t, u)
@@ -244,8 +316,12 @@ func (r *Report) hangRows(t *table, u string) {
 		l := r.Lift
 		t.row("chains", fmt.Sprintf("legs at %s° to horizontal, sling-angle factor %s", formatNumber(l.LegDeg), formatNumber(l.Factor)))
 		for i, c := range l.Chains {
-			t.row(fmt.Sprintf("chain %d", i+1), fmt.Sprintf("at (%s, %s) %s: vertical %s N, tension %s N (%s lbf)",
-				formatNumber(c.At.X), formatNumber(c.At.Y), u, formatNumber(c.Vertical), formatNumber(c.Tension), formatNumber(c.Tension/newtonsPerLbf)))
+			load := fmt.Sprintf("vertical %s N, tension %s N (%s lbf)", formatNumber(c.Vertical), formatNumber(c.Tension), formatNumber(c.Tension/newtonsPerLbf))
+			if r.Analysis.NoMaterial {
+				load = "forces unknown without a material"
+			}
+			t.row(fmt.Sprintf("chain %d", i+1), fmt.Sprintf("at (%s, %s) %s: %s %% of the weight, %s",
+				formatNumber(c.At.X), formatNumber(c.At.Y), u, formatNumber(100*c.Share), load))
 		}
 	}
 }
@@ -292,13 +368,31 @@ func (t *table) write(w io.Writer, title string) error {
 		width = max(width, len([]rune(l)))
 	}
 	var b strings.Builder
-	b.WriteString(title + "\n")
+	b.WriteString(Printable(title) + "\n")
 	for i, l := range t.labels {
-		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + t.values[i] + "\n")
+		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + Printable(t.values[i]) + "\n")
 	}
 	b.WriteString("\n")
 	_, err := io.WriteString(w, b.String())
 	return err
+}
+
+// Printable returns s as one line safe to show on a terminal: tabs and line breaks become spaces and
+// every other control character (C0, DEL, C1, which carry terminal escape sequences) is dropped.
+// Names and paths come from files, and a file can hold anything.
+func Printable(s string) string {
+	if !strings.ContainsFunc(s, unicode.IsControl) {
+		return s
+	}
+	return strings.Map(func(r rune) rune {
+		switch {
+		case r == '\t' || r == '\n' || r == '\r':
+			return ' '
+		case unicode.IsControl(r):
+			return -1
+		}
+		return r
+	}, s)
 }
 
 // formatNumber prints v with six significant digits, in plain decimals between 0.001 and 1e9 and in

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/csv"
 	"encoding/json"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -58,7 +59,7 @@ func TestSummaryKeys(t *testing.T) {
 		key  string
 		keys []string
 	}{
-		{"units", []string{"length", "mass"}},
+		{"units", []string{"length", "mass", "inertia"}},
 		{"centroid", []string{"x", "y"}},
 		{"inertia", []string{"ixx", "iyy", "ixy"}},
 		{"principal", []string{"i1", "i2", "angle_deg"}},
@@ -68,12 +69,12 @@ func TestSummaryKeys(t *testing.T) {
 	if string(m["warnings"]) != "[]" {
 		t.Errorf("warnings = %s, want []", m["warnings"])
 	}
-	if string(m["units"]) != `{"length":"mm","mass":"kg"}` {
+	if string(m["units"]) != `{"length":"mm","mass":"kg","inertia":"kg·mm²"}` {
 		t.Errorf("units = %s", m["units"])
 	}
 
 	s := Summarize("plate.json", d, a)
-	if s.Centroid != (XY{a.Centroid.X, a.Centroid.Y}) || s.Mass != a.Mass || s.Inertia != (Inertia{a.Ixx, a.Iyy, a.Ixy}) {
+	if s.Centroid != (XY{a.Centroid.X, a.Centroid.Y}) || s.Mass == nil || *s.Mass != a.Mass || s.Inertia != (Inertia{a.Ixx, a.Iyy, a.Ixy}) {
 		t.Errorf("summary %+v does not match the analysis", s)
 	}
 }
@@ -163,5 +164,77 @@ func TestDrillingTiltInInches(t *testing.T) {
 	}
 	if got := drillingTilt(h, "mm"); strings.Contains(got, "1/16") {
 		t.Errorf("drillingTilt on a metric part = %q, want millimetres only", got)
+	}
+}
+
+// TestWritersRefuseNonFinite checks the writers' last guard: a result that is not finite is an error
+// naming it, and nothing is written.
+func TestWritersRefuseNonFinite(t *testing.T) {
+	d := plate(200, 100, "10")
+	for _, tc := range []struct {
+		name  string
+		spoil func(a *Analysis, h *Hang)
+		want  string
+	}{
+		{"centroid", func(a *Analysis, h *Hang) { a.Centroid.X = math.NaN() }, "centroid.x"},
+		{"mass", func(a *Analysis, h *Hang) { a.Mass = math.Inf(1) }, "mass"},
+		{"weight", func(a *Analysis, h *Hang) { a.WeightN = math.Inf(1) }, "weight"},
+		{"swing period", func(a *Analysis, h *Hang) { h.PeriodS = math.NaN() }, "hang"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			a := mustAnalyze(t, d)
+			h := &Hang{At: geom.Pt(100, 90), Part: a}
+			tc.spoil(a, h)
+			r := &Report{File: "plate.json", Doc: d, Analysis: a, Hang: h}
+			var b bytes.Buffer
+			for name, write := range map[string]func() error{
+				"json": func() error { return r.WriteJSON(&b) },
+				"text": func() error { return r.WriteText(&b) },
+				"csv":  func() error { return r.WriteCSV(csv.NewWriter(&b)) },
+			} {
+				if err := write(); err == nil || !strings.Contains(err.Error(), tc.want) {
+					t.Errorf("%s: error %v, want one naming %q", name, err, tc.want)
+				}
+			}
+			if b.Len() > 0 {
+				t.Errorf("wrote %q", b.String())
+			}
+		})
+	}
+}
+
+// TestSummaryNoMaterial checks the outputs for a part without a material: mass and chain forces null
+// in JSON, empty in CSV, and the text saying why; area and balance point are all there.
+func TestSummaryNoMaterial(t *testing.T) {
+	d := plate(200, 100, "")
+	d.Material.Formula = ""
+	lift, err := TwoChains(d, geom.Pt(20, 90), geom.Pt(180, 90), 6, 60, HangOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := &Report{File: "p.svg", Doc: d, Analysis: lift.Part, Lift: lift}
+	m := reportJSON(t, r)
+	if string(m["mass"]) != "null" || string(m["units"]) != `{"length":"mm","mass":"kg","inertia":"mm⁴"}` {
+		t.Errorf("mass %s, units %s; want null and mm⁴", m["mass"], m["units"])
+	}
+	if strings.Count(string(m["chains"]), `"vertical_n":null,"tension_n":null`) != 2 || lift.Chains[0].Share+lift.Chains[1].Share != 1 {
+		t.Errorf("chains %s, want half shares and null forces", m["chains"])
+	}
+	var text, rows bytes.Buffer
+	if err := r.WriteText(&text); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"none given", "mm⁴", "50 % of the weight", "forces unknown", "no material given"} {
+		if !strings.Contains(text.String(), want) {
+			t.Errorf("text lacks %q:\n%s", want, text.String())
+		}
+	}
+	w := csv.NewWriter(&rows)
+	if err := r.WriteCSV(w); err != nil {
+		t.Fatal(err)
+	}
+	w.Flush()
+	if f := strings.Split(rows.String(), ","); len(f) < 7 || f[4] != "" || f[5] != "" || f[6] != "" || f[3] == "" {
+		t.Errorf("CSV row %q: want the area and empty mass and weights", rows.String())
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"io/fs"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -14,9 +15,10 @@ import (
 
 // totals sums a batch's masses per material for the summary line after a CSV batch.
 type totals struct {
-	order []string // materials in the order first met
-	by    map[string]*total
-	all   total
+	order     []string // materials in the order first met
+	by        map[string]*total
+	all       total
+	unweighed int // parts without a material: their mass is unknown and left out of the totals
 }
 
 type total struct {
@@ -26,6 +28,10 @@ type total struct {
 
 // add counts one analysed part under its base material's description.
 func (t *totals) add(a *sketch.Analysis) {
+	if a.NoMaterial {
+		t.unweighed++
+		return
+	}
 	key := "material not described"
 	if len(a.Materials) > 0 {
 		key = a.Materials[0]
@@ -48,14 +54,17 @@ func (t *totals) add(a *sketch.Analysis) {
 // write writes the summary line: the count and total mass of the batch, then of each material. It
 // goes to stderr, leaving standard output a plain CSV table.
 func (t *totals) write(w io.Writer) error {
-	if t.all.count == 0 {
+	if t.all.count == 0 && t.unweighed == 0 {
 		return nil
 	}
 	line := "plumb: total " + t.all.text()
 	for _, key := range t.order {
 		line += "; " + key + ": " + t.by[key].text()
 	}
-	_, err := fmt.Fprintln(w, line)
+	if t.unweighed > 0 {
+		line += fmt.Sprintf("; %d without a material (mass unknown, not in the total)", t.unweighed)
+	}
+	_, err := fmt.Fprintln(w, sketch.Printable(line))
 	return err
 }
 
@@ -64,6 +73,9 @@ func (s total) text() string {
 	n := fmt.Sprintf("%d parts", s.count)
 	if s.count == 1 {
 		n = "1 part"
+	}
+	if math.IsInf(s.mass, 0) || math.IsNaN(s.mass) {
+		return n + ", more mass than a float64 number holds (each part's own mass is in its row)"
 	}
 	return fmt.Sprintf("%s, %s kg (%s lb)", n, fourDigits(s.mass), fourDigits(s.mass/0.45359237))
 }

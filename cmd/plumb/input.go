@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -14,6 +13,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/svg"
 )
 
 // materialFlags override a part's base material from the command line.
@@ -31,13 +31,25 @@ func (m *materialFlags) register(fs *flag.FlagSet) {
 	fs.Var(m.params, "param", "formula parameter `name=value` (repeatable), e.g. --param k=2e-6")
 }
 
-// check reports contradictory material flags.
+// check reports contradictory material flags, an unknown --unit and a --density formula that does
+// not parse. Names in the formula, and the material and thickness, may depend on the part file (its
+// parameters and own materials), so they are checked with each file.
 func (m *materialFlags) check() error {
 	switch {
 	case m.formula != "" && (m.material != "" || m.thickness != ""):
 		return fmt.Errorf("give either --density or --material and --thickness, not both")
 	case m.unit != "" && m.formula == "":
 		return fmt.Errorf("--unit goes with --density")
+	}
+	if m.unit != "" {
+		if _, err := density.ArealUnit(m.unit); err != nil {
+			return fmt.Errorf("--unit: %v", err)
+		}
+	}
+	if m.formula != "" {
+		if _, err := density.Parse(m.formula); err != nil {
+			return fmt.Errorf("--density: %v", err)
+		}
 	}
 	return nil
 }
@@ -62,14 +74,6 @@ func (m *materialFlags) apply(d *sketch.Document) {
 	}
 }
 
-// requireMaterial reports a part that has no material from its file or the flags.
-func requireMaterial(d *sketch.Document) error {
-	if strings.TrimSpace(d.Material.Material) == "" && strings.TrimSpace(d.Material.Formula) == "" {
-		return errors.New("no material: give --material NAME --thickness T, or --density EXPR")
-	}
-	return nil
-}
-
 // paramFlag collects repeated --param name=value flags.
 type paramFlag map[string]float64
 
@@ -87,9 +91,9 @@ func (p paramFlag) Set(s string) error {
 	if !ok || name == "" {
 		return fmt.Errorf("want name=value, found %q", s)
 	}
-	v, err := strconv.ParseFloat(strings.TrimSpace(value), 64)
-	if err != nil {
-		return fmt.Errorf("parameter %s: %q is not a number", name, value)
+	v, ok := finite(value)
+	if !ok {
+		return fmt.Errorf("parameter %s: %q is not a finite number", name, value)
 	}
 	p[name] = v
 	return nil
@@ -108,13 +112,13 @@ func (p paramFlag) merge(file map[string]float64) map[string]float64 {
 }
 
 // readingFlag selects how SVG drawings are read.
-type readingFlag struct{ r sketch.Reading }
+type readingFlag struct{ r svg.Reading }
 
 func (f *readingFlag) String() string {
 	switch f.r {
-	case sketch.ReadFilled:
+	case svg.ReadFilled:
 		return "filled"
-	case sketch.ReadCutFile:
+	case svg.ReadCutFile:
 		return "cut"
 	}
 	return "auto"
@@ -123,11 +127,11 @@ func (f *readingFlag) String() string {
 func (f *readingFlag) Set(s string) error {
 	switch s {
 	case "auto":
-		f.r = sketch.ReadAuto
+		f.r = svg.ReadAuto
 	case "filled":
-		f.r = sketch.ReadFilled
+		f.r = svg.ReadFilled
 	case "cut":
-		f.r = sketch.ReadCutFile
+		f.r = svg.ReadCutFile
 	default:
 		return fmt.Errorf("want auto, filled or cut, found %q", s)
 	}
@@ -146,8 +150,8 @@ type part struct {
 }
 
 // loadPart reads a part file (.json) or an SVG drawing.
-func loadPart(path string, reading sketch.Reading) (part, error) {
-	data, err := os.ReadFile(path)
+func loadPart(path string, reading svg.Reading) (part, error) {
+	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes))
 	if err != nil {
 		return part{}, err
 	}
@@ -156,8 +160,32 @@ func loadPart(path string, reading sketch.Reading) (part, error) {
 		return part{doc: d}, err
 	}
 	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
-	d, warnings, err := sketch.ReadSVG(data, sketch.SVGOptions{Reading: reading, Name: name})
+	d, warnings, err := svg.Read(data, svg.Options{Reading: reading, Name: name})
+	if err == nil {
+		err = d.CheckExtent()
+	}
 	return part{doc: d, warnings: warnings, fromSVG: true}, err
+}
+
+// readLimited reads the file at path, refusing one over limit bytes before reading it whole (a
+// device or a growing file is read up to one byte past the limit).
+func readLimited(path string, limit int) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	if info, err := f.Stat(); err == nil && info.Size() > int64(limit) {
+		return nil, fmt.Errorf("the file is %d bytes, more than the limit of %d (16 MiB)", info.Size(), limit)
+	}
+	data, err := io.ReadAll(io.LimitReader(f, int64(limit)+1))
+	if err != nil {
+		return nil, err
+	}
+	if len(data) > limit {
+		return nil, fmt.Errorf("the file is more than the limit of %d bytes (16 MiB)", limit)
+	}
+	return data, nil
 }
 
 // isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
@@ -220,7 +248,7 @@ func (b *batch) fail(path string, err error) {
 	if pe, ok := err.(*fs.PathError); ok {
 		err = pe.Err
 	}
-	fmt.Fprintf(b.stderr, "plumb: %s: %v\n", path, err)
+	say(b.stderr, "plumb: %s: %v", path, err)
 }
 
 // status reports the failures at the end of a batch and returns the exit status.

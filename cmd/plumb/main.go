@@ -83,6 +83,11 @@ func lookup(name string) (command, bool) {
 	return command{}, false
 }
 
+// coordinatesAbout says where a drawing's coordinates come from, for positions (--at) and formulas.
+const coordinatesAbout = `Coordinates: x to the right, y up, from the drawing's own origin. An SVG drawing keeps its
+own user coordinates scaled to mm with y flipped (x = s·x_svg, y = −s·y_svg; the viewBox offset does
+not move the origin); a part file keeps its own. --at X,Y and density formulas use these coordinates.`
+
 // writeUsage writes the command list and the cautions.
 func writeUsage(w io.Writer) {
 	fmt.Fprint(w, "plumb: weight, balance point and hang holes of flat sheet parts\n\n")
@@ -92,7 +97,7 @@ func writeUsage(w io.Writer) {
 		fmt.Fprintf(tw, "  %s\t%s\n", c.name, c.summary)
 	}
 	tw.Flush()
-	fmt.Fprint(w, "\nRun 'plumb help COMMAND' for a command's flags.\n\n")
+	fmt.Fprint(w, "\n"+coordinatesAbout+"\n\nRun 'plumb help COMMAND' for a command's flags.\n\n")
 	sketch.WriteCautions(w)
 }
 
@@ -174,8 +179,16 @@ func usageStatus(err error) int {
 	return exitUsage
 }
 
+// say writes one line of a message: the format filled in, made printable (sketch.Printable: file
+// names, part names and SVG ids come from files, and their control characters could drive the
+// terminal), and a newline.
+func say(w io.Writer, format string, args ...any) {
+	fmt.Fprintln(w, sketch.Printable(fmt.Sprintf(format, args...)))
+}
+
 // usageError reports a bad command line for the command name and returns exitUsage.
 func usageError(stderr io.Writer, name, format string, args ...any) int {
-	fmt.Fprintf(stderr, "plumb %s: %s\nrun 'plumb help %s' for usage\n", name, fmt.Sprintf(format, args...), name)
+	say(stderr, "plumb %s: %s", name, fmt.Sprintf(format, args...))
+	fmt.Fprintf(stderr, "run 'plumb help %s' for usage\n", name)
 	return exitUsage
 }

@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"os"
 	"os/exec"
@@ -21,14 +22,25 @@ type plumbRun struct {
 // buildPlumb builds the command into a temporary directory and returns a function that runs it.
 func buildPlumb(t *testing.T) func(args ...string) plumbRun {
 	t.Helper()
+	return runner(t, buildPlumbBinary(t))
+}
+
+// buildPlumbBinary builds the command into a temporary directory and returns its path.
+func buildPlumbBinary(t *testing.T) string {
+	t.Helper()
 	bin := filepath.Join(t.TempDir(), "plumb")
 	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
 		t.Fatalf("go build: %v\n%s", err, out)
 	}
+	return bin
+}
+
+// runner returns a function that runs the program with the arguments prefix followed by its own.
+func runner(t *testing.T, program string, prefix ...string) func(args ...string) plumbRun {
 	return func(args ...string) plumbRun {
 		t.Helper()
 		var stdout, stderr bytes.Buffer
-		cmd := exec.Command(bin, args...)
+		cmd := exec.Command(program, append(slices.Clone(prefix), args...)...)
 		cmd.Stdout, cmd.Stderr = &stdout, &stderr
 		err := cmd.Run()
 		code := 0
@@ -118,7 +130,7 @@ func TestCommandLine(t *testing.T) {
 			}
 			m := objs[0]
 			wantKeys(t, "summary", m, summaryKeys...)
-			wantKeys(t, "units", m["units"], "length", "mass")
+			wantKeys(t, "units", m["units"], "length", "mass", "inertia")
 			wantKeys(t, "centroid", m["centroid"], "x", "y")
 			wantKeys(t, "inertia", m["inertia"], "ixx", "iyy", "ixy")
 			wantKeys(t, "principal", m["principal"], "i1", "i2", "angle_deg")
@@ -169,12 +181,23 @@ func TestCommandLine(t *testing.T) {
 		wantNear(t, "centroid x", num(t, m, "centroid", "x"), (9600*60-math.Pi*100*80)/area, 1e-12)
 		wantNear(t, "centroid y", num(t, m, "centroid", "y"), -40, 1e-12)
 
-		r = plumb("analyze", "testdata/bracket.svg")
-		if r.code != 1 || !strings.Contains(r.stderr, "bracket.svg") || !strings.Contains(r.stderr, "no material") {
-			t.Errorf("no material: exit %d, stderr %q", r.code, r.stderr)
+		// Without a material the shape still gives its area and balance point; mass is null.
+		r = plumb("analyze", "testdata/bracket.svg", "--format", "json")
+		if r.code != 0 {
+			t.Fatalf("no material: exit %d, stderr %q", r.code, r.stderr)
+		}
+		m = jsonLines(t, r.stdout)[0]
+		wantNear(t, "area without a material", num(t, m, "area"), area, 1e-12)
+		wantNear(t, "centroid x without a material", num(t, m, "centroid", "x"), (9600*60-math.Pi*100*80)/area, 1e-12)
+		if m["mass"] != nil || !strings.Contains(fmt.Sprint(m["warnings"]), "--material") {
+			t.Errorf("no material: mass %v, warnings %v; want null and how to add a material", m["mass"], m["warnings"])
+		}
+		r = plumb("hang", "testdata/bracket.svg", "--level", "--hole", "6", "--format", "json")
+		if r.code != 0 || !strings.Contains(r.stdout, `"hole":{`) {
+			t.Errorf("level hole without a material: exit %d, stdout %s, stderr %q", r.code, r.stdout, r.stderr)
 		}
 		r = plumb("analyze", "testdata/bracket.svg", "--density", "2*(x")
-		if r.code != 1 || !strings.Contains(r.stderr, "col") {
+		if r.code != 2 || !strings.Contains(r.stderr, "--density: col 5") {
 			t.Errorf("bad formula: exit %d, stderr %q, want the column", r.code, r.stderr)
 		}
 	})

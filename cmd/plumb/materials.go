@@ -13,6 +13,8 @@ import (
 
 const materialsAbout = `Lists the built-in sheet materials with their densities and sources, then the gauge tables
 (gauge numbers mean different thicknesses for different materials: the thickness is always shown).
+The steel gauges are defined by weight: carbon and galvanized steel given by gauge weigh the
+table's lb/ft²; stainless steel uses the steel gauge's thickness times its own density.
 With --gauges=false, the materials only.`
 
 func runMaterials(args []string, stdout, stderr io.Writer) int {
@@ -54,24 +56,46 @@ func materialDensity(m density.Material) string {
 	return s
 }
 
-// writeGauges writes each gauge table, headed by its name, its source and the materials that use it.
+// writeGauges writes each gauge table, headed by its name, its source and the materials that use it:
+// by weight (the table's lb/ft²) or by thickness (the thickness times the material's density).
 func writeGauges(w io.Writer, mats []density.Material) {
-	users := map[string][]string{}
+	byWeight, byThickness := map[string][]string{}, map[string][]string{}
 	for _, m := range mats {
-		if m.GaugeSystem != "" {
-			users[m.GaugeSystem] = append(users[m.GaugeSystem], m.Name)
+		switch {
+		case m.GaugeSystem == "":
+		case m.GaugeWeight:
+			byWeight[m.GaugeSystem] = append(byWeight[m.GaugeSystem], m.Name)
+		default:
+			byThickness[m.GaugeSystem] = append(byThickness[m.GaugeSystem], m.Name)
 		}
 	}
 	for _, t := range density.GaugeTables() {
 		fmt.Fprintf(w, "\n%s (%s)\n", t.Name, t.Source)
-		if u := users[t.Key]; len(u) > 0 {
-			fmt.Fprintf(w, "used for %s\n", strings.Join(u, ", "))
+		if u := byWeight[t.Key]; len(u) > 0 {
+			fmt.Fprintf(w, "%s: weight by gauge is the table's lb/ft² (the gauge's basis, 41.82 lb/ft² per inch)\n", strings.Join(u, ", "))
 		}
-		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+		if u := byThickness[t.Key]; len(u) > 0 {
+			fmt.Fprintf(w, "%s: the table's thickness × the material's density\n", strings.Join(u, ", "))
+		}
+		writeGaugeRows(w, t)
+	}
+}
+
+// writeGaugeRows writes a gauge table's rows, with the defining weight when the table has one.
+func writeGaugeRows(w io.Writer, t density.GaugeTable) {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	if t.ByWeight {
+		fmt.Fprintln(tw, "gauge\tmm\tin\tlb/ft²\tkg/m²\t")
+	} else {
 		fmt.Fprintln(tw, "gauge\tmm\tin\t")
-		for _, g := range density.Gauges(t.Key) {
+	}
+	for _, g := range density.Gauges(t.Key) {
+		if t.ByWeight {
+			lb := strconv.FormatFloat(g.LbFt2, 'f', -1, 64)
+			fmt.Fprintf(tw, "%d\t%.2f\t%.4f\t%s\t%.3f\t\n", g.Number, g.MM, g.In, lb, g.KgM2())
+		} else {
 			fmt.Fprintf(tw, "%d\t%.2f\t%.4f\t\n", g.Number, g.MM, g.In)
 		}
-		tw.Flush()
 	}
+	tw.Flush()
 }

@@ -99,6 +99,7 @@ type Editor struct {
 	target       Target
 	arc          bool
 	holeDia      float64
+	edge         float64 // least distance from a hole's edge to the part's edges; 0: the default rule
 	cornerRadius float64
 	width        float64
 	height       float64
@@ -180,6 +181,32 @@ func (e *Editor) SetHoleDiameter(d float64) error {
 	return nil
 }
 
+// EdgeDistance returns the least distance from a hang hole's edge to the part's edges asked for, in
+// document units; 0 means the common-practice default of sketch.HangOptions.Edge.
+func (e *Editor) EdgeDistance() float64 { return e.edge }
+
+// SetEdgeDistance sets the edge distance that hang holes keep (0 for the default rule). It keeps its
+// real size when the part changes unit.
+func (e *Editor) SetEdgeDistance(d float64) error {
+	if !(d >= 0) || d > 1e9 {
+		return fmt.Errorf("edge distance must be 0 or more, got %g", d)
+	}
+	e.edge = d
+	return nil
+}
+
+// PlaceHangHole puts the hang hole (the first hole) at at, as one undoable step: it moves the hole
+// when the part has one and adds one of the current diameter when it has none. The hole is selected.
+func (e *Editor) PlaceHangHole(at geom.Point) {
+	nd := Clone(e.doc)
+	if len(nd.Holes) == 0 {
+		nd.Holes = append(nd.Holes, sketch.Hole{Diameter: e.holeDia})
+	}
+	nd.Holes[0].At = at
+	e.sel = Selection{Kind: SelHole, Hole: 0}
+	e.commit(nd)
+}
+
 // SetGuides gives the editor points found by the analysis (the balance point, the level hole) for
 // the pointer to snap to, as it does to centres.
 func (e *Editor) SetGuides(pts []geom.Point) { e.guides = append([]geom.Point(nil), pts...) }
@@ -246,6 +273,7 @@ func (e *Editor) setDoc(nd *sketch.Document) {
 	shown := e.inView(e.doc)
 	if k, ok := unitRatio(e.doc.Units, nd.Units); ok && k != 1 {
 		e.holeDia *= k
+		e.edge *= k
 		e.cornerRadius *= k
 		e.View.Scale /= k
 	}
@@ -330,6 +358,13 @@ func (e *Editor) Load(d *sketch.Document) {
 		e.holeDia = defaultHoleMM / u.MM
 	}
 	e.Fit()
+}
+
+// Restore makes d the part with no history before it, as when saved work is reopened: Undo has
+// nothing to take back, so it cannot empty the part.
+func (e *Editor) Restore(d *sketch.Document) {
+	e.Load(d)
+	e.undo, e.redo = nil, nil
 }
 
 // NewPart starts an empty part (an undoable step) in the same unit and material as the current one.

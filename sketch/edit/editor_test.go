@@ -248,7 +248,7 @@ func TestMoveWholeShapeAndHandle(t *testing.T) {
 	if e.Selection().Kind != SelShape {
 		t.Fatalf("selection kind %v, want a shape", e.Selection().Kind)
 	}
-	typeLine(e, "@-10,-10")
+	typeLine(e, "−10,-10")
 	if b := onlyOutline(t, e).Bounds(); !near(b.Min, geom.Pt(0, 0), 1e-9) {
 		t.Fatalf("typed move: bounds %v, want min (0,0)", b)
 	}
@@ -258,8 +258,8 @@ func TestOutlineFromTypedPoints(t *testing.T) {
 	e := newTestEditor()
 	e.SetTool(ToolOutline)
 	typeLine(e, "0,0")
-	typeLine(e, "@100,0")
-	typeLine(e, "50<90")
+	typeLine(e, "+100,+0")
+	typeLine(e, "50 at 90")
 	hover(e, geom.Pt(-30, 50))
 	typeLine(e, "100") // a bare length goes towards the pointer
 	e.Key("Enter", 0)

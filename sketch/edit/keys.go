@@ -35,6 +35,9 @@ var shortcuts = []struct {
 	{"Delete", "Delete the selection (also Backspace)", func(e *Editor) { e.Delete() }},
 	{"Enter", "Use the typed value; close the outline", func(e *Editor) { e.enter() }},
 	{"Escape", "Cancel the shape being drawn; clear the selection", func(e *Editor) { e.escape() }},
+	{"120,80", "Typed point x,y, then Enter; (−30,−40) for a point when both are negative", nil},
+	{"+120,−40", "Typed step from the last point: both numbers signed", nil},
+	{"250 at 30", "Typed length at an angle (degrees counter-clockwise from +x); also 250 ∠ 30", nil},
 	{"Arrows", "Nudge the selection one grid step (Shift: ten)", nil},
 	{"Alt", "Hold while moving: no snapping", nil},
 	{"Space", "Hold and drag to pan (or drag with the middle button); wheel or pinch zooms", nil},
@@ -97,7 +100,7 @@ func (e *Editor) typing(key string) bool {
 	if e.typed != "" {
 		return true
 	}
-	return strings.ContainsAny(key, "0123456789.-@")
+	return strings.ContainsAny(key, "0123456789.+-−(")
 }
 
 func (e *Editor) escape() {
@@ -195,7 +198,7 @@ func sign(v float64) float64 {
 	return 1
 }
 
-// moveSelection moves the selected point, hole or shape: to x,y, by @dx,dy, or a length towards the
+// moveSelection moves the selected point, hole or shape: to x,y, by +dx,+dy, or a length towards the
 // pointer. A shape moves by its anchor (a circle's centre, else its vertex nearest the pointer).
 func (e *Editor) moveSelection(t typed) {
 	if e.sel.Kind == SelNone {

@@ -264,3 +264,58 @@ func TestChangesOutOfSightAreFitted(t *testing.T) {
 		}
 	})
 }
+
+func TestPlaceHangHoleAddsThenMoves(t *testing.T) {
+	e := newTestEditor()
+	drawRect(e, geom.Pt(0, 0), geom.Pt(100, 60))
+	e.PlaceHangHole(geom.Pt(50, 50))
+	if h := e.Document().Holes; len(h) != 1 || h[0].At != geom.Pt(50, 50) || h[0].Diameter != defaultHoleMM {
+		t.Fatalf("holes after the first placing: %+v", h)
+	}
+	e.PlaceHangHole(geom.Pt(40, 45))
+	if h := e.Document().Holes; len(h) != 1 || h[0].At != geom.Pt(40, 45) {
+		t.Fatalf("holes after the second placing: %+v", h)
+	}
+	if !e.Undo() || e.Document().Holes[0].At != geom.Pt(50, 50) {
+		t.Fatal("undo did not put the hole back")
+	}
+}
+
+func TestEdgeDistanceKeepsItsSizeAcrossUnits(t *testing.T) {
+	e := newTestEditor()
+	drawRect(e, geom.Pt(0, 0), geom.Pt(100, 60))
+	if err := e.SetEdgeDistance(25.4); err != nil {
+		t.Fatal(err)
+	}
+	if err := e.SetUnits("in"); err != nil {
+		t.Fatal(err)
+	}
+	// 25.4 mm is 1 in exactly (international yard and pound, 1959).
+	if got := e.EdgeDistance(); math.Abs(got-1) > 1e-12 {
+		t.Errorf("edge distance %g in, want 1", got)
+	}
+	if e.SetEdgeDistance(-1) == nil {
+		t.Error("a negative edge distance was accepted")
+	}
+}
+
+func TestRestoreIsTheBottomOfTheHistory(t *testing.T) {
+	e := newTestEditor()
+	e.SetTool(ToolRect)
+	click(e, geom.Pt(0, 0))
+	click(e, geom.Pt(40, 30))
+	if !e.CanUndo() {
+		t.Fatal("drawing a rectangle cannot be undone")
+	}
+	d := sketch.NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(400, 300))}}
+	e.Restore(d)
+	if e.CanUndo() || e.CanRedo() || e.Undo() || e.Document() != d {
+		t.Fatalf("after Restore: can undo %v, can redo %v, part %p, want the restored %p with no history",
+			e.CanUndo(), e.CanRedo(), e.Document(), d)
+	}
+	e.NewPart()
+	if !e.Undo() || e.Document() != d {
+		t.Fatal("emptying a restored part cannot be undone")
+	}
+}

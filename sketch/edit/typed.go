@@ -10,45 +10,88 @@ import (
 	"plumb/geom"
 )
 
-// typed is a value typed while drawing: one to three numbers separated by commas ("120", "120,80",
-// "120,80,5"), each in the document unit or with its own unit ("2 in", "50mm"); a leading '@' makes a
-// coordinate pair relative to the last point; "length<angle" gives a length and a direction in
-// degrees counter-clockwise from +x.
+// typed is a value typed while drawing. Its forms:
+//
+//	120            a length: from the last point towards the pointer (or a radius, a width)
+//	120,80         a point x,y (or a rectangle's width and height; "120,80,5" adds the corner radius)
+//	+120,−40       a step from the last point: both numbers carry a sign ("−30,+0", "+0,+25")
+//	(−30,−40)      a point, in brackets: x,y even when both numbers carry a sign
+//	250 at 30      a length and a direction, degrees counter-clockwise from +x ("250 ∠ 30" alike)
+//
+// Each length is in the document unit or carries its own ("2 in", "50mm"); "−" (U+2212) and "-"
+// are both minus signs.
 type typed struct {
 	vals     []float64
 	relative bool
 	polar    bool // vals holds length and angle (degrees)
 }
 
+// typedHint lists the forms of a typed value, for messages.
+const typedHint = "type a length, x,y, +dx,+dy, or length at angle"
+
 // parseTyped reads s; docUnit is the document's length unit name.
 func parseTyped(s, docUnit string) (typed, error) {
-	s = strings.TrimSpace(s)
+	s = strings.TrimSpace(strings.ReplaceAll(s, "−", "-"))
 	var t typed
-	if rest, ok := strings.CutPrefix(s, "@"); ok {
-		t.relative, s = true, rest
+	var parts []string
+	if length, angle, ok := cutPolar(s); ok {
+		t.polar = true
+		parts = []string{strings.TrimPrefix(length, "+"), angle}
+	} else if inner, ok := bracketed(s); ok {
+		parts = strings.Split(inner, ",")
+	} else {
+		parts = strings.Split(s, ",")
+		t.relative = len(parts) == 2 && signed(parts[0]) && signed(parts[1])
 	}
-	sep := ","
-	if strings.Contains(s, "<") {
-		t.polar, sep = true, "<"
-	}
-	parts := strings.Split(s, sep)
-	if len(parts) > 3 || t.polar && len(parts) != 2 {
-		return typed{}, fmt.Errorf("type a length, x,y, or length<angle")
+	if len(parts) > 3 || t.polar && strings.Contains(s, ",") {
+		return typed{}, fmt.Errorf("%s", typedHint)
 	}
 	for i, p := range parts {
-		var v float64
-		var err error
-		if t.polar && i == 1 {
-			v, err = strconv.ParseFloat(strings.TrimSpace(p), 64)
-		} else {
-			v, err = parseLength(p, docUnit)
-		}
+		v, err := t.value(i, p, docUnit)
 		if err != nil {
 			return typed{}, fmt.Errorf("value %d: %v", i+1, err)
 		}
 		t.vals = append(t.vals, v)
 	}
 	return t, nil
+}
+
+// cutPolar splits "length at angle" or "length ∠ angle" (no length unit has "at" in its name).
+func cutPolar(s string) (length, angle string, ok bool) {
+	for _, sep := range []string{"∠", "at", "AT", "At"} {
+		if a, b, found := strings.Cut(s, sep); found {
+			return strings.TrimSpace(a), strings.TrimSpace(b), true
+		}
+	}
+	return "", "", false
+}
+
+// bracketed returns what is inside "(…)".
+func bracketed(s string) (string, bool) {
+	if strings.HasPrefix(s, "(") && strings.HasSuffix(s, ")") {
+		return s[1 : len(s)-1], true
+	}
+	return "", false
+}
+
+// signed reports whether a typed number starts with an explicit sign.
+func signed(s string) bool {
+	s = strings.TrimSpace(s)
+	return strings.HasPrefix(s, "+") || strings.HasPrefix(s, "-")
+}
+
+// value reads the i-th number: an angle in degrees (an optional "°" after it) for the second value of
+// a polar entry, else a length.
+func (t typed) value(i int, s, docUnit string) (float64, error) {
+	if !t.polar || i == 0 {
+		return parseLength(s, docUnit)
+	}
+	num := strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(s), "°"))
+	v, err := strconv.ParseFloat(num, 64)
+	if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
+		return 0, fmt.Errorf("the angle %q is not a number of degrees", strings.TrimSpace(s))
+	}
+	return v, nil
 }
 
 // parseLength reads a number with an optional unit suffix and returns it in the document unit.
@@ -77,8 +120,8 @@ func parseLength(s, docUnit string) (float64, error) {
 	return v * from.MM / to.MM, nil
 }
 
-// point returns the typed value as a point: x,y (absolute, or relative to last when it started with
-// '@'), length<angle from last, or a bare length from last towards toward.
+// point returns the typed value as a point: x,y, a step +dx,+dy from last, a length at an angle from
+// last, or a bare length from last towards toward.
 func (t typed) point(last, toward geom.Point, haveLast bool) (geom.Point, error) {
 	switch {
 	case t.polar:

@@ -61,7 +61,10 @@ func newReport(p Part) (*report, error) {
 func (d *drawing) results() section {
 	a := d.Analysis
 	mm2 := d.mm * d.mm
-	m2 := mm2 * 1e-6 // (m per unit)²: second moments in kg·m²
+	m2, iu := mm2*1e-6, "kg·m²" // (m per unit)²: second moments in kg·m²
+	if a.NoMaterial {
+		m2, iu = mm2*mm2*1e-12, "m⁴ (per unit areal density)" // (m per unit)⁴
+	}
 	rows := []row{
 		{"Material", d.material},
 	}
@@ -70,11 +73,11 @@ func (d *drawing) results() section {
 	}
 	rows = append(rows,
 		row{"Area", fmt.Sprintf("%.6g m² (%.4g ft²)", a.Area*mm2*1e-6, a.Area*mm2/(304.8*304.8))},
-		row{"Mass", massText(a.Mass)},
-		row{"Weight", weightText(a.WeightN, a.WeightLbf)},
+		row{"Mass", massOf(a)},
+		row{"Weight", weightOf(a)},
 		row{"Balance point (x, y)", point(a.Centroid, d.mm)},
-		row{"Ixx, Iyy, Ixy about the balance point", fmt.Sprintf("%.4g, %.4g, %.4g kg·m²", a.Ixx*m2, a.Iyy*m2, rounded(a.Ixy, a.Ixx+a.Iyy)*m2)},
-		row{"Principal I1, I2", fmt.Sprintf("%.4g, %.4g kg·m², axis of I1 at %.1f°", a.I1*m2, a.I2*m2, a.AngleDeg)},
+		row{"Ixx, Iyy, Ixy about the balance point", fmt.Sprintf("%.4g, %.4g, %.4g %s", a.Ixx*m2, a.Iyy*m2, rounded(a.Ixy, a.Ixx+a.Iyy)*m2, iu)},
+		row{"Principal I1, I2", fmt.Sprintf("%.4g, %.4g %s, axis of I1 at %.1f°", a.I1*m2, a.I2*m2, iu, a.AngleDeg)},
 		row{"Radii of gyration kx, ky", fmt.Sprintf("%.1f, %.1f mm", a.Kx*d.mm, a.Ky*d.mm)},
 		row{"Error estimate", errorText(a)},
 	)
@@ -122,7 +125,11 @@ func (d *drawing) hang() section {
 // chains tabulates the loads on two chains (computed by sketch.TwoChains with the lever rule).
 func (d *drawing) chains() section {
 	l := d.Lift
+	noMaterial := d.Analysis.NoMaterial
 	load := func(n float64) string {
+		if noMaterial {
+			return "force " + unknownMass
+		}
 		return fmt.Sprintf("%.3g N (%.3g lbf, %.3g kg)", n, n/newtonsPerLbf, n/g0)
 	}
 	title := "Two chains, vertical"
@@ -131,7 +138,7 @@ func (d *drawing) chains() section {
 	}
 	s := section{title: title}
 	for i, c := range l.Chains {
-		v := fmt.Sprintf("%s · hole Ø %.1f mm at %s", load(c.Vertical), l.Diameter*d.mm, point(c.At, d.mm))
+		v := fmt.Sprintf("%.1f %% of the weight, %s · hole Ø %.1f mm at %s", 100*c.Share, load(c.Vertical), l.Diameter*d.mm, point(c.At, d.mm))
 		s.rows = append(s.rows, row{fmt.Sprintf("Chain %d, vertical share", i+1), v})
 		if l.LegDeg < 90 {
 			s.rows = append(s.rows, row{fmt.Sprintf("Chain %d, tension in the leg", i+1), load(c.Tension)})
@@ -194,8 +201,11 @@ func (d *drawing) legs() []leg {
 		if i == 1 {
 			lean = -1
 		}
-		out = append(out, leg{from: ch.At, to: ch.At.Add(geom.Pt(lean*c*n, s*n)),
-			label: fmt.Sprintf("%.3g N", ch.Tension)})
+		label := fmt.Sprintf("%.3g N", ch.Tension)
+		if d.Analysis.NoMaterial {
+			label = fmt.Sprintf("%.1f %%", 100*ch.Share)
+		}
+		out = append(out, leg{from: ch.At, to: ch.At.Add(geom.Pt(lean*c*n, s*n)), label: label})
 	}
 	return out
 }

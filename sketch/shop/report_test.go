@@ -12,6 +12,7 @@ import (
 	"strings"
 	"testing"
 
+	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch"
 )
@@ -90,6 +91,27 @@ func TestReportChains(t *testing.T) {
 	}
 	if strings.Contains(md, "## Hanging") {
 		t.Error("a report on two chains has a single-hole hang section")
+	}
+}
+
+// TestReportNoMaterial reports the blade sign on two chains without a material: the shape's figures
+// and the chains' shares are there, mass, weight and forces say they are unknown.
+func TestReportNoMaterial(t *testing.T) {
+	d := bladeSign()
+	d.Material = density.Spec{}
+	l, err := sketch.TwoChains(d, geom.Pt(100, 280), geom.Pt(500, 280), 8, 60, sketch.HangOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	md := markdown(t, Part{Doc: d, Analysis: l.Part, Lift: l, Date: testDate})
+	for _, want := range []string{"| Material | none given", "| Mass | unknown (no material given) |",
+		"| Weight | unknown", "m⁴ (per unit areal density)", "% of the weight, force unknown", "no material given"} {
+		if !strings.Contains(md, want) {
+			t.Errorf("report lacks %q", want)
+		}
+	}
+	if strings.Contains(md, " kg (") || strings.Contains(md, "kg·m²") {
+		t.Error("a report without a material gives a mass or mass moments")
 	}
 }
 

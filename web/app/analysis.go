@@ -17,6 +17,7 @@ import (
 // result is the analysis of one revision of the part: what the canvas draws and the page shows.
 type result struct {
 	rev     int
+	edge    float64 // the edge distance asked for (0: the default rule)
 	doc     *sketch.Document
 	a       *sketch.Analysis
 	err     error           // the part cannot be analysed: this says why
@@ -30,14 +31,16 @@ type result struct {
 	// The level-hole search takes several analyses, so it waits until a drag ends.
 	level     *sketch.Level // the level-hang hole suggestion
 	levelDia  float64       // hole diameter it was found for
+	levelEdge float64       // edge distance it was found for (0: the default rule)
 	levelDone bool
 	levelMS   float64
 }
 
-// analyse runs the analysis and the hang from the first hole on doc, and measures how long they took.
-func analyse(doc *sketch.Document, rev int) *result {
+// analyse runs the analysis and the hang from the first hole on doc, keeping edge distance edge (0: the
+// default rule), and measures how long they took.
+func analyse(doc *sketch.Document, rev int, edge float64) *result {
 	start := time.Now()
-	r := &result{rev: rev, doc: doc}
+	r := &result{rev: rev, doc: doc, edge: edge}
 	r.a, r.err = sketch.Analyze(doc, sketch.AnalyzeOptions{})
 	// An analysis that succeeded has checked the geometry already.
 	sound := r.a != nil || geometrySound(doc)
@@ -55,19 +58,33 @@ func analyse(doc *sketch.Document, rev int) *result {
 	r.flagged = flaggedSegments(doc, r)
 	if r.err == nil && len(doc.Holes) > 0 {
 		h := doc.Holes[0]
-		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{Whole: r.a})
+		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{Whole: r.a, Edge: edge})
 	}
 	r.ms = float64(time.Since(start).Microseconds()) / 1000
 	return r
 }
 
-// findLevel searches for the hole of diameter dia that hangs the part level. The part must have been
-// analysed without error.
-func (r *result) findLevel(dia float64) {
+// findLevel searches for the hole of diameter dia, edge distance edge, that hangs the part level. The
+// part must have been analysed without error.
+func (r *result) findLevel(dia, edge float64) {
 	start := time.Now()
-	r.levelDia, r.levelDone = dia, true
-	r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{})
+	r.levelDia, r.levelEdge, r.levelDone = dia, edge, true
+	r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{Edge: edge})
 	r.levelMS = float64(time.Since(start).Microseconds()) / 1000
+}
+
+// suggested returns where the page's one click puts the hang hole: the level-hang hole, else the
+// least-tilt position, if the search has found either.
+func (r *result) suggested() (geom.Point, bool) {
+	switch lv := r.level; {
+	case lv == nil:
+		return geom.Point{}, false
+	case lv.Hang != nil:
+		return lv.At, true
+	case len(lv.Alternatives) > 0:
+		return lv.Alternatives[0].At, true
+	}
+	return geom.Point{}, false
 }
 
 // geometrySound reports whether every region of doc passes geom's checks, so that its material can
@@ -155,8 +172,25 @@ type levelState struct {
 	Diameter float64 `json:"diameter"`
 }
 
+// tiltState is one of the state object's "least_tilt" positions: where no hole hangs the part level,
+// the hole on one side of the balance point that tilts it least.
+type tiltState struct {
+	X        float64 `json:"x"`
+	Y        float64 `json:"y"`
+	AngleDeg float64 `json:"angle_deg"`
+}
+
+// edgeState is the state object's "edge": the edge distance hang holes keep, in document units, where
+// it comes from, and whether it was asked for (else it is the common-practice default).
+type edgeState struct {
+	Min    float64 `json:"min"`
+	Source string  `json:"source"`
+	Asked  bool    `json:"asked"`
+}
+
 // stateJSON returns the object window.plumb.state() gives: the keys of `plumb analyze --format json`
-// for the part, plus the hang, the level hole, timings, the material, weights, cautions, an error
+// for the part, plus the hang, the level hole, timings, the material (no_material when the part has
+// none, and mass and weights are then null), weights, cautions, an error
 // when the part cannot be analysed, and the editor's tool, target and undo state.
 func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m := map[string]any{}
@@ -165,6 +199,10 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 		b, _ := json.Marshal(rep.Summary())
 		_ = json.Unmarshal(b, &m)
 		m["weight_n"], m["weight_lbf"] = r.a.WeightN, r.a.WeightLbf
+		if r.a.NoMaterial {
+			m["weight_n"], m["weight_lbf"] = nil, nil
+		}
+		m["no_material"] = r.a.NoMaterial
 		if len(r.a.Materials) > 0 {
 			m["material"], m["overlay_materials"] = r.a.Materials[0], r.a.Materials[1:]
 		}
@@ -176,7 +214,8 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 		}
 		m["warnings"] = []string{}
 	}
-	m["hang"], m["level"] = nil, nil
+	m["hang"], m["level"], m["least_tilt"] = nil, nil, []tiltState{}
+	m["level_pending"] = r.err == nil && !r.levelDone
 	if h := r.hang; h != nil {
 		m["hang"] = hangState{xy{h.At.X, h.At.Y}, h.Diameter, h.AngleDeg, h.TiltPerMM, h.PeriodS, h.Arm}
 	}
@@ -188,6 +227,11 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 		if lv.Hang != nil {
 			m["level"] = levelState{lv.At.X, lv.At.Y, lv.Diameter}
 		}
+		alts := []tiltState{}
+		for _, h := range lv.Alternatives {
+			alts = append(alts, tiltState{h.At.X, h.At.Y, h.AngleDeg})
+		}
+		m["least_tilt"] = alts
 		if len(r.doc.Holes) == 0 {
 			for _, w := range lv.Warnings {
 				warnings = append(warnings, w)
@@ -203,6 +247,35 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m["tool"], m["target"] = ed.Tool().String(), ed.Target().String()
 	m["arc"], m["can_undo"], m["can_redo"] = ed.ArcMode(), ed.CanUndo(), ed.CanRedo()
 	m["hole_diameter"], m["corner_radius"] = ed.HoleDiameter(), ed.CornerRadius()
-	b, _ := json.Marshal(m)
+	if min, source, err := r.doc.EdgeRule(ed.HoleDiameter(), sketch.HangOptions{Edge: ed.EdgeDistance()}); err == nil {
+		m["edge"] = edgeState{min, source, ed.EdgeDistance() > 0}
+	}
+	m["part"], m["empty"] = partFacts(r.doc), isEmpty(r.doc)
+	b, err := json.Marshal(m)
+	if err != nil { // a number that is not finite: say so rather than hand the page nothing
+		b, _ = json.Marshal(map[string]any{"file": file, "error": "the results cannot be shown: a result is not a finite number",
+			"warnings": []string{}, "cautions": sketch.Cautions()})
+	}
 	return b
+}
+
+// partFacts is the state object's "part": the part's name and material as its part file gives them,
+// for the panel's fields, so that the page needs no part file after every edit.
+func partFacts(d *sketch.Document) map[string]any {
+	s := d.Material
+	spec := map[string]any{}
+	for k, v := range map[string]string{"material": s.Material, "thickness": s.Thickness, "formula": s.Formula, "unit": s.Unit} {
+		if v != "" {
+			spec[k] = v
+		}
+	}
+	if len(s.Params) > 0 {
+		spec["params"] = s.Params
+	}
+	return map[string]any{"name": d.Name, "material": spec}
+}
+
+// isEmpty reports whether the part has nothing drawn: no outline, cut-out, doubler or hole.
+func isEmpty(d *sketch.Document) bool {
+	return len(d.Outline.Loops) == 0 && len(d.Cutouts) == 0 && len(d.Overlays) == 0 && len(d.Holes) == 0
 }

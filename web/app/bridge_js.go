@@ -4,6 +4,7 @@ package main
 
 import (
 	"bytes"
+	"cmp"
 	"errors"
 	"fmt"
 	"maps"
@@ -15,11 +16,14 @@ import (
 	"plumb/sketch"
 	"plumb/sketch/edit"
 	"plumb/sketch/shop"
+	"plumb/sketch/svg"
 )
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
 //
 //	load(text, filename) → {ok, error, warnings}   a part file (JSON) or an SVG drawing
+//	restore(text, filename) → like load, for saved work: the part is the bottom of the undo history
+//	frames() → {drawn, last_ms}   frames painted so far, and performance.now() at the last one
 //	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
 //	exportSVG() → string    the part 1:1 in millimetres
 //	saveJSON() → string     the part file
@@ -29,16 +33,28 @@ import (
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
 //	setCornerRadius(r) (new rectangles, document units) → {ok, error}
+//	setDefaults({units, material}) → {ok, error}   the choices kept from an earlier visit
+//	setEdgeDistance(e) (document units, 0: the common-practice rule) → {ok, error}
+//	placeSuggestedHole() → {ok, error}   the hang hole at the level-hang (else least-tilt) position
 //	shortcuts() → [{key, action}]
 //
-// After every change it calls window.plumbUI.onChange(state, partJSON).
+// After every change it calls window.plumbUI.onChange(state); the page autosaves through saveJSON when
+// the edits pause.
 func installBridge(g *Game) {
 	obj := js.Global().Get("Object").New()
 	fn := func(name string, f func(args []js.Value) any) {
 		obj.Set(name, js.FuncOf(func(_ js.Value, args []js.Value) any { return f(args) }))
 	}
 	fn("load", func(a []js.Value) any {
-		return g.change(func() any { return g.load(str(a, 0), str(a, 1)) })
+		return g.change(func() any { return g.load(str(a, 0), str(a, 1), false) })
+	})
+	fn("restore", func(a []js.Value) any {
+		return g.change(func() any { return g.load(str(a, 0), str(a, 1), true) })
+	})
+	fn("frames", func([]js.Value) any {
+		g.mu.Lock()
+		defer g.mu.Unlock()
+		return map[string]any{"drawn": g.frames.drawn, "last_ms": g.frames.lastMS}
 	})
 	fn("state", func([]js.Value) any {
 		g.mu.Lock()
@@ -66,15 +82,22 @@ func installBridge(g *Game) {
 	fn("undo", func([]js.Value) any { return g.change(func() any { return g.ed.Undo() }) })
 	fn("redo", func([]js.Value) any { return g.change(func() any { return g.ed.Redo() }) })
 	fn("newPart", func([]js.Value) any {
-		return g.change(func() any { g.ed.NewPart(); g.file = "part.json"; g.needFit = true; return nil })
+		return g.change(func() any { g.newPart(); return nil })
 	})
 	fn("fit", func([]js.Value) any {
 		return g.change(func() any { g.fit(); return nil })
 	})
 	fn("setMaterial", func(a []js.Value) any { return g.change(func() any { return g.setMaterial(arg(a, 0)) }) })
 	fn("setUnits", func(a []js.Value) any {
-		return g.change(func() any { return outcome(g.ed.SetUnits(str(a, 0))) })
+		return g.change(func() any {
+			err := g.ed.SetUnits(str(a, 0))
+			if err == nil {
+				g.chosen.units = str(a, 0)
+			}
+			return outcome(err)
+		})
 	})
+	fn("setDefaults", func(a []js.Value) any { return g.change(func() any { return g.setDefaults(arg(a, 0)) }) })
 	fn("setTool", func(a []js.Value) any {
 		return g.change(func() any {
 			t, err := edit.ParseTool(str(a, 0))
@@ -112,6 +135,27 @@ func installBridge(g *Game) {
 			return outcome(nil)
 		})
 	})
+	fn("setEdgeDistance", func(a []js.Value) any {
+		return g.change(func() any {
+			v := arg(a, 0)
+			if v.Type() != js.TypeNumber {
+				return outcome(fmt.Errorf("edge distance must be a number"))
+			}
+			return outcome(g.ed.SetEdgeDistance(v.Float()))
+		})
+	})
+	fn("placeSuggestedHole", func([]js.Value) any {
+		return g.change(func() any {
+			g.refresh()
+			g.refreshLevel()
+			at, ok := g.res.suggested()
+			if !ok {
+				return outcome(errors.New("no hole position found yet: the part must be sound and have material above its balance point or beside it"))
+			}
+			g.ed.PlaceHangHole(at)
+			return outcome(nil)
+		})
+	})
 	fn("shortcuts", func([]js.Value) any {
 		var out []any
 		for _, s := range edit.Shortcuts() {
@@ -122,15 +166,17 @@ func installBridge(g *Game) {
 	js.Global().Set("plumb", obj)
 }
 
-// change runs f on the editor, reanalyses and tells the page, and returns f's result.
+// change runs f on the editor, reanalyses and tells the page, and returns f's result. The canvas is
+// painted on the next frame.
 func (g *Game) change(f func() any) any {
 	g.mu.Lock()
 	v := f()
+	g.dirty = true
 	g.refresh()
-	state, part, tell := g.pending()
+	state, tell := g.pending()
 	g.mu.Unlock()
 	if tell {
-		tellChange(state, part)
+		tellChange(state)
 	}
 	return v
 }
@@ -165,8 +211,10 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part.
-func (g *Game) load(text, name string) any {
+// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// came with a material (has_material), so that the page can give a drawing without one the panel's.
+// Restored saved work starts the undo history, so that Undo cannot empty it.
+func (g *Game) load(text, name string, restored bool) any {
 	var (
 		doc      *sketch.Document
 		warnings []string
@@ -174,14 +222,21 @@ func (g *Game) load(text, name string) any {
 	)
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
-		doc, warnings, err = sketch.ReadSVG([]byte(text), sketch.SVGOptions{Name: base})
+		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
+		if err == nil {
+			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
+		}
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
 	if err != nil {
 		return map[string]any{"ok": false, "error": err.Error(), "warnings": []any{}}
 	}
-	g.ed.Load(doc)
+	if restored {
+		g.ed.Restore(doc)
+	} else {
+		g.ed.Load(doc)
+	}
 	if name != "" {
 		g.file = name
 	}
@@ -193,13 +248,64 @@ func (g *Game) load(text, name string) any {
 	for i, w := range warnings {
 		out[i] = w
 	}
-	return map[string]any{"ok": true, "error": "", "warnings": out}
+	return map[string]any{"ok": true, "error": "", "warnings": out, "has_material": doc.HasMaterial()}
 }
 
-// setMaterial checks the material spec the panel sends and, when it is sound, gives it to the part.
+// setMaterial checks the material spec the panel sends and, when it is sound, gives it to the part and
+// remembers it as the one chosen last.
 func (g *Game) setMaterial(v js.Value) any {
+	spec, bad := g.specFrom(v)
+	if bad != nil {
+		return bad
+	}
+	g.chosen.spec, g.chosen.haveSpec = spec, true
+	if !sameSpec(spec, g.ed.Document().Material) {
+		g.ed.SetMaterial(spec)
+	}
+	return map[string]any{"ok": true, "error": nil}
+}
+
+// setDefaults takes the units and material chosen last ({units, material: {material, thickness} |
+// {formula, unit, params}}, either may be missing), as the page kept them from an earlier visit: a
+// new part starts with them.
+func (g *Game) setDefaults(v js.Value) any {
 	if v.Type() != js.TypeObject {
-		return materialError("", 0, "expected {material, thickness} or {formula, unit, params}")
+		return outcome(errors.New("expected {units, material}"))
+	}
+	if u := v.Get("units"); u.Type() == js.TypeString {
+		if _, err := density.LengthUnit(u.String()); err != nil {
+			return outcome(err)
+		}
+		g.chosen.units = u.String()
+	}
+	if m := v.Get("material"); m.Type() == js.TypeObject {
+		spec, bad := g.specFrom(m)
+		if bad != nil {
+			return outcome(errors.New("the material kept from last time is not valid"))
+		}
+		g.chosen.spec, g.chosen.haveSpec = spec, true
+	}
+	return outcome(nil)
+}
+
+// newPart starts an empty part in the units and material chosen last (else the current part's).
+func (g *Game) newPart() {
+	d := sketch.NewDocument()
+	d.Units = cmp.Or(g.chosen.units, g.ed.Document().Units)
+	d.Material = g.ed.Document().Material
+	if g.chosen.haveSpec {
+		d.Material = g.chosen.spec
+	}
+	g.ed.Load(edit.Clone(d))
+	g.file = "part.json"
+	g.needFit = true
+}
+
+// specFrom reads a material spec object from the page and checks it against the part's unit; a bad
+// one gives the {ok, error: {field, col, msg}} answer.
+func (g *Game) specFrom(v js.Value) (density.Spec, any) {
+	if v.Type() != js.TypeObject {
+		return density.Spec{}, materialError("", 0, "expected {material, thickness} or {formula, unit, params}")
 	}
 	field := func(name string) string {
 		if f := v.Get(name); f.Type() == js.TypeString {
@@ -207,15 +313,14 @@ func (g *Game) setMaterial(v js.Value) any {
 		}
 		return ""
 	}
-	cur := g.ed.Document().Material
 	spec := density.Spec{Material: field("material"), Thickness: field("thickness"), Formula: field("formula"),
-		Unit: field("unit"), Custom: cur.Custom}
+		Unit: field("unit"), Custom: g.ed.Document().Material.Custom}
 	if p := v.Get("params"); p.Type() == js.TypeObject {
 		keys := js.Global().Get("Object").Call("keys", p)
 		for i := range keys.Length() {
 			k := keys.Index(i).String()
 			if p.Get(k).Type() != js.TypeNumber {
-				return materialError("params", 0, fmt.Sprintf("parameter %q must be a number", k))
+				return spec, materialError("params", 0, fmt.Sprintf("parameter %q must be a number", k))
 			}
 			if spec.Params == nil {
 				spec.Params = map[string]float64{}
@@ -230,14 +335,11 @@ func (g *Game) setMaterial(v js.Value) any {
 	if _, err := spec.Field(unit); err != nil {
 		var fe *density.FieldError
 		if errors.As(err, &fe) {
-			return materialError(fe.Field, fe.Col, fe.Msg)
+			return spec, materialError(fe.Field, fe.Col, fe.Msg)
 		}
-		return materialError("", 0, err.Error())
+		return spec, materialError("", 0, err.Error())
 	}
-	if !sameSpec(spec, cur) {
-		g.ed.SetMaterial(spec)
-	}
-	return map[string]any{"ok": true, "error": nil}
+	return spec, nil
 }
 
 func materialError(field string, col int, msg string) any {
@@ -251,7 +353,7 @@ func sameSpec(a, b density.Spec) bool {
 
 // exportSVG returns the part as a 1:1 SVG with the balance point and hang marked.
 func (g *Game) exportSVG() string {
-	b, err := sketch.WriteSVG(g.ed.Document(), g.res.a, g.res.hang)
+	b, err := svg.Write(g.ed.Document(), g.res.a, g.res.hang)
 	if err != nil {
 		js.Global().Get("console").Call("error", "plumb: export SVG: "+err.Error())
 		return ""

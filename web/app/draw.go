@@ -65,16 +65,18 @@ type frame struct {
 	doc  *sketch.Document
 }
 
-// Draw draws the canvas. It changes nothing.
+// Draw paints the canvas when something on it changed since the last painted frame, and otherwise
+// leaves that frame on screen. It changes nothing the page sees.
 func (g *Game) Draw(screen *ebiten.Image) {
 	g.mu.Lock()
 	defer g.mu.Unlock()
+	if !g.dirty {
+		return
+	}
+	g.dirty = false
 	fr := &frame{g: g, p: painter{dst: screen}, v: g.ed.View, u: g.dpr, w: float64(g.w), h: float64(g.h),
 		f: g.fonts.facesFor(g.dpr), res: g.res, doc: g.ed.Document()}
-	screen.Fill(colBackground)
-	fr.grid()
-	fr.ghost()
-	fr.part()
+	fr.base(screen)
 	fr.holes()
 	fr.level()
 	fr.plumbLine()
@@ -89,6 +91,51 @@ func (g *Game) Draw(screen *ebiten.Image) {
 	fr.scaleBar()
 	fr.emptyHint()
 	fr.status()
+	g.drawnRes = g.res
+	g.frames.drawn++
+	g.frames.lastMS = nowMS()
+}
+
+// partLayer keeps the background, grid, hanging ghost and part (fill, doublers and edges) painted for
+// one part, analysis and view, so that frames that change only the marks over it (the pointer, a
+// hover, a typed value) do not flatten and fill every curve again.
+type partLayer struct {
+	img *ebiten.Image
+	key layerKey
+}
+
+// layerKey is what the part layer shows: it is painted again when any of it changes.
+type layerKey struct {
+	res  *result
+	doc  *sketch.Document
+	view edit.View
+	w, h int
+	u    float64
+}
+
+// base draws the part layer onto the screen, painting it first if it is out of date.
+func (fr *frame) base(screen *ebiten.Image) {
+	l := &fr.g.layer
+	if l.img != nil && l.img.Bounds().Size() != screen.Bounds().Size() {
+		l.img.Deallocate()
+		l.img = nil
+	}
+	if l.img == nil {
+		l.img = ebiten.NewImageWithOptions(screen.Bounds(), nil)
+		l.key = layerKey{}
+	}
+	key := layerKey{fr.res, fr.doc, fr.v, fr.g.w, fr.g.h, fr.u}
+	if key != l.key {
+		l.key = key
+		fr.p.dst = l.img
+		l.img.Fill(colBackground)
+		fr.grid()
+		fr.origin()
+		fr.ghost()
+		fr.part()
+		fr.p.dst = screen
+	}
+	screen.DrawImage(l.img, nil)
 }
 
 func (fr *frame) screen(p geom.Point) geom.Point { return fr.v.ToScreen(p) }
@@ -140,14 +187,29 @@ func (fr *frame) grid() {
 	major := fr.v.GridStep(edit.GridPixels * 5 * fr.u)
 	lo, hi := fr.v.ToDoc(geom.Pt(0, fr.h)), fr.v.ToDoc(geom.Pt(fr.w, 0))
 	one := math.Max(1, math.Round(fr.u))
-	for x := math.Ceil(lo.X/step) * step; x <= hi.X; x += step {
+	for x := range edit.GridLines(lo.X, hi.X, step) {
 		sx := math.Round(fr.screen(geom.Pt(x, 0)).X)
 		fr.p.rect(sx, 0, one, fr.h, gridColour(x, major, step))
 	}
-	for y := math.Ceil(lo.Y/step) * step; y <= hi.Y; y += step {
+	for y := range edit.GridLines(lo.Y, hi.Y, step) {
 		sy := math.Round(fr.screen(geom.Pt(0, y)).Y)
 		fr.p.rect(0, sy, fr.w, one, gridColour(y, major, step))
 	}
+}
+
+// origin marks the drawing's own origin (0, 0), from which positions and density formulas are
+// measured: a ring with short arms along +x and +y and the label "0,0".
+func (fr *frame) origin() {
+	u := fr.u
+	o := fr.screen(geom.Pt(0, 0))
+	if o.X < -20*u || o.Y < -20*u || o.X > fr.w+20*u || o.Y > fr.h+20*u {
+		return
+	}
+	arm := 18 * u
+	fr.p.line(o, o.Add(geom.Pt(arm, 0)), 1.5*u, colInkSoft)
+	fr.p.line(o, o.Add(geom.Pt(0, -arm)), 1.5*u, colInkSoft)
+	fr.p.circle(o, 4*u, 1.5*u, colInkSoft)
+	drawText(fr.p.dst, "0,0", fr.f.small, o.X+6*u, o.Y+4*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
 }
 
 func gridColour(v, major, step float64) color.Color {
@@ -236,17 +298,35 @@ func (fr *frame) holes() {
 	}
 }
 
-// level draws the suggested level-hang hole, unless the hang hole is already there.
+// level draws the suggested level-hang hole, unless the hang hole is already there; where no hole
+// hangs the part level, it draws the least-tilt positions instead, each with its tilt.
 func (fr *frame) level() {
 	lv := fr.res.level
-	if lv == nil || lv.Hang == nil {
+	if lv == nil || fr.res.doc != fr.doc {
 		return
 	}
-	if hs := fr.doc.Holes; len(hs) > 0 && hs[0].At.Dist(lv.At)*fr.v.Scale < 1 {
+	if lv.Hang != nil {
+		fr.suggestion(lv.At, lv.Diameter, "drill here to hang level", 0)
 		return
 	}
-	c := fr.screen(lv.At)
-	r := math.Max(lv.Diameter/2*fr.v.Scale, 5*fr.u)
+	for i, h := range lv.Alternatives {
+		label := "least tilt: " + tiltText(h.AngleDeg)
+		if i > 0 {
+			label = "other side: " + tiltText(h.AngleDeg)
+		}
+		fr.suggestion(h.At, h.Diameter, label, i)
+	}
+}
+
+// suggestion draws a suggested hole position as a dashed ring with a cross, labelled above the part
+// (clear of its edge) with a leader down to the mark, unless the hang hole is already there. Labels
+// of later suggestions (row 1, 2, ...) stand a line further out, so that none covers another.
+func (fr *frame) suggestion(at geom.Point, dia float64, label string, row int) {
+	if hs := fr.doc.Holes; len(hs) > 0 && hs[0].At.Dist(at)*fr.v.Scale < 1 {
+		return
+	}
+	c := fr.screen(at)
+	r := math.Max(dia/2*fr.v.Scale, 5*fr.u)
 	var ring []geom.Point
 	for i := 0; i <= 48; i++ {
 		a := 2 * math.Pi * float64(i) / 48
@@ -256,13 +336,19 @@ func (fr *frame) level() {
 	arm := r + 5*fr.u
 	fr.p.line(c.Add(geom.Pt(-arm, 0)), c.Add(geom.Pt(arm, 0)), fr.u, colLevel)
 	fr.p.line(c.Add(geom.Pt(0, -arm)), c.Add(geom.Pt(0, arm)), fr.u, colLevel)
-	// Written on the side away from the hang hole, whose marks are often close by.
-	const label = "drill here to hang level"
-	if hs := fr.doc.Holes; len(hs) > 0 && fr.screen(hs[0].At).X < c.X {
-		fr.besideMark(label, fr.f.small, c, arm+6*fr.u, 0, colLevel)
-		return
+	// Above the part's top edge when there is room below the tool bar, else below the mark.
+	_, th := textSize(label, fr.f.small)
+	line := float64(row) * (th + 10*fr.u)
+	y := fr.screen(geom.Pt(0, fr.res.body.Bounds().Max.Y)).Y - th/2 - 14*fr.u - line
+	if y-th < fr.g.page.Top+4*fr.u || y > c.Y {
+		y = c.Y + arm + th/2 + 10*fr.u + line
+		fr.p.line(c.Add(geom.Pt(0, arm)), geom.Pt(c.X, y-th/2-2*fr.u), fr.u, colLevel)
+	} else {
+		fr.p.dashed([]geom.Point{geom.Pt(c.X, y+th/2+2*fr.u), c.Add(geom.Pt(0, -arm))}, fr.u, 3*fr.u, 2*fr.u, colLevel)
 	}
-	fr.pill(label, fr.f.small, c.X-arm-6*fr.u, c.Y, alignRightMiddle, colLevel)
+	w, _ := textSize(label, fr.f.small)
+	x := math.Min(math.Max(c.X, rulerLeft*fr.u+w/2+12*fr.u), fr.w-fr.g.page.Right-w/2-12*fr.u)
+	fr.pill(label, fr.f.small, x, y, alignCentreMiddle, colLevel)
 }
 
 // plumbLine draws the plumb line from the hang hole straight down through the balance point of the
@@ -546,7 +632,7 @@ func (fr *frame) rulers() {
 	step := fr.g.ed.GridStep()
 	major := fr.v.GridStep(edit.GridPixels * 5 * u)
 	lo, hi := fr.v.ToDoc(geom.Pt(0, fr.h)), fr.v.ToDoc(geom.Pt(fr.w, 0))
-	for x := math.Ceil(lo.X/step) * step; x <= hi.X; x += step {
+	for x := range edit.GridLines(lo.X, hi.X, step) {
 		sx := fr.screen(geom.Pt(x, 0)).X
 		if sx < lw {
 			continue
@@ -559,7 +645,7 @@ func (fr *frame) rulers() {
 		}
 		fr.p.rect(math.Round(sx), fr.h-bh, u, tick, colInkSoft)
 	}
-	for y := math.Ceil(lo.Y/step) * step; y <= hi.Y; y += step {
+	for y := range edit.GridLines(lo.Y, hi.Y, step) {
 		sy := fr.screen(geom.Pt(0, y)).Y
 		if sy > fr.h-bh {
 			continue
@@ -599,8 +685,8 @@ func (fr *frame) scaleBar() {
 
 // toolHints describe each tool in a line at the bottom of the canvas.
 var toolHints = map[edit.Tool]string{
-	edit.ToolSelect:  "Select: drag points, curve handles, shapes and holes · Delete removes · type x,y or @dx,dy and Enter to move",
-	edit.ToolOutline: "Outline: click points · drag to pull a curve · A arcs on/off · click the first point or Enter to close · type x,y  @dx,dy  length  length<angle",
+	edit.ToolSelect:  "Select: drag inside a shape to move it, or drag its points, curve handles and holes · Space-drag pans · Delete removes · type x,y or +dx,+dy and Enter to move",
+	edit.ToolOutline: "Outline: click points · drag to pull a curve · A arcs on/off · click the first point or Enter to close · type x,y  +dx,+dy  length  length at angle",
 	edit.ToolRect:    "Rectangle: drag, or click two corners · type w,h or w,h,r (corner radius) and Enter",
 	edit.ToolCircle:  "Circle: click the centre, then the rim · type the radius and Enter",
 	edit.ToolSlot:    "Slot: click both end centres, then the width · type a length, then the width",

@@ -8,6 +8,7 @@ import (
 
 	"github.com/hajimehoshi/ebiten/v2"
 
+	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch/edit"
 )
@@ -28,8 +29,31 @@ type Game struct {
 	autoFit bool        // the view is a fit the user has not touched since: it follows resizes
 	page    edit.Insets // canvas edges the page's toolbar and panel cover, device pixels
 
+	chosen choice // the units and material the user chose last
+
 	ready     bool // window.plumbUI.ready has been called
 	toldState uiState
+
+	// The canvas is painted only when something it shows changed: Draw leaves the last frame on
+	// screen otherwise (the screen is not cleared between frames), so an idle page does no drawing.
+	dirty    bool
+	drawnRes *result // the analysis the last painted frame showed
+	layer    partLayer
+	frames   frameStats
+}
+
+// frameStats counts the painted frames, for the page's measurements (plumb.frames()).
+type frameStats struct {
+	drawn  int     // frames painted since the start
+	lastMS float64 // performance.now() when the last one was painted
+}
+
+// choice is the units and material the user chose last, for a new part and for a drawing that gives
+// no material.
+type choice struct {
+	units    string
+	spec     density.Spec
+	haveSpec bool
 }
 
 // uiState is what the page shows beside the analysis: it is told again when any of it changes.
@@ -40,13 +64,14 @@ type uiState struct {
 	arc        bool
 	undo, redo bool
 	holeDia    float64
+	edge       float64
 	radius     float64
 	level      bool // the level-hole search has run
 }
 
 func newGame() *Game {
-	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true}
-	g.res = analyse(g.ed.Document(), g.ed.Rev())
+	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true, dirty: true}
+	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0)
 	// The empty starting part is nothing to tell: the page loads the autosaved or demo part when it
 	// is ready, and that load is the first change it hears of.
 	g.toldState = g.uiState()
@@ -55,20 +80,24 @@ func newGame() *Game {
 
 // refresh reanalyses the part if it changed since the last analysis.
 func (g *Game) refresh() {
-	if g.res.rev != g.ed.Rev() {
-		g.res = analyse(g.ed.Document(), g.ed.Rev())
+	if g.res.rev != g.ed.Rev() || g.res.edge != g.ed.EdgeDistance() {
+		g.res = analyse(g.ed.Document(), g.ed.Rev(), g.ed.EdgeDistance())
 		g.ed.SetGuides(g.guides())
 	}
 }
 
 // refreshLevel looks for the level hole, once nothing is being dragged, of a part that can be
-// analysed. It takes several analyses, so Update runs it on the frame after a change, never inside a
-// call from the page (typing in the panel's fields stays quick).
-func (g *Game) refreshLevel() {
-	if g.res.err == nil && (!g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter()) && !g.ed.Dragging() {
-		g.res.findLevel(g.ed.HoleDiameter())
-		g.ed.SetGuides(g.guides())
+// analysed, and reports whether it did. It takes several analyses, so Update runs it only once a frame
+// has shown the new analysis, never inside a call from the page (typing in the panel's fields stays
+// quick, and an edit reaches the screen before the search).
+func (g *Game) refreshLevel() bool {
+	stale := !g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter() || g.res.levelEdge != g.ed.EdgeDistance()
+	if g.res.err != nil || !stale || g.ed.Dragging() || g.drawnRes != g.res {
+		return false
 	}
+	g.res.findLevel(g.ed.HoleDiameter(), g.ed.EdgeDistance())
+	g.ed.SetGuides(g.guides())
+	return true
 }
 
 // guides are the analysis points the pointer snaps to: the balance point and the level hole.
@@ -86,19 +115,20 @@ func (g *Game) guides() []geom.Point {
 // uiState returns what the page shows of the editor and the analysis now.
 func (g *Game) uiState() uiState {
 	return uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
-		g.ed.HoleDiameter(), g.ed.CornerRadius(), g.res.levelDone}
+		g.ed.HoleDiameter(), g.ed.EdgeDistance(), g.ed.CornerRadius(), g.res.levelDone}
 }
 
-// pending returns what the page must be told after this change, if anything: a reanalysis or a
-// change of tool, target or undo state. It marks it told.
-func (g *Game) pending() (state, part []byte, tell bool) {
+// pending returns the state the page must be told of after this change, if anything: a reanalysis or
+// a change of tool, target or undo state. It marks it told, and the canvas for painting. The part file
+// is not written here: the page asks for it (plumb.saveJSON) when it autosaves, off the edit path.
+func (g *Game) pending() (state []byte, tell bool) {
 	now := g.uiState()
 	if now == g.toldState {
-		return nil, nil, false
+		return nil, false
 	}
 	g.toldState = now
-	part, _ = g.ed.Document().Save()
-	return g.res.stateJSON(g.file, g.ed), part, true
+	g.dirty = true
+	return g.res.stateJSON(g.file, g.ed), true
 }
 
 // Update handles input and reanalyses the part after changes.
@@ -114,6 +144,9 @@ func (g *Game) Update() error {
 		g.needFit = g.needFit || g.autoFit
 	}
 	view, rev := g.ed.View, g.ed.Rev()
+	if g.in.active() {
+		g.dirty = true
+	}
 	g.handleInput()
 	if g.ed.View != view || g.ed.Rev() != rev {
 		g.autoFit = false // the user has taken over: the picture stays where they put it
@@ -121,13 +154,16 @@ func (g *Game) Update() error {
 	if g.needFit && g.w > 0 {
 		g.fit()
 	}
+	res := g.res
 	g.refresh()
-	g.refreshLevel()
-	state, part, tell := g.pending()
+	if g.refreshLevel() || g.res != res || g.ed.View != view {
+		g.dirty = true
+	}
+	state, tell := g.pending()
 	g.mu.Unlock()
 
 	if tell {
-		tellChange(state, part)
+		tellChange(state)
 	}
 	return nil
 }
@@ -135,6 +171,7 @@ func (g *Game) Update() error {
 // setPage records the canvas edges the page covers and tells the editor what is clear of them.
 func (g *Game) setPage(page edit.Insets) {
 	g.page = page
+	g.dirty = true
 	// The rulers, and the status line above the bottom one, are ours to keep clear as well.
 	page.Left += rulerLeft * g.dpr
 	page.Bottom += (rulerBottom + 24) * g.dpr
@@ -166,6 +203,7 @@ func (g *Game) Layout(outsideWidth, outsideHeight int) (int, int) {
 		g.ed.PixelRatio = dpr
 		g.ed.Resize(float64(w), float64(h))
 		g.needFit = g.needFit || g.autoFit
+		g.dirty = true
 	}
 	return w, h
 }

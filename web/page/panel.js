@@ -3,14 +3,19 @@
 // WebGL context, which makes the app reload the page) never loses work.
 //
 // The app talks to this script through the bridge: it sets window.plumb when it is ready and then calls
-// window.plumbUI.ready(); after every recompute it calls window.plumbUI.onChange(state, partJSON).
+// window.plumbUI.ready(); after every recompute it calls window.plumbUI.onChange(state).
 "use strict";
 (() => {
-  const AUTOSAVE = "plumb.autosave"; // the current part, as a part file
-  const PREVIOUS = "plumb.previous"; // the part the demo replaced when the page was opened with #demo
+  const AUTOSAVE = "plumb.autosave"; // the current part, as a part file (packed when large, see packText)
+  const SOUND = "plumb.sound"; // the last saved part that analysed sound; "=" when that is the autosave
+  const PREVIOUS = "plumb.previous"; // a part replaced by the demo, or emptied: offered back
+  const STARTING = "plumb.starting"; // set while a saved part opens; still set on the next visit, it crashed
+  const CRASHED = "plumb.crashed"; // the part that was opening when the page stopped, kept for rescue
   const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
   const FOLDED = "plumb.panelFolded";
   const PAPER = "plumb.paper"; // the paper chosen for the drilling template
+  const CHOSEN = "plumb.chosen"; // the units and material chosen last: {units, material}
+  const GUIDE_DONE = "plumb.guideDone"; // the first-minute guide was closed
   const MAX_FILE_BYTES = 50 << 20;
   const DECIMALS = { mm: 1, cm: 2, m: 4, in: 3, ft: 4 }; // for answers
   const FIELD_DECIMALS = { mm: 2, cm: 3, m: 5, in: 4, ft: 5 }; // at most, for values shown in fields
@@ -22,6 +27,7 @@
   const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
+  let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
   let state = null; // the app's last state
   let partName = ""; // the part's own name, from its part file
   let mode = "sheet"; // "sheet" (material and thickness) or "formula"
@@ -33,6 +39,13 @@
   }
   function writeStore(key, value) {
     try { localStorage.setItem(key, value); return true; } catch { return false; }
+  }
+  // remember keeps one of the choices a new part starts with (units or material) for later visits.
+  function remember(key, value) {
+    let c = {};
+    try { c = JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { c = {}; }
+    c[key] = value;
+    writeStore(CHOSEN, JSON.stringify(c));
   }
   let toastTimer = 0;
   function toast(msg, bad) {
@@ -70,19 +83,38 @@
     $("loading-msg").textContent = msg;
   }
 
-  function decodeBase64(text) {
-    const bin = atob(text);
-    const bytes = new Uint8Array(bin.length);
-    for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
-    return bytes;
+  // unpack7 reverses the Go side's Pack7 (web/page/pack.go): seven bits a character; characters from
+  // U+0100 carry one of the three values that cannot stand in a script element and the seven bits after it.
+  const UNSAFE_GROUPS = [0x00, 0x0d, 0x3c];
+  function unpack7(text, n) {
+    const out = new Uint8Array(n);
+    let acc = 0, bits = 0, o = 0;
+    const put = (g) => {
+      acc = (acc << 7) | g;
+      bits += 7;
+      if (bits >= 8) {
+        bits -= 8;
+        if (o < n) out[o++] = (acc >> bits) & 0xff;
+        acc &= (1 << bits) - 1;
+      }
+    };
+    for (let i = 0; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c < 0x80) { put(c); continue; }
+      put(UNSAFE_GROUPS[(c - 0x100) >> 7]);
+      put((c - 0x100) & 0x7f);
+    }
+    if (o !== n) throw new Error("the packed app holds " + o + " bytes, not " + n);
+    return out;
   }
 
   async function startApp() {
     const holder = $("plumb-module");
-    const packed = decodeBase64(holder.textContent.trim());
+    const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
     const module = await new Response(stream).arrayBuffer();
+    startup = await readStartup();
     const go = new Go();
     const { instance } = await WebAssembly.instantiate(module, go.importObject);
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
@@ -101,15 +133,22 @@
     app = window.plumb;
     timing.readyMs = performance.now();
     try {
-      restore(readStore(AUTOSAVE));
+      const chosen = JSON.parse(readStore(CHOSEN) || "null");
+      if (chosen) app.setDefaults(chosen);
+    } catch { /* a choice that cannot be read is forgotten: the part's own units and material serve */ }
+    try {
+      if (startup.crashed) recoverFromCrash();
+      else restore(startup.saved);
     } catch (e) {
       toast("The part could not be restored: " + e.message, true);
     }
     restored = true;
     refresh();
+    if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
     requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
+    settleStartup();
   }
 
   // restore brings back the autosaved part, or shows the demo part when there is none or the address asks
@@ -119,7 +158,8 @@
       showDemo(saved);
       return;
     }
-    const r = app.load(saved, "autosave.json");
+    writeStore(STARTING, "1");
+    const r = app.restore(saved, "autosave.json");
     if (!r.ok) {
       writeStore(UNREADABLE, saved);
       loadText(window.PLUMB_DEMO, "demo.json", true);
@@ -132,27 +172,136 @@
   // plumb.previous with a way back, and drops #demo from the address so that a reload restores work.
   function showDemo(previous) {
     loadText(window.PLUMB_DEMO, "demo.json", true);
-    if (previous !== null && previous !== app.saveJSON()) {
-      writeStore(PREVIOUS, previous);
-      $("previous").hidden = false;
-    }
+    if (previous !== null && previous !== app.saveJSON()) offerPrevious(previous, "The demo replaced your last part.");
     try { history.replaceState(null, "", location.pathname + location.search); } catch { /* file:// may refuse */ }
   }
 
-  function onChange(s, partJSON) {
+  function onChange(s) {
     state = s;
     try {
-      save(partJSON);
+      if (restored) autosaveSoon();
+      if (s.part) showPart(s.part);
       render();
     } catch (e) {
       toast("The panel could not show the results: " + e.message, true);
     }
   }
 
-  function save(partJSON) {
-    if (typeof partJSON !== "string" || partJSON === "") return;
-    if (restored && !writeStore(AUTOSAVE, partJSON)) toast("This browser's storage is full: save the part to a file.", true);
-    showPart(partJSON);
+  // ---- the saved part ----
+  //
+  // The part is saved to local storage when the edits pause (AUTOSAVE_DELAY after the last, when the
+  // browser is idle): never on the edit path, since writing the part file of a large part takes longer than
+  // the edit. Large part files are gzipped (CompressionStream) and kept as "gzip:" and base64, a quarter
+  // of their size or less, so that a lettered sign fits in the storage a browser gives a page. Alongside:
+  // the last part that analysed sound (SOUND); a part that an edit emptied, offered back (PREVIOUS); and
+  // a start-up marker (STARTING) that only a crash while opening the saved part leaves behind.
+
+  const AUTOSAVE_DELAY = 800; // ms
+  const PACK_OVER = 200000; // characters: part files longer than this are gzipped
+  let autosaveTimer = 0;
+  let saving = false; // an autosave is being packed and written
+  let lastSaved = { text: null, stored: null, empty: true }; // what the autosave holds now
+
+  function autosaveSoon() {
+    clearTimeout(autosaveTimer);
+    autosaveTimer = setTimeout(() => {
+      if (typeof requestIdleCallback === "function") requestIdleCallback(autosave, { timeout: 2000 });
+      else autosave();
+    }, AUTOSAVE_DELAY);
+  }
+
+  async function autosave() {
+    if (!app || saving) { autosaveSoon(); return; }
+    const s = state;
+    const text = app.saveJSON();
+    if (text === lastSaved.text) return;
+    saving = true;
+    try {
+      const stored = await packText(text);
+      // An edit that empties the part keeps the part it emptied one click away.
+      if (s.empty && !lastSaved.empty && lastSaved.stored !== null) offerPrevious(lastSaved.stored, "Your last part was emptied.");
+      // The last sound part stays when the part stops analysing (an outline half redrawn, say).
+      if (s.error && !s.empty && readStore(SOUND) === "=" && lastSaved.stored !== null) writeStore(SOUND, lastSaved.stored);
+      if (!writeStore(AUTOSAVE, stored)) {
+        toast("This browser's storage is full: save the part to a file.", true);
+        return;
+      }
+      if (!s.error) writeStore(SOUND, "=");
+      lastSaved = { text, stored, empty: Boolean(s.empty) };
+    } catch (e) {
+      toast("The part could not be autosaved: " + e.message + ". Save it to a file.", true);
+    } finally {
+      saving = false;
+    }
+  }
+
+  // packText returns text as stored: as it is, or gzipped after "gzip:" in base64 when it is long.
+  async function packText(text) {
+    if (text.length <= PACK_OVER) return text;
+    const gz = await new Response(new Blob([text]).stream().pipeThrough(new CompressionStream("gzip"))).arrayBuffer();
+    const bytes = new Uint8Array(gz);
+    let bin = "";
+    for (let i = 0; i < bytes.length; i += 0x8000) bin += String.fromCharCode.apply(null, bytes.subarray(i, i + 0x8000));
+    return "gzip:" + btoa(bin);
+  }
+
+  // unpackText reverses packText; null stays null.
+  async function unpackText(stored) {
+    if (stored === null || !stored.startsWith("gzip:")) return stored;
+    const bytes = Uint8Array.from(atob(stored.slice(5)), (c) => c.charCodeAt(0));
+    return new Response(new Blob([bytes]).stream().pipeThrough(new DecompressionStream("gzip"))).text();
+  }
+
+  // readStartup reads the autosave, and whether the last visit stopped while opening it, before the app
+  // starts (unpacking takes a moment and the app asks for the part on its first frame).
+  async function readStartup() {
+    const stored = readStore(AUTOSAVE);
+    let saved = null;
+    try {
+      saved = await unpackText(stored);
+    } catch {
+      writeStore(UNREADABLE, stored);
+    }
+    lastSaved = { text: saved, stored, empty: saved === null };
+    return { saved, crashed: readStore(STARTING) !== null && stored !== null };
+  }
+
+  // settleStartup clears the start-up marker once the app has painted the part twice and a second has
+  // passed: the part opened without stopping the page.
+  function settleStartup() {
+    const from = performance.now();
+    const check = () => {
+      if (app.frames().drawn >= 2 && performance.now() - from > 1000) {
+        try { localStorage.removeItem(STARTING); } catch { /* nothing to clear */ }
+        return;
+      }
+      requestAnimationFrame(check);
+    };
+    requestAnimationFrame(check);
+  }
+
+  // recoverFromCrash runs when the last visit stopped while opening the saved part: that part is not
+  // opened again but kept under plumb.crashed, the demo is shown, and the last part that analysed sound,
+  // when it is another, is offered back.
+  function recoverFromCrash() {
+    const crashed = readStore(AUTOSAVE);
+    writeStore(CRASHED, crashed);
+    const sound = readStore(SOUND);
+    loadText(window.PLUMB_DEMO, "demo.json", true);
+    let msg = "Plumb stopped while opening your last part, so it was not opened again; it is kept in this " +
+      "browser's storage under " + CRASHED + ".";
+    if (sound !== null && sound !== "=" && sound !== crashed) {
+      offerPrevious(sound, "Plumb stopped while opening your last part.");
+      msg += " The last part that analysed soundly is one click away.";
+    }
+    toast(msg, true);
+  }
+
+  // offerPrevious keeps a part (as stored) under plumb.previous and shows the way back to it.
+  function offerPrevious(stored, why) {
+    writeStore(PREVIOUS, stored);
+    $("previous-why").textContent = why;
+    $("previous").hidden = false;
   }
 
   function refresh() {
@@ -170,11 +319,24 @@
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
       return false;
     }
+    $("units-note").hidden = true;
     refresh();
     const warnings = r.warnings || [];
-    if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
+    const adopted = !quiet && r.has_material === false && adoptPanelMaterial();
+    if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
+    else if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
     else if (!quiet) toast("Opened " + name);
     return true;
+  }
+
+  // adoptPanelMaterial gives a part opened without a material the material in the panel's fields, when
+  // they hold one; it returns what was given, or "" when the fields are empty (the part then stays
+  // without a material and the panel says so).
+  function adoptPanelMaterial() {
+    const filled = mode === "sheet" ? $("material").value.trim() : $("formula").value.trim();
+    if (filled === "") return "";
+    sendMaterial();
+    return $("material-error").textContent === "" ? filled : "";
   }
 
   function openFile(file) {
@@ -238,10 +400,9 @@
     return $("material-error").textContent !== "" || document.activeElement.closest(".material") !== null;
   }
 
-  // showPart fills the name and, unless the user is editing them, the material fields from a part file.
-  function showPart(partJSON) {
-    let doc;
-    try { doc = JSON.parse(partJSON); } catch { return; }
+  // showPart fills the name and, unless the user is editing them, the material fields from the state's
+  // part facts ({name, material} as the part file gives them).
+  function showPart(doc) {
     partName = doc.name || "";
     $("part-name").textContent = partName || "Untitled part";
     const spec = doc.material;
@@ -309,6 +470,7 @@
     if (!err) {
       const r = app.setMaterial(spec);
       if (!r.ok) err = r.error || { msg: "not accepted" };
+      else remember("material", spec);
     }
     showMaterialError(err);
     showThickness();
@@ -317,9 +479,19 @@
 
   function showMaterialError(err) {
     for (const f of Object.keys(FIELD_INPUT)) underline($(FIELD_INPUT[f]), err && err.field === f ? err.col || 0 : -1);
-    if (!err) { $("material-error").textContent = ""; return; }
+    if (!err) { $("material-error").textContent = ""; renderStale(); return; }
     const where = FIELD_LABEL[err.field] ? FIELD_LABEL[err.field] + (err.col ? ", column " + err.col : "") + ": " : "";
     $("material-error").textContent = where + err.msg;
+    renderStale();
+  }
+
+  // renderStale greys the figures while the material fields hold an error: they are still those of the
+  // last material that worked, which the note names.
+  function renderStale() {
+    const stale = $("material-error").textContent !== "" && state !== null && !state.error;
+    $("answers").classList.toggle("stale", stale);
+    $("stale-note").textContent = stale ? "Greyed: these figures are for " + (state.material || "the last material that worked") +
+      ", the last material that worked. Fix the field above to update them." : "";
   }
 
   // underline marks the character at 1-based column col of an input (past the end: the place after it);
@@ -391,9 +563,13 @@
     if (typeof state.can_undo === "boolean") document.querySelector('[data-action="undo"]').disabled = !state.can_undo;
     if (typeof state.can_redo === "boolean") document.querySelector('[data-action="redo"]').disabled = !state.can_redo;
     if (Number.isFinite(state.hole_diameter) && document.activeElement !== $("hole-dia")) $("hole-dia").value = fmtField(state.hole_diameter);
-    $("material-desc").textContent = state.material || "";
+    $("material-desc").textContent = state.no_material
+      ? "No material: area, balance point and hang hole are from the shape alone. Choose a material for the weight."
+      : state.material ? "Figures computed from: " + state.material : "";
     $("part-error").textContent = state.error || "";
     if (state.error) {
+      $("place-hole").hidden = true;
+      $("hang").classList.remove("suggested");
       for (const id of ["weight", "balance", "hang"]) $(id).textContent = "—";
       for (const id of ["weight-sub", "balance-sub", "hang-sub"]) $(id).textContent = "";
       $("details-rows").replaceChildren();
@@ -401,33 +577,72 @@
       renderAnswers(u);
       renderDetails(u);
     }
+    renderEdge(u);
+    renderStale();
     renderWarnings();
   }
 
   function renderAnswers(u) {
-    $("weight").textContent = fmtSig(state.mass) + " kg";
-    const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
-    $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    if (state.no_material) {
+      $("weight").textContent = "—";
+      $("weight-sub").textContent = "no material: choose one for the weight";
+    } else {
+      $("weight").textContent = fmtSig(state.mass) + " kg";
+      const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
+      $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+    }
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
     $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
+    renderHang(u);
+  }
+
+  // renderHang shows the hang hole: the placed one with its tilt, else the answer a fabricator came
+  // for, the level-hang hole (or, where none exists, the least-tilt position), one click from placed.
+  function renderHang(u) {
     const h = state.hang;
     const level = state.level;
+    const tilts = state.least_tilt || [];
+    const suggested = level || tilts[0] || null;
+    const lines = [];
+    $("hang").classList.toggle("suggested", !h && suggested !== null);
     if (h) {
       $("hang").textContent = fmtLen(h.at.x) + ", " + fmtLen(h.at.y);
-      const tilt = Math.abs(h.angle_deg) < 0.05 ? "hangs level" : "tilts " + fmtDeg(Math.abs(h.angle_deg)) +
-        (h.angle_deg > 0 ? " counter-clockwise" : " clockwise");
-      const lines = [tilt + " · hole Ø " + fmtLen(h.hole) + " " + u];
+      lines.push(tiltWords(h.angle_deg) + " · hole Ø " + fmtLen(h.hole) + " " + u);
       const more = [];
       if (Number.isFinite(h.tilt_per_mm_deg)) more.push(tiltPerError(h.tilt_per_mm_deg));
       if (Number.isFinite(h.period_s)) more.push("swings in " + h.period_s.toFixed(2) + " s");
       if (more.length) lines.push(more.join(" · "));
       if (level && Math.abs(h.angle_deg) >= 0.05) lines.push("Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u);
-      $("hang-sub").textContent = lines.join("\n");
+    } else if (level) {
+      $("hang").textContent = fmtLen(level.x) + ", " + fmtLen(level.y);
+      lines.push("Drill here: hangs level · hole Ø " + fmtLen(level.diameter) + " " + u);
+    } else if (tilts.length) {
+      $("hang").textContent = fmtLen(tilts[0].x) + ", " + fmtLen(tilts[0].y);
+      lines.push("No hole hangs this part level. Least tilt here: " + tiltWords(tilts[0].angle_deg));
+      for (const t of tilts.slice(1)) lines.push("Other side: " + fmtLen(t.x) + ", " + fmtLen(t.y) + " " + u + ", " + tiltWords(t.angle_deg));
     } else {
       $("hang").textContent = "—";
-      $("hang-sub").textContent = (level ? "Hangs level from " + fmtLen(level.x) + ", " + fmtLen(level.y) + " " + u + "\n" : "") +
-        "Place the hole with the Hole tool.";
+      lines.push(state.level_pending ? "Finding the level-hang hole…" : "Place the hole with the Hole tool.");
     }
+    $("hang-sub").textContent = lines.join("\n");
+    const movable = suggested && (!h || (level && Math.abs(h.angle_deg) >= 0.05));
+    $("place-hole").hidden = !movable;
+    $("place-hole").textContent = h ? "Move the hole to hang level" : level ? "Place the hole here" : "Place the hole at least tilt";
+  }
+
+  // tiltWords says how a part hangs from a hole: level, or how far and which way it turns.
+  function tiltWords(deg) {
+    if (Math.abs(deg) < 0.05) return "hangs level";
+    return "tilts " + fmtDeg(Math.abs(deg)) + (deg > 0 ? " counter-clockwise" : " clockwise");
+  }
+
+  // renderEdge shows the edge distance in effect: the one typed, or the rule's as the placeholder.
+  function renderEdge(u) {
+    const e = state.edge;
+    if (!e) { $("edge-hint").textContent = ""; return; }
+    if (document.activeElement !== $("edge")) $("edge").value = e.asked ? fmtField(e.min) : "";
+    $("edge").placeholder = fmtField(e.min);
+    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")";
   }
 
   // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
@@ -438,10 +653,11 @@
   }
 
   function renderDetails(u) {
-    const kgu2 = "kg·" + u + "²";
+    // Without a material the second moments are the shape's, per unit areal density (u⁴).
+    const kgu2 = state.no_material ? u + "⁴ (shape only)" : "kg·" + u + "²";
     const rows = [
       ["Area", fmtSig(state.area) + " " + u + "²"],
-      ["Mass", fmtSig(state.mass, 6) + " kg"],
+      ["Mass", state.no_material ? "unknown (no material)" : fmtSig(state.mass, 6) + " kg"],
       ["Ixx (about the balance point)", fmtSig(state.inertia.ixx) + " " + kgu2],
       ["Iyy", fmtSig(state.inertia.iyy) + " " + kgu2],
       ["Ixy", fmtSig(state.inertia.ixy) + " " + kgu2],
@@ -521,14 +737,41 @@
       else toast("Drilling template: " + pdf.error, true);
     },
     copy: () => copyText(resultsText()),
+    "place-hole": () => {
+      const r = app.placeSuggestedHole();
+      if (!r.ok) toast("Hang hole: " + r.error, true);
+    },
     help: showHelp,
     cautions: showCautions,
     close: closeOverlays,
+    "dismiss-units-note": () => { $("units-note").hidden = true; },
+    "undo-units": () => { app.undo(); $("units-note").hidden = true; },
     "restore-previous": () => {
-      const prev = readStore(PREVIOUS);
-      if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
+      unpackText(readStore(PREVIOUS)).then((prev) => {
+        if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
+      }, (e) => toast("The previous part could not be read back: " + e.message, true));
     },
   };
+
+  // changeUnits converts the part to another unit. The part keeps its size, so its weight stays, except
+  // where a density formula reads x and y: a weight that jumps more than 100-fold gets a note.
+  function changeUnits(units) {
+    const before = state && !state.error ? state.mass : NaN;
+    const from = unitName();
+    const r = app.setUnits(units);
+    if (!r.ok) { toast("Units: " + r.error, true); return; }
+    remember("units", units);
+    refresh();
+    const after = state && !state.error ? state.mass : NaN;
+    const ratio = after / before;
+    const jumped = units !== from && Number.isFinite(ratio) && (ratio > 100 || ratio < 0.01);
+    $("units-note").hidden = !jumped;
+    if (jumped) {
+      $("units-note-text").textContent = "The weight went from " + fmtSig(before) + " kg to " + fmtSig(after) +
+        " kg with the change from " + from + " to " + units + ": the density formula reads x and y in " + units +
+        " now. Check the formula, or undo the change.";
+    }
+  }
 
   function onClick(e) {
     const b = e.target.closest("button");
@@ -544,7 +787,7 @@
       app.setTarget(d.target);
       for (const x of document.querySelectorAll("[data-target]")) x.setAttribute("aria-pressed", String(x === b));
     } else if (d.units) {
-      app.setUnits(d.units);
+      changeUnits(d.units);
     } else if (d.mode) {
       setMode(d.mode);
       // Switching to an empty field waits for the user to type; otherwise the part takes the other kind.
@@ -619,6 +862,14 @@
       if (!app || !(d >= 0)) return;
       const r = app.setHoleDiameter(d);
       if (!r.ok) toast("Hole diameter: " + r.error, true);
+      refresh();
+    });
+    $("edge").addEventListener("change", () => {
+      const text = $("edge").value.trim();
+      const e = text === "" ? 0 : Number(text);
+      if (!app || !(e >= 0)) return;
+      const r = app.setEdgeDistance(e);
+      if (!r.ok) toast("Edge distance: " + r.error, true);
       refresh();
     });
     $("material-list").replaceChildren(...presets.materials.map((m) =>

@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"encoding/xml"
@@ -11,9 +11,10 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch"
 )
 
-// Drawing sizes of WriteSVG, in millimetres on paper.
+// Drawing sizes of Write, in millimetres on paper.
 const (
 	drawMargin   = 10  // around the part
 	drawMinWidth = 150 // room for the label under small parts
@@ -23,13 +24,13 @@ const (
 	drawScaleBar = 50  // length of the scale bar
 )
 
-// WriteSVG draws the part at 1:1 for printing at 100 %: width, height and viewBox in millimetres, the
+// Write draws the part at 1:1 for printing at 100 %: width, height and viewBox in millimetres, the
 // material tinted with cut-outs left empty, overlays in a second tint, the hang holes, and a label
 // with the part's name, materials and the cautions, above a 50 mm scale bar to check the print. With
 // an analysis a it marks the balance point (a quartered circle) and gives mass and weight; with a
 // hang it draws that hole and the plumb line from it through the balance point of the part as hung.
 // Either may be nil.
-func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
+func Write(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang) ([]byte, error) {
 	unit := density.Length{Name: "mm", MM: 1}
 	if d.Units != "" {
 		var err error
@@ -50,10 +51,13 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 	k := unit.MM
 	size := box.Size().Mul(k)
 	width := max(size.X+2*drawMargin, drawMinWidth)
-	// Document (unit, y up) → paper (mm, y down), the part centred in the width.
-	toPaper := geom.Scale(k, -k).Then(geom.Translate((width-size.X)/2-box.Min.X*k, drawMargin+box.Max.Y*k))
+	// Document (unit, y up) → the drawing's user space (mm, y down), which keeps the document's origin
+	// so that Read gives the same coordinates back; the viewBox starts at origin, placing the part
+	// centred in the width of the paper.
+	toUser := geom.Scale(k, -k)
+	origin := geom.Pt(box.Min.X*k-(width-size.X)/2, -box.Max.Y*k-drawMargin)
 
-	w := &svgWriter{toPaper: toPaper}
+	w := &svgWriter{toUser: toUser}
 	w.printf(`<g id="part">`)
 	loops, err := chainLoops(body.Pieces, regionTol(box))
 	if err != nil {
@@ -79,13 +83,14 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 	if a != nil {
 		w.centroidMark(a.Centroid)
 	}
+	w.printf(`<g transform="translate(%s)">`, pair(origin))
 	height := w.label(d, a, hang, unit, width, drawMargin+size.Y+drawMargin)
-	w.printf(`</g>`)
+	w.printf(`</g></g>`)
 
 	var out strings.Builder
 	fmt.Fprintf(&out, `<?xml version="1.0" encoding="UTF-8"?>
-<svg xmlns="http://www.w3.org/2000/svg" width="%smm" height="%smm" viewBox="0 0 %s %s">
-`, num(width), num(height), num(width), num(height))
+<svg xmlns="http://www.w3.org/2000/svg" width="%smm" height="%smm" viewBox="%s %s %s">
+`, num(width), num(height), pair(origin), num(width), num(height))
 	fmt.Fprintf(&out, "<title>%s</title>\n", escape(partTitle(d)))
 	out.WriteString(w.b.String())
 	out.WriteString("</svg>\n")
@@ -93,13 +98,13 @@ func WriteSVG(d *Document, a *Analysis, hang *Hang) ([]byte, error) {
 }
 
 // marksAttr tags the groups of a drawn part that are not its metal (overlay tints, holes, the balance
-// point, the plumb line, labels), so that ReadSVG reads a drawing written by WriteSVG back as the part.
+// point, the plumb line, labels), so that Read reads a drawing written by Write back as the part.
 const marksAttr = `data-plumb="marks"`
 
-// svgWriter collects the drawing's elements, mapping document coordinates to paper.
+// svgWriter collects the drawing's elements, mapping document coordinates to the drawing's user space.
 type svgWriter struct {
-	b       strings.Builder
-	toPaper geom.Affine
+	b      strings.Builder
+	toUser geom.Affine
 }
 
 func (w *svgWriter) printf(format string, args ...any) {
@@ -112,7 +117,7 @@ func (w *svgWriter) path(segs []geom.Segment, attrs string) {
 	if len(segs) == 0 {
 		return
 	}
-	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toPaper), attrs)
+	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toUser), attrs)
 }
 
 // pathData writes segments as SVG path data after mapping them by m, starting a subpath wherever a
@@ -166,8 +171,8 @@ func writeSegment(b *strings.Builder, s geom.Segment) {
 
 // hole draws a hole (a pin when dia is 0) with centre lines.
 func (w *svgWriter) hole(at geom.Point, dia float64) {
-	c := w.toPaper.Apply(at)
-	r := dia / 2 * math.Abs(w.toPaper.A)
+	c := w.toUser.Apply(at)
+	r := dia / 2 * math.Abs(w.toUser.A)
 	if r > 0 {
 		w.printf(`<circle cx="%s" cy="%s" r="%s" fill="#ffffff" stroke="#1d2a36" stroke-width="0.25"/>`,
 			num(c.X), num(c.Y), num(r))
@@ -179,15 +184,15 @@ func (w *svgWriter) hole(at geom.Point, dia float64) {
 
 // plumbLine draws the hang hole and a dashed line from it through the balance point of the part as
 // hung (the direction that ends up straight down), out past the part, ending in a bob.
-func (w *svgWriter) plumbLine(h *Hang, box geom.Rect) {
+func (w *svgWriter) plumbLine(h *sketch.Hang, box geom.Rect) {
 	w.hole(h.At, h.Diameter)
-	at, g := w.toPaper.Apply(h.At), w.toPaper.Apply(h.Centroid)
+	at, g := w.toUser.Apply(h.At), w.toUser.Apply(h.Centroid)
 	dir := g.Sub(at)
 	if dir.Norm() == 0 {
 		return
 	}
 	dir = dir.Mul(1 / dir.Norm())
-	end := at.Add(dir.Mul(exitDistance(at, dir, w.paperBox(box)) + drawMargin/2))
+	end := at.Add(dir.Mul(exitDistance(at, dir, w.userBox(box)) + drawMargin/2))
 	w.printf(`<path d="M%s L%s" stroke="#b3261e" stroke-width="0.3" stroke-dasharray="3 1.5"/>`, pair(at), pair(end))
 	w.printf(`<circle cx="%s" cy="%s" r="1.2" fill="#b3261e"/>`, num(end.X), num(end.Y))
 	text := "hangs level"
@@ -198,12 +203,12 @@ func (w *svgWriter) plumbLine(h *Hang, box geom.Rect) {
 		text = fmt.Sprintf("hangs turned %.1f° clockwise", -h.AngleDeg)
 	}
 	w.printf(`<text x="%s" y="%s" font-family="sans-serif" font-size="%d" fill="#b3261e">%s</text>`,
-		num(at.X+h.Diameter/2*math.Abs(w.toPaper.A)+2), num(at.Y-2), drawFont, text)
+		num(at.X+h.Diameter/2*math.Abs(w.toUser.A)+2), num(at.Y-2), drawFont, text)
 }
 
-// paperBox returns the document rectangle box on paper.
-func (w *svgWriter) paperBox(box geom.Rect) geom.Rect {
-	return geom.RectFromPoints(w.toPaper.Apply(box.Min), w.toPaper.Apply(box.Max))
+// userBox returns the document rectangle box in the drawing's user space.
+func (w *svgWriter) userBox(box geom.Rect) geom.Rect {
+	return geom.RectFromPoints(w.toUser.Apply(box.Min), w.toUser.Apply(box.Max))
 }
 
 // exitDistance returns how far the ray from p (inside box) along the unit vector dir runs before it
@@ -221,7 +226,7 @@ func exitDistance(p, dir geom.Point, box geom.Rect) float64 {
 
 // centroidMark draws the balance point as a quartered circle, two opposite quarters filled.
 func (w *svgWriter) centroidMark(c geom.Point) {
-	p := w.toPaper.Apply(c)
+	p := w.toUser.Apply(c)
 	r := float64(drawMarkR)
 	w.printf(`<g id="balance-point"><circle cx="%s" cy="%s" r="%s" fill="#ffffff" stroke="#000000" stroke-width="0.3"/>`,
 		num(p.X), num(p.Y), num(r))
@@ -231,7 +236,7 @@ func (w *svgWriter) centroidMark(c geom.Point) {
 }
 
 // label writes the text block and scale bar from paper height top down, and returns the page height.
-func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Length, width, top float64) float64 {
+func (w *svgWriter) label(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang, unit density.Length, width, top float64) float64 {
 	var lines []string
 	lines = append(lines, partTitle(d))
 	if a != nil {
@@ -246,7 +251,7 @@ func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Len
 			unit.Name, hang.Diameter, unit.Name))
 	}
 	lines = append(lines, "Print at 100 % (actual size) and check the scale bar before marking metal.")
-	for _, c := range Cautions() {
+	for _, c := range sketch.Cautions() {
 		lines = append(lines, wrap("Caution: "+c, width-2*drawMargin)...)
 	}
 	y := top
@@ -263,7 +268,7 @@ func (w *svgWriter) label(d *Document, a *Analysis, hang *Hang, unit density.Len
 	return y + drawMargin
 }
 
-func partTitle(d *Document) string {
+func partTitle(d *sketch.Document) string {
 	if d.Name == "" {
 		return "Part"
 	}

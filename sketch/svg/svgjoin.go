@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"fmt"
@@ -61,7 +61,7 @@ func openError(p openPiece, joined int, gap float64) error {
 		msg = fmt.Sprintf("contour %d is open: joined end to end with %d more open contours, its ends are "+
 			"still %.3g mm apart; a cut file needs closed contours", p.n, joined, gap)
 	}
-	return &SVGError{Element: p.el.String(), Msg: msg}
+	return &Error{Element: p.el.String(), Msg: msg}
 }
 
 func reverseSegments(segs []geom.Segment) []geom.Segment {

@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"math"
@@ -8,35 +8,36 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch"
 )
 
 // drawingPlate is a 200 × 100 part with a round cut-out, a doubler and a hang hole.
-func drawingPlate(units string) *Document {
-	d := NewDocument()
+func drawingPlate(units string) *sketch.Document {
+	d := sketch.NewDocument()
 	d.Name = "test plate <A&B>"
 	d.Units = units
 	d.Material = density.Spec{Material: "steel", Thickness: "2 mm"}
 	d.Outline = geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(200, 100))}}
 	d.Cutouts = []geom.Region{{Loops: []geom.Loop{geom.Circle(geom.Pt(150, 50), 20)}}}
-	d.Overlays = []Overlay{{Name: "doubler", Material: d.Material,
+	d.Overlays = []sketch.Overlay{{Name: "doubler", Material: d.Material,
 		Region: geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(10, 10), geom.Pt(60, 40))}}}}
-	d.Holes = []Hole{{At: geom.Pt(100, 90), Diameter: 6}}
+	d.Holes = []sketch.Hole{{At: geom.Pt(100, 90), Diameter: 6}}
 	return d
 }
 
 // writeHungSVG draws d with its analysis and its hang from its first hole, and returns the drawing and
 // the analysis.
-func writeHungSVG(t *testing.T, d *Document) ([]byte, *Analysis) {
+func writeHungSVG(t *testing.T, d *sketch.Document) ([]byte, *sketch.Analysis) {
 	t.Helper()
-	a, err := Analyze(d, AnalyzeOptions{})
+	a, err := sketch.Analyze(d, sketch.AnalyzeOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	h, err := HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, HangOptions{})
+	h, err := sketch.HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, sketch.HangOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	out, err := WriteSVG(d, a, h)
+	out, err := Write(d, a, h)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -69,10 +70,11 @@ func TestWriteSVG(t *testing.T) {
 				t.Fatalf("%v\n%s", err, out)
 			}
 			// The page is given in millimetres and its viewBox in the same numbers, so 1 user unit
-			// prints as 1 mm.
+			// prints as 1 mm; the viewBox's offset keeps the document's origin.
 			w, h2 := root.attrs["width"], root.attrs["height"]
-			if !strings.HasSuffix(w, "mm") || !strings.HasSuffix(h2, "mm") ||
-				root.attrs["viewBox"] != "0 0 "+strings.TrimSuffix(w, "mm")+" "+strings.TrimSuffix(h2, "mm") {
+			vb := strings.Fields(root.attrs["viewBox"])
+			if !strings.HasSuffix(w, "mm") || !strings.HasSuffix(h2, "mm") || len(vb) != 4 ||
+				vb[2] != strings.TrimSuffix(w, "mm") || vb[3] != strings.TrimSuffix(h2, "mm") {
 				t.Errorf("page %s × %s, viewBox %q", w, h2, root.attrs["viewBox"])
 			}
 			part := findElement(root, func(e *element) bool { return e.attrs["id"] == "part" })
@@ -86,6 +88,10 @@ func TestWriteSVG(t *testing.T) {
 					box = box.Union(s.Bounds())
 				}
 			}
+			doc := d.Body().Bounds()
+			if min := geom.Pt(doc.Min.X*tt.mm, -doc.Max.Y*tt.mm); box.Min.Dist(min) > 1e-3 {
+				t.Errorf("part drawn from %v, want %v (the document's coordinates in mm, y down)", box.Min, min)
+			}
 			if size := box.Size(); math.Abs(size.X-200*tt.mm) > 1e-3 || math.Abs(size.Y-100*tt.mm) > 1e-3 {
 				t.Errorf("part drawn %v × %v mm, want %v × %v", size.X, size.Y, 200*tt.mm, 100*tt.mm)
 			}
@@ -97,7 +103,7 @@ func TestWriteSVG(t *testing.T) {
 				t.Fatal("no balance point mark")
 			}
 			cx, _ := strconv.ParseFloat(mark.kids[0].attrs["cx"], 64)
-			if want := box.Min.X + a.Centroid.X*tt.mm; math.Abs(cx-want) > 1e-3 {
+			if want := a.Centroid.X * tt.mm; math.Abs(cx-want) > 1e-3 {
 				t.Errorf("balance point drawn at x %v, want %v", cx, want)
 			}
 			text := string(out)
@@ -115,14 +121,14 @@ func TestWriteSVG(t *testing.T) {
 func TestWriteSVGWithoutAnalysis(t *testing.T) {
 	d := drawingPlate("mm")
 	d.Material = density.Spec{}
-	out, err := WriteSVG(d, nil, nil)
+	out, err := Write(d, nil, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if strings.Contains(string(out), "balance-point") || !strings.Contains(string(out), "Caution: ") {
 		t.Errorf("drawing without analysis:\n%s", out)
 	}
-	if _, err := WriteSVG(NewDocument(), nil, nil); err == nil {
+	if _, err := Write(sketch.NewDocument(), nil, nil); err == nil {
 		t.Error("an empty part was drawn")
 	}
 }
@@ -159,14 +165,14 @@ func TestPathData(t *testing.T) {
 	}
 }
 
-// TestWriteSVGReadsBack checks that a drawing written by WriteSVG reads back as the same metal: the
+// TestWriteSVGReadsBack checks that a drawing written by Write reads back as the same metal: the
 // marks group (doubler tint, hole, plumb line, balance point, labels) is skipped with a warning.
 func TestWriteSVGReadsBack(t *testing.T) {
 	d := drawingPlate("mm")
 	out, _ := writeHungSVG(t, d)
-	back, warnings, err := ReadSVG(out, SVGOptions{})
+	back, warnings, err := Read(out, Options{})
 	if err != nil {
-		t.Fatalf("ReadSVG of WriteSVG's output: %v", err)
+		t.Fatalf("Read of Write's output: %v", err)
 	}
 	if len(warnings) == 0 || !strings.Contains(strings.Join(warnings, "\n"), "marks") {
 		t.Errorf("warnings %q do not say the marks were skipped", warnings)

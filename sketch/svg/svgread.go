@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"bytes"
@@ -14,9 +14,10 @@ import (
 	"strings"
 
 	"plumb/geom"
+	"plumb/sketch"
 )
 
-// Reading chooses how ReadSVG turns the shapes of a drawing into a part.
+// Reading chooses how Read turns the shapes of a drawing into a part.
 type Reading uint8
 
 const (
@@ -43,25 +44,25 @@ func (r Reading) String() string {
 	return "automatic"
 }
 
-// DefaultSVGMaxBytes is the largest SVG file ReadSVG reads when SVGOptions.MaxBytes is 0.
-const DefaultSVGMaxBytes = 16 << 20
+// DefaultMaxBytes is the largest SVG file Read reads when Options.MaxBytes is 0.
+const DefaultMaxBytes = 16 << 20
 
-// SVGOptions control ReadSVG.
-type SVGOptions struct {
+// Options control Read.
+type Options struct {
 	Reading  Reading
 	Name     string // the part's name; when empty, the drawing's title
-	MaxBytes int    // larger files are refused; 0 means DefaultSVGMaxBytes
+	MaxBytes int    // larger files are refused; 0 means DefaultMaxBytes
 }
 
-// SVGError reports an SVG file that cannot be read, naming the element (as in
+// Error reports an SVG file that cannot be read, naming the element (as in
 // "path#bracket (element 4)", counting elements from 1 in document order) and the attribute.
-type SVGError struct {
+type Error struct {
 	Element string
 	Attr    string
 	Msg     string
 }
 
-func (e *SVGError) Error() string {
+func (e *Error) Error() string {
 	switch {
 	case e.Element == "":
 		return e.Msg
@@ -79,7 +80,7 @@ const (
 	// maxSVGVisits bounds the elements read, counting each time a use reference repeats one: use
 	// elements that refer to groups of use elements could otherwise multiply without end.
 	maxSVGVisits = 1 << 17
-	// maxSVGWarnings is the number of warnings ReadSVG lists before summing up the rest.
+	// maxSVGWarnings is the number of warnings Read lists before summing up the rest.
 	maxSVGWarnings = 20
 	// closeTolMM is the largest gap (in mm) between the ends of a contour for a cut file to count it as
 	// closed; the gap is then closed exactly. It is far below any cutting kerf and covers end points
@@ -87,20 +88,20 @@ const (
 	closeTolMM = 0.01
 )
 
-// ReadSVG reads a part from an SVG drawing (W3C SVG 1.1 and SVG 2): path, rect, circle, ellipse,
+// Read reads a part from an SVG drawing (W3C SVG 1.1 and SVG 2): path, rect, circle, ellipse,
 // line, polyline and polygon, grouped by g (and a, use, nested svg), with transforms, fill, fill-rule,
 // stroke, display and visibility from attributes, style attributes and simple style sheets. The part
 // is in millimetres with y up: document x = SVG x and document y = −SVG y after the viewBox and all
 // transforms. Shapes in other namespaces, defs and other non-rendered elements are skipped; other
 // unknown elements are skipped with a warning. Text must be converted to paths first. Nothing outside
 // the file is ever fetched, and entities are never expanded.
-func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
+func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	limit := opt.MaxBytes
 	if limit == 0 {
-		limit = DefaultSVGMaxBytes
+		limit = DefaultMaxBytes
 	}
 	if len(data) > limit {
-		return nil, nil, &SVGError{Msg: fmt.Sprintf("the file is %d bytes, more than the limit of %d", len(data), limit)}
+		return nil, nil, &Error{Msg: fmt.Sprintf("the file is %d bytes, more than the limit of %d", len(data), limit)}
 	}
 	data, err := gunzip(data, limit)
 	if err != nil {
@@ -121,7 +122,7 @@ func ReadSVG(data []byte, opt SVGOptions) (*Document, []string, error) {
 	if err := r.children(root, ctx, 0); err != nil {
 		return nil, nil, err
 	}
-	d := NewDocument()
+	d := sketch.NewDocument()
 	d.Name = cmp.Or(opt.Name, rootTitle(root))
 	if err := r.build(d, opt.Reading); err != nil {
 		return nil, nil, err
@@ -151,9 +152,9 @@ func gunzip(data []byte, limit int) ([]byte, error) {
 	}
 	switch {
 	case err != nil:
-		return nil, &SVGError{Msg: "not a readable compressed SVG: " + err.Error()}
+		return nil, &Error{Msg: "not a readable compressed SVG: " + err.Error()}
 	case len(data) > limit:
-		return nil, &SVGError{Msg: fmt.Sprintf("the drawing unpacks to more than the limit of %d bytes", limit)}
+		return nil, &Error{Msg: fmt.Sprintf("the drawing unpacks to more than the limit of %d bytes", limit)}
 	}
 	return data, nil
 }
@@ -178,7 +179,7 @@ func (e *element) String() string {
 }
 
 func (e *element) fail(attr string, err error) error {
-	return &SVGError{Element: e.String(), Attr: attr, Msg: err.Error()}
+	return &Error{Element: e.String(), Attr: attr, Msg: err.Error()}
 }
 
 // parseXML reads the element tree. The decoder is strict and knows only XML's predefined entities; a
@@ -196,24 +197,24 @@ func parseXML(data []byte) (*element, error) {
 			break
 		}
 		if err != nil {
-			return nil, &SVGError{Msg: "not well-formed XML: " + err.Error()}
+			return nil, &Error{Msg: "not well-formed XML: " + err.Error()}
 		}
 		switch t := tok.(type) {
 		case xml.Directive:
 			if bytes.Contains(t, []byte("ENTITY")) {
-				return nil, &SVGError{Msg: "the document type declares entities; Plumb does not expand entities"}
+				return nil, &Error{Msg: "the document type declares entities; Plumb does not expand entities"}
 			}
 		case xml.StartElement:
 			count++
 			e := newElement(t, count)
 			switch {
 			case len(stack) >= maxSVGDepth:
-				return nil, &SVGError{Element: e.String(), Msg: fmt.Sprintf("elements nest more than %d deep", maxSVGDepth)}
+				return nil, &Error{Element: e.String(), Msg: fmt.Sprintf("elements nest more than %d deep", maxSVGDepth)}
 			case len(stack) > 0:
 				parent := stack[len(stack)-1]
 				parent.kids = append(parent.kids, e)
 			case root != nil:
-				return nil, &SVGError{Element: e.String(), Msg: "a second root element"}
+				return nil, &Error{Element: e.String(), Msg: "a second root element"}
 			default:
 				root = e
 			}
@@ -227,10 +228,10 @@ func parseXML(data []byte) (*element, error) {
 		}
 	}
 	if root == nil {
-		return nil, &SVGError{Msg: "not an SVG file: no root element"}
+		return nil, &Error{Msg: "not an SVG file: no root element"}
 	}
 	if root.name != "svg" || !root.svg {
-		return nil, &SVGError{Element: root.String(), Msg: "not an SVG file: the root element is not svg"}
+		return nil, &Error{Element: root.String(), Msg: "not an SVG file: the root element is not svg"}
 	}
 	return root, nil
 }
@@ -297,7 +298,8 @@ type svgReader struct {
 	rules    []cssRule
 	shapes   []shape
 	warnings []string
-	visits   int
+	visits   int // elements read, repeats through use references included
+	repeats  int // of those, the ones read through a use reference
 }
 
 func (r *svgReader) warn(format string, args ...any) {
@@ -326,9 +328,11 @@ func (r *svgReader) collect(e *element) {
 	}
 }
 
-// rootTransform maps the root's user space to the document: through the viewBox onto the viewport
-// of the root's width and height in millimetres, then y up. Without a viewBox, user units are px;
-// without width and height, the viewBox's units are px. A transform on the root applies to its
+// rootTransform maps the root's user space to the document: scaled by the viewBox-to-millimetre scale
+// of the root's viewport, then y up, so that document x = s·x_user and document y = −s·y_user. The
+// viewBox's offset (min-x, min-y) and the preserveAspectRatio alignment only say which part of the
+// drawing a viewer shows; they do not move the drawing's own origin. Without a viewBox, user units are
+// px; without width and height, the viewBox's units are px. A transform on the root applies to its
 // content, as a group's would. It also returns the viewport that percentages refer to, in user units.
 func (r *svgReader) rootTransform(root *element) (geom.Affine, viewport, error) {
 	flip := geom.Scale(1, -1)
@@ -380,7 +384,9 @@ func (r *svgReader) rootTransform(root *element) (geom.Affine, viewport, error) 
 	if err != nil {
 		return geom.Affine{}, viewport{}, err
 	}
-	return own.Then(viewportTransform(vb, size[0], size[1], asp)).Then(flip), viewport{W: vb.W, H: vb.H}, nil
+	m := viewportTransform(vb, size[0], size[1], asp)
+	m.E, m.F = 0, 0
+	return own.Then(m).Then(flip), viewport{W: vb.W, H: vb.H}, nil
 }
 
 func transformAttr(e *element) (geom.Affine, error) {
@@ -464,8 +470,14 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	if !e.svg || slices.Contains(nonRendered, e.name) {
 		return nil
 	}
+	if uses > 0 {
+		r.repeats++
+	}
 	if r.visits++; r.visits > maxSVGVisits {
-		return &SVGError{Element: e.String(), Msg: fmt.Sprintf("the drawing expands to more than %d elements "+
+		if r.repeats == 0 {
+			return &Error{Element: e.String(), Msg: fmt.Sprintf("the drawing has more than %d elements", maxSVGVisits)}
+		}
+		return &Error{Element: e.String(), Msg: fmt.Sprintf("the drawing expands to more than %d elements "+
 			"through use references", maxSVGVisits)}
 	}
 	p, shown := r.paint(e, ctx.paint)
@@ -477,7 +489,7 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 		return nil
 	}
 	if slices.Contains(textElements, e.name) {
-		return &SVGError{Element: e.String(), Msg: "text is not read: convert text to paths first"}
+		return &Error{Element: e.String(), Msg: "text is not read: convert text to paths first"}
 	}
 	own, err := transformAttr(e)
 	if err != nil {
@@ -568,7 +580,7 @@ func (r *svgReader) use(e *element, ctx inherited, uses int) error {
 		r.warn("%s: no element with id %q; skipped", e, id)
 		return nil
 	case uses >= maxSVGDepth:
-		return &SVGError{Element: e.String(), Attr: "href", Msg: "use references nest too deep (or refer to themselves)"}
+		return &Error{Element: e.String(), Attr: "href", Msg: "use references nest too deep (or refer to themselves)"}
 	case target.name == "symbol" || target.name == "svg":
 		r.warn("%s: use of a %s is not read; skipped", e, target.name)
 		return nil
@@ -738,9 +750,9 @@ func (r *svgReader) addShape(e *element, ctx inherited, subs []subpath) {
 }
 
 // build makes the part from the shapes, by the reading asked for or chosen.
-func (r *svgReader) build(d *Document, reading Reading) error {
+func (r *svgReader) build(d *sketch.Document, reading Reading) error {
 	if len(r.shapes) == 0 {
-		return &SVGError{Msg: "no visible shapes in the drawing"}
+		return &Error{Msg: "no visible shapes in the drawing"}
 	}
 	if reading == ReadAuto {
 		reading = r.chooseReading()
@@ -823,7 +835,7 @@ func (r *svgReader) filled(tol float64) (geom.Region, int, error) {
 	}
 	switch len(regions) {
 	case 0:
-		return geom.Region{}, 0, &SVGError{Msg: "no filled shape encloses any area"}
+		return geom.Region{}, 0, &Error{Msg: "no filled shape encloses any area"}
 	case 1:
 		return regions[0], 1, nil
 	}
@@ -868,7 +880,7 @@ func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
 		if errors.As(err, &ve) && ve.Loop >= 0 {
 			return reg, loopError(owners[ve.Loop], err)
 		}
-		return reg, &SVGError{Msg: err.Error()}
+		return reg, &Error{Msg: err.Error()}
 	}
 	for _, w := range warnings {
 		r.warn("%s: contour crosses itself; its parts nest even-odd", owners[w.Loop])
@@ -877,7 +889,7 @@ func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
 }
 
 func loopError(e *element, err error) error {
-	return &SVGError{Element: e.String(), Msg: err.Error()}
+	return &Error{Element: e.String(), Msg: err.Error()}
 }
 
 // closeLoop returns segs as a closed loop without degenerate segments: segments no longer than tol are
@@ -943,7 +955,7 @@ func chainLoops(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
 		l := geom.Loop{pieces[i]}
 		for last := i; l[len(l)-1].End().Dist(l[0].Start()) > tol; {
 			if last = nextPiece(pieces, used, l[len(l)-1].End(), last+1, tol); last < 0 {
-				return nil, &SVGError{Msg: "the union of the filled shapes does not close into loops"}
+				return nil, &Error{Msg: "the union of the filled shapes does not close into loops"}
 			}
 			used[last] = true
 			l = append(l, pieces[last])

@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"bytes"
@@ -12,6 +12,7 @@ import (
 	"testing"
 
 	"plumb/geom"
+	"plumb/sketch"
 )
 
 // mmSVG wraps SVG content in a root whose user unit is 1 mm.
@@ -20,17 +21,17 @@ func mmSVG(content string) string {
 		content + `</svg>`
 }
 
-func readSVG(t *testing.T, svg string, reading Reading) (*Document, []string) {
+func readSVG(t *testing.T, svg string, reading Reading) (*sketch.Document, []string) {
 	t.Helper()
-	d, warnings, err := ReadSVG([]byte(svg), SVGOptions{Reading: reading})
+	d, warnings, err := Read([]byte(svg), Options{Reading: reading})
 	if err != nil {
-		t.Fatalf("ReadSVG: %v", err)
+		t.Fatalf("Read: %v", err)
 	}
 	return d, warnings
 }
 
 // outlineArea is the area of the part's outline.
-func outlineArea(d *Document) float64 {
+func outlineArea(d *sketch.Document) float64 {
 	return d.Outline.Boundary().IntegratePoly(geom.ConstPoly(1)).M
 }
 
@@ -62,8 +63,12 @@ func TestReadSVGUnits(t *testing.T) {
 			geom.Pt(0, -10), geom.Pt(25.4, 0)},
 		{"y flips", `width="200mm" height="200mm" viewBox="0 0 200 200"`, `x="10" y="20" width="30" height="40"`,
 			geom.Pt(10, -60), geom.Pt(40, -20)},
-		{"viewBox origin", `width="20mm" height="20mm" viewBox="-10 -10 20 20"`, `x="-10" y="-10" width="20" height="20"`,
-			geom.Pt(0, -20), geom.Pt(20, 0)},
+		{"viewBox offset keeps the origin", `width="20mm" height="20mm" viewBox="-10 -10 20 20"`,
+			`x="-10" y="-10" width="20" height="20"`, geom.Pt(-10, -10), geom.Pt(10, 10)},
+		{"viewBox offset, scaled", `width="40mm" height="20mm" viewBox="-50 -450 20 10"`,
+			`x="-40" y="-445" width="10" height="5"`, geom.Pt(-80, 880), geom.Pt(-60, 890)},
+		{"viewBox offset, centred", `width="100mm" height="20mm" viewBox="100 100 10 10"`,
+			`x="100" y="100" width="10" height="10"`, geom.Pt(200, -220), geom.Pt(220, -200)},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -222,48 +227,50 @@ func TestReadSVGWarnings(t *testing.T) {
 func TestReadSVGErrors(t *testing.T) {
 	tests := []struct {
 		name, svg, want string
-		opt             SVGOptions
+		opt             Options
 	}{
 		{"open contour in a cut file", mmSVG(`<g fill="none" stroke="#000"><rect width="80" height="50"/>` +
 			`<path id="bracket" d="M10 10 L30 10 L30 30"/></g>`),
 			"path#bracket (element 4): contour 1 is open (its ends are 28.3 mm apart); a cut file needs closed contours",
-			SVGOptions{}},
+			Options{}},
 		{"text", mmSVG(`<rect width="8" height="8"/><text id="name" x="1" y="1">Bakery</text>`),
-			"text#name (element 3): text is not read: convert text to paths first", SVGOptions{}},
+			"text#name (element 3): text is not read: convert text to paths first", Options{}},
 		{"entities declared", `<?xml version="1.0"?><!DOCTYPE svg [<!ENTITY a "aaaaaaaaaa">]>` + mmSVG(`<rect/>`),
-			"the document type declares entities; Plumb does not expand entities", SVGOptions{}},
+			"the document type declares entities; Plumb does not expand entities", Options{}},
 		{"entity used", mmSVG(`<rect id="&a;"/>`), "not well-formed XML: XML syntax error on line 1: invalid character entity &a;",
-			SVGOptions{}},
-		{"size limit", mmSVG(`<rect/>`), "the file is 104 bytes, more than the limit of 50", SVGOptions{MaxBytes: 50}},
-		{"not svg", `<html><body/></html>`, "html (element 1): not an SVG file: the root element is not svg", SVGOptions{}},
-		{"not xml", `{"format": "plumb-part"}`, "not an SVG file: no root element", SVGOptions{}},
+			Options{}},
+		{"size limit", mmSVG(`<rect/>`), "the file is 104 bytes, more than the limit of 50", Options{MaxBytes: 50}},
+		{"not svg", `<html><body/></html>`, "html (element 1): not an SVG file: the root element is not svg", Options{}},
+		{"not xml", `{"format": "plumb-part"}`, "not an SVG file: no root element", Options{}},
 		{"bad path", mmSVG(`<path id="p" d="M0 0 L x"/>`),
-			"path#p (element 2), attribute d: col 8: expected a number, found 'x'", SVGOptions{}},
+			"path#p (element 2), attribute d: col 8: expected a number, found 'x'", Options{}},
 		{"bad transform", mmSVG(`<g transform="rotate(1 2)"><rect width="1" height="1"/></g>`),
-			"g (element 2), attribute transform: col 8: rotate takes 1 or 3 numbers, found 2", SVGOptions{}},
+			"g (element 2), attribute transform: col 8: rotate takes 1 or 3 numbers, found 2", Options{}},
 		{"negative width", mmSVG(`<rect width="-1" height="2"/>`),
-			"rect (element 2), attribute width: must not be negative", SVGOptions{}},
+			"rect (element 2), attribute width: must not be negative", Options{}},
 		{"odd points", mmSVG(`<polygon points="0 0 1 1 2"/>`),
-			"polygon (element 2), attribute points: odd number of coordinates (5)", SVGOptions{}},
+			"polygon (element 2), attribute points: odd number of coordinates (5)", Options{}},
 		{"relative length", mmSVG(`<rect width="5em" height="2"/>`),
 			`rect (element 2), attribute width: col 2: unit "em" is not an absolute length (use mm, cm, in, pt, pc or px)`,
-			SVGOptions{}},
+			Options{}},
 		{"bad viewBox", `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 0 10"><rect/></svg>`,
-			"svg (element 1), attribute viewBox: col 1: width and height must be positive", SVGOptions{}},
-		{"nothing visible", mmSVG(`<rect fill="none" width="5" height="5"/>`), "no visible shapes in the drawing", SVGOptions{}},
+			"svg (element 1), attribute viewBox: col 1: width and height must be positive", Options{}},
+		{"nothing visible", mmSVG(`<rect fill="none" width="5" height="5"/>`), "no visible shapes in the drawing", Options{}},
 		{"filled reading of strokes", mmSVG(`<rect fill="none" stroke="#000" width="5" height="5"/>`),
-			"no filled shape encloses any area", SVGOptions{Reading: ReadFilled}},
+			"no filled shape encloses any area", Options{Reading: ReadFilled}},
 		{"use references multiplying", mmSVG(`<rect id="r0" width="1" height="1"/>` + useLadder(24)),
-			"use (element 4): the drawing expands to more than 131072 elements through use references", SVGOptions{}},
+			"use (element 4): the drawing expands to more than 131072 elements through use references", Options{}},
+		{"many plain elements", mmSVG(strings.Repeat(`<g/>`, maxSVGVisits+1)),
+			"g (element 131074): the drawing has more than 131072 elements", Options{}},
 		{"self reference", mmSVG(`<use id="u" href="#u"/>`),
-			"use#u (element 2), attribute href: use references nest too deep (or refer to themselves)", SVGOptions{}},
+			"use#u (element 2), attribute href: use references nest too deep (or refer to themselves)", Options{}},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			_, _, err := ReadSVG([]byte(tt.svg), tt.opt)
-			var se *SVGError
+			_, _, err := Read([]byte(tt.svg), tt.opt)
+			var se *Error
 			if !errors.As(err, &se) {
-				t.Fatalf("error %v is not an *SVGError", err)
+				t.Fatalf("error %v is not an *Error", err)
 			}
 			if err.Error() != tt.want {
 				t.Errorf("error\n%q\nwant\n%q", err, tt.want)
@@ -286,7 +293,7 @@ func useLadder(n int) string {
 // TestReadSVGTestdata reads every SVG in the repository's testdata and checks that each part has
 // material, and that the filled and cut-file drawings of one part agree on its area.
 func TestReadSVGTestdata(t *testing.T) {
-	files, err := filepath.Glob("../testdata/*.svg")
+	files, err := filepath.Glob("../../testdata/*.svg")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -296,7 +303,7 @@ func TestReadSVGTestdata(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		d, _, err := ReadSVG(data, SVGOptions{Name: filepath.Base(f)})
+		d, _, err := Read(data, Options{Name: filepath.Base(f)})
 		if err != nil {
 			t.Errorf("%s: %v", f, err)
 			continue
@@ -319,16 +326,16 @@ func FuzzReadSVG(f *testing.F) {
 		`<ellipse rx="5" ry="3"/><polygon points="-2,-2 2,-2 0,2"/></g>`)))
 	f.Add([]byte(mmSVG(`<style>.a{fill:none;stroke:#000}</style><path class="a" d="M0 0Q5 5 10 0T20 0C25 5 30 5 30 0S35 -5 40 0z"/>`)))
 	f.Fuzz(func(t *testing.T, data []byte) {
-		d, _, err := ReadSVG(data, SVGOptions{})
+		d, _, err := Read(data, Options{})
 		if err != nil {
-			var se *SVGError
+			var se *Error
 			if !errors.As(err, &se) {
-				t.Fatalf("error %v is not an *SVGError", err)
+				t.Fatalf("error %v is not an *Error", err)
 			}
 			return
 		}
 		if _, err := d.Outline.Check(); err != nil {
-			t.Fatalf("ReadSVG returned an invalid outline: %v", err)
+			t.Fatalf("Read returned an invalid outline: %v", err)
 		}
 	})
 }
@@ -336,11 +343,11 @@ func FuzzReadSVG(f *testing.F) {
 // TestBladeSignDrawingsAgree checks that the part file of the blade sign describes the same metal as
 // its SVG drawings: the drawings cut the two hang holes that the part file lists as holes.
 func TestBladeSignDrawingsAgree(t *testing.T) {
-	data, err := os.ReadFile("../testdata/blade-sign.json")
+	data, err := os.ReadFile("../../testdata/blade-sign.json")
 	if err != nil {
 		t.Fatal(err)
 	}
-	d, err := Load(data)
+	d, err := sketch.Load(data)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -349,11 +356,11 @@ func TestBladeSignDrawingsAgree(t *testing.T) {
 		want -= math.Pi * h.Diameter * h.Diameter / 4
 	}
 	for _, f := range []string{"blade-sign-cut.svg", "blade-sign-filled.svg"} {
-		data, err := os.ReadFile("../testdata/" + f)
+		data, err := os.ReadFile("../../testdata/" + f)
 		if err != nil {
 			t.Fatal(err)
 		}
-		s, _, err := ReadSVG(data, SVGOptions{})
+		s, _, err := Read(data, Options{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -395,7 +402,7 @@ func BenchmarkReadSVG(b *testing.B) {
 	b.ReportAllocs()
 	b.SetBytes(int64(len(data)))
 	for b.Loop() {
-		if _, _, err := ReadSVG(data, SVGOptions{}); err != nil {
+		if _, _, err := Read(data, Options{}); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -424,7 +431,7 @@ func TestReadSVGPercentages(t *testing.T) {
 			}
 		})
 	}
-	_, _, err := ReadSVG([]byte(`<svg xmlns="http://www.w3.org/2000/svg"><rect width="50%" height="2"/></svg>`), SVGOptions{})
+	_, _, err := Read([]byte(`<svg xmlns="http://www.w3.org/2000/svg"><rect width="50%" height="2"/></svg>`), Options{})
 	want := "rect (element 2), attribute width: col 1: a percentage needs a viewBox (or an absolute width and height) to measure by"
 	if err == nil || err.Error() != want {
 		t.Errorf("error %v, want %q", err, want)
@@ -452,7 +459,7 @@ func TestReadSVGEncodings(t *testing.T) {
 	latin1 := strings.Replace(`<?xml version="1.0" encoding="ISO-8859-1"?>`+plain, "é", "\xe9", 1)
 	for name, data := range map[string]string{"utf-8": plain, "byte order mark": "\xef\xbb\xbf" + plain,
 		"svgz": packed.String(), "latin-1": latin1} {
-		d, _, err := ReadSVG([]byte(data), SVGOptions{})
+		d, _, err := Read([]byte(data), Options{})
 		if err != nil {
 			t.Errorf("%s: %v", name, err)
 			continue
@@ -465,11 +472,11 @@ func TestReadSVGEncodings(t *testing.T) {
 	zw = gzip.NewWriter(&bomb)
 	zw.Write([]byte(mmSVG("<!--" + strings.Repeat("x", 100000) + "-->")))
 	zw.Close()
-	_, _, err := ReadSVG(bomb.Bytes(), SVGOptions{MaxBytes: 1000})
+	_, _, err := Read(bomb.Bytes(), Options{MaxBytes: 1000})
 	if err == nil || err.Error() != "the drawing unpacks to more than the limit of 1000 bytes" {
 		t.Errorf("unpacking past the limit: %v", err)
 	}
-	_, _, err = ReadSVG([]byte(`<?xml version="1.0" encoding="Shift_JIS"?>`+plain), SVGOptions{})
+	_, _, err = Read([]byte(`<?xml version="1.0" encoding="Shift_JIS"?>`+plain), Options{})
 	if err == nil || !strings.Contains(err.Error(), `encoding "Shift_JIS" is not supported; save the drawing as UTF-8`) {
 		t.Errorf("unknown encoding: %v", err)
 	}
@@ -480,7 +487,7 @@ func TestReadSVGName(t *testing.T) {
 	  Shelf bracket
 	  SB-200 </title><rect width="10" height="10"/>`)
 	for _, tt := range []struct{ opt, want string }{{"", "Shelf bracket SB-200"}, {"bracket.svg", "bracket.svg"}} {
-		d, _, err := ReadSVG([]byte(svg), SVGOptions{Name: tt.opt})
+		d, _, err := Read([]byte(svg), Options{Name: tt.opt})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -500,7 +507,7 @@ func TestReadSVGSwitch(t *testing.T) {
 	}
 }
 
-func ExampleReadSVG() {
+func ExampleRead() {
 	drawing := `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="50mm" viewBox="0 0 100 50">
   <g fill="none" stroke="black">
     <rect width="100" height="50" rx="5"/>
@@ -508,10 +515,10 @@ func ExampleReadSVG() {
     <path id="bend-line" d="M30 0V50"/>
   </g>
 </svg>`
-	_, _, err := ReadSVG([]byte(drawing), SVGOptions{})
+	_, _, err := Read([]byte(drawing), Options{})
 	fmt.Println(err)
 
-	d, _, err := ReadSVG([]byte(strings.Replace(drawing, `<path id="bend-line" d="M30 0V50"/>`, "", 1)), SVGOptions{})
+	d, _, err := Read([]byte(strings.Replace(drawing, `<path id="bend-line" d="M30 0V50"/>`, "", 1)), Options{})
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -1,4 +1,4 @@
-package sketch
+package svg
 
 import (
 	"errors"
@@ -35,8 +35,8 @@ func TestReadSVGJoinsEdges(t *testing.T) {
 func TestReadSVGOpenAfterJoining(t *testing.T) {
 	svg := mmSVG(`<g fill="none" stroke="#000"><path id="left" d="M0 0V50"/><path d="M0 50H80"/>` +
 		`<path d="M80 50V0"/></g>`)
-	_, _, err := ReadSVG([]byte(svg), SVGOptions{})
-	var se *SVGError
+	_, _, err := Read([]byte(svg), Options{})
+	var se *Error
 	want := "path#left (element 3): contour 1 is open: joined end to end with 2 more open contours, its ends " +
 		"are still 80 mm apart; a cut file needs closed contours"
 	if !errors.As(err, &se) || err.Error() != want {
