@@ -65,13 +65,13 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	kept := c.classify(cutList(ms, findHits(ms, tol, nil), tol))
 	pieces := closeUp(dedupe(kept, c.side), c.side)
 	if o == (Point{}) {
-		return Boundary{Pieces: pieces}
+		return Boundary{Pieces: pieces}.Indexed()
 	}
 	abs := make([]Segment, len(pieces))
 	for i, s := range pieces {
 		abs[i] = s.translated(o)
 	}
-	return Boundary{Pieces: abs, local: pieces, origin: o}
+	return Boundary{Pieces: abs, local: pieces, origin: o}.Indexed()
 }
 
 // regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index.
