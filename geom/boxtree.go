@@ -1,10 +1,6 @@
 package geom
 
-import (
-	"cmp"
-	"math"
-	"slices"
-)
+import "math"
 
 // boxTree is a static bounding-volume hierarchy over a list of rectangles: a binary tree whose leaves
 // hold up to treeLeaf items and whose nodes hold the union of their items' boxes. It is built once in
@@ -32,16 +28,22 @@ const treeLeaf = 8
 // newBoxTree builds the tree over boxes (which it keeps; empty boxes are never visited).
 func newBoxTree(boxes []Rect) *boxTree {
 	t := &boxTree{boxes: boxes, items: make([]int32, len(boxes))}
-	for i := range t.items {
+	cx, cy := make([]float64, len(boxes)), make([]float64, len(boxes))
+	for i, b := range boxes {
 		t.items[i] = int32(i)
+		cx[i], cy[i] = b.Min.X+b.Max.X, b.Min.Y+b.Max.Y
+		if b.IsEmpty() {
+			cx[i], cy[i] = math.Inf(1), math.Inf(1) // to the end, out of the way
+		}
 	}
 	t.nodes = make([]treeNode, 1, max(1, 2*len(boxes)/treeLeaf+1))
-	t.build(0, 0, len(boxes))
+	t.build(0, 0, len(boxes), cx, cy)
 	return t
 }
 
-// build makes node k over items[lo:hi].
-func (t *boxTree) build(k, lo, hi int) {
+// build makes node k over items[lo:hi], splitting at the median of the centres (twice the centre: cx
+// and cy) along the longer side.
+func (t *boxTree) build(k, lo, hi int, cx, cy []float64) {
 	box := EmptyRect()
 	for _, i := range t.items[lo:hi] {
 		box = box.Union(t.boxes[i])
@@ -50,19 +52,47 @@ func (t *boxTree) build(k, lo, hi int) {
 	if hi-lo <= treeLeaf {
 		return
 	}
-	size := box.Size()
-	centre := func(i int32) float64 { return t.boxes[i].Min.Y + t.boxes[i].Max.Y }
-	if size.X >= size.Y {
-		centre = func(i int32) float64 { return t.boxes[i].Min.X + t.boxes[i].Max.X }
+	key := cy
+	if size := box.Size(); size.X >= size.Y {
+		key = cx
 	}
-	run := t.items[lo:hi]
-	slices.SortFunc(run, func(a, b int32) int { return cmp.Compare(centre(a), centre(b)) })
+	mid := lo + (hi-lo)/2
+	selectNth(t.items[lo:hi], key, mid-lo)
 	left := int32(len(t.nodes))
 	t.nodes = append(t.nodes, treeNode{}, treeNode{})
 	t.nodes[k].left = left
-	mid := lo + (hi-lo)/2
-	t.build(int(left), lo, mid)
-	t.build(int(left)+1, mid, hi)
+	t.build(int(left), lo, mid, cx, cy)
+	t.build(int(left)+1, mid, hi, cx, cy)
+}
+
+// selectNth reorders items so that items[n] has the n-th smallest key, those before it no larger and
+// those after no smaller (Hoare's selection, with the middle element as pivot): O(len) on average.
+func selectNth(items []int32, key []float64, n int) {
+	lo, hi := 0, len(items)-1
+	for lo < hi {
+		pivot := key[items[lo+(hi-lo)/2]]
+		i, j := lo, hi
+		for i <= j {
+			for key[items[i]] < pivot {
+				i++
+			}
+			for key[items[j]] > pivot {
+				j--
+			}
+			if i <= j {
+				items[i], items[j] = items[j], items[i]
+				i, j = i+1, j-1
+			}
+		}
+		switch {
+		case n <= j:
+			hi = j
+		case n >= i:
+			lo = i
+		default:
+			return
+		}
+	}
 }
 
 // visit calls fn for every item whose box meets (Rect's closed sense) a node box accepted by meets and
@@ -94,11 +124,35 @@ func (t *boxTree) visit(meets func(Rect) bool, fn func(i int) bool) bool {
 	return true
 }
 
-// overlapping calls fn for every item whose box meets r.
+// overlapping calls fn for every item whose box meets r, until fn returns false; it reports whether
+// it went to the end. It is visit with the rectangle test written out, the hot path of Combine.
 func (t *boxTree) overlapping(r Rect, fn func(i int) bool) bool {
-	return t.visit(func(b Rect) bool {
+	if len(t.boxes) == 0 {
+		return true
+	}
+	meets := func(b *Rect) bool {
 		return b.Min.X <= r.Max.X && r.Min.X <= b.Max.X && b.Min.Y <= r.Max.Y && r.Min.Y <= b.Max.Y
-	}, fn)
+	}
+	var stack [128]int32
+	n := 1
+	for n > 0 {
+		n--
+		nd := &t.nodes[stack[n]]
+		if !meets(&nd.box) {
+			continue
+		}
+		if nd.left >= 0 {
+			stack[n], stack[n+1] = nd.left, nd.left+1
+			n += 2
+			continue
+		}
+		for _, i := range t.items[nd.lo:nd.hi] {
+			if meets(&t.boxes[i]) && !fn(int(i)) {
+				return false
+			}
+		}
+	}
+	return true
 }
 
 // nearest calls dist for items in order of growing distance from p to their box, skipping those whose

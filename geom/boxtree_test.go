@@ -1,6 +1,7 @@
 package geom
 
 import (
+	"cmp"
 	"math"
 	"math/rand/v2"
 	"slices"
@@ -47,5 +48,24 @@ func TestBoxTreeMatchesScan(t *testing.T) {
 				t.Fatalf("n=%d: nearest to %v %v, want %v", n, q, gotD, wantD)
 			}
 		}
+	}
+}
+
+// TestSweepTreeMatchesList checks that the box-tree sweep visits the same pairs in the same order as
+// the list of open boxes, on the pieces of a plate with 300 glyph cut-outs.
+func TestSweepTreeMatchesList(t *testing.T) {
+	plate, glyphs := glyphPlate(300)
+	ms, _ := regionMonos(append([]Region{plate}, glyphs...))
+	order := make([]edge, len(ms))
+	for i := range order {
+		order[i] = edge{ms[i].box.Min.X, i}
+	}
+	slices.SortFunc(order, func(a, b edge) int { return cmp.Compare(a.x, b.x) })
+	var list, tree [][2]int
+	const tol = 1e-3
+	ms.sweepList(order, tol, func(j, i int) bool { list = append(list, [2]int{j, i}); return true })
+	ms.sweepTree(order, tol, func(j, i int) bool { tree = append(tree, [2]int{j, i}); return true })
+	if len(list) == 0 || !slices.Equal(list, tree) {
+		t.Errorf("tree sweep visits %d pairs, the list %d (or in another order)", len(tree), len(list))
 	}
 }
