@@ -313,7 +313,7 @@ func (d *Document) material(p plan, crossed bool) (geom.Boundary, geom.Moments) 
 	if m.M < 0 {
 		b, m = geom.Boundary{Pieces: loop.Reverse()}, m.Scale(-1)
 	}
-	return b, m
+	return b.Indexed(), m
 }
 
 // checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings; crossed
@@ -435,7 +435,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	circle := geom.Circle(h.At, h.Diameter/2)
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
-	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
+	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}.Indexed()
 	if err := part.setMoments(a.Origin.Sub(disk.IntegratePolyAbout(a.poly.at, a.poly.p))); err != nil {
 		return nil, err
 	}
