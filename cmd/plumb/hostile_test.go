@@ -241,6 +241,7 @@ func walkFlags(t *testing.T, plumb func(args ...string) plumbRun) {
 		"convert":   {"testdata/bakery-sign.json", "--force", "--out", filepath.Join(dir, "out.svg")},
 		"template":  {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
 		"report":    {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
+		"cutfile":   {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.dxf")},
 		"materials": {},
 		// build and serve would build the app: an extra operand stops them after the flags.
 		"build": {"extra"},
