@@ -50,6 +50,8 @@ func TestPageSizeAndFirstFrame(t *testing.T) {
 		c := newBrowser(t)
 		c.open()
 		tm := eval[map[string]float64](c, `plumbUI.timing`)
+		t.Logf("load: script %.0f ms, module decoded %.0f ms, compiled %.0f ms, app's first frame %.0f ms, part loaded %.0f ms, on screen %.0f ms",
+			tm["scriptMs"], tm["unpackedMs"], tm["compiledMs"], tm["readyMs"], tm["loadedMs"], tm["restoredMs"])
 		first, ready = append(first, tm["restoredMs"]), append(ready, tm["readyMs"])
 	}
 	slices.Sort(first)
