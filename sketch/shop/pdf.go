@@ -239,6 +239,9 @@ func (d *pdfDoc) SetFont(_ string, style string, size float64) {
 	}
 }
 
+// GetFontSize returns the current font size in points and in millimetres.
+func (d *pdfDoc) GetFontSize() (pt, mm float64) { return d.size, d.size / ptPerMM }
+
 // glyphs returns the glyph indices of s in the current font and records them for embedding.
 func (d *pdfDoc) glyphs(s string) []truetype.Index {
 	out := make([]truetype.Index, 0, len(s))

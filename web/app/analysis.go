@@ -251,7 +251,11 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 		m["edge"] = edgeState{min, source, ed.EdgeDistance() > 0}
 	}
 	m["part"], m["empty"] = partFacts(r.doc), isEmpty(r.doc)
-	b, _ := json.Marshal(m)
+	b, err := json.Marshal(m)
+	if err != nil { // a number that is not finite: say so rather than hand the page nothing
+		b, _ = json.Marshal(map[string]any{"file": file, "error": "the results cannot be shown: a result is not a finite number",
+			"warnings": []string{}, "cautions": sketch.Cautions()})
+	}
 	return b
 }
 

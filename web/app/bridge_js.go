@@ -223,15 +223,14 @@ func (g *Game) load(text, name string, restored bool) any {
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
+		if err == nil {
+			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
+		}
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
 	if err != nil {
 		return map[string]any{"ok": false, "error": err.Error(), "warnings": []any{}}
-	}
-	if doc.Material.Material == "" && doc.Material.Formula == "" && g.chosen.haveSpec {
-		doc.Material = g.chosen.spec
-		warnings = append(warnings, "the drawing gives no material: it takes "+describeSpec(doc.Material)+", chosen last")
 	}
 	if restored {
 		g.ed.Restore(doc)
@@ -268,7 +267,7 @@ func (g *Game) setMaterial(v js.Value) any {
 
 // setDefaults takes the units and material chosen last ({units, material: {material, thickness} |
 // {formula, unit, params}}, either may be missing), as the page kept them from an earlier visit: a
-// new part starts with them, and a drawing without a material takes the material.
+// new part starts with them.
 func (g *Game) setDefaults(v js.Value) any {
 	if v.Type() != js.TypeObject {
 		return outcome(errors.New("expected {units, material}"))
@@ -411,12 +410,4 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
-}
-
-// describeSpec names a material spec in a few words: "aluminium 5052, 3 mm" or "formula 8 + k*x kg/m2".
-func describeSpec(s density.Spec) string {
-	if s.Formula != "" {
-		return "the formula " + s.Formula + " " + cmp.Or(s.Unit, "kg/m2")
-	}
-	return s.Material + ", " + s.Thickness
 }

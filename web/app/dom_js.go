@@ -3,6 +3,7 @@
 package main
 
 import (
+	"encoding/json"
 	"syscall/js"
 
 	"plumb/sketch/edit"
@@ -69,8 +70,15 @@ func nowMS() float64 {
 	return js.Global().Get("performance").Call("now").Float()
 }
 
-// parseJSON turns JSON text into a JavaScript value.
+// parseJSON turns JSON text into a JavaScript value. Text that is not JSON (a value Go could not
+// encode) becomes an object with an error, never a thrown exception, which would stop the app.
 func parseJSON(b []byte) js.Value {
+	if !json.Valid(b) {
+		obj := js.Global().Get("Object").New()
+		obj.Set("error", "the app could not encode its state")
+		obj.Set("warnings", js.Global().Get("Array").New())
+		return obj
+	}
 	return js.Global().Get("JSON").Call("parse", string(b))
 }
 

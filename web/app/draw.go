@@ -187,11 +187,11 @@ func (fr *frame) grid() {
 	major := fr.v.GridStep(edit.GridPixels * 5 * fr.u)
 	lo, hi := fr.v.ToDoc(geom.Pt(0, fr.h)), fr.v.ToDoc(geom.Pt(fr.w, 0))
 	one := math.Max(1, math.Round(fr.u))
-	for x := math.Ceil(lo.X/step) * step; x <= hi.X; x += step {
+	for x := range edit.GridLines(lo.X, hi.X, step) {
 		sx := math.Round(fr.screen(geom.Pt(x, 0)).X)
 		fr.p.rect(sx, 0, one, fr.h, gridColour(x, major, step))
 	}
-	for y := math.Ceil(lo.Y/step) * step; y <= hi.Y; y += step {
+	for y := range edit.GridLines(lo.Y, hi.Y, step) {
 		sy := math.Round(fr.screen(geom.Pt(0, y)).Y)
 		fr.p.rect(0, sy, fr.w, one, gridColour(y, major, step))
 	}
@@ -632,7 +632,7 @@ func (fr *frame) rulers() {
 	step := fr.g.ed.GridStep()
 	major := fr.v.GridStep(edit.GridPixels * 5 * u)
 	lo, hi := fr.v.ToDoc(geom.Pt(0, fr.h)), fr.v.ToDoc(geom.Pt(fr.w, 0))
-	for x := math.Ceil(lo.X/step) * step; x <= hi.X; x += step {
+	for x := range edit.GridLines(lo.X, hi.X, step) {
 		sx := fr.screen(geom.Pt(x, 0)).X
 		if sx < lw {
 			continue
@@ -645,7 +645,7 @@ func (fr *frame) rulers() {
 		}
 		fr.p.rect(math.Round(sx), fr.h-bh, u, tick, colInkSoft)
 	}
-	for y := math.Ceil(lo.Y/step) * step; y <= hi.Y; y += step {
+	for y := range edit.GridLines(lo.Y, hi.Y, step) {
 		sy := fr.screen(geom.Pt(0, y)).Y
 		if sy > fr.h-bh {
 			continue
