@@ -393,7 +393,7 @@ func TestPageLoadsOfflineFromFile(t *testing.T) {
 	}
 	b.open()
 	timing := eval[map[string]float64](b, `plumbUI.timing`)
-	t.Logf("page size: %d bytes (%.2f MB; goal 5 MB)", built.size, float64(built.size)/1e6)
+	t.Logf("page size: %d bytes (%.2f MB; goal ≤ %.1f MB, checked by TestPageSizeAndFirstFrame)", built.size, float64(built.size)/1e6, maxPageBytes/1e6)
 	t.Logf("navigation to first interactive frame: %.0f ms (app ready at %.0f ms)", timing["restoredMs"], timing["readyMs"])
 	b.frames(3)
 	b.mu.Lock()
