@@ -158,10 +158,25 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 		}
 		total = total.Add(m)
 	}
+	a.addShapeError(d, unit)
 	if err := a.setMoments(total); err != nil {
 		return nil, err
 	}
 	return a, nil
+}
+
+// addShapeError adds the reader's bound on approximated curves to the error estimate: an area δA
+// between drawn and held curves changes each moment ∬f by at most δA·max|f|, and max|f| ≤ R^k for a
+// moment of order k with R the farthest point of the part from the origin, so δA/A bounds the error of
+// every moment relative to A·R^k.
+func (a *Analysis) addShapeError(d *Document, unit density.Length) {
+	if !(d.ShapeError > 0) {
+		return
+	}
+	rel := d.ShapeError / a.Area
+	a.RelErr += rel
+	a.Warnings = append(a.Warnings, fmt.Sprintf("some curves of the drawing were approximated by lines (within %.2g %s² of area, %.1e relative)",
+		d.ShapeError, unit.Name, rel))
 }
 
 // HasMaterial reports whether the part's base material is given: a material name or an areal-density
@@ -184,6 +199,7 @@ func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Lengt
 		a.Warnings = append(a.Warnings, fmt.Sprintf("overlays[%d] (%s) is not counted: the part has no base material",
 			i, overlayName(ov, i)))
 	}
+	a.addShapeError(d, unit)
 	if err := a.setMoments(shape); err != nil {
 		return nil, err
 	}

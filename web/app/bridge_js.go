@@ -14,6 +14,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/dxf"
 	"plumb/sketch/edit"
 	"plumb/sketch/shop"
 	"plumb/sketch/svg"
@@ -21,7 +22,7 @@ import (
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
 //
-//	load(text, filename) → {ok, error, warnings}   a part file (JSON) or an SVG drawing
+//	load(text, filename) → {ok, error, warnings, has_material}   a part file (JSON), SVG or DXF drawing
 //	restore(text, filename) → like load, for saved work: the part is the bottom of the undo history
 //	frames() → {drawn, last_ms}   frames painted so far, and performance.now() at the last one
 //	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
@@ -29,6 +30,7 @@ import (
 //	saveJSON() → string     the part file
 //	report() → string       the plain-text report with the cautions
 //	templatePDF(paper) → Uint8Array | {error}   the 1:1 drilling template on "A4", "letter", "A3" or "tabloid"
+//	cutFile("dxf"|"svg") → string | {error}     the part as a cut file with its hang holes (or the level hole)
 //	undo(), redo(), newPart(), fit()
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
@@ -77,6 +79,15 @@ func installBridge(g *Game) {
 			u := js.Global().Get("Uint8Array").New(len(b))
 			js.CopyBytesToJS(u, b)
 			return u
+		})
+	})
+	fn("cutFile", func(a []js.Value) any {
+		return read(g, func() any {
+			b, err := g.cutFile(str(a, 0))
+			if err != nil {
+				return map[string]any{"error": err.Error()}
+			}
+			return string(b)
 		})
 	})
 	fn("undo", func([]js.Value) any { return g.change(func() any { return g.ed.Undo() }) })
@@ -211,7 +222,7 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// load reads a part file or an SVG or DXF drawing and makes it the part. The answer says whether the part
 // came with a material (has_material), so that the page can give a drawing without one the panel's.
 // Restored saved work starts the undo history, so that Undo cannot empty it.
 func (g *Game) load(text, name string, restored bool) any {
@@ -220,14 +231,17 @@ func (g *Game) load(text, name string, restored bool) any {
 		warnings []string
 		err      error
 	)
-	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
-		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	switch {
+	case strings.EqualFold(path.Ext(name), ".dxf"):
+		doc, warnings, err = dxf.Read([]byte(text), dxf.Options{Name: base})
+	case strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<"):
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
-		if err == nil {
-			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
-		}
-	} else {
+	default:
 		doc, err = sketch.Load([]byte(text))
+	}
+	if err == nil {
+		err = doc.CheckExtent() // refuse parts beyond the coordinate range before anything is saved
 	}
 	if err != nil {
 		return map[string]any{"ok": false, "error": err.Error(), "warnings": []any{}}
@@ -410,4 +424,21 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
+}
+
+// cutFile returns the part as a DXF or SVG cut file (format "dxf" or "svg") with its hang holes as
+// circles; a part without holes gets the level-hang hole when there is one.
+func (g *Game) cutFile(format string) ([]byte, error) {
+	d := g.ed.Document()
+	holes := d.Holes
+	if lv := g.res.level; len(holes) == 0 && lv != nil && lv.Hang != nil {
+		holes = []sketch.Hole{{At: lv.At, Diameter: lv.Diameter}}
+	}
+	switch format {
+	case "dxf":
+		return dxf.Write(d, holes)
+	case "svg":
+		return svg.WriteCut(d, holes)
+	}
+	return nil, fmt.Errorf("unknown cut file format %q: want dxf or svg", format)
 }

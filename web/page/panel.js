@@ -358,7 +358,7 @@
   // baseName names downloaded files after the part, or else after the file it came from.
   function baseName() {
     const name = partName || (state && state.file) || "part";
-    return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
+    return name.replace(/\.(json|svg|dxf)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
   // download offers data (a string or a Uint8Array) as a file.
@@ -739,6 +739,12 @@
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
     report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    cutfile: () => {
+      const format = $("cut-format").value;
+      const text = app.cutFile(format);
+      if (typeof text === "string") download(text, baseName() + "-cut." + format, format === "svg" ? "image/svg+xml" : "application/dxf");
+      else toast("Cut file: " + text.error, true);
+    },
     template: () => {
       const pdf = app.templatePDF($("paper").value);
       if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
