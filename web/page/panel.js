@@ -24,7 +24,9 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
+  // Milliseconds since navigation: unpackedMs (the module's text decoded), compiledMs, readyMs (the app's
+  // first frame), restoredMs (the part is on screen).
+  const timing = { scriptMs: performance.now() };
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
@@ -108,15 +110,20 @@
     return out;
   }
 
+  // startApp unpacks the module and compiles it while it is still being inflated (a Response typed
+  // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
   async function startApp() {
     const holder = $("plumb-module");
     const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
+    timing.unpackedMs = performance.now();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
-    const module = await new Response(stream).arrayBuffer();
-    startup = await readStartup();
     const go = new Go();
-    const { instance } = await WebAssembly.instantiate(module, go.importObject);
+    const compiled = WebAssembly.instantiateStreaming(
+      new Response(stream, { headers: { "Content-Type": "application/wasm" } }), go.importObject);
+    startup = await readStartup();
+    const { instance } = await compiled;
+    timing.compiledMs = performance.now();
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
   }
 
@@ -148,6 +155,7 @@
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
+    timing.loadedMs = performance.now();
     requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
     settleStartup();
   }
