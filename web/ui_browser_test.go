@@ -334,3 +334,61 @@ func TestSelectDragMovesShape(t *testing.T) {
 		t.Errorf("a Space-drag moved the part from x = %g to %g; it must pan", moved, x)
 	}
 }
+
+// TestPanelDetails checks the panel's small promises: true minus signs, pounds first in inches, the
+// New button looking ready, a long name shown whole on hover, the report titled by the part's name
+// after a reload, and the Sheet-material fields kept when a formula part comes back.
+func TestPanelDetails(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	d := plainPlate()
+	d.Name = "Shelf bracket for the north wall of the bakery, left of the oven, second row"
+	d.Outline = d.Outline.Transform(geom.Translate(-1000, -500))
+	b.load(partJSON(t, d), "plate.json")
+	if got := eval[string](b, `document.getElementById("balance").textContent`); !strings.Contains(got, "−800.0") || strings.Contains(got, "-") {
+		t.Errorf("balance point %q, want −800.0 with a true minus sign", got)
+	}
+	if got := eval[string](b, `document.getElementById("part-name").title`); got != d.Name {
+		t.Errorf("part name title %q, want the whole name", got)
+	}
+	if eval[bool](b, `(() => { const n = document.querySelector('[data-action="new"]'); return n.disabled || n.classList.contains("quiet"); })()`) {
+		t.Error("the New button looks disabled")
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-units="in"]`)))
+	b.waitFor(`plumb.state().units.length === "in"`)
+	if got := eval[string](b, `document.getElementById("weight").textContent`); !strings.HasSuffix(got, " lb") {
+		t.Errorf("weight of a part in inches reads %q, want pounds first", got)
+	}
+	// The sheet material is kept for the other tab: a formula part, reloaded, leaves it in the fields.
+	f := plainPlate()
+	f.Material = density.Spec{Formula: "8 + k*x", Unit: "kg/m2", Params: map[string]float64{"k": 0.001}}
+	b.load(partJSON(t, f), "formula.json")
+	b.do(chromedp.Reload())
+	b.waitStarted()
+	if got := eval[string](b, `document.getElementById("material").value`); got != "aluminium 5052" {
+		t.Errorf("after reloading a formula part the Sheet-material tab holds %q, want aluminium 5052", got)
+	}
+	if title := strings.SplitN(eval[string](b, `plumb.report()`), "\n", 2)[0]; strings.Contains(title, "autosave") || !strings.Contains(title, "plain plate") {
+		t.Errorf("report title %q, want the part's name", title)
+	}
+}
+
+// TestFirstMinuteGuide checks that a first visit shows the guide, that it closes, and that it stays
+// closed after a reload.
+func TestFirstMinuteGuide(t *testing.T) {
+	b := newBrowser(t)
+	b.open()
+	if eval[bool](b, `document.getElementById("guide").hidden`) {
+		t.Fatal("no first-minute guide on a first visit")
+	}
+	if text := eval[string](b, `document.getElementById("guide").textContent`); !strings.Contains(text, "Drop") || !strings.Contains(text, "material") || !strings.Contains(text, "hole") {
+		t.Errorf("guide says %q", text)
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="dismiss-guide"]`)))
+	b.waitFor(`document.getElementById("guide").hidden`)
+	b.do(chromedp.Reload())
+	b.waitStarted()
+	if !eval[bool](b, `document.getElementById("guide").hidden`) {
+		t.Error("the guide came back after it was closed")
+	}
+}
