@@ -202,6 +202,8 @@ func TestScreenshots(t *testing.T) {
 	}
 	b.waitFor(`plumb.state().level_pending === false`)
 	shot("demo")
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="dismiss-guide"]`)))
+	shot("demo-no-guide")
 	pdf, err := base64.StdEncoding.DecodeString(eval[string](b, `(() => {
 		const r = plumb.templatePDF("A4");
 		let s = "";
