@@ -11,8 +11,10 @@ import (
 
 const analyzeAbout = `Prints the area, mass, weight, balance point (centroid), second moments, principal axes and
 radii of gyration of each part, with the integration error estimate and warnings. FILE is a part file
-(.json) or an SVG drawing (lengths in mm); a directory is searched for both. The material comes from
-the part file or from --material and --thickness, or --density.
+(.json), an SVG drawing (lengths in mm) or a DXF drawing (in its $INSUNITS unit); a directory is
+searched for all three. The material comes from the part file or from --material and --thickness, or
+--density; without one, area, balance point and second moments come from the shape alone (per unit
+areal density) and mass is null.
 Formats: text (a table with units), json (one object per line, keys file, units, area, mass,
 centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file;
 stderr gets a summary line: the count and total mass per material). A long batch shows a progress
@@ -25,7 +27,9 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 	var rf readingFlag
 	rf.register(fs)
 	format := fs.String("format", "text", "output `format`: text, json or csv")
-	tol := fs.Float64("tol", 0, "requested relative `accuracy` for densities that are not polynomials (0: 1e-10)")
+	var tol float64
+	floatFlagOrZero(fs, &tol, "tol", 1e-14, 0.1, "0 or a relative accuracy from 1e-14 to 0.1",
+		"requested relative `accuracy` for densities that are not polynomials (0: 1e-10)")
 	files, err := parseArgs(fs, args)
 	if err != nil {
 		return usageStatus(err)
@@ -40,12 +44,12 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return usageError(stderr, "analyze", "%v", err)
 	}
-	opt := sketch.AnalyzeOptions{Tol: *tol}
+	opt := sketch.AnalyzeOptions{Tol: tol}
 	prog := newProgress(stderr, files)
 	b := &batch{stderr: prog}
 	var tot totals
 	b.run(files, prog.each(func(path string) error {
-		p, err := loadPart(path, rf.r)
+		p, err := loadPart(path, rf)
 		if err != nil {
 			return err
 		}
@@ -62,7 +66,7 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 		tot.write(prog)
 	}
 	if err := out.close(); err != nil {
-		fmt.Fprintf(stderr, "plumb: %v\n", err)
+		say(stderr, "plumb: %v", err)
 		return exitFailed
 	}
 	return b.status()

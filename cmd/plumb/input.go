@@ -13,6 +13,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/dxf"
 	"plumb/sketch/svg"
 )
 
@@ -31,13 +32,25 @@ func (m *materialFlags) register(fs *flag.FlagSet) {
 	fs.Var(m.params, "param", "formula parameter `name=value` (repeatable), e.g. --param k=2e-6")
 }
 
-// check reports contradictory material flags.
+// check reports contradictory material flags, an unknown --unit and a --density formula that does
+// not parse. Names in the formula, and the material and thickness, may depend on the part file (its
+// parameters and own materials), so they are checked with each file.
 func (m *materialFlags) check() error {
 	switch {
 	case m.formula != "" && (m.material != "" || m.thickness != ""):
 		return fmt.Errorf("give either --density or --material and --thickness, not both")
 	case m.unit != "" && m.formula == "":
 		return fmt.Errorf("--unit goes with --density")
+	}
+	if m.unit != "" {
+		if _, err := density.ArealUnit(m.unit); err != nil {
+			return fmt.Errorf("--unit: %v", err)
+		}
+	}
+	if m.formula != "" {
+		if _, err := density.Parse(m.formula); err != nil {
+			return fmt.Errorf("--density: %v", err)
+		}
 	}
 	return nil
 }
@@ -79,9 +92,9 @@ func (p paramFlag) Set(s string) error {
 	if !ok || name == "" {
 		return fmt.Errorf("want name=value, found %q", s)
 	}
-	v, err := strconv.ParseFloat(strings.TrimSpace(value), 64)
-	if err != nil {
-		return fmt.Errorf("parameter %s: %q is not a number", name, value)
+	v, ok := finite(value)
+	if !ok {
+		return fmt.Errorf("parameter %s: %q is not a finite number", name, value)
 	}
 	p[name] = v
 	return nil
@@ -99,8 +112,11 @@ func (p paramFlag) merge(file map[string]float64) map[string]float64 {
 	return out
 }
 
-// readingFlag selects how SVG drawings are read.
-type readingFlag struct{ r svg.Reading }
+// readingFlag selects how drawings are read: SVG by --reading, DXF by the layer choice.
+type readingFlag struct {
+	r                  svg.Reading
+	layers, skipLayers string // comma-separated DXF layer names
+}
 
 func (f *readingFlag) String() string {
 	switch f.r {
@@ -128,29 +144,76 @@ func (f *readingFlag) Set(s string) error {
 
 func (f *readingFlag) register(fs *flag.FlagSet) {
 	fs.Var(f, "reading", "how to read SVG, a `mode`: auto, filled (painted regions) or cut (stroked contours, nested even-odd)")
+	fs.StringVar(&f.layers, "layers", "", "DXF: read only these `layers` (comma-separated, e.g. CUT,OUTER)")
+	fs.StringVar(&f.skipLayers, "skip-layers", "", "DXF: leave out these `layers` (comma-separated, e.g. ETCH)")
 }
 
-// part is a document read from a file, with the warnings from reading it.
+// layerList splits a comma-separated list of layer names.
+func layerList(s string) []string {
+	var out []string
+	for _, l := range strings.Split(s, ",") {
+		if l = strings.TrimSpace(l); l != "" {
+			out = append(out, l)
+		}
+	}
+	return out
+}
+
+// part is a document read from a file, with the warnings from reading it; fromDrawing is set for a
+// drawing (SVG or DXF) rather than a part file.
 type part struct {
-	doc      *sketch.Document
-	warnings []string
-	fromSVG  bool
+	doc         *sketch.Document
+	warnings    []string
+	fromDrawing bool
 }
 
-// loadPart reads a part file (.json) or an SVG drawing.
-func loadPart(path string, reading svg.Reading) (part, error) {
-	data, err := os.ReadFile(path)
+// loadPart reads a part file (.json), an SVG drawing or a DXF drawing.
+func loadPart(path string, rf readingFlag) (part, error) {
+	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes, dxf.DefaultMaxBytes))
 	if err != nil {
 		return part{}, err
 	}
-	if !isSVG(path, data) {
-		d, err := sketch.Load(data)
+	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
+	var d *sketch.Document
+	var warnings []string
+	switch {
+	case isDXF(path):
+		d, warnings, err = dxf.Read(data, dxf.Options{Name: name, Layers: layerList(rf.layers), SkipLayers: layerList(rf.skipLayers)})
+	case isSVG(path, data):
+		d, warnings, err = svg.Read(data, svg.Options{Reading: rf.r, Name: name})
+	default:
+		d, err = sketch.Load(data)
 		return part{doc: d}, err
 	}
-	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
-	d, warnings, err := svg.Read(data, svg.Options{Reading: reading, Name: name})
-	return part{doc: d, warnings: warnings, fromSVG: true}, err
+	if err == nil {
+		err = d.CheckExtent()
+	}
+	return part{doc: d, warnings: warnings, fromDrawing: true}, err
 }
+
+// readLimited reads the file at path, refusing one over limit bytes before reading it whole (a
+// device or a growing file is read up to one byte past the limit).
+func readLimited(path string, limit int) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	if info, err := f.Stat(); err == nil && info.Size() > int64(limit) {
+		return nil, fmt.Errorf("the file is %d bytes, more than the limit of %d (16 MiB)", info.Size(), limit)
+	}
+	data, err := io.ReadAll(io.LimitReader(f, int64(limit)+1))
+	if err != nil {
+		return nil, err
+	}
+	if len(data) > limit {
+		return nil, fmt.Errorf("the file is more than the limit of %d bytes (16 MiB)", limit)
+	}
+	return data, nil
+}
+
+// isDXF tells a DXF drawing by its extension.
+func isDXF(path string) bool { return strings.EqualFold(filepath.Ext(path), ".dxf") }
 
 // isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
 func isSVG(path string, data []byte) bool {
@@ -163,10 +226,10 @@ func isSVG(path string, data []byte) bool {
 	return bytes.HasPrefix(bytes.TrimSpace(data), []byte("<"))
 }
 
-// isPartName reports whether a file met while walking a directory is a part: .json or .svg.
+// isPartName reports whether a file met while walking a directory is a part: .json, .svg or .dxf.
 func isPartName(name string) bool {
 	ext := strings.ToLower(filepath.Ext(name))
-	return ext == ".json" || ext == ".svg"
+	return ext == ".json" || ext == ".svg" || ext == ".dxf"
 }
 
 // batch runs one file at a time through a function, reporting each failure on stderr with the file's
@@ -212,7 +275,7 @@ func (b *batch) fail(path string, err error) {
 	if pe, ok := err.(*fs.PathError); ok {
 		err = pe.Err
 	}
-	fmt.Fprintf(b.stderr, "plumb: %s: %v\n", path, err)
+	say(b.stderr, "plumb: %s: %v", path, err)
 }
 
 // status reports the failures at the end of a batch and returns the exit status.

@@ -81,7 +81,7 @@ func Plan(extent geom.Rect, paper Paper, overlap float64, keepWhole ...geom.Rect
 
 func plan(e geom.Rect, p Paper, landscape bool, overlap float64, keep []geom.Rect) Layout {
 	ww, wh := windowSize(p)
-	if overlap < 0 || 2*overlap >= math.Min(ww, wh) {
+	if !(overlap >= 0 && 2*overlap < math.Min(ww, wh)) {
 		panic(fmt.Sprintf("shop: overlap %g mm does not fit a %g × %g mm window", overlap, ww, wh))
 	}
 	size := e.Size()
@@ -173,7 +173,7 @@ func Template(w io.Writer, p Part, opt TemplateOptions) error {
 		overlap = DefaultOverlap
 	}
 	ww, wh := windowSize(paper)
-	if overlap < 0 || 2*overlap >= math.Min(ww, wh) {
+	if !(overlap >= 0 && 2*overlap < math.Min(ww, wh)) {
 		return fmt.Errorf("overlap %g mm: must be between 0 and %g mm on %s", overlap, math.Min(ww, wh)/2, paper.Name)
 	}
 	d := newDrawing(p, f)
