@@ -7,7 +7,9 @@ import (
 	"encoding/base64"
 	"math"
 	"os"
+	"os/exec"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
 
@@ -392,5 +394,43 @@ func TestFirstMinuteGuide(t *testing.T) {
 	b.waitStarted()
 	if !eval[bool](b, `document.getElementById("guide").hidden`) {
 		t.Error("the guide came back after it was closed")
+	}
+}
+
+// TestTemplateLabelsWhole checks the demo's drilling template as the page makes it, read back by
+// pdftotext (an independent reading of the PDF): every dimension label is whole on some page, with
+// both units, and the hole's label is there; none is cut at a page's edge.
+func TestTemplateLabelsWhole(t *testing.T) {
+	pdftotext, err := exec.LookPath("pdftotext")
+	if err != nil {
+		t.Skip("pdftotext (poppler-utils) is not installed: apt-get install poppler-utils")
+	}
+	b := newBrowser(t)
+	b.open()
+	b.waitFor(`plumb.state().level_pending === false`)
+	pdf, err := base64.StdEncoding.DecodeString(eval[string](b, `(() => {
+		const r = plumb.templatePDF("A4");
+		let s = "";
+		if (r instanceof Uint8Array) for (const c of r) s += String.fromCharCode(c);
+		return btoa(s);
+	})()`))
+	if err != nil || len(pdf) == 0 {
+		t.Fatalf("template: %v (%d bytes)", err, len(pdf))
+	}
+	path := filepath.Join(t.TempDir(), "demo.pdf")
+	if err := os.WriteFile(path, pdf, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, err := exec.Command(pdftotext, "-layout", path, "-").Output()
+	if err != nil {
+		t.Fatalf("pdftotext: %v", err)
+	}
+	text := string(out)
+	whole := regexp.MustCompile(`\d+\.\d mm \(\d+\.\d{3} in\)`)
+	if n := len(whole.FindAllString(text, -1)); n < 2 || strings.Count(text, " in)") != n {
+		t.Errorf("%d whole dimension labels, %d ending in \"in)\": a label is cut", n, strings.Count(text, " in)"))
+	}
+	if !strings.Contains(text, "Ø 8.0 mm hole") {
+		t.Error("no whole hole label on any page")
 	}
 }
