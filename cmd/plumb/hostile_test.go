@@ -203,7 +203,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, r, exitFailed, "warning: least tilt: a hole at (")
 		r = plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "60")
 		wantFailure(t, r, exitFailed, "no position has room for the hole")
-		if !strings.Contains(r.stdout, "no position on the part has room for a 60 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
+		if !strings.Contains(r.stdout, "no position on the part has room for a 60.0 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
 			t.Errorf("U level, 60 mm hole: stdout %q", r.stdout)
 		}
 	})

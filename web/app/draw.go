@@ -237,7 +237,11 @@ func (fr *frame) ghost() {
 		return
 	}
 	h := fr.res.hang
-	fr.fillBoundary(h.Hanging, colGhost)
+	// The drawn pieces, turned on the way to the screen: they join end to start exactly, as the
+	// turned copies in h.Hanging need not, so the fill has no seams between runs.
+	var path vector.Path
+	appendBoundary(&path, h.Part.Body.Pieces, h.Pose.Then(fr.v.Affine()), fr.tol())
+	fr.p.fill(&path, colGhost, ebiten.FillRuleNonZero)
 	fr.dashedSegs(h.Hanging.Pieces, 1.2, 5, 4, colGhostEdge)
 }
 
@@ -692,7 +696,7 @@ func (fr *frame) rulers() {
 		tick := 4 * u
 		if isMajor {
 			tick = 8 * u
-			drawText(fr.p.dst, fr.length(x), fr.f.small, sx+3*u, fr.h-bh+2*u, align{atStart, atStart}, colInkSoft)
+			drawText(fr.p.dst, rulerText(x, fr.doc.Units), fr.f.small, sx+3*u, fr.h-bh+2*u, align{atStart, atStart}, colInkSoft)
 		}
 		fr.p.rect(math.Round(sx), fr.h-bh, u, tick, colInkSoft)
 	}
@@ -703,9 +707,12 @@ func (fr *frame) rulers() {
 		}
 		isMajor := math.Abs(y/major-math.Round(y/major)) < 1e-6
 		tick := 4 * u
+		// A label under the tool bar would be hidden: the topmost are left out there.
 		if isMajor {
 			tick = 8 * u
-			drawText(fr.p.dst, fr.length(y), fr.f.small, lw-10*u, sy-2*u, align{atEnd, atEnd}, colInkSoft)
+			if _, th := textSize("0", fr.f.small); sy-th-4*u > fr.g.page.Top {
+				drawText(fr.p.dst, rulerText(y, fr.doc.Units), fr.f.small, lw-6*u, sy-2*u, align{atEnd, atEnd}, colInkSoft)
+			}
 		}
 		fr.p.rect(lw-tick, math.Round(sy), tick, u, colInkSoft)
 	}
@@ -719,7 +726,7 @@ func (fr *frame) scaleBar() {
 	u := fr.u
 	length := fr.v.GridStep(90 * u)
 	px := length * fr.v.Scale
-	label := fr.length(length) + " " + fr.doc.Units
+	label := rulerText(length, fr.doc.Units) + " " + fr.doc.Units
 	lw, _ := textSize(label, fr.f.small)
 	x0, y0 := fr.w-fr.g.page.Right-px-lw-28*u, fr.baseline()-4*u
 	hgt := 6 * u
@@ -867,6 +874,15 @@ func (fr *frame) pill(s string, face font.Face, x, y float64, a align, clr color
 	top := y - h/2
 	fr.p.roundRect(left-pad, top-pad/2, w+2*pad, h+pad, 6*fr.u, colPaper)
 	drawText(fr.p.dst, s, face, left, y, align{atStart, atCentre}, clr)
+}
+
+// rulerText writes a ruler or scale-bar value, a round number of the grid, without trailing zeros.
+func rulerText(v float64, unit string) string {
+	s := edit.FormatLength(v, unit)
+	if strings.Contains(s, ".") {
+		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
+	}
+	return s
 }
 
 // length formats a length or coordinate in the document unit for a label.
