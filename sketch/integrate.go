@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"plumb/density"
@@ -182,7 +183,8 @@ func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []dens
 	if math.IsInf(c.lo, 0) || math.IsInf(c.hi, 0) || math.IsNaN(c.lo+c.hi) {
 		return w + "; interval arithmetic gives no bounds on the mass (the formula may be undefined or unbounded near the part)"
 	}
-	w += fmt.Sprintf("; interval arithmetic puts the mass between %.7g and %.7g kg", c.lo, c.hi)
+	lo, hi := distinctDigits(c.lo, c.hi)
+	w += fmt.Sprintf("; interval arithmetic puts the mass between %s and %s kg", lo, hi)
 	if !c.encloses(r.M) {
 		p := c.widest.Center()
 		r.RelErr = math.Max(r.RelErr, math.Max(c.hi-r.M, r.M-c.lo)/math.Abs(r.M))
@@ -198,4 +200,15 @@ func contains(list []string, s string) bool {
 		}
 	}
 	return false
+}
+
+// distinctDigits formats two bounds with 7 significant digits, or as many more as tell them apart.
+func distinctDigits(lo, hi float64) (string, string) {
+	digits := 7
+	for ; digits < 17; digits++ {
+		if strconv.FormatFloat(lo, 'g', digits, 64) != strconv.FormatFloat(hi, 'g', digits, 64) {
+			break
+		}
+	}
+	return strconv.FormatFloat(lo, 'g', digits, 64), strconv.FormatFloat(hi, 'g', digits, 64)
 }
