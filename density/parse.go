@@ -162,17 +162,29 @@ func (p *parser) checkImplicit(afterDiv bool) error {
 	return nil
 }
 
-// unary = ("-" | "+") unary | power. A sign binds less tightly than a power: -x^2 is -(x^2).
-func (p *parser) unary() (*Expr, error) {
+// enter counts one level of nesting, or reports the formula as nested too deep. Every way back into
+// the grammar (a sign, a power's operand, a product written without '*', a parenthesis, a call) passes
+// through unary's signs or power, which both call it; leave undoes it.
+func (p *parser) enter() error {
 	if p.depth >= maxDepth {
-		return nil, errorAt(p.tok().col, "formula is nested more than %d levels deep", maxDepth)
+		return errorAt(p.tok().col, "formula is nested more than %d levels deep", maxDepth)
 	}
 	p.depth++
-	defer func() { p.depth-- }()
+	return nil
+}
+
+func (p *parser) leave() { p.depth-- }
+
+// unary = ("-" | "+") unary | power. A sign binds less tightly than a power: -x^2 is -(x^2).
+func (p *parser) unary() (*Expr, error) {
 	t := p.tok()
 	if !p.atOp('-') && !p.atOp('+') {
 		return p.power()
 	}
+	if err := p.enter(); err != nil {
+		return nil, err
+	}
+	defer p.leave()
 	p.pos++
 	x, err := p.unary()
 	if err != nil || t.op == '+' {
@@ -183,6 +195,10 @@ func (p *parser) unary() (*Expr, error) {
 
 // power = postfix [ "^" unary ], so powers group from the right: 2^3^2 is 2^(3^2).
 func (p *parser) power() (*Expr, error) {
+	if err := p.enter(); err != nil {
+		return nil, err
+	}
+	defer p.leave()
 	base, err := p.postfix()
 	if err != nil || !p.atOp('^') {
 		return base, err

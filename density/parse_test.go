@@ -50,6 +50,8 @@ func TestParseErrors(t *testing.T) {
 		{"superscript minus alone", "x@⁻", "superscript minus needs superscript digits after it"},
 		{"long superscript", "x¹²³@⁴", "superscript power has more than 3 digits"},
 		{"deep nesting", strings.Repeat("(", maxDepth) + "@(x" + strings.Repeat(")", maxDepth+1), "formula is nested more than 64 levels deep"},
+		{"deep nesting through products without '*'", strings.Repeat("1(", maxDepth) + "@1" + strings.Repeat(")", maxDepth), "formula is nested more than 64 levels deep"},
+		{"deep nesting through signs and powers", strings.Repeat("2^-", maxDepth/2) + "@2^x", "formula is nested more than 64 levels deep"},
 		{"too long", strings.Repeat("x+", maxSourceLen/2) + "@1", "input is 2001 characters long; the limit is 2000"},
 	}
 	for _, tt := range tests {

@@ -119,6 +119,9 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
+	if err := d.CheckExtent(); err != nil {
+		return nil, err
+	}
 	a := &Analysis{Cautions: Cautions()}
 	crossed, err := a.checkRegions(d)
 	if err != nil {
@@ -127,8 +130,8 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	var shape geom.Moments
 	a.Body, shape = d.material(crossed)
 	a.Area = shape.M
-	if a.Body.IsEmpty() || a.Area <= 0 {
-		return nil, &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
+	if err := checkArea(a.Body, a.Area, len(d.Cutouts)); err != nil {
+		return nil, err
 	}
 	if !d.HasMaterial() {
 		return a.shapeOnly(d, shape, unit)
@@ -327,6 +330,19 @@ func toGeomPoly(p density.Polynomial) geom.Poly {
 	return g
 }
 
+// checkArea reports a part whose material b, of area area, is empty or too large to measure.
+func checkArea(b geom.Boundary, area float64, cutouts int) error {
+	switch {
+	case math.IsInf(area, 0) || math.IsNaN(area):
+		return &PathError{Path: "outline", Msg: "the part's area is too large to compute (beyond the range of float64 numbers)"}
+	case !b.IsEmpty() && area > 0:
+		return nil
+	case cutouts > 0:
+		return &PathError{Path: "outline", Msg: "the part has no material (the cut-outs cover the outline)"}
+	}
+	return &PathError{Path: "outline", Msg: "the part has no material (the outline encloses no area)"}
+}
+
 // roundingIxy is the size, relative to ixx + iyy, below which a product of inertia is rounding error:
 // the central moments are differences of moments about the origin, which lose about as many digits
 // as the centroid's offset from the origin is large against the part (1e-12 leaves 4 digits for that).
@@ -351,5 +367,27 @@ func (a *Analysis) setMoments(m geom.Moments) error {
 	i1, i2, angle := m.Principal()
 	a.I1, a.I2, a.AngleDeg = i1, i2, angle*180/math.Pi
 	a.Kx, a.Ky = m.Gyration()
+	return a.checkFinite()
+}
+
+// checkFinite reports the first result of the analysis that is not a finite number: a density or a
+// part so large that its mass or moments overflow float64 (about 1.8e308).
+func (a *Analysis) checkFinite() error {
+	results := []struct {
+		name string
+		v    float64
+	}{
+		{"mass", a.Mass}, {"weight", a.WeightN}, {"first moment about y", a.Origin.Sx}, {"first moment about x", a.Origin.Sy},
+		{"second moment ∬x² dm", a.Origin.Sxx}, {"second moment ∬y² dm", a.Origin.Syy}, {"second moment ∬xy dm", a.Origin.Sxy},
+		{"balance point x", a.Centroid.X}, {"balance point y", a.Centroid.Y},
+		{"ixx", a.Ixx}, {"iyy", a.Iyy}, {"ixy", a.Ixy}, {"i1", a.I1}, {"i2", a.I2}, {"principal angle", a.AngleDeg},
+		{"kx", a.Kx}, {"ky", a.Ky}, {"error estimate", a.RelErr},
+	}
+	for _, r := range results {
+		if math.IsNaN(r.v) || math.IsInf(r.v, 0) {
+			return &PathError{Path: "material", Msg: fmt.Sprintf("the part's %s is too large to compute: the density "+
+				"times the part's size overflows float64 numbers (about 1.8e308)", r.name)}
+		}
+	}
 	return nil
 }

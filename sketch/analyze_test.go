@@ -217,6 +217,13 @@ func TestAnalyzeErrors(t *testing.T) {
 			return d
 		}, []string{"overlays[0].material", "density is −1"}},
 		{"bad units", func() *Document { d := plate(100, 100, "1"); d.Units = "furlong"; return d }, []string{"units"}},
+		{"no area, no cut-outs", func() *Document {
+			d := plate(100, 100, "1")
+			d.Outline.Loops[0] = geom.Loop{geom.Line(geom.Pt(0, 0), geom.Pt(100, 0)), geom.Line(geom.Pt(100, 0), geom.Pt(0, 0))}
+			return d
+		}, []string{"outline", "the outline encloses no area"}},
+		// 1e307 kg/m² over 1 m² overflows the first moment ∬x dm in kg·mm (over 1.8e308).
+		{"density overflows the moments", func() *Document { return plate(1000, 1000, "1e307") }, []string{"material", "first moment", "too large to compute"}},
 		// Negative only within 2 mm of the centre, far from every edge: the interior grid finds it.
 		{"negative inside", func() *Document { return plate(100, 100, bowl) }, []string{"material", "density is −4 kg/m²", "at x = 50"}},
 	} {

@@ -66,9 +66,16 @@ const (
 // agree to about 1e-15 of that, and geom's region check allows 1e-9 of the drawing's size.
 const arcEndTol = 1e-9
 
+// MaxPartBytes is the largest part file Load reads: 16 MiB, the SVG reader's limit too, is some
+// hundred thousand segments, far beyond any sheet part.
+const MaxPartBytes = 16 << 20
+
 // Load reads a part file. Errors are *PathError values naming the JSON path of the bad value, as in
-// "cutouts[2].loops[0].segments[5]: arc radius is 0".
+// "cutouts[2].loops[0].segments[5]: arc radius is 0". A file over MaxPartBytes is refused.
 func Load(data []byte) (*Document, error) {
+	if len(data) > MaxPartBytes {
+		return nil, &PathError{Msg: fmt.Sprintf("the file is %d bytes, more than the limit of %d (16 MiB)", len(data), MaxPartBytes)}
+	}
 	dec := json.NewDecoder(bytes.NewReader(data))
 	dec.UseNumber()
 	var v any
@@ -77,6 +84,9 @@ func Load(data []byte) (*Document, error) {
 	}
 	if dec.More() {
 		return nil, &PathError{Msg: "not valid JSON: extra data after the part object"}
+	}
+	if err := checkDuplicateKeys(data); err != nil {
+		return nil, err
 	}
 	root, err := node{v: v}.object()
 	if err != nil {
@@ -93,7 +103,59 @@ func Load(data []byte) (*Document, error) {
 	if err := loadDocument(root, d); err != nil {
 		return nil, err
 	}
+	if err := d.CheckExtent(); err != nil {
+		return nil, err
+	}
 	return d, nil
+}
+
+// checkDuplicateKeys reports the first object of data that gives a key twice, at the key's JSON path:
+// decoding keeps the last silently, and a part file that says two things must not be read as one of
+// them. data must be valid JSON (Load decodes it first).
+func checkDuplicateKeys(data []byte) error {
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.UseNumber()
+	return duplicateKey(dec, "")
+}
+
+// duplicateKey reads one value from dec and reports a key given twice in any object in it.
+func duplicateKey(dec *json.Decoder, path string) error {
+	tok, err := dec.Token()
+	if err != nil {
+		return nil // Decode has reported it
+	}
+	switch tok {
+	case json.Delim('{'):
+		seen := map[string]bool{}
+		for dec.More() {
+			tok, err := dec.Token()
+			key, ok := tok.(string)
+			if err != nil || !ok {
+				return nil
+			}
+			sub := key
+			if path != "" {
+				sub = path + "." + key
+			}
+			if seen[key] {
+				return &PathError{Path: sub, Msg: fmt.Sprintf("the key %q is given twice in one object", key)}
+			}
+			seen[key] = true
+			if err := duplicateKey(dec, sub); err != nil {
+				return err
+			}
+		}
+	case json.Delim('['):
+		for i := 0; dec.More(); i++ {
+			if err := duplicateKey(dec, fmt.Sprintf("%s[%d]", path, i)); err != nil {
+				return err
+			}
+		}
+	default:
+		return nil
+	}
+	dec.Token() // the closing bracket
+	return nil
 }
 
 // jsonErrorText describes a JSON syntax error with its line and column.

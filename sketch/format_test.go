@@ -203,6 +203,9 @@ func TestLoadErrors(t *testing.T) {
 		{"unknown key", `{` + head + `, "outlines": {}}`, `outlines: unknown key (expected one of: ` +
 			`"format", "version", "name", "units", "material", "outline", "cutouts", "overlays", "holes", "notes")`},
 		{"bad units", `{` + head + `, "units": "furlong"}`, "units: ..."},
+		{"duplicate top key", `{` + head + `, "units": "mm", "units": "in"}`, `units: the key "units" is given twice in one object`},
+		{"duplicate nested key", `{` + head + `, "outline": {"loops": [` + square(0, `{"arc": {"center": [0, 0], "radius": 1, "radius": 2, "start_deg": 0, "sweep_deg": 90}}`) + `]}}`,
+			`outline.loops[0].segments[5].arc.radius: the key "radius" is given twice in one object`},
 		{"arc radius 0",
 			`{` + head + `, "cutouts": [{"loops": [` + square(0, "") + `]}, {"loops": [` + square(2, "") +
 				`]}, {"loops": [` + square(4, zeroArc) + `]}]}`,

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"plumb/density"
 	"plumb/geom"
@@ -153,13 +154,29 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 	}
 	h.Pose = geom.RotateAbout(at, h.AngleDeg*math.Pi/180)
 	h.Hanging = part.Body.Transform(h.Pose)
+	if w := piecesWarning(part.Body, "it hangs from the hole as shown"); w != "" {
+		h.Warnings = append(h.Warnings, w)
+	}
 	if opt.MaxTiltDeg > 0 && opt.DrillTol > 0 {
 		if need := ArmForTilt(opt.MaxTiltDeg, opt.DrillTol); h.Arm < need {
-			h.Warnings = append(h.Warnings, fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° the hole needs to be at least %s %s from the balance point (it is %s)",
-				formatNumber(opt.DrillTol), unit.Name, formatNumber(tiltDeg(h.Arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg), formatNumber(need), unit.Name, formatNumber(h.Arm)))
+			h.Warnings = append(h.Warnings, tiltWarning(h.Arm, need, size, opt, unit))
 		}
 	}
 	return h
+}
+
+// tiltWarning says that a drilling error of opt.DrillTol tilts a part hung at arm from its balance
+// point by more than opt.MaxTiltDeg, and how far the hole would need to be (need); a need beyond the
+// part's size (or beyond float64) is said as such.
+func tiltWarning(arm, need, size float64, opt HangOptions, unit density.Length) string {
+	msg := fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° ", formatNumber(opt.DrillTol),
+		unit.Name, formatNumber(tiltDeg(arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg))
+	if need > size || math.IsInf(need, 0) {
+		return msg + fmt.Sprintf("the hole would need to be farther from the balance point than the part is large (%s %s)",
+			formatNumber(size), unit.Name)
+	}
+	return msg + fmt.Sprintf("the hole needs to be at least %s %s from the balance point (it is %s)",
+		formatNumber(need), unit.Name, formatNumber(arm))
 }
 
 // halfTurnDeg converts an angle in radians to degrees in (−180, 180].
@@ -437,8 +454,17 @@ func (s *holeSearch) noLevel(lv *Level, x float64, material bool) (*Level, error
 		return nil, err
 	}
 	lv.Alternatives = alts
-	lv.Warnings = append(lv.Warnings, fmt.Sprintf("use a least-tilt position, hang from two holes, or add a tab reaching above the balance point at x = %s %s",
-		formatNumber(x), u))
+	if len(alts) == 0 {
+		lv.Warnings = append(lv.Warnings, fmt.Sprintf("no position on the part has room for a %s %s hole with %s %s edge distance: use a smaller hole or give a smaller edge distance",
+			formatNumber(s.dia), u, formatNumber(s.rule.min), u))
+		return lv, nil
+	}
+	places := make([]string, len(alts))
+	for i, h := range alts {
+		places[i] = fmt.Sprintf("(%s, %s) %s turns the part %s°", formatNumber(h.At.X), formatNumber(h.At.Y), u, formatNumber(h.AngleDeg))
+	}
+	lv.Warnings = append(lv.Warnings, fmt.Sprintf("least tilt: a hole at %s; or hang from two holes, or add a tab reaching above the balance point at x = %s %s",
+		strings.Join(places, ", or at "), formatNumber(x), u))
 	return lv, nil
 }
 
@@ -546,6 +572,9 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 		lift.Chains[i] = Chain{At: c.at, Share: c.share, Vertical: v, Tension: v * lift.Factor}
 	}
 	lift.warn(unit)
+	if w := piecesWarning(part.Body, "the chain loads hold"); w != "" {
+		lift.Warnings = append(lift.Warnings, w)
+	}
 	return lift, nil
 }
 

@@ -3,11 +3,14 @@ package sketch
 import (
 	"encoding/csv"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"math"
+	"reflect"
 	"strconv"
 	"strings"
+	"unicode"
 
 	"plumb/density"
 )
@@ -175,8 +178,48 @@ func (r *Report) warnings() []string {
 	return w
 }
 
+// checkFinite reports the first number of the report that is not finite, by its summary key, so that
+// no writer ever prints NaN or Inf. Analyze and the hanging calculations refuse such results with
+// their cause; this is the last guard.
+func (r *Report) checkFinite() error {
+	if path, bad := nonFinite(reflect.ValueOf(r.Summary()), ""); bad {
+		return fmt.Errorf("the result %s is not a finite number", path)
+	}
+	hangs := []*Hang{r.Hang}
+	if r.Level != nil {
+		hangs = append(hangs, r.Level.Hang)
+		hangs = append(hangs, r.Level.Alternatives...)
+	}
+	for _, h := range hangs {
+		if h != nil && !allFinite(h.Arm, h.TiltPerMM, h.PeriodS) {
+			return errors.New("the result hang is not a finite number")
+		}
+	}
+	if r.Lift != nil && !allFinite(r.Lift.Factor, r.Lift.WeightN) {
+		return errors.New("the result chains is not a finite number")
+	}
+	a := r.Analysis
+	if !allFinite(a.WeightN, a.WeightLbf, a.Kx, a.Ky, a.Origin.Sxx, a.Origin.Syy, a.Origin.Sxy) {
+		return errors.New("the result weight or moments is not a finite number")
+	}
+	return nil
+}
+
+// allFinite reports whether every v is a finite number.
+func allFinite(vs ...float64) bool {
+	for _, v := range vs {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return false
+		}
+	}
+	return true
+}
+
 // WriteJSON writes the report's summary as one line of JSON.
 func (r *Report) WriteJSON(w io.Writer) error {
+	if err := r.checkFinite(); err != nil {
+		return err
+	}
 	b, err := json.Marshal(r.Summary())
 	if err != nil {
 		return err
@@ -193,6 +236,9 @@ func CSVHeader() []string {
 
 // WriteCSV writes the report as one CSV row under CSVHeader; warnings are joined by "; ".
 func (r *Report) WriteCSV(w *csv.Writer) error {
+	if err := r.checkFinite(); err != nil {
+		return err
+	}
 	s := r.Summary()
 	a := r.Analysis
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
@@ -200,14 +246,17 @@ func (r *Report) WriteCSV(w *csv.Writer) error {
 	if a.NoMaterial {
 		mass, wn, wlbf = "", "", ""
 	}
-	return w.Write([]string{s.File, s.Units.Length, s.Units.Mass, g(s.Area), mass, wn, wlbf,
+	return w.Write([]string{Printable(s.File), s.Units.Length, s.Units.Mass, g(s.Area), mass, wn, wlbf,
 		g(s.Centroid.X), g(s.Centroid.Y), g(s.Inertia.Ixx), g(s.Inertia.Iyy), g(s.Inertia.Ixy),
-		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), strings.Join(s.Warnings, "; ")})
+		g(s.Principal.I1), g(s.Principal.I2), g(s.Principal.AngleDeg), g(s.ErrorEstimate), Printable(strings.Join(s.Warnings, "; "))})
 }
 
 // WriteText writes the report as a readable table with units. The cautions are left to the caller,
 // which prints them once after a batch (WriteCautions).
 func (r *Report) WriteText(w io.Writer) error {
+	if err := r.checkFinite(); err != nil {
+		return err
+	}
 	t := &table{}
 	a, u := r.Analysis, r.Summary().Units.Length
 	title := r.File
@@ -319,13 +368,31 @@ func (t *table) write(w io.Writer, title string) error {
 		width = max(width, len([]rune(l)))
 	}
 	var b strings.Builder
-	b.WriteString(title + "\n")
+	b.WriteString(Printable(title) + "\n")
 	for i, l := range t.labels {
-		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + t.values[i] + "\n")
+		b.WriteString("  " + l + strings.Repeat(" ", width-len([]rune(l))) + "  " + Printable(t.values[i]) + "\n")
 	}
 	b.WriteString("\n")
 	_, err := io.WriteString(w, b.String())
 	return err
+}
+
+// Printable returns s as one line safe to show on a terminal: tabs and line breaks become spaces and
+// every other control character (C0, DEL, C1, which carry terminal escape sequences) is dropped.
+// Names and paths come from files, and a file can hold anything.
+func Printable(s string) string {
+	if !strings.ContainsFunc(s, unicode.IsControl) {
+		return s
+	}
+	return strings.Map(func(r rune) rune {
+		switch {
+		case r == '\t' || r == '\n' || r == '\r':
+			return ' '
+		case unicode.IsControl(r):
+			return -1
+		}
+		return r
+	}, s)
 }
 
 // formatNumber prints v with six significant digits, in plain decimals between 0.001 and 1e9 and in

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/csv"
 	"encoding/json"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -163,6 +164,42 @@ func TestDrillingTiltInInches(t *testing.T) {
 	}
 	if got := drillingTilt(h, "mm"); strings.Contains(got, "1/16") {
 		t.Errorf("drillingTilt on a metric part = %q, want millimetres only", got)
+	}
+}
+
+// TestWritersRefuseNonFinite checks the writers' last guard: a result that is not finite is an error
+// naming it, and nothing is written.
+func TestWritersRefuseNonFinite(t *testing.T) {
+	d := plate(200, 100, "10")
+	for _, tc := range []struct {
+		name  string
+		spoil func(a *Analysis, h *Hang)
+		want  string
+	}{
+		{"centroid", func(a *Analysis, h *Hang) { a.Centroid.X = math.NaN() }, "centroid.x"},
+		{"mass", func(a *Analysis, h *Hang) { a.Mass = math.Inf(1) }, "mass"},
+		{"weight", func(a *Analysis, h *Hang) { a.WeightN = math.Inf(1) }, "weight"},
+		{"swing period", func(a *Analysis, h *Hang) { h.PeriodS = math.NaN() }, "hang"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			a := mustAnalyze(t, d)
+			h := &Hang{At: geom.Pt(100, 90), Part: a}
+			tc.spoil(a, h)
+			r := &Report{File: "plate.json", Doc: d, Analysis: a, Hang: h}
+			var b bytes.Buffer
+			for name, write := range map[string]func() error{
+				"json": func() error { return r.WriteJSON(&b) },
+				"text": func() error { return r.WriteText(&b) },
+				"csv":  func() error { return r.WriteCSV(csv.NewWriter(&b)) },
+			} {
+				if err := write(); err == nil || !strings.Contains(err.Error(), tc.want) {
+					t.Errorf("%s: error %v, want one naming %q", name, err, tc.want)
+				}
+			}
+			if b.Len() > 0 {
+				t.Errorf("wrote %q", b.String())
+			}
+		})
 	}
 }
 

@@ -25,7 +25,9 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 	var rf readingFlag
 	rf.register(fs)
 	format := fs.String("format", "text", "output `format`: text, json or csv")
-	tol := fs.Float64("tol", 0, "requested relative `accuracy` for densities that are not polynomials (0: 1e-10)")
+	var tol float64
+	floatFlagOrZero(fs, &tol, "tol", 1e-14, 0.1, "0 or a relative accuracy from 1e-14 to 0.1",
+		"requested relative `accuracy` for densities that are not polynomials (0: 1e-10)")
 	files, err := parseArgs(fs, args)
 	if err != nil {
 		return usageStatus(err)
@@ -40,7 +42,7 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return usageError(stderr, "analyze", "%v", err)
 	}
-	opt := sketch.AnalyzeOptions{Tol: *tol}
+	opt := sketch.AnalyzeOptions{Tol: tol}
 	prog := newProgress(stderr, files)
 	b := &batch{stderr: prog}
 	var tot totals
@@ -62,7 +64,7 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 		tot.write(prog)
 	}
 	if err := out.close(); err != nil {
-		fmt.Fprintf(stderr, "plumb: %v\n", err)
+		say(stderr, "plumb: %v", err)
 		return exitFailed
 	}
 	return b.status()

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"io/fs"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -63,7 +64,7 @@ func (t *totals) write(w io.Writer) error {
 	if t.unweighed > 0 {
 		line += fmt.Sprintf("; %d without a material (mass unknown, not in the total)", t.unweighed)
 	}
-	_, err := fmt.Fprintln(w, line)
+	_, err := fmt.Fprintln(w, sketch.Printable(line))
 	return err
 }
 
@@ -72,6 +73,9 @@ func (s total) text() string {
 	n := fmt.Sprintf("%d parts", s.count)
 	if s.count == 1 {
 		n = "1 part"
+	}
+	if math.IsInf(s.mass, 0) || math.IsNaN(s.mass) {
+		return n + ", more mass than a float64 number holds (each part's own mass is in its row)"
 	}
 	return fmt.Sprintf("%s, %s kg (%s lb)", n, fourDigits(s.mass), fourDigits(s.mass/0.45359237))
 }

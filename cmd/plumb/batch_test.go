@@ -29,6 +29,14 @@ func TestTotals(t *testing.T) {
 		t.Errorf("summary\n%q, want\n%q", buf.String(), want)
 	}
 	buf.Reset()
+	huge := totals{}
+	for range 13 {
+		huge.add(&sketch.Analysis{Materials: []string{"k"}, Mass: 1.5e307})
+	}
+	if err := huge.write(&buf); err != nil || strings.Contains(buf.String(), "Inf") || !strings.Contains(buf.String(), "more mass than") {
+		t.Errorf("a total beyond float64: %q, %v", buf.String(), err)
+	}
+	buf.Reset()
 	if err := (&totals{}).write(&buf); err != nil || buf.Len() != 0 {
 		t.Errorf("an empty batch wrote %q", buf.String())
 	}

@@ -25,14 +25,14 @@ func runBuild(args []string, stdout, stderr io.Writer) int {
 	}
 	html, err := buildPage()
 	if err != nil {
-		fmt.Fprintf(stderr, "plumb build: %v\n", err)
+		say(stderr, "plumb build: %v", err)
 		return exitFailed
 	}
-	if err := os.WriteFile(*out, html, 0o644); err != nil {
-		fmt.Fprintf(stderr, "plumb build: %v\n", err)
+	if err := writeFileAtomic(*out, html, true); err != nil {
+		say(stderr, "plumb build: %v", err)
 		return exitFailed
 	}
-	fmt.Fprintf(stdout, "wrote %s (%s)\n", *out, sizeText(len(html)))
+	say(stdout, "wrote %s (%s)", *out, sizeText(len(html)))
 	return exitOK
 }
 

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 	"strings"
@@ -57,27 +58,53 @@ type converter struct {
 	reading        svg.Reading
 }
 
+// convert converts one file. Errors after the file is read name the output that was not written.
 func (c *converter) convert(path string) error {
 	p, err := loadPart(path, c.reading)
-	if err != nil {
+	var unread *fs.PathError
+	if errors.As(err, &unread) {
 		return err
+	}
+	ext := ".svg"
+	if p.fromSVG {
+		ext = ".json"
+	}
+	target := c.target(path, ext)
+	data, err := c.output(path, p, err)
+	if err != nil {
+		return fmt.Errorf("%s not written: %w", target, err)
+	}
+	return c.write(path, target, data)
+}
+
+// output returns the converted file: the part file of a drawing, or the drawing of a part file.
+func (c *converter) output(path string, p part, err error) ([]byte, error) {
+	if err != nil {
+		return nil, err
 	}
 	for _, w := range p.warnings {
-		fmt.Fprintf(c.stderr, "plumb: %s: warning: %s\n", path, w)
+		say(c.stderr, "plumb: %s: warning: %s", path, w)
 	}
 	c.material.apply(p.doc)
-	var data []byte
-	ext := ".json"
 	if p.fromSVG {
-		data, err = p.doc.Save()
-	} else {
-		ext = ".svg"
-		data, err = c.drawing(path, p.doc)
+		return p.doc.Save()
 	}
-	if err != nil {
-		return err
+	return c.drawing(path, p.doc)
+}
+
+// target returns where the output of the input in goes: beside it with the extension ext, into
+// --out's directory, to --out, or "-" for standard output.
+func (c *converter) target(in, ext string) string {
+	target := strings.TrimSuffix(in, filepath.Ext(in)) + ext
+	switch {
+	case c.out == "-":
+		return "-"
+	case c.outDir:
+		return filepath.Join(c.out, filepath.Base(target))
+	case c.out != "":
+		return c.out
 	}
-	return c.write(path, ext, data)
+	return target
 }
 
 // drawing draws the part at 1:1 with its balance point and its first hang hole, when the material is
@@ -85,49 +112,30 @@ func (c *converter) convert(path string) error {
 func (c *converter) drawing(path string, d *sketch.Document) ([]byte, error) {
 	a, err := sketch.Analyze(d, sketch.AnalyzeOptions{})
 	if err != nil {
-		fmt.Fprintf(c.stderr, "plumb: %s: note: drawn without the balance point: %v\n", path, err)
+		say(c.stderr, "plumb: %s: note: drawn without the balance point: %v", path, err)
 		return svg.Write(d, nil, nil)
 	}
 	var h *sketch.Hang
 	if len(d.Holes) > 0 {
 		if h, err = sketch.HangFrom(d, d.Holes[0].At, d.Holes[0].Diameter, sketch.HangOptions{}); err != nil {
-			fmt.Fprintf(c.stderr, "plumb: %s: note: drawn without the plumb line: %v\n", path, err)
+			say(c.stderr, "plumb: %s: note: drawn without the plumb line: %v", path, err)
 		}
 	}
 	return svg.Write(d, a, h)
 }
 
-// write puts the output where --out says, refusing to overwrite unless --force.
-func (c *converter) write(in, ext string, data []byte) error {
-	if c.out == "-" {
+// write puts the output at target, refusing to overwrite unless --force.
+func (c *converter) write(in, target string, data []byte) error {
+	if target == "-" {
 		_, err := c.stdout.Write(data)
 		return err
 	}
-	target := strings.TrimSuffix(in, filepath.Ext(in)) + ext
-	switch {
-	case c.outDir:
-		target = filepath.Join(c.out, filepath.Base(target))
-	case c.out != "":
-		target = c.out
+	if same, _ := samePath(target, in); same {
+		return fmt.Errorf("--out %s would overwrite the input", target)
 	}
-	flags := os.O_WRONLY | os.O_CREATE | os.O_TRUNC
-	if !c.force {
-		flags |= os.O_EXCL
-	}
-	f, err := os.OpenFile(target, flags, 0o644)
-	if errors.Is(err, os.ErrExist) {
-		return fmt.Errorf("%s exists (use --force to overwrite)", target)
-	}
-	if err != nil {
+	if err := writeFileAtomic(target, data, c.force); err != nil {
 		return err
 	}
-	if _, err := f.Write(data); err != nil {
-		f.Close()
-		return err
-	}
-	if err := f.Close(); err != nil {
-		return err
-	}
-	fmt.Fprintf(c.stdout, "%s → %s\n", in, target)
+	say(c.stdout, "%s → %s", in, target)
 	return nil
 }

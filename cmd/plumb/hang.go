@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 
@@ -38,14 +39,22 @@ type hangFlags struct {
 func (h *hangFlags) register(fs *flag.FlagSet) {
 	fs.Var(&h.at, "at", "hole centre `X,Y` (give twice for two chains)")
 	fs.BoolVar(&h.level, "level", false, "find the hole that hangs the part level (as drawn)")
-	fs.Float64Var(&h.hole, "hole", 0, "hole `diameter` (0: a pin)")
-	fs.Float64Var(&h.leg, "angle", 90, "two chains: leg `angle` to the horizontal in degrees (90: vertical chains)")
-	fs.Float64Var(&h.opt.Edge, "edge", 0, "least `distance` from the hole's edge to any edge of the part (0: max(1.5 × thickness, hole))")
-	fs.Float64Var(&h.opt.MaxTiltDeg, "tilt", 0, "with --drill-tol: the largest tilt in `degrees` to allow for a drilling error")
-	fs.Float64Var(&h.opt.DrillTol, "drill-tol", 0, "with --tilt: lateral drilling tolerance (`length`)")
+	h.registerHole(fs, "hole `diameter` (0: a pin)")
+	floatFlag(fs, &h.opt.MaxTiltDeg, "tilt", 0, 0, 90, "an angle from 0 to 90 degrees", "with --drill-tol: the largest tilt in `degrees` to allow for a drilling error")
+	floatFlag(fs, &h.opt.DrillTol, "drill-tol", 0, 0, math.MaxFloat64, "a length of 0 or more", "with --tilt: lateral drilling tolerance (`length`)")
 	fs.StringVar(&h.format, "format", "text", "output `format`: text or json")
 	h.material.register(fs)
 	h.reading.register(fs)
+}
+
+// registerHole defines the flags hang shares with template and report: the hole's diameter, the leg
+// angle of two chains and the edge distance.
+func (h *hangFlags) registerHole(fs *flag.FlagSet, holeUsage string) {
+	floatFlag(fs, &h.hole, "hole", 0, 0, math.MaxFloat64, "a diameter of 0 or more", holeUsage)
+	floatFlag(fs, &h.leg, "angle", 90, math.SmallestNonzeroFloat64, 90, "an angle above 0 and at most 90 degrees",
+		"two chains: leg `angle` to the horizontal in degrees (90: vertical chains)")
+	floatFlag(fs, &h.opt.Edge, "edge", 0, 0, math.MaxFloat64, "a distance of 0 or more",
+		"least `distance` from the hole's edge to any edge of the part (0: max(1.5 × thickness, hole))")
 }
 
 // check validates the combination of flags.
@@ -61,8 +70,6 @@ func (h *hangFlags) check(fs *flag.FlagSet) error {
 		return errors.New("give --at once (one hole) or twice (two chains)")
 	case h.legSet && (h.level || len(h.at) == 1):
 		return errors.New("--angle is the leg angle of two chains (two --at)")
-	case h.hole < 0:
-		return errors.New("--hole: the diameter must be 0 or more")
 	case (h.opt.MaxTiltDeg > 0) != (h.opt.DrillTol > 0):
 		return errors.New("--tilt and --drill-tol go together")
 	}
@@ -104,14 +111,20 @@ func runHang(args []string, stdout, stderr io.Writer) int {
 		return err
 	})
 	if err := out.close(); err != nil {
-		fmt.Fprintf(stderr, "plumb: %v\n", err)
+		say(stderr, "plumb: %v", err)
 		return exitFailed
 	}
 	return b.status()
 }
 
-// errNoLevel is returned with a report when no level hole exists; the report offers alternatives.
-var errNoLevel = errors.New("no hole hangs this part level (see the warnings for the least-tilt positions)")
+// noLevelError is returned with a report when no level hole exists: the warnings list the least-tilt
+// positions, or say why there are none.
+func noLevelError(lv *sketch.Level) error {
+	if len(lv.Alternatives) == 0 {
+		return errors.New("no hole hangs this part level, and no position has room for the hole (see the warnings)")
+	}
+	return errors.New("no hole hangs this part level (the warnings list the least-tilt positions)")
+}
 
 // hang runs the hang asked for on one document.
 func (h *hangFlags) hang(d *sketch.Document) (*sketch.Report, error) {
@@ -125,7 +138,7 @@ func (h *hangFlags) hang(d *sketch.Document) (*sketch.Report, error) {
 			if err != nil {
 				return nil, err
 			}
-			return &sketch.Report{Analysis: whole, Level: lv}, errNoLevel
+			return &sketch.Report{Analysis: whole, Level: lv}, noLevelError(lv)
 		}
 		return &sketch.Report{Analysis: lv.Hang.Part, Level: lv}, nil
 	}
@@ -190,10 +203,10 @@ func (p *pointsFlag) Set(s string) error {
 	if !ok {
 		return fmt.Errorf("want X,Y, found %q", s)
 	}
-	x, errX := strconv.ParseFloat(strings.TrimSpace(xs), 64)
-	y, errY := strconv.ParseFloat(strings.TrimSpace(ys), 64)
-	if errX != nil || errY != nil {
-		return fmt.Errorf("want two numbers X,Y, found %q", s)
+	x, okX := finite(xs)
+	y, okY := finite(ys)
+	if !okX || !okY {
+		return fmt.Errorf("want two finite numbers X,Y, found %q", s)
 	}
 	*p = append(*p, geom.Pt(x, y))
 	return nil

@@ -31,13 +31,25 @@ func (m *materialFlags) register(fs *flag.FlagSet) {
 	fs.Var(m.params, "param", "formula parameter `name=value` (repeatable), e.g. --param k=2e-6")
 }
 
-// check reports contradictory material flags.
+// check reports contradictory material flags, an unknown --unit and a --density formula that does
+// not parse. Names in the formula, and the material and thickness, may depend on the part file (its
+// parameters and own materials), so they are checked with each file.
 func (m *materialFlags) check() error {
 	switch {
 	case m.formula != "" && (m.material != "" || m.thickness != ""):
 		return fmt.Errorf("give either --density or --material and --thickness, not both")
 	case m.unit != "" && m.formula == "":
 		return fmt.Errorf("--unit goes with --density")
+	}
+	if m.unit != "" {
+		if _, err := density.ArealUnit(m.unit); err != nil {
+			return fmt.Errorf("--unit: %v", err)
+		}
+	}
+	if m.formula != "" {
+		if _, err := density.Parse(m.formula); err != nil {
+			return fmt.Errorf("--density: %v", err)
+		}
 	}
 	return nil
 }
@@ -79,9 +91,9 @@ func (p paramFlag) Set(s string) error {
 	if !ok || name == "" {
 		return fmt.Errorf("want name=value, found %q", s)
 	}
-	v, err := strconv.ParseFloat(strings.TrimSpace(value), 64)
-	if err != nil {
-		return fmt.Errorf("parameter %s: %q is not a number", name, value)
+	v, ok := finite(value)
+	if !ok {
+		return fmt.Errorf("parameter %s: %q is not a finite number", name, value)
 	}
 	p[name] = v
 	return nil
@@ -139,7 +151,7 @@ type part struct {
 
 // loadPart reads a part file (.json) or an SVG drawing.
 func loadPart(path string, reading svg.Reading) (part, error) {
-	data, err := os.ReadFile(path)
+	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes))
 	if err != nil {
 		return part{}, err
 	}
@@ -149,7 +161,31 @@ func loadPart(path string, reading svg.Reading) (part, error) {
 	}
 	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
 	d, warnings, err := svg.Read(data, svg.Options{Reading: reading, Name: name})
+	if err == nil {
+		err = d.CheckExtent()
+	}
 	return part{doc: d, warnings: warnings, fromSVG: true}, err
+}
+
+// readLimited reads the file at path, refusing one over limit bytes before reading it whole (a
+// device or a growing file is read up to one byte past the limit).
+func readLimited(path string, limit int) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	if info, err := f.Stat(); err == nil && info.Size() > int64(limit) {
+		return nil, fmt.Errorf("the file is %d bytes, more than the limit of %d (16 MiB)", info.Size(), limit)
+	}
+	data, err := io.ReadAll(io.LimitReader(f, int64(limit)+1))
+	if err != nil {
+		return nil, err
+	}
+	if len(data) > limit {
+		return nil, fmt.Errorf("the file is more than the limit of %d bytes (16 MiB)", limit)
+	}
+	return data, nil
 }
 
 // isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
@@ -212,7 +248,7 @@ func (b *batch) fail(path string, err error) {
 	if pe, ok := err.(*fs.PathError); ok {
 		err = pe.Err
 	}
-	fmt.Fprintf(b.stderr, "plumb: %s: %v\n", path, err)
+	say(b.stderr, "plumb: %s: %v", path, err)
 }
 
 // status reports the failures at the end of a batch and returns the exit status.

@@ -179,8 +179,16 @@ func usageStatus(err error) int {
 	return exitUsage
 }
 
+// say writes one line of a message: the format filled in, made printable (sketch.Printable: file
+// names, part names and SVG ids come from files, and their control characters could drive the
+// terminal), and a newline.
+func say(w io.Writer, format string, args ...any) {
+	fmt.Fprintln(w, sketch.Printable(fmt.Sprintf(format, args...)))
+}
+
 // usageError reports a bad command line for the command name and returns exitUsage.
 func usageError(stderr io.Writer, name, format string, args ...any) int {
-	fmt.Fprintf(stderr, "plumb %s: %s\nrun 'plumb help %s' for usage\n", name, fmt.Sprintf(format, args...), name)
+	say(stderr, "plumb %s: %s", name, fmt.Sprintf(format, args...))
+	fmt.Fprintf(stderr, "run 'plumb help %s' for usage\n", name)
 	return exitUsage
 }

@@ -22,14 +22,25 @@ type plumbRun struct {
 // buildPlumb builds the command into a temporary directory and returns a function that runs it.
 func buildPlumb(t *testing.T) func(args ...string) plumbRun {
 	t.Helper()
+	return runner(t, buildPlumbBinary(t))
+}
+
+// buildPlumbBinary builds the command into a temporary directory and returns its path.
+func buildPlumbBinary(t *testing.T) string {
+	t.Helper()
 	bin := filepath.Join(t.TempDir(), "plumb")
 	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
 		t.Fatalf("go build: %v\n%s", err, out)
 	}
+	return bin
+}
+
+// runner returns a function that runs the program with the arguments prefix followed by its own.
+func runner(t *testing.T, program string, prefix ...string) func(args ...string) plumbRun {
 	return func(args ...string) plumbRun {
 		t.Helper()
 		var stdout, stderr bytes.Buffer
-		cmd := exec.Command(bin, args...)
+		cmd := exec.Command(program, append(slices.Clone(prefix), args...)...)
 		cmd.Stdout, cmd.Stderr = &stdout, &stderr
 		err := cmd.Run()
 		code := 0
@@ -186,7 +197,7 @@ func TestCommandLine(t *testing.T) {
 			t.Errorf("level hole without a material: exit %d, stdout %s, stderr %q", r.code, r.stdout, r.stderr)
 		}
 		r = plumb("analyze", "testdata/bracket.svg", "--density", "2*(x")
-		if r.code != 1 || !strings.Contains(r.stderr, "col") {
+		if r.code != 2 || !strings.Contains(r.stderr, "--density: col 5") {
 			t.Errorf("bad formula: exit %d, stderr %q, want the column", r.code, r.stderr)
 		}
 	})

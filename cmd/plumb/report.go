@@ -1,7 +1,6 @@
 package main
 
 import (
-	"fmt"
 	"io"
 	"path/filepath"
 	"strings"
@@ -45,7 +44,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		})
 	}
 	if err != nil {
-		fmt.Fprintf(stderr, "plumb: %s: %v\n", files[0], err)
+		say(stderr, "plumb: %s: %v", files[0], err)
 		return exitFailed
 	}
 	return exitOK

@@ -27,7 +27,8 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	var s shopFlags
 	s.register(fs)
 	paperName := fs.String("paper", "A4", "paper `size`: A4, letter, A3 or tabloid")
-	overlap := fs.Float64("overlap", shop.DefaultOverlap, "`mm` of paper that neighbouring pages share")
+	var overlap float64
+	floatFlag(fs, &overlap, "overlap", shop.DefaultOverlap, 0, 50, "a width from 0 to 50 mm", "`mm` of paper that neighbouring pages share")
 	files, err := parseArgs(fs, args)
 	if err != nil {
 		return usageStatus(err)
@@ -42,11 +43,11 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	p, err := s.part(files[0], stderr)
 	if err == nil {
 		err = writeOutput(s.out, files[0], stdout, func(w io.Writer) error {
-			return shop.Template(w, p, shop.TemplateOptions{Paper: paper, Overlap: *overlap})
+			return shop.Template(w, p, shop.TemplateOptions{Paper: paper, Overlap: overlap})
 		})
 	}
 	if err != nil {
-		fmt.Fprintf(stderr, "plumb: %s: %v\n", files[0], err)
+		say(stderr, "plumb: %s: %v", files[0], err)
 		return exitFailed
 	}
 	return exitOK
@@ -63,9 +64,7 @@ func (s *shopFlags) register(fs *flag.FlagSet) {
 	h := &s.hang
 	fs.Var(&h.at, "at", "hang hole centre `X,Y` in the part's unit (give twice for two chains)")
 	fs.BoolVar(&h.level, "level", false, "mark the hole that hangs the part level (as drawn)")
-	fs.Float64Var(&h.hole, "hole", 0, "hole `diameter` in the part's unit (0: a pin; without --at or --level, replaces the part file's)")
-	fs.Float64Var(&h.leg, "angle", 90, "two chains: leg `angle` to the horizontal in degrees (90: vertical chains)")
-	fs.Float64Var(&h.opt.Edge, "edge", 0, "least `distance` from the hole's edge to any edge of the part (0: max(1.5 × thickness, hole))")
+	h.registerHole(fs, "hole `diameter` in the part's unit (0: a pin; without --at or --level, replaces the part file's)")
 	h.material.register(fs)
 	h.reading.register(fs)
 	fs.StringVar(&s.out, "o", "", "output `file`")
@@ -98,7 +97,7 @@ func (s *shopFlags) part(path string, stderr io.Writer) (shop.Part, error) {
 	warnings := in.warnings
 	defer func() {
 		for _, w := range warnings {
-			fmt.Fprintf(stderr, "plumb: %s: warning: %s\n", path, w)
+			say(stderr, "plumb: %s: warning: %s", path, w)
 		}
 	}()
 	if !s.hang.level && len(s.hang.at) == 0 && len(in.doc.Holes) == 0 {
@@ -126,8 +125,8 @@ func (s *shopFlags) part(path string, stderr io.Writer) (shop.Part, error) {
 	return p, nil
 }
 
-// writeOutput renders into memory and then writes the file, so that a failure leaves no partial file,
-// and refuses to write over the input.
+// writeOutput renders into memory and then writes the file whole (writeFileAtomic), so that a failure
+// leaves no partial file, and refuses to write over the input.
 func writeOutput(out, in string, stdout io.Writer, render func(io.Writer) error) error {
 	if same, _ := samePath(out, in); same {
 		return fmt.Errorf("-o %s would overwrite the part file", out)
@@ -136,10 +135,10 @@ func writeOutput(out, in string, stdout io.Writer, render func(io.Writer) error)
 	if err := render(&buf); err != nil {
 		return err
 	}
-	if err := os.WriteFile(out, buf.Bytes(), 0o644); err != nil {
+	if err := writeFileAtomic(out, buf.Bytes(), true); err != nil {
 		return err
 	}
-	fmt.Fprintf(stdout, "%s → %s\n", in, out)
+	say(stdout, "%s → %s", in, out)
 	return nil
 }
 

@@ -1,6 +1,7 @@
 package edit
 
 import (
+	"iter"
 	"math"
 
 	"plumb/geom"
@@ -13,12 +14,18 @@ type View struct {
 	Offset geom.Point // screen position of the document origin
 }
 
-// Zoom limits, in screen pixels per document unit: from a 100 m part on a phone to a
-// hundredth of a millimetre across a 4K screen.
+// Zoom limits, in screen pixels per document unit. The floor lets Fit show the largest part sketch
+// accepts (10⁹ m from the origin, about 3.8·10¹² px units) across a few hundred pixels, so that
+// fitting never leaves a view far finer than its part; the ceiling is a hundredth of a millimetre
+// across a 4K screen.
 const (
-	minScale = 1e-4
+	minScale = 1e-11
 	maxScale = 1e5
 )
+
+// maxGridLines bounds the lines GridLines gives, whatever the view: a 4K screen at the finest grid
+// spacing holds a few hundred.
+const maxGridLines = 2000
 
 // wheelUnitsPerNotch is what a browser reports in WheelEvent.deltaY (pixel mode) for one notch of a
 // mouse wheel, and zoomPerNotch the zoom factor we give a notch. Trackpads send many small deltas,
@@ -98,4 +105,26 @@ func (v View) GridStep(minPixels float64) float64 {
 		}
 	}
 	return step * 10
+}
+
+// GridLines yields the multiples of step from lo to hi, at most maxGridLines of them. They are counted
+// by an integer index, never by adding step to a coordinate, so the count does not depend on how
+// finely float64 resolves the coordinates (far from the origin, x + step can equal x). A step that is
+// not a positive finite number, or a range that is not finite, yields nothing.
+func GridLines(lo, hi, step float64) iter.Seq[float64] {
+	return func(yield func(float64) bool) {
+		if !(step > 0) || math.IsInf(step, 1) || math.IsInf(lo, 0) || math.IsInf(hi, 0) {
+			return
+		}
+		first, last := math.Ceil(lo/step), math.Floor(hi/step)
+		if !(last >= first) {
+			return
+		}
+		n := int(math.Min(last-first+1, maxGridLines))
+		for i := range n {
+			if !yield((first + float64(i)) * step) {
+				return
+			}
+		}
+	}
 }

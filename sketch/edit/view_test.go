@@ -102,3 +102,49 @@ func TestGridStep(t *testing.T) {
 		}
 	}
 }
+
+func TestGridLines(t *testing.T) {
+	count := func(lo, hi, step float64) (n int, first, last float64) {
+		for v := range GridLines(lo, hi, step) {
+			if n == 0 {
+				first = v
+			}
+			n, last = n+1, v
+		}
+		return n, first, last
+	}
+	tests := []struct {
+		name        string
+		lo, hi      float64
+		step        float64
+		n           int
+		first, last float64
+	}{
+		{"a screen of 10 mm lines", -35, 120, 10, 16, -30, 120},
+		{"no line in the range", 1, 9, 10, 0, 0, 0},
+		// At 1e22 the spacing of float64 is about 2e6, so x + 1e5 == x: the count stays bounded.
+		{"far from the origin", 1e22, 1e22 + 1e9, 1e5, maxGridLines, 1e22, 1e22 + (maxGridLines-1)*1e5},
+		{"zero step", 0, 100, 0, 0, 0, 0},
+		{"NaN step", 0, 100, math.NaN(), 0, 0, 0},
+		{"infinite range", math.Inf(-1), 0, 1, 0, 0, 0},
+		{"NaN range", math.NaN(), 10, 1, 0, 0, 0},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			n, first, last := count(tt.lo, tt.hi, tt.step)
+			if n != tt.n || n > 0 && (math.Abs(first-tt.first) > 1e-9*math.Abs(tt.first) || math.Abs(last-tt.last) > 1e-9*math.Abs(tt.last)) {
+				t.Fatalf("%d lines from %g to %g, want %d from %g to %g", n, first, last, tt.n, tt.first, tt.last)
+			}
+		})
+	}
+}
+
+func TestFitShowsTheLargestAcceptedPart(t *testing.T) {
+	// 10⁹ m in px units (0.2646 mm) is about 3.8e12 units; Fit must show it whole on a 1000 px screen.
+	var v View
+	v.Fit(geom.Rect{Min: geom.Pt(-3.8e12, -3.8e12), Max: geom.Pt(3.8e12, 3.8e12)}, 1000, 800, 20)
+	lo, hi := v.ToDoc(geom.Pt(0, 800)), v.ToDoc(geom.Pt(1000, 0))
+	if lo.X > -3.8e12 || hi.X < 3.8e12 || lo.Y > -3.8e12 || hi.Y < 3.8e12 {
+		t.Fatalf("the view shows %v to %v", lo, hi)
+	}
+}

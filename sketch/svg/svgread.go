@@ -298,7 +298,8 @@ type svgReader struct {
 	rules    []cssRule
 	shapes   []shape
 	warnings []string
-	visits   int
+	visits   int // elements read, repeats through use references included
+	repeats  int // of those, the ones read through a use reference
 }
 
 func (r *svgReader) warn(format string, args ...any) {
@@ -469,7 +470,13 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 	if !e.svg || slices.Contains(nonRendered, e.name) {
 		return nil
 	}
+	if uses > 0 {
+		r.repeats++
+	}
 	if r.visits++; r.visits > maxSVGVisits {
+		if r.repeats == 0 {
+			return &Error{Element: e.String(), Msg: fmt.Sprintf("the drawing has more than %d elements", maxSVGVisits)}
+		}
 		return &Error{Element: e.String(), Msg: fmt.Sprintf("the drawing expands to more than %d elements "+
 			"through use references", maxSVGVisits)}
 	}

@@ -260,6 +260,8 @@ func TestReadSVGErrors(t *testing.T) {
 			"no filled shape encloses any area", Options{Reading: ReadFilled}},
 		{"use references multiplying", mmSVG(`<rect id="r0" width="1" height="1"/>` + useLadder(24)),
 			"use (element 4): the drawing expands to more than 131072 elements through use references", Options{}},
+		{"many plain elements", mmSVG(strings.Repeat(`<g/>`, maxSVGVisits+1)),
+			"g (element 131074): the drawing has more than 131072 elements", Options{}},
 		{"self reference", mmSVG(`<use id="u" href="#u"/>`),
 			"use#u (element 2), attribute href: use references nest too deep (or refer to themselves)", Options{}},
 	}

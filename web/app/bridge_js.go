@@ -22,6 +22,8 @@ import (
 // installBridge sets window.plumb, the page's and the tests' way into the app:
 //
 //	load(text, filename) → {ok, error, warnings}   a part file (JSON) or an SVG drawing
+//	restore(text, filename) → like load, for saved work: the part is the bottom of the undo history
+//	frames() → {drawn, last_ms}   frames painted so far, and performance.now() at the last one
 //	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
 //	exportSVG() → string    the part 1:1 in millimetres
 //	saveJSON() → string     the part file
@@ -36,14 +38,23 @@ import (
 //	placeSuggestedHole() → {ok, error}   the hang hole at the level-hang (else least-tilt) position
 //	shortcuts() → [{key, action}]
 //
-// After every change it calls window.plumbUI.onChange(state, partJSON).
+// After every change it calls window.plumbUI.onChange(state); the page autosaves through saveJSON when
+// the edits pause.
 func installBridge(g *Game) {
 	obj := js.Global().Get("Object").New()
 	fn := func(name string, f func(args []js.Value) any) {
 		obj.Set(name, js.FuncOf(func(_ js.Value, args []js.Value) any { return f(args) }))
 	}
 	fn("load", func(a []js.Value) any {
-		return g.change(func() any { return g.load(str(a, 0), str(a, 1)) })
+		return g.change(func() any { return g.load(str(a, 0), str(a, 1), false) })
+	})
+	fn("restore", func(a []js.Value) any {
+		return g.change(func() any { return g.load(str(a, 0), str(a, 1), true) })
+	})
+	fn("frames", func([]js.Value) any {
+		g.mu.Lock()
+		defer g.mu.Unlock()
+		return map[string]any{"drawn": g.frames.drawn, "last_ms": g.frames.lastMS}
 	})
 	fn("state", func([]js.Value) any {
 		g.mu.Lock()
@@ -155,15 +166,17 @@ func installBridge(g *Game) {
 	js.Global().Set("plumb", obj)
 }
 
-// change runs f on the editor, reanalyses and tells the page, and returns f's result.
+// change runs f on the editor, reanalyses and tells the page, and returns f's result. The canvas is
+// painted on the next frame.
 func (g *Game) change(f func() any) any {
 	g.mu.Lock()
 	v := f()
+	g.dirty = true
 	g.refresh()
-	state, part, tell := g.pending()
+	state, tell := g.pending()
 	g.mu.Unlock()
 	if tell {
-		tellChange(state, part)
+		tellChange(state)
 	}
 	return v
 }
@@ -200,7 +213,8 @@ func outcome(err error) any {
 
 // load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
 // came with a material (has_material), so that the page can give a drawing without one the panel's.
-func (g *Game) load(text, name string) any {
+// Restored saved work starts the undo history, so that Undo cannot empty it.
+func (g *Game) load(text, name string, restored bool) any {
 	var (
 		doc      *sketch.Document
 		warnings []string
@@ -209,17 +223,20 @@ func (g *Game) load(text, name string) any {
 	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
 		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
+		if err == nil {
+			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
+		}
 	} else {
 		doc, err = sketch.Load([]byte(text))
 	}
 	if err != nil {
 		return map[string]any{"ok": false, "error": err.Error(), "warnings": []any{}}
 	}
-	if doc.Material.Material == "" && doc.Material.Formula == "" && g.chosen.haveSpec {
-		doc.Material = g.chosen.spec
-		warnings = append(warnings, "the drawing gives no material: it takes "+describeSpec(doc.Material)+", chosen last")
+	if restored {
+		g.ed.Restore(doc)
+	} else {
+		g.ed.Load(doc)
 	}
-	g.ed.Load(doc)
 	if name != "" {
 		g.file = name
 	}
@@ -250,7 +267,7 @@ func (g *Game) setMaterial(v js.Value) any {
 
 // setDefaults takes the units and material chosen last ({units, material: {material, thickness} |
 // {formula, unit, params}}, either may be missing), as the page kept them from an earlier visit: a
-// new part starts with them, and a drawing without a material takes the material.
+// new part starts with them.
 func (g *Game) setDefaults(v js.Value) any {
 	if v.Type() != js.TypeObject {
 		return outcome(errors.New("expected {units, material}"))
@@ -393,12 +410,4 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
-}
-
-// describeSpec names a material spec in a few words: "aluminium 5052, 3 mm" or "formula 8 + k*x kg/m2".
-func describeSpec(s density.Spec) string {
-	if s.Formula != "" {
-		return "the formula " + s.Formula + " " + cmp.Or(s.Unit, "kg/m2")
-	}
-	return s.Material + ", " + s.Thickness
 }

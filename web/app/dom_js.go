@@ -3,6 +3,7 @@
 package main
 
 import (
+	"encoding/json"
 	"syscall/js"
 
 	"plumb/sketch/edit"
@@ -59,13 +60,25 @@ func callPage(name string, args ...any) {
 	ui.Call(name, args...)
 }
 
-// tellChange gives the page the new state object and part file.
-func tellChange(state, part []byte) {
-	callPage("onChange", parseJSON(state), string(part))
+// tellChange gives the page the new state object.
+func tellChange(state []byte) {
+	callPage("onChange", parseJSON(state))
 }
 
-// parseJSON turns JSON text into a JavaScript value.
+// nowMS returns the page's clock, performance.now(), in milliseconds.
+func nowMS() float64 {
+	return js.Global().Get("performance").Call("now").Float()
+}
+
+// parseJSON turns JSON text into a JavaScript value. Text that is not JSON (a value Go could not
+// encode) becomes an object with an error, never a thrown exception, which would stop the app.
 func parseJSON(b []byte) js.Value {
+	if !json.Valid(b) {
+		obj := js.Global().Get("Object").New()
+		obj.Set("error", "the app could not encode its state")
+		obj.Set("warnings", js.Global().Get("Array").New())
+		return obj
+	}
 	return js.Global().Get("JSON").Call("parse", string(b))
 }
 

@@ -69,15 +69,25 @@ func (p *painter) dashed(pts []geom.Point, width, on, off float64, clr color.Col
 	p.stroke(&path, width, clr)
 }
 
-// dashPath appends the dashes of the polyline pts to path; on and off must be positive.
+// maxDashSteps bounds the dashes and gaps dashPath lays along one polyline, whatever its length on
+// the screen: a screen's diagonal holds a few thousand.
+const maxDashSteps = 1 << 14
+
+// dashPath appends the dashes of the polyline pts to path; on and off must be positive. At most
+// maxDashSteps dashes and gaps are laid, and a step too small to move along a segment (a segment far
+// longer than the screen) ends it, so the work never depends on the coordinates.
 func dashPath(path *vector.Path, pts []geom.Point, on, off float64) {
 	lengths := [2]float64{on, off}
 	state, left := 0, on // state 0 draws a dash, 1 skips a gap; left is what remains of it
+	budget := maxDashSteps
 	for i := 1; i < len(pts); i++ {
 		a, b := pts[i-1], pts[i]
 		seg := a.Dist(b)
-		for pos := 0.0; pos < seg; {
+		for pos := 0.0; pos < seg && budget > 0; budget-- {
 			step := math.Min(left, seg-pos)
+			if !(pos+step > pos) {
+				break
+			}
 			if state == 0 {
 				q0, q1 := a.Lerp(b, pos/seg), a.Lerp(b, (pos+step)/seg)
 				path.MoveTo(float32(q0.X), float32(q0.Y))
