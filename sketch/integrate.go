@@ -27,7 +27,7 @@ type densityResult struct {
 // interval check's guaranteed bounds of the mass go with the result, in a warning that says the
 // cubature's estimate is not a guaranteed bound.
 func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (densityResult, error) {
-	at := m.body.Pieces[0].Start()
+	at, pieces := m.body.Local()
 	if c, ok := f.Constant(); ok {
 		if err := f.CheckDomain([]float64{at.X}, []float64{at.Y}); err != nil {
 			return densityResult{}, err
@@ -48,7 +48,7 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 		return densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
 			warnings: check.signWarnings(f)}, nil
 	}
-	local := m.translated(at.Mul(-1))
+	local := m.translated(at.Mul(-1), pieces)
 	cells, complete := splitAtKinks(local, f, at)
 	numeric := slices.ContainsFunc(cells, func(c densityCell) bool { _, ok := c.r.Field.Polynomial(); return !ok })
 	check, err := checkDensity(m.body, area, f, numeric)
@@ -130,7 +130,7 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)).Translate(o))
 			continue
 		}
-		q, err := c.body.Integrate(&shiftedField{f: g, o: o}, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
+		q, err := c.body.Integrate(&shiftedField{f: g, o: o}, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals, SignChecked: true})
 		var de *geom.DensityError
 		if errors.As(err, &de) {
 			return r, f.DomainError(o.X+de.X, o.Y+de.Y, de.Value)

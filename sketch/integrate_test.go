@@ -147,3 +147,19 @@ func TestAnalyzeSmoothDensityWarns(t *testing.T) {
 		t.Errorf("warnings %q", a.Warnings)
 	}
 }
+
+// TestAnalyzeNegativeOutsidePart checks that a density that is positive on the part but negative in
+// its bounding box's corners, (8 + 0.001·x·y)·exp(x/1000) on a disk of radius 100 (|x·y| ≤ 5000 on
+// the disk, 10000 at the corners), is integrated without a false error, and that the same density
+// on the whole box is refused, naming a point of the box.
+func TestAnalyzeNegativeOutsidePart(t *testing.T) {
+	d := NewDocument()
+	d.Outline = diskRegion(geom.Pt(0, 0), 100)
+	d.Material = areal("(8 + 0.001*x*y)*exp(x/1000)")
+	if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
+		t.Errorf("disk: %v", err)
+	}
+	if _, err := Analyze(rectFormula(-100, -100, 100, 100, d.Material.Formula), AnalyzeOptions{}); err == nil || !strings.Contains(err.Error(), "density is −") {
+		t.Errorf("box: error %v, want the negative density named", err)
+	}
+}

@@ -122,8 +122,9 @@ func lineCrossing(l density.Line, p, q geom.Point, t float64) geom.Point {
 	return p.Add(q.Sub(p).Mul(t))
 }
 
-// translated returns the material moved by d (translatedSegments).
-func (m materialPart) translated(d geom.Point) materialPart {
+// translated returns the material moved by d (translatedSegments), with body, its boundary
+// already moved (geom.Boundary.Local gives it exactly).
+func (m materialPart) translated(d geom.Point, body []geom.Segment) materialPart {
 	regions := make([]geom.Region, len(m.regions))
 	for i, r := range m.regions {
 		regions[i] = geom.Region{Rule: r.Rule, Loops: make([]geom.Loop, len(r.Loops))}
@@ -131,7 +132,7 @@ func (m materialPart) translated(d geom.Point) materialPart {
 			regions[i].Loops[j] = translatedSegments(l, d)
 		}
 	}
-	return materialPart{regions: regions, keep: m.keep, body: geom.Boundary{Pieces: translatedSegments(m.body.Pieces, d)}}
+	return materialPart{regions: regions, keep: m.keep, body: geom.Boundary{Pieces: body}}
 }
 
 // translatedSegments returns the segments moved by d: their points and arc centres move, radii and
