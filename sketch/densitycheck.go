@@ -73,6 +73,7 @@ type checkResult struct {
 	lo, hi  float64    // ∬ρ dA over the part lies in [lo, hi] (when asked for)
 	widest  geom.Rect  // the box that adds most to the enclosure's width
 	hot     geom.Rect  // the box around every box where the density varies by hotShare of its range
+	scale   float64    // the largest density value met
 	boxesIn int
 }
 
@@ -297,7 +298,7 @@ func cmpFloat(a, b float64) int {
 
 // result summarises the check.
 func (c *densityCheck) result() checkResult {
-	r := checkResult{proved: true, boxesIn: c.evaluated, hot: geom.EmptyRect()}
+	r := checkResult{proved: true, boxesIn: c.evaluated, hot: geom.EmptyRect(), scale: c.scale}
 	widest := -1.0
 	width := func(b *checkBox) float64 { return (b.b.Hi - b.b.Lo) * b.area() }
 	for _, b := range c.all() {

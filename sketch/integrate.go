@@ -45,8 +45,12 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 			return densityResult{}, err
 		}
 		g := &localPoly{at: at, p: toGeomPoly(p)}
-		return densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
-			warnings: check.signWarnings(f)}, nil
+		res := densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
+			warnings: check.signWarnings(f)}
+		if w := g.disagreement(f, pieces, check.scale); w != "" {
+			res.warnings = append(res.warnings, w)
+		}
+		return res, nil
 	}
 	local := m.translated(at.Mul(-1), pieces)
 	cells, complete := splitAtKinks(local, f, at)
@@ -211,4 +215,42 @@ func distinctDigits(lo, hi float64) (string, string) {
 		}
 	}
 	return strconv.FormatFloat(lo, 'g', digits, 64), strconv.FormatFloat(hi, 'g', digits, 64)
+}
+
+// polyAgreement is the largest difference, relative to the largest value, that a polynomial density
+// expanded about the part may show against its formula evaluated as written before the two are
+// said to disagree: both are accurate to a few units of rounding when the formula's terms do not
+// cancel near the part.
+const polyAgreement = 1e-9
+
+// disagreement compares the polynomial with its formula at the ends and middles of (up to 64 of)
+// the part's pieces, given about g.at, and returns a warning when they differ by more than
+// polyAgreement of the density's size (scale, or the largest value met here): the formula, written
+// in terms that cancel near the part (x² − 2e6·x + 1e12 at x ≈ 1e6), loses digits in either form.
+func (g *localPoly) disagreement(f *density.Field, pieces []geom.Segment, scale float64) string {
+	step := max(1, len(pieces)/64)
+	var xs, ys, us, vs []float64
+	for i := 0; i < len(pieces); i += step {
+		for _, t := range [2]float64{0, 0.5} {
+			p := pieces[i].At(t)
+			x, y := g.at.X+p.X, g.at.Y+p.Y // the point as the formula sees it; x − at is exact
+			xs, ys, us, vs = append(xs, x), append(ys, y), append(us, x-g.at.X), append(vs, y-g.at.Y)
+		}
+	}
+	want, got := make([]float64, len(xs)), make([]float64, len(xs))
+	f.Eval(xs, ys, want)
+	g.p.Eval(us, vs, got)
+	worst, at := 0.0, 0
+	for i := range want {
+		scale = math.Max(scale, math.Max(math.Abs(want[i]), math.Abs(got[i])))
+		if d := math.Abs(want[i] - got[i]); d > worst {
+			worst, at = d, i
+		}
+	}
+	if !(worst > polyAgreement*scale) {
+		return ""
+	}
+	return fmt.Sprintf("the density formula loses digits to rounding this far from the origin: its terms cancel "+
+		"(two ways of evaluating it differ by %.1e of its largest value, at %s); write it about a point near the part, "+
+		"as in k*(x - x0)^2 with x0 near the part's x", worst/scale, f.Where(xs[at], ys[at]))
 }
