@@ -134,13 +134,19 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)).Translate(o))
 			continue
 		}
-		q, err := c.body.Integrate(&shiftedField{f: g, o: o}, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals, SignChecked: true})
+		sf := &shiftedField{f: g, o: o}
+		q, err := c.body.Integrate(sf, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals, SignChecked: true})
 		var de *geom.DensityError
 		if errors.As(err, &de) {
 			return r, f.DomainError(o.X+de.X, o.Y+de.Y, de.Value)
 		}
 		if err != nil {
 			return r, err
+		}
+		for _, p := range sf.negative {
+			if c.body.Contains(p) {
+				return r, f.DomainError(o.X+p.X, o.Y+p.Y, sf.value(p))
+			}
 		}
 		r.Moments = r.Moments.Add(q.Moments.Translate(o))
 		absErr += q.RelErr * math.Abs(q.M)

@@ -117,6 +117,15 @@ func TestAnalyzeNegativeSpot(t *testing.T) {
 	if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
 		t.Errorf("a spot outside the plate: %v", err)
 	}
+	// Spots near the edge of a 1000 × 600 mm plate, where the interval check stops cutting boxes
+	// at 1/256 of the plate: the cubature's nodes in the part find them.
+	for _, x := range []float64{999.5, 999.9, 0.3} {
+		d := rectFormula(0, 0, 1000, 600, "5 - 6*exp(-((x-c)^2+(y-300.2)^2)/0.0125)")
+		d.Material.Params = map[string]float64{"c": x}
+		if _, err := Analyze(d, AnalyzeOptions{}); err == nil || !strings.Contains(err.Error(), "material: density is −") {
+			t.Errorf("spot at x = %g: Analyze error %v, want the negative density named", x, err)
+		}
+	}
 }
 
 // TestAnalyzeDensityZeroOnEdge checks that densities that fall to zero on the part's edge pass the
