@@ -27,7 +27,8 @@ const (
 	// checkEdgeBox is the smallest side, relative to the part's larger side, of a box the part's
 	// edge crosses. Such a box is not cut further for the sign proof: the box reaches outside the
 	// part, where a density may well be negative (100 − r² on a disk of radius 10), and its bounds
-	// cannot tell. Within these boxes the density is only sampled at their centres.
+	// cannot tell. Within these boxes the density is only sampled: at their centres, and at the
+	// cubature's nodes that lie in the part (integrateCells).
 	checkEdgeBox = 1.0 / 256
 	// checkZero is how far below zero, relative to the largest density value met, a lower bound may
 	// lie and still count as zero: the rounding of the formula's own arithmetic, as in 1 − x/300 at
