@@ -122,12 +122,21 @@ func focus(parts []materialPart, hot geom.Rect) []materialPart {
 	return out
 }
 
+// minCellEvals is the least work limit a cell's cubature gets, however much the cells before it
+// used: enough for its first estimates.
+const minCellEvals = 1 << 14
+
 // integrateCells integrates each cell's density, the cells given about the point o: exactly where
-// the density is a polynomial, by cubature elsewhere. The result is moved back by o. The error
+// the density is a polynomial, by cubature elsewhere. The cells share the work limit
+// opt.MaxEvals (each gets at least minCellEvals). The result is moved back by o. The error
 // estimates add, each relative to its cell's mass. A point where the density fails is reported
 // with f's domain error, in document coordinates.
 func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt AnalyzeOptions) (r geom.Result, err error) {
 	absErr := 0.0
+	budget := opt.MaxEvals
+	if budget == 0 {
+		budget = geom.DefaultMaxEvals
+	}
 	for _, c := range cells {
 		g := c.r.Field
 		if p, ok := g.PolynomialAbout(o.X, o.Y); ok {
@@ -135,7 +144,8 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 			continue
 		}
 		sf := &shiftedField{f: g, o: o}
-		q, err := c.body.Integrate(sf, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals, SignChecked: true})
+		limit := max(budget-r.Evals, minCellEvals)
+		q, err := c.body.Integrate(sf, geom.Options{Tol: opt.Tol, MaxEvals: limit, SignChecked: true})
 		var de *geom.DensityError
 		if errors.As(err, &de) {
 			return r, f.DomainError(o.X+de.X, o.Y+de.Y, de.Value)
