@@ -111,9 +111,11 @@ func (d *Document) lengthUnit() (density.Length, error) {
 
 // Analyze computes the mass properties of the part: its material is the outline minus the cut-outs
 // with the base density, and each overlay adds its own density where it lies on that material.
-// Constant and polynomial densities are integrated exactly; any other density adaptively, with the
-// error estimate reported in RelErr. A density that is negative, infinite or NaN on the part is an
-// error naming the point in document units.
+// Constant and polynomial densities are integrated exactly, and so is a density that is a polynomial
+// on each piece between the lines where it has kinks or steps; any other density adaptively, with
+// the error estimate reported in RelErr and a warning that the estimate is not a guaranteed bound
+// (with the interval check's guaranteed bounds of the mass). A density that is negative, infinite or
+// NaN on the part is an error naming the point in document units (see integrateField).
 func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	unit, err := d.lengthUnit()
 	if err != nil {
