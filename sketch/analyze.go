@@ -125,6 +125,8 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
+	d, notes := d.withoutRepeats()
+	a.Warnings = append(a.Warnings, notes...)
 	var shape geom.Moments
 	a.Body, shape = d.material(crossed)
 	a.Area = shape.M

@@ -113,12 +113,15 @@ func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	}
 	r := &svgReader{ids: map[string]*element{}}
 	r.collect(root)
+	r.style = newStyleIndex(r.rules)
 	base, vp, err := r.rootTransform(root)
 	if err != nil {
 		return nil, nil, err
 	}
 	ctx := inherited{ctm: base, vp: vp}
-	ctx.paint, _ = r.paint(root, paint{fill: true})
+	if ctx.paint, _, err = r.paint(root, paint{fill: true}); err != nil {
+		return nil, nil, err
+	}
 	if err := r.children(root, ctx, 0); err != nil {
 		return nil, nil, err
 	}
@@ -167,6 +170,20 @@ type element struct {
 	kids  []*element
 	index int    // position in document order, from 1
 	text  string // character data, kept for style and title elements
+
+	classes []string // the distinct names of the class attribute, sorted, once classList has split it
+	split   bool
+}
+
+// classList returns the distinct class names of e, sorted, split from its class attribute on first use.
+func (e *element) classList() []string {
+	if !e.split {
+		e.classes = strings.Fields(e.attrs["class"])
+		slices.Sort(e.classes)
+		e.classes = slices.Compact(e.classes)
+		e.split = true
+	}
+	return e.classes
 }
 
 // String names e for messages: its name, its id and its position, as in "path#bracket (element 4)".
@@ -191,6 +208,7 @@ func parseXML(data []byte) (*element, error) {
 	var stack []*element
 	var root *element
 	count := 0
+	texts := map[*element]*strings.Builder{} // the text of style and title elements, gathered in one pass
 	for {
 		tok, err := dec.Token()
 		if errors.Is(err, io.EOF) {
@@ -220,10 +238,18 @@ func parseXML(data []byte) (*element, error) {
 			}
 			stack = append(stack, e)
 		case xml.EndElement:
+			if b, ok := texts[stack[len(stack)-1]]; ok {
+				stack[len(stack)-1].text = b.String()
+			}
 			stack = stack[:len(stack)-1]
 		case xml.CharData:
 			if top := len(stack) - 1; top >= 0 && (stack[top].name == "style" || stack[top].name == "title") {
-				stack[top].text += string(t)
+				b, ok := texts[stack[top]]
+				if !ok {
+					b = &strings.Builder{}
+					texts[stack[top]] = b
+				}
+				b.Write(t)
 			}
 		}
 	}
@@ -298,6 +324,7 @@ type svgReader struct {
 	rules    []cssRule
 	shapes   []shape
 	warnings []string
+	style    *styleIndex
 	visits   int // elements read, repeats through use references included
 	repeats  int // of those, the ones read through a use reference
 }
@@ -480,9 +507,9 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 		return &Error{Element: e.String(), Msg: fmt.Sprintf("the drawing expands to more than %d elements "+
 			"through use references", maxSVGVisits)}
 	}
-	p, shown := r.paint(e, ctx.paint)
-	if !shown {
-		return nil
+	p, shown, err := r.paint(e, ctx.paint)
+	if err != nil || !shown {
+		return err
 	}
 	if e.attrs["data-plumb"] == "marks" {
 		r.warn("%s: Plumb's own marks (doublers, holes, balance point, labels) are not read back", e)
@@ -839,9 +866,38 @@ func (r *svgReader) filled(tol float64) (geom.Region, int, error) {
 	case 1:
 		return regions[0], 1, nil
 	}
-	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, regions...)
+	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, mergeSimple(regions)...)
 	loops, err := chainLoops(union.Pieces, tol)
 	return geom.Region{Loops: loops}, len(regions), err
+}
+
+// mergeSimple returns regions with every region of one loop that does not cross itself merged into
+// one nonzero region, each such loop turned counter-clockwise and repeats left out
+// (sketch.WithoutRepeats): the union of the regions is unchanged, since such a loop's winding number
+// is 0 or 1, and Combine then weighs a point against a few regions rather than thousands.
+func mergeSimple(regions []geom.Region) []geom.Region {
+	merged := geom.Region{Rule: geom.NonZero}
+	var rest []geom.Region
+	for _, reg := range regions {
+		if len(reg.Loops) != 1 {
+			rest = append(rest, reg)
+			continue
+		}
+		if w, err := reg.Check(); err != nil || len(w) > 0 {
+			rest = append(rest, reg)
+			continue
+		}
+		l := reg.Loops[0]
+		if (geom.Boundary{Pieces: l}).IntegratePoly(geom.ConstPoly(1)).M < 0 {
+			l = l.Reverse()
+		}
+		merged.Loops = append(merged.Loops, l)
+	}
+	if len(merged.Loops) == 0 {
+		return rest
+	}
+	merged, _ = sketch.WithoutRepeats(merged)
+	return append(rest, merged)
 }
 
 // fillable reports whether a loop can enclose area: not a single segment and its way back.
@@ -945,19 +1001,19 @@ func join(a, b geom.Segment) (geom.Segment, geom.Segment) {
 // chainLoops links boundary pieces end to start into closed loops, leaving out slivers no longer
 // than tol that splitting at intersections can produce.
 func chainLoops(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
-	used := make([]bool, len(pieces))
+	c := newChainer(pieces, tol)
 	var loops []geom.Loop
 	for i := range pieces {
-		if used[i] {
+		if c.used[i] {
 			continue
 		}
-		used[i] = true
+		c.used[i] = true
 		l := geom.Loop{pieces[i]}
 		for last := i; l[len(l)-1].End().Dist(l[0].Start()) > tol; {
-			if last = nextPiece(pieces, used, l[len(l)-1].End(), last+1, tol); last < 0 {
+			if last = c.next(l[len(l)-1].End(), last+1); last < 0 {
 				return nil, &Error{Msg: "the union of the filled shapes does not close into loops"}
 			}
-			used[last] = true
+			c.used[last] = true
 			l = append(l, pieces[last])
 		}
 		if l = closeLoop(l, tol); len(l) > 0 {
@@ -967,33 +1023,57 @@ func chainLoops(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
 	return loops, nil
 }
 
-// nextPiece returns the first unused piece that starts within tol of p, trying hint first (pieces
-// usually come in order), or -1.
-func nextPiece(pieces []geom.Segment, used []bool, p geom.Point, hint int, tol float64) int {
-	if hint < len(pieces) && !used[hint] && pieces[hint].Start().Dist(p) <= tol {
+// chainer finds the unused piece that starts near a point, through the pieces sorted by the x of
+// their starts, so that chaining n pieces takes about n log n steps rather than n².
+type chainer struct {
+	pieces []geom.Segment
+	used   []bool
+	byX    []int // piece indices by the x of their start
+	tol    float64
+}
+
+func newChainer(pieces []geom.Segment, tol float64) *chainer {
+	c := &chainer{pieces: pieces, used: make([]bool, len(pieces)), byX: make([]int, len(pieces)), tol: tol}
+	for i := range c.byX {
+		c.byX[i] = i
+	}
+	slices.SortFunc(c.byX, func(a, b int) int { return cmp.Compare(pieces[a].Start().X, pieces[b].Start().X) })
+	return c
+}
+
+// next returns the first unused piece (in index order) that starts within tol of p, trying hint
+// first (pieces usually come in order), or -1.
+func (c *chainer) next(p geom.Point, hint int) int {
+	if hint < len(c.pieces) && !c.used[hint] && c.pieces[hint].Start().Dist(p) <= c.tol {
 		return hint
 	}
-	for k, s := range pieces {
-		if !used[k] && s.Start().Dist(p) <= tol {
-			return k
+	startX := func(i int) float64 { return c.pieces[i].Start().X }
+	k, _ := slices.BinarySearchFunc(c.byX, p.X-c.tol, func(i int, x float64) int { return cmp.Compare(startX(i), x) })
+	best := -1
+	for ; k < len(c.byX) && startX(c.byX[k]) <= p.X+c.tol; k++ {
+		if i := c.byX[k]; !c.used[i] && c.pieces[i].Start().Dist(p) <= c.tol && (best < 0 || i < best) {
+			best = i
 		}
 	}
-	return -1
+	return best
 }
 
 // paint computes e's paint properties from its parent's p: presentation attributes, then matching
 // style sheet rules, then the style attribute, each overriding the one before (CSS cascade as SVG 2,
-// section 6.4 describes it). shown is false for display: none.
-func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
+// section 6.4 describes it). shown is false for display: none. A style sheet too costly to apply is
+// an error.
+func (r *svgReader) paint(e *element, p paint) (out paint, shown bool, err error) {
 	props := map[string]string{}
 	for _, name := range paintProperties {
 		if v, ok := e.attrs[name]; ok {
 			props[name] = v
 		}
 	}
-	for _, rule := range r.matching(e) {
-		maps.Copy(props, rule.decls)
+	sheet, err := r.style.cascade(e)
+	if err != nil {
+		return p, false, err
 	}
+	maps.Copy(props, sheet)
 	maps.Copy(props, parseDeclarations(e.attrs["style"]))
 	for name, v := range props {
 		v = strings.ToLower(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(v), "!important")))
@@ -1009,10 +1089,10 @@ func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
 		case name == "visibility":
 			p.hidden = v == "hidden" || v == "collapse"
 		case name == "display" && v == "none":
-			return p, false
+			return p, false, nil
 		}
 	}
-	return p, true
+	return p, true, nil
 }
 
 // whites are the usual ways of writing a white fill.
