@@ -200,8 +200,13 @@ func (e *DomainError) Error() string {
 	default:
 		what = formatValue(v) + " " + e.f.unit
 	}
-	d := e.f.doc.Name
-	return fmt.Sprintf("%s is %s at x = %s %s, y = %s %s", e.f.quantity, what, formatValue(e.X), d, formatValue(e.Y), d)
+	return fmt.Sprintf("%s is %s at %s", e.f.quantity, what, e.f.Where(e.X, e.Y))
+}
+
+// Where names the point (x, y) in the document unit: "x = 120 mm, y = 40 mm".
+func (f *Field) Where(x, y float64) string {
+	d := f.doc.Name
+	return fmt.Sprintf("x = %s %s, y = %s %s", formatValue(x), d, formatValue(y), d)
 }
 
 // DomainError describes a density value (in kg per square document unit) found at (x, y), in the

@@ -36,12 +36,21 @@ const sideTolerance = 64
 // Where pieces of several regions run along one another (shared edges), one copy is kept. The result
 // is a set of exact curves, never flattened, not assembled into loops: Green's theorem needs only
 // the oriented pieces.
+//
+// Far from the origin the work is done about a nearby origin (nearbyOrigin), to which the input's
+// points translate exactly, so that the points Combine computes keep the digits of the part's own
+// scale; the result keeps that copy for the integrators besides Pieces in absolute coordinates. The
+// coincidence tolerance still follows the absolute coordinates, whose rounding the input carries.
 func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	if keep == nil {
 		panic("geom: Combine needs a keep function")
 	}
 	if len(regions) > 0 && keep(make([]bool, len(regions))) {
 		panic("geom: Combine's keep must be false outside every region (the set would be unbounded)")
+	}
+	o := nearbyOrigin(pointsBox(regions))
+	if o != (Point{}) {
+		regions = translatedRegions(regions, o.Mul(-1))
 	}
 	ms := regionMonos(regions)
 	if len(ms) == 0 {
@@ -51,10 +60,18 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	for i := range ms {
 		box = box.Union(ms[i].box)
 	}
-	tol := tolerance(box)
+	tol := tolerance(Rect{box.Min.Add(o), box.Max.Add(o)})
 	c := newClassifier(ms, regions, keep, box, tol)
 	kept := c.classify(cutList(ms, findHits(ms, tol, nil), tol))
-	return Boundary{Pieces: closeUp(dedupe(kept, c.side), c.side)}
+	pieces := closeUp(dedupe(kept, c.side), c.side)
+	if o == (Point{}) {
+		return Boundary{Pieces: pieces}
+	}
+	abs := make([]Segment, len(pieces))
+	for i, s := range pieces {
+		abs[i] = s.translated(o)
+	}
+	return Boundary{Pieces: abs, local: pieces, origin: o}
 }
 
 // regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index.

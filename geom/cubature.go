@@ -75,12 +75,16 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	if len(b.Pieces) == 0 {
 		return Result{}, nil
 	}
-	box := Loop(b.Pieces).Bounds()
-	cb := &cubature{f: f, c: box.Center(), base: box.Min.X - box.Center().X,
+	o, pieces, d := b.frame()
+	if d != (Point{}) {
+		o, pieces = Point{}, b.Pieces
+	}
+	box := Loop(pieces).Bounds()
+	cb := &cubature{f: f, o: o, c: box.Center(), base: box.Min.X - box.Center().X,
 		half: math.Max(box.Size().X, box.Size().Y) / 2}
 	const room = 2 * batchNodes // a batch plus one more piece's rules, usually
 	cb.xs, cb.ys, cb.us, cb.out = make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room)
-	return cb.run(b, tol, maxEvals)
+	return cb.run(Boundary{Pieces: pieces}, tol, maxEvals)
 }
 
 // Cubature orders. A piece starts with outerStart outer nodes on a line and one more on a Bézier or
@@ -113,7 +117,8 @@ func outerOrder(s Segment) int {
 // cubature holds the state of one Integrate call: the density, the local frame and the reused buffers.
 type cubature struct {
 	f           Field
-	c           Point     // local origin (bounding-box centre)
+	o           Point     // Combine's origin of the pieces (see Boundary), or (0, 0)
+	c           Point     // local origin (bounding-box centre, relative to o)
 	base        float64   // ξ − c.X: the base line in local coordinates
 	half        float64   // L: half the larger side of the bounding box
 	xs, ys, out []float64 // density nodes and values, for all queued jobs
@@ -191,8 +196,17 @@ func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
 	}
 	// Re-sum: the running totals above carry the rounding of many additions and removals.
 	total, errSum = sumPieces(pieces)
-	return Result{Moments: momentsAbout(c.c, total), RelErr: c.norm(errSum, c.scale(total)),
+	return Result{Moments: c.moments(total), RelErr: c.norm(errSum, c.scale(total)),
 		LimitHit: limitHit, Evals: c.evals}, nil
+}
+
+// moments returns the Moments of the integrals about the local origin: about o when that is not
+// (0, 0), since o + c is not exact.
+func (c *cubature) moments(total rawMoments) Moments {
+	if c.o == (Point{}) {
+		return momentsAbout(c.c, total)
+	}
+	return momentsAbout(c.o, total.shift(c.c))
 }
 
 // initialPieces returns the boundary's segments in local coordinates, arcs cut to at most 90°, each
@@ -345,7 +359,7 @@ func (c *cubature) queue(s Segment, no, ni, np int, dst *rawMoments) {
 			left := c.base + span*float64(panel)
 			for _, tau := range inner.t {
 				u := left + span*tau
-				us[i], xs[i], ys[i] = u, c.c.X+u, c.c.Y+y
+				us[i], xs[i], ys[i] = u, c.o.X+(c.c.X+u), c.o.Y+(c.c.Y+y)
 				i++
 			}
 		}

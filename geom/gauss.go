@@ -63,32 +63,3 @@ func gaussLegendre(n int) glRule {
 	}
 	return glRules[n]
 }
-
-// trigOrder returns the smallest Gauss–Legendre order n whose remainder on a trigonometric polynomial
-// of degree deg over an angle span h (radians) is below about 1e-17 of the integrand's size, or 0 if
-// none up to maxGLOrder is. The remainder of the n-point rule on [a, b] is
-// (b−a)^(2n+1)·(n!)⁴ / ((2n+1)·((2n)!)³) · f^(2n)(ξ) (Abramowitz & Stegun 25.4.30), and
-// |f^(2n)| ≤ deg^(2n)·max|f| for such a polynomial (Bernstein's inequality); so order n suffices while
-// h·deg ≤ trigSpans[n].
-func trigOrder(deg int, h float64) int {
-	hd := math.Abs(h) * float64(deg)
-	for n := 1; n <= maxGLOrder; n++ {
-		if hd <= trigSpans[n] {
-			return n
-		}
-	}
-	return 0
-}
-
-// trigSpans[n] is the largest h·deg for which the n-point remainder bound is below 1e-17.
-var trigSpans = makeTrigSpans()
-
-func makeTrigSpans() [maxGLOrder + 1]float64 {
-	var spans [maxGLOrder + 1]float64
-	for n := 1; n <= maxGLOrder; n++ {
-		lf, _ := math.Lgamma(float64(n + 1))
-		l2f, _ := math.Lgamma(float64(2*n + 1))
-		spans[n] = math.Exp((math.Log(1e-17) - 4*lf + math.Log(float64(2*n+1)) + 3*l2f) / float64(2*n))
-	}
-	return spans
-}

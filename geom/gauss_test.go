@@ -42,32 +42,6 @@ func TestGaussLegendrePanics(t *testing.T) {
 	}
 }
 
-// TestTrigOrder checks that the chosen order integrates cos(deg·θ) over spans up to π/2 to rounding.
-func TestTrigOrder(t *testing.T) {
-	for deg := 1; deg <= 12; deg++ {
-		for _, h := range []float64{0.1, 0.5, 1, math.Pi / 2} {
-			n := trigOrder(deg, h)
-			if n == 0 {
-				t.Fatalf("deg %d span %v: no order", deg, h)
-			}
-			r := gaussLegendre(n)
-			for _, phase := range []float64{0, 0.3, 1.2} {
-				sum := 0.0
-				for i, x := range r.t {
-					sum += r.w[i] * h * math.Cos(float64(deg)*x*h+phase)
-				}
-				want := (math.Sin(float64(deg)*h+phase) - math.Sin(phase)) / float64(deg)
-				if math.Abs(sum-want) > 1e-15*h {
-					t.Errorf("deg %d span %v order %d: error %.2g", deg, h, n, sum-want)
-				}
-			}
-		}
-	}
-	if trigOrder(200, math.Pi) != 0 {
-		t.Error("expected no order for degree 200 over π")
-	}
-}
-
 // TestGaussLegendreAgainstGonum compares the rules with gonum's integrate/quad.Legendre. gonum v0.17.0
 // returns weight 0 for the two outermost nodes of its 26-point rule (its weights then sum to 1.979
 // instead of 2 on [−1, 1]); for that order only the nodes are compared.

@@ -8,46 +8,57 @@ import "math"
 // rounding for arcs. For a constant density, lines use the closed-form triangle-fan terms instead (see
 // fanSums), the fastest exact form, and the other pieces are converted to the same form.
 //
-// The work is done about a local origin, the start of the first piece, and shifted back (Moments keeps
-// the local values). Any point within the part's extent serves: it bounds the local coordinates by the
-// part's size, so rounding does not grow with the part's distance from the origin, and unlike the
-// bounding-box centre it needs no extra pass over the pieces.
+// The work is done about a local origin and shifted back (Moments keeps the local values): Combine's
+// origin where b has one (see Boundary), else the start of the first piece. Any point within the
+// part's extent serves: it bounds the local coordinates by the part's size, so rounding does not grow
+// with the part's distance from the origin, and unlike the bounding-box centre it needs no extra pass
+// over the pieces.
 func (b Boundary) IntegratePoly(p Poly) Moments {
 	p.check()
 	if len(b.Pieces) == 0 {
 		return Moments{}
 	}
-	c := b.Pieces[0].Start()
+	c, _, _ := b.frame()
 	return b.IntegratePolyAbout(c, p.Shift(c))
 }
 
 // IntegratePolyAbout is IntegratePoly for a density given about the point c: ρ(x, y) = p(x − c.X,
 // y − c.Y). Take c near the part (within its extent, or about as close): the work is done in
-// coordinates about c, so a density written about a far point, whose coefficients about the
+// coordinates about a local origin o near the part (see IntegratePoly), with the density shifted from c
+// to o only when they differ, so a density written about a far point, whose coefficients about the
 // origin would cancel, keeps its digits (density.Field.PolynomialAbout gives such coefficients).
 func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
 	p.check()
 	if len(b.Pieces) == 0 {
 		return Moments{}
 	}
+	o, pieces, d := b.frame()
+	if o != c {
+		p = p.Shift(o.Sub(c))
+	}
 	acc := newGreenSums(p.Deg + 2)
 	var fan fanSums
-	for i := range b.Pieces {
-		s := &b.Pieces[i]
-		if acc.deg > 2 {
-			acc.segment(s.translated(c.Mul(-1)))
+	for i := range pieces {
+		s := &pieces[i]
+		if s.Kind == KindLine && acc.deg <= 2 {
+			fan.add(s.P[0].Sub(d), s.P[1].Sub(d))
 			continue
 		}
-		if s.Kind == KindLine {
-			fan.add(s.P[0].Sub(c), s.P[1].Sub(c))
-			continue
+		local := s.translated(d.Mul(-1))
+		switch {
+		case s.Kind == KindArc && acc.deg > 2:
+			acc.arc(local, nil)
+		case s.Kind == KindArc:
+			acc.arc(local, &fan)
+		default:
+			acc.segment(local)
+			if acc.deg <= 2 {
+				acc.fanCorrection(local.Start(), local.End())
+			}
 		}
-		local := s.translated(c.Mul(-1))
-		acc.segment(local)
-		acc.fanCorrection(local.Start(), local.End())
 	}
 	fan.addTo(acc)
-	return momentsAbout(c, acc.moments(p))
+	return momentsAbout(o, acc.moments(p))
 }
 
 // PolygonMoments returns the moments of the uniform unit density over the polygon through pts (closed
@@ -130,31 +141,28 @@ func newGreenSums(deg int) *greenSums {
 		row: buf[2*maxGLOrder : 3*maxGLOrder], term: buf[3*maxGLOrder:]}
 }
 
-// segment adds the contribution of s.
+// segment adds the contribution of s, a line or a Bézier.
 func (g *greenSums) segment(s Segment) {
 	e := s.evaluator()
-	if s.Kind != KindArc {
-		g.rule(&e, gaussLegendre((s.Degree()*(g.deg+2)+1)/2))
-		return
-	}
-	k, n := arcPieces(s, g.deg+2)
-	e.sweep = s.Sweep / float64(k)
-	for i := range k {
-		e.theta = s.Theta + float64(i)*e.sweep
-		g.rule(&e, gaussLegendre(n))
-	}
+	g.rule(&e, gaussLegendre((s.Degree()*(g.deg+2)+1)/2))
 }
 
-// rule adds Σ w_k·u^(a+1)·v^b·v'(t_k) over the nodes of r on the curve e. It walks the monomials
-// row by row (v^b), multiplying a per-node term by u for each step along a row, so that every sum is
-// formed in a register and stored once.
+// rule adds Σ w_k·u^(a+1)·v^b·v'(t_k) over the nodes of r on the curve e.
 func (g *greenSums) rule(e *evaluator, r glRule) {
 	n := len(r.t)
-	us, vs, row, term := g.nodeU[:n], g.nodeV[:n], g.row[:n], g.term[:n]
+	us, vs, row := g.nodeU[:n], g.nodeV[:n], g.row[:n]
 	for k, t := range r.t {
 		u, v, dv := e.at(t)
 		us[k], vs[k], row[k] = u, v, r.w[k]*dv*u
 	}
+	g.accumulate(us, vs, row, 0)
+}
+
+// accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, (a+1)^p·Σ_k row[k]·u_k^a·v_k^b to its
+// sum (p is 0 or 1), and overwrites row. It walks the monomials row by row (v^b), multiplying a per-node
+// term by u for each step along a row, so that every sum is formed in a register and stored once.
+func (g *greenSums) accumulate(us, vs, row []float64, p int) {
+	term := g.term[:len(row)]
 	for b := 0; b <= g.deg; b++ {
 		copy(term, row)
 		for a := 0; a+b <= g.deg; a++ {
@@ -163,12 +171,86 @@ func (g *greenSums) rule(e *evaluator, r glRule) {
 				sum += x
 				term[k] = x * us[k]
 			}
+			if p == 1 {
+				sum *= float64(a + 1)
+			}
 			g.sums[PolyIndex(a, b)] += sum
 		}
 		for k, v := range vs {
 			row[k] *= v
 		}
 	}
+}
+
+// arc adds the contribution of the arc s: for each piece of at most 90°, that of its chord (to fan
+// when fan is not nil, else by Gauss–Legendre) and that of the segment between chord and arc
+// (arcSegment). The Green integral of the arc is the chord's plus the segment's area integral, signed
+// by the sweep: arc and chord back bound the segment counter-clockwise when the sweep is positive.
+func (g *greenSums) arc(s Segment, fan *fanSums) {
+	k := quarterTurns(s.Sweep)
+	for i := range k {
+		p := arcPiece(s, i, k)
+		if fan != nil {
+			fan.add(p.P[0], p.P[1])
+		} else {
+			g.segment(Line(p.P[0], p.P[1]))
+		}
+		g.arcSegment(p)
+	}
+}
+
+// arcSegment adds sign(Sweep)·(a+1)·∬ u^a·v^b dA over the segment D between the arc p (|Sweep| ≤ π/2)
+// and its chord.
+//
+// The segment is computed in the chord's frame (Segment.chordFrame), from the end points and the
+// sweep, so that it is as exact relative to itself as to the whole part, however flat: with
+// α = Sweep/2 it is D = {M + x·E + y·N : |x| ≤ 1, 0 ≤ y ≤ Y(x)}, Y(x) = (1−x²)/(√(1−x²·sin²α) + cos α)
+// (the unit circle's segment {|s| ≤ sin α, 0 ≤ t ≤ √(1−s²) − cos α} for s = x·sin α, t = y·sin²α,
+// written without cancellation). Then ∬_D f dA = |E × N|·∫₋₁¹ ∫₀^Y(x) f dy dx by a product
+// Gauss–Legendre rule: the inner one is exact (f is a polynomial of degree deg in y); the outer one
+// integrates polynomials in x times powers of Y, whose only singularities are the branch points
+// x = ±1/sin α, so that its error falls as ρ^(−2n) with ρ = cot(α/2) (the Bernstein ellipse of the
+// Gauss–Legendre remainder; L. N. Trefethen, "Is Gauss quadrature better than Clenshaw–Curtis?",
+// SIAM Review 50 (2008), Theorem 4.5). The order deg + 3 + ⌈ln(10¹⁷)/(2 ln ρ)⌉ leaves that below
+// rounding, allowing for the polynomial factors' growth on the ellipse.
+func (g *greenSums) arcSegment(p Segment) {
+	e, n, sa, ca := p.chordFrame()
+	jac := math.Abs(e.Cross(n))
+	switch {
+	case math.IsNaN(jac):
+		g.sums[0] = jac // let the NaN show in the result
+		return
+	case jac == 0:
+		return
+	case p.Sweep < 0:
+		jac = -jac
+	}
+	mid := p.P[0].Add(e)
+	rho := (1 + ca) / math.Abs(sa)
+	outer := gaussLegendre(min(maxGLOrder, g.deg+3+int(math.Ceil(19.6/math.Log(rho)))))
+	inner := gaussLegendre(g.deg/2 + 1)
+	us, vs, row := g.nodes(len(outer.t) * len(inner.t))
+	s2, i := sa*sa, 0
+	for k, t := range outer.t {
+		x := 2*t - 1
+		y1 := (1 - x) * (1 + x) / (math.Sqrt(1-x*x*s2) + ca)
+		w := 2 * outer.w[k] * y1 * jac
+		base := mid.Add(e.Mul(x))
+		for l, tau := range inner.t {
+			y := y1 * tau
+			us[i], vs[i], row[i] = base.X+y*n.X, base.Y+y*n.Y, w*inner.w[l]
+			i++
+		}
+	}
+	g.accumulate(us, vs, row, 1)
+}
+
+// nodes returns the per-node buffers, at least n long.
+func (g *greenSums) nodes(n int) (us, vs, row []float64) {
+	if len(g.nodeU) < n {
+		g.nodeU, g.nodeV, g.row, g.term = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
+	}
+	return g.nodeU[:n], g.nodeV[:n], g.row[:n]
 }
 
 // powers sets up[k] = w·u^k and vp[k] = v^k.
@@ -224,21 +306,7 @@ func (g *greenSums) moments(q Poly) rawMoments {
 	return r
 }
 
-// arcPieces returns how many equal pieces of at most 90° to cut s into, and the Gauss–Legendre order
-// that integrates a trigonometric polynomial of degree deg over each to rounding level. It cuts more
-// finely when no order up to maxGLOrder suffices.
-func arcPieces(s Segment, deg int) (k, n int) {
-	k = quarterTurns(s.Sweep)
-	for n = trigOrder(deg, s.Sweep/float64(k)); n == 0 && k < maxArcPieces; n = trigOrder(deg, s.Sweep/float64(k)) {
-		k *= 2
-	}
-	if n == 0 { // a NaN sweep: let the NaN show in the result
-		return 1, 1
-	}
-	return k, n
-}
-
-// maxArcPieces bounds how finely an arc is cut, so that absurd sweeps or degrees cannot run away.
+// maxArcPieces bounds how finely an arc is cut, so that absurd sweeps cannot run away.
 const maxArcPieces = 1 << 16
 
 // quarterTurns returns the number of pieces of at most 90° for a sweep (1 for a non-finite sweep,
@@ -256,6 +324,6 @@ func arcPiece(s Segment, i, k int) Segment {
 	h := s.Sweep / float64(k)
 	p := s
 	p.Theta, p.Sweep = s.Theta+float64(i)*h, h
-	p.P[0], p.P[1] = p.arcPoint(p.Theta), p.arcPoint(p.Theta+h)
+	p.P[0], p.P[1] = s.At(float64(i)/float64(k)), s.At(float64(i+1)/float64(k))
 	return p
 }

@@ -109,8 +109,16 @@ func (m Moments) CentroidFrom(p Point) Point {
 	return Point{r.sx / r.m, r.sy / r.m}
 }
 
-// central returns the second moments about the centroid as rawMoments (first moments zero).
-func (m Moments) central() rawMoments { return m.about(m.Centroid()) }
+// central returns the second moments about the centroid as rawMoments (first moments zero). With a
+// local copy it shifts by the centroid's offset from the reference point, not by the rounded Centroid:
+// far from the origin that is off by half a unit in the last place of its coordinates, which would add
+// M times its square to the central moments.
+func (m Moments) central() rawMoments {
+	if m.hasRef {
+		return m.local.shift(Point{-m.local.sx / m.local.m, -m.local.sy / m.local.m})
+	}
+	return m.about(m.Centroid())
+}
 
 // Central returns the second moments about the centroidal axes parallel to x and y:
 // ixx = ∬(y−ȳ)²ρ dA, iyy = ∬(x−x̄)²ρ dA, ixy = ∬(x−x̄)(y−ȳ)ρ dA.

@@ -173,7 +173,10 @@ func degenerate(s Segment, tol float64) string {
 		return "arc sweeps more than a full turn"
 	case math.Abs(s.Theta) > maxArcAngle:
 		return "arc start angle is out of range"
-	case s.arcPoint(s.Theta).Dist(s.P[0]) > tol || s.arcPoint(s.Theta+s.Sweep).Dist(s.P[1]) > tol:
+	}
+	// The centre form C + A·u(θ) is itself exact only to a few units in the last place of |C| + R.
+	tol += 1e-15 * (s.C.Norm() + math.Max(s.RX, s.RY))
+	if s.arcPoint(s.Theta).Dist(s.P[0]) > tol || s.arcPoint(s.Theta+s.Sweep).Dist(s.P[1]) > tol {
 		return "arc end points do not match its centre, radii and angles"
 	}
 	return ""

@@ -113,13 +113,65 @@ func (s Segment) At(t float64) Point {
 		return s.P[0].Mul(u * u * u).Add(s.P[1].Mul(3 * u * u * t)).
 			Add(s.P[2].Mul(3 * u * t * t)).Add(s.P[3].Mul(t * t * t))
 	}
-	switch t {
-	case 0:
+	switch {
+	case t == 0:
 		return s.P[0]
-	case 1:
+	case t == 1:
 		return s.P[1]
+	case math.Abs(s.Sweep) <= math.Pi/2:
+		return s.chordPoint(t)
+	case t <= 0.5:
+		return s.P[0].Add(s.arcStep(s.Theta, t*s.Sweep))
 	}
-	return s.arcPoint(s.Theta + t*s.Sweep)
+	return s.P[1].Add(s.arcStep(s.Theta+s.Sweep, (t-1)*s.Sweep))
+}
+
+// chordFrame returns the frame of an arc's chord: E = (P1−P0)/2, N = sin²α·A·(cos m, sin m) with
+// α = Sweep/2, m = Theta + α and A = Rot(Rot)·diag(RX, RY), and sin α, cos α. The arc is
+// {M + x·E + y·N}, M = P0 + E the chord's midpoint, with x = sin φ/sin α and
+// y = (cos φ − cos α)/sin²α for φ from −α to α (φ = θ − m): the unit circle's point at angle m + φ is
+// cos α·(cos m, sin m) + the rest. For a circle N = sin α·(E.y, −E.x) exactly, which ties the sag's
+// direction to the end points rather than to the rounded start angle.
+func (s Segment) chordFrame() (e, n Point, sa, ca float64) {
+	sa, ca = math.Sincos(s.Sweep / 2)
+	e = s.P[1].Sub(s.P[0]).Mul(0.5)
+	if s.RX == s.RY {
+		return e, Point{e.Y, -e.X}.Mul(sa), sa, ca
+	}
+	sm, cm := math.Sincos(s.Theta + s.Sweep/2)
+	return e, Point{s.RX * cm, s.RY * sm}.Rotate(s.Rot).Mul(sa * sa), sa, ca
+}
+
+// chordPoint returns the point at t of an arc of at most a quarter turn in its chord frame, from the
+// nearer end: with φ = (t − 1/2)·Sweep, x + 1 = 2 sin((α+φ)/2)·cos((α−φ)/2)/sin α,
+// 1 − x = 2 cos((α+φ)/2)·sin((α−φ)/2)/sin α and y = 2 sin((α+φ)/2)·sin((α−φ)/2)/sin²α, none of which
+// cancels. Its error is a rounding of the chord's length along the chord and of the sag across it,
+// so a nearly flat arc keeps its shape to full relative precision.
+func (s Segment) chordPoint(t float64) Point {
+	if s.Sweep == 0 {
+		return s.P[0]
+	}
+	e, n, sa, _ := s.chordFrame()
+	alpha := s.Sweep / 2
+	phi := (t - 0.5) * s.Sweep
+	sp, cp := math.Sincos((alpha + phi) / 2)
+	sm, cm := math.Sincos((alpha - phi) / 2)
+	y := 2 * (sp / sa) * (sm / sa)
+	if t <= 0.5 {
+		return s.P[0].Add(e.Mul(2 * sp * cm / sa)).Add(n.Mul(y))
+	}
+	return s.P[1].Sub(e.Mul(2 * cp * sm / sa)).Add(n.Mul(y))
+}
+
+// arcStep returns the chord from the arc's point at angle theta to the one at theta+d:
+// A·(u(θ+d) − u(θ)) = 2 sin(d/2)·A·(−sin(θ+d/2), cos(θ+d/2)), u(θ) = (cos θ, sin θ) and
+// A = Rot(Rot)·diag(RX, RY). Added to an end point it gives the arc's inner points to a rounding error
+// of the chord's length, not of the radius or of the centre's distance: on a nearly flat arc
+// (R = 10⁸ times the chord) the centre form C + A·u(θ) is off by R times the rounding unit.
+func (s Segment) arcStep(theta, d float64) Point {
+	sn, cs := math.Sincos(theta + d/2)
+	k := 2 * math.Sin(d/2)
+	return Point{-s.RX * sn * k, s.RY * cs * k}.Rotate(s.Rot)
 }
 
 // Deriv returns the derivative dP/dt at parameter t.
@@ -372,8 +424,11 @@ func SVGArc(from Point, rx, ry, phiDeg float64, largeArc, sweep bool, to Point) 
 	phi := phiDeg * math.Pi / 180
 	// F.6.5.1: the midpoint difference in the ellipse's axes.
 	d := from.Sub(to).Mul(0.5).Rotate(-phi)
-	// F.6.6.2–3: enlarge the radii uniformly when no ellipse reaches both endpoints.
-	if lambda := (d.X*d.X)/(rx*rx) + (d.Y*d.Y)/(ry*ry); lambda > 1 {
+	// F.6.6.2–3: enlarge the radii uniformly when no ellipse reaches both endpoints. The centre is
+	// then the chord's midpoint (F.6.5.2's numerator is 0), which we set rather than leave to a
+	// cancellation that puts it a few 10⁻⁸ of the radius off.
+	lambda := (d.X*d.X)/(rx*rx) + (d.Y*d.Y)/(ry*ry)
+	if lambda >= 1 {
 		k := math.Sqrt(lambda)
 		rx, ry = rx*k, ry*k
 	}
@@ -381,21 +436,26 @@ func SVGArc(from Point, rx, ry, phiDeg float64, largeArc, sweep bool, to Point) 
 	num := rx*rx*ry*ry - rx*rx*d.Y*d.Y - ry*ry*d.X*d.X
 	den := rx*rx*d.Y*d.Y + ry*ry*d.X*d.X
 	coef := math.Sqrt(math.Max(0, num/den))
+	if lambda >= 1 {
+		coef = 0
+	}
 	if largeArc == sweep {
 		coef = -coef
 	}
 	cp := Point{coef * rx * d.Y / ry, -coef * ry * d.X / rx}
 	// F.6.5.3: back to the given frame.
 	c := cp.Rotate(phi).Add(from.Add(to).Mul(0.5))
-	// F.6.5.5–6: start angle and sweep.
+	// F.6.5.5–6: start angle and sweep. The angle between the unit vectors u and v, whose difference
+	// is twice the half chord d' = (d.X/rx, d.Y/ry), is 2·asin|d'|: unlike F.6.5.6's angle between
+	// u and v, this keeps full relative precision on a nearly flat arc, where u and v nearly agree.
 	u := Point{(d.X - cp.X) / rx, (d.Y - cp.Y) / ry}
-	v := Point{(-d.X - cp.X) / rx, (-d.Y - cp.Y) / ry}
 	theta := math.Atan2(u.Y, u.X)
-	dtheta := math.Atan2(u.Cross(v), u.Dot(v))
-	if !sweep && dtheta > 0 {
-		dtheta -= 2 * math.Pi
-	} else if sweep && dtheta < 0 {
-		dtheta += 2 * math.Pi
+	dtheta := 2 * math.Asin(math.Min(1, math.Hypot(d.X/rx, d.Y/ry)))
+	if largeArc {
+		dtheta = 2*math.Pi - dtheta
+	}
+	if !sweep {
+		dtheta = -dtheta
 	}
 	s = Segment{Kind: KindArc, C: c, RX: rx, RY: ry, Rot: phi, Theta: theta, Sweep: dtheta}
 	s.P[0], s.P[1] = from, to
@@ -403,7 +463,8 @@ func SVGArc(from Point, rx, ry, phiDeg float64, largeArc, sweep bool, to Point) 
 }
 
 // evaluator gives a segment's point and y-derivative at many parameters cheaply, for the integrators:
-// lines and Béziers in power form x(t) = Σ cx[k]·t^k, arcs as P(θ) = c + ax·cos θ + ay·sin θ.
+// lines and Béziers in power form x(t) = Σ cx[k]·t^k, arcs from their start point c as
+// P(θ) = c + 2 sin(d/2)·(−sin(θ₀+d/2)·ax + cos(θ₀+d/2)·ay), d = θ − θ₀ (see Segment.arcStep).
 type evaluator struct {
 	arc          bool
 	cx, cy       [4]float64
@@ -415,7 +476,7 @@ type evaluator struct {
 func (s Segment) evaluator() evaluator {
 	if s.Kind == KindArc {
 		sp, cp := math.Sincos(s.Rot)
-		return evaluator{arc: true, c: s.C, ax: Pt(s.RX*cp, s.RX*sp), ay: Pt(-s.RY*sp, s.RY*cp),
+		return evaluator{arc: true, c: s.P[0], ax: Pt(s.RX*cp, s.RX*sp), ay: Pt(-s.RY*sp, s.RY*cp),
 			theta: s.Theta, sweep: s.Sweep}
 	}
 	var e evaluator
@@ -439,8 +500,11 @@ func (s Segment) evaluator() evaluator {
 // at returns x(t), y(t) and y'(t).
 func (e *evaluator) at(t float64) (x, y, dy float64) {
 	if e.arc {
-		sn, cs := math.Sincos(e.theta + t*e.sweep)
-		return e.c.X + e.ax.X*cs + e.ay.X*sn, e.c.Y + e.ax.Y*cs + e.ay.Y*sn, e.sweep * (e.ay.Y*cs - e.ax.Y*sn)
+		d := t * e.sweep
+		sh, ch := math.Sincos(e.theta + d/2)
+		k := 2 * math.Sin(d/2)
+		sn, cs := math.Sincos(e.theta + d)
+		return e.c.X + k*(e.ay.X*ch-e.ax.X*sh), e.c.Y + k*(e.ay.Y*ch-e.ax.Y*sh), e.sweep * (e.ay.Y*cs - e.ax.Y*sn)
 	}
 	x = e.cx[0] + t*(e.cx[1]+t*(e.cx[2]+t*e.cx[3]))
 	y = e.cy[0] + t*(e.cy[1]+t*(e.cy[2]+t*e.cy[3]))

@@ -232,6 +232,25 @@ func TestSVGArcRadiiCorrection(t *testing.T) {
 	}
 }
 
+// TestSVGArcNearlyFlat checks the sweep of nearly flat arcs to full relative precision: the chord
+// of length 2c subtends 2·asin(c/r) at the centre (circle geometry), and the midpoint lies at the
+// sagitta r − √(r² − c²) = c²/(r + √(r² − c²)) from the chord. F.6.5.6's angle between two nearly equal
+// vectors kept only about 1e-10 of it at r = 10⁶·c.
+func TestSVGArcNearlyFlat(t *testing.T) {
+	const c = 50.0
+	for _, r := range []float64{1e3, 1e6, 1e8, 1e10} {
+		s, ok := SVGArc(Pt(-c, 0), r, r, 0, false, false, Pt(c, 0))
+		if !ok {
+			t.Fatalf("r=%g: not ok", r)
+		}
+		want := -2 * math.Asin(c/r)
+		sag := c * c / (r + math.Sqrt((r-c)*(r+c)))
+		if !near(s.Sweep, want, 4e-16, 0) || !near(s.At(0.5).Y, sag, 1e-15, 0) || math.Abs(s.At(0.5).X) > 1e-14*c {
+			t.Errorf("r=%g: sweep %.17g, want %.17g; midpoint %v, want (0, %.17g)", r, s.Sweep, want, s.At(0.5), sag)
+		}
+	}
+}
+
 // TestSVGArcRotated checks a rotated ellipse: every point lies on the ellipse and the ends are exact.
 func TestSVGArcRotated(t *testing.T) {
 	from, to := Pt(1, 1), Pt(3, -2)

@@ -136,31 +136,49 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if !d.HasMaterial() {
 		return a.shapeOnly(d, shape, unit)
 	}
-	total, poly, err := a.addDensity(a.Body, &shape, d.Material, "material", unit, opt)
+	regions := d.regions()
+	whole := materialPart{regions: regions, keep: outlineMinusCutouts, body: a.Body}
+	total, poly, err := a.addDensity(whole, &shape, d.Material, "material", unit, opt)
 	if err != nil {
 		return nil, err
 	}
 	if len(d.Overlays) == 0 {
 		a.poly = poly
 	}
-	regions := d.regions()
 	for i, ov := range d.Overlays {
 		path := fmt.Sprintf("overlays[%d]", i)
-		b := geom.Combine(onOverlay, append(regions, ov.Region)...)
+		on := append(slices.Clone(regions), ov.Region)
+		b := geom.Combine(onOverlay, on...)
 		if b.IsEmpty() {
 			a.Warnings = append(a.Warnings, fmt.Sprintf("%s (%s) does not lie on the part's material", path, overlayName(ov, i)))
 			continue
 		}
-		m, _, err := a.addDensity(b, nil, ov.Material, path+".material", unit, opt)
+		part := materialPart{regions: on, keep: onOverlay, body: b}
+		m, _, err := a.addDensity(part, nil, ov.Material, path+".material", unit, opt)
 		if err != nil {
 			return nil, err
 		}
 		total = total.Add(m)
 	}
+	a.addShapeError(d, unit)
 	if err := a.setMoments(total); err != nil {
 		return nil, err
 	}
 	return a, nil
+}
+
+// addShapeError adds the reader's bound on approximated curves to the error estimate: an area δA
+// between drawn and held curves changes each moment ∬f by at most δA·max|f|, and max|f| ≤ R^k for a
+// moment of order k with R the farthest point of the part from the origin, so δA/A bounds the error of
+// every moment relative to A·R^k.
+func (a *Analysis) addShapeError(d *Document, unit density.Length) {
+	if !(d.ShapeError > 0) {
+		return
+	}
+	rel := d.ShapeError / a.Area
+	a.RelErr += rel
+	a.Warnings = append(a.Warnings, fmt.Sprintf("some curves of the drawing were approximated by lines (within %.2g %s² of area, %.1e relative)",
+		d.ShapeError, unit.Name, rel))
 }
 
 // HasMaterial reports whether the part's base material is given: a material name or an areal-density
@@ -183,6 +201,7 @@ func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Lengt
 		a.Warnings = append(a.Warnings, fmt.Sprintf("overlays[%d] (%s) is not counted: the part has no base material",
 			i, overlayName(ov, i)))
 	}
+	a.addShapeError(d, unit)
 	if err := a.setMoments(shape); err != nil {
 		return nil, err
 	}
@@ -260,9 +279,10 @@ func overlayName(ov Overlay, i int) string {
 	return fmt.Sprintf("overlay %d", i+1)
 }
 
-// addDensity integrates the density spec over b and records its description and error estimate. shape,
-// when not nil, holds b's area moments; the density's polynomial is returned when it is one.
-func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *localPoly, error) {
+// addDensity integrates the density spec over the material m and records its description, error
+// estimate and warnings. shape, when not nil, holds m's area moments; the density's polynomial is
+// returned when it is one.
+func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *localPoly, error) {
 	if spec.Material == "" && spec.Formula == "" {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
 	}
@@ -279,39 +299,19 @@ func (a *Analysis) addDensity(b geom.Boundary, shape *geom.Moments, spec density
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
 	a.Materials = append(a.Materials, f.Describe())
-	r, poly, err := integrateField(b, shape, f, opt)
+	r, err := integrateField(m, shape, f, opt)
 	if err != nil {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
+	}
+	for _, w := range r.warnings {
+		a.Warnings = append(a.Warnings, path+": "+w)
 	}
 	a.RelErr = math.Max(a.RelErr, r.RelErr)
 	if r.LimitHit && !a.LimitHit {
 		a.LimitHit = true
 		a.Warnings = append(a.Warnings, fmt.Sprintf("%s: the integration stopped at its work limit (%d density evaluations) before reaching the requested accuracy; estimated relative error %.1e", path, r.Evals, r.RelErr))
 	}
-	return r.Moments, poly, nil
-}
-
-// integrateField integrates f over b: exactly when f is a polynomial (after checking its sign on the
-// part), adaptively otherwise. A constant density scales b's area moments shape, when given. The
-// density's polynomial is returned when it is one.
-func integrateField(b geom.Boundary, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (geom.Result, *localPoly, error) {
-	at := b.Pieces[0].Start()
-	if p, ok := f.PolynomialAbout(at.X, at.Y); ok {
-		if err := checkPolynomialDensity(b, f); err != nil {
-			return geom.Result{}, nil, err
-		}
-		g := &localPoly{at: at, p: toGeomPoly(p)}
-		if c, ok := f.Constant(); ok && shape != nil {
-			return geom.Result{Moments: shape.Scale(c)}, g, nil
-		}
-		return geom.Result{Moments: b.IntegratePolyAbout(at, g.p)}, g, nil
-	}
-	r, err := b.Integrate(f, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
-	var de *geom.DensityError
-	if errors.As(err, &de) {
-		return r, nil, f.DomainError(de.X, de.Y, de.Value)
-	}
-	return r, nil, err
+	return r.Moments, r.poly, nil
 }
 
 // withHole returns the analysis of the part with the round hole h removed. When the hole lies inside
@@ -344,113 +344,6 @@ func toGeomPoly(p density.Polynomial) geom.Poly {
 		g.C[geom.PolyIndex(t.I, t.J)] += t.C
 	}
 	return g
-}
-
-// densityGrid is the number of grid lines each way at which a polynomial density's sign is sampled.
-const densityGrid = 33
-
-// checkPolynomialDensity samples a polynomial density at the boundary pieces' ends and midpoints and
-// on a densityGrid × densityGrid grid of points inside the part, and reports the first point where it
-// is negative or not finite. The exact integral never evaluates the density, so this is the check.
-// The grid is laid over the bounding box and evaluated whole; only the grid points where the density
-// fails need to be placed inside or outside the part (insideGrid).
-func checkPolynomialDensity(b geom.Boundary, f *density.Field) error {
-	if _, ok := f.Constant(); ok {
-		p := b.Pieces[0].Start() // any point will do
-		return f.CheckDomain([]float64{p.X}, []float64{p.Y})
-	}
-	var xs, ys []float64
-	for _, s := range b.Pieces {
-		for _, t := range [...]float64{0, 0.5} {
-			p := s.At(t)
-			xs, ys = append(xs, p.X), append(ys, p.Y)
-		}
-	}
-	if err := f.CheckDomain(xs, ys); err != nil {
-		return err
-	}
-	box := b.Bounds()
-	xs, ys = xs[:0], ys[:0]
-	for j := range densityGrid {
-		for i := range densityGrid {
-			p := gridPoint(box, i, j)
-			xs, ys = append(xs, p.X), append(ys, p.Y)
-		}
-	}
-	rho := make([]float64, len(xs))
-	f.Eval(xs, ys, rho)
-	fails := func(i, j int) bool {
-		v := rho[j*densityGrid+i]
-		return !(v >= 0) || math.IsInf(v, 1)
-	}
-	return f.CheckDomain(insideGrid(b, box, fails))
-}
-
-// gridPoint returns the centre of the cell in column i and row j when box is cut into
-// densityGrid × densityGrid cells.
-func gridPoint(box geom.Rect, i, j int) geom.Point {
-	size := box.Size()
-	return geom.Pt(box.Min.X+size.X*(float64(i)+0.5)/densityGrid, box.Min.Y+size.Y*(float64(j)+0.5)/densityGrid)
-}
-
-// insideGrid returns the grid points (gridPoint) in column i and row j for which want(i, j) holds that
-// lie inside the material b, found row by row: the row's line meets the boundary at sorted hits, and
-// the grid points between two hits are all inside or all outside, which one winding test at the gap's
-// middle decides. Rows and gaps without a wanted point are skipped.
-func insideGrid(b geom.Boundary, box geom.Rect, want func(i, j int) bool) (xs, ys []float64) {
-	step := box.Size().X / densityGrid
-	rows := rowPieces(b, box)
-	wanted := func(j, first, last int) bool {
-		for i := first; i <= last; i++ {
-			if want(i, j) {
-				return true
-			}
-		}
-		return false
-	}
-	for j := range densityGrid {
-		if !wanted(j, 0, densityGrid-1) {
-			continue
-		}
-		y := gridPoint(box, 0, j).Y
-		hits := rows(y).LineHits(geom.Pt(box.Min.X, y), geom.Pt(1, 0))
-		for k := 1; k < len(hits); k++ {
-			lo, hi := hits[k-1], hits[k]
-			first := max(int(math.Ceil(lo/step-0.5)), 0)
-			last := min(int(math.Floor(hi/step-0.5)), densityGrid-1)
-			if !wanted(j, first, last) || !b.Contains(geom.Pt(box.Min.X+(lo+hi)/2, y)) {
-				continue
-			}
-			for i := first; i <= last; i++ {
-				if want(i, j) {
-					p := gridPoint(box, i, j)
-					xs, ys = append(xs, p.X), append(ys, p.Y)
-				}
-			}
-		}
-	}
-	return xs, ys
-}
-
-// rowPieces returns a function giving the pieces of b that reach the horizontal line at height y:
-// those whose bounding box, widened by a millionth of the part's box, spans y. The line meets no other
-// piece, so their LineHits are b's own, found without trying every piece.
-func rowPieces(b geom.Boundary, box geom.Rect) func(y float64) geom.Boundary {
-	margin := 1e-6 * max(box.Size().X, box.Size().Y)
-	bounds := make([]geom.Rect, len(b.Pieces))
-	for i, s := range b.Pieces {
-		bounds[i] = s.Bounds()
-	}
-	var row geom.Boundary
-	return func(y float64) geom.Boundary {
-		row.Pieces = row.Pieces[:0]
-		for i, r := range bounds {
-			if r.Min.Y-margin <= y && y <= r.Max.Y+margin {
-				row.Pieces = append(row.Pieces, b.Pieces[i])
-			}
-		}
-		return row
-	}
 }
 
 // checkArea reports a part whose material b, of area area, is empty or too large to measure.

@@ -19,6 +19,11 @@ type Document struct {
 	Overlays []Overlay
 	Holes    []Hole
 	Notes    string
+	// ShapeError bounds the area, in square document units, between the drawing a reader took the
+	// part from and the segments it holds, where the reader had to approximate curves the segments
+	// cannot represent (0: exact). Analyze adds it to the error estimate. It is not saved: a part file
+	// holds its own segments exactly.
+	ShapeError float64
 }
 
 // Overlay is a second layer of material bonded to part of the face, such as a doubler plate. Its

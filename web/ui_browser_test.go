@@ -4,6 +4,7 @@ package web
 // before any is placed, stale figures, the edge distance, moving shapes with the Select tool.
 
 import (
+	"encoding/base64"
 	"math"
 	"os"
 	"path/filepath"
@@ -201,7 +202,15 @@ func TestScreenshots(t *testing.T) {
 	}
 	b.waitFor(`plumb.state().level_pending === false`)
 	shot("demo")
-	pdf := eval[[]byte](b, `(() => { const r = plumb.templatePDF("A4"); return r instanceof Uint8Array ? btoa(String.fromCharCode(...r)) : ""; })()`)
+	pdf, err := base64.StdEncoding.DecodeString(eval[string](b, `(() => {
+		const r = plumb.templatePDF("A4");
+		let s = "";
+		if (r instanceof Uint8Array) for (const c of r) s += String.fromCharCode(c);
+		return btoa(s);
+	})()`))
+	if err != nil {
+		t.Fatal(err)
+	}
 	if err := os.WriteFile(filepath.Join(dir, "demo-template-A4.pdf"), pdf, 0o644); err != nil {
 		t.Error(err)
 	}

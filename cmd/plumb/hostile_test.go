@@ -361,7 +361,7 @@ func helpFlags(t *testing.T, plumb func(args ...string) plumbRun, command string
 // flagKinds lists every flag the walk knows, so that a new flag must be classified.
 var flagKinds = func() map[string]bool {
 	m := map[string]bool{}
-	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "format", "paper", "o", "out"} {
+	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "layers", "skip-layers", "format", "paper", "o", "out"} {
 		m[name] = true
 	}
 	for name := range numericFlags {

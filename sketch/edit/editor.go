@@ -360,6 +360,13 @@ func (e *Editor) Load(d *sketch.Document) {
 	e.Fit()
 }
 
+// Restore makes d the part with no history before it, as when saved work is reopened: Undo has
+// nothing to take back, so it cannot empty the part.
+func (e *Editor) Restore(d *sketch.Document) {
+	e.Load(d)
+	e.undo, e.redo = nil, nil
+}
+
 // NewPart starts an empty part (an undoable step) in the same unit and material as the current one.
 func (e *Editor) NewPart() {
 	d := sketch.NewDocument()

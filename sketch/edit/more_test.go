@@ -298,3 +298,24 @@ func TestEdgeDistanceKeepsItsSizeAcrossUnits(t *testing.T) {
 		t.Error("a negative edge distance was accepted")
 	}
 }
+
+func TestRestoreIsTheBottomOfTheHistory(t *testing.T) {
+	e := newTestEditor()
+	e.SetTool(ToolRect)
+	click(e, geom.Pt(0, 0))
+	click(e, geom.Pt(40, 30))
+	if !e.CanUndo() {
+		t.Fatal("drawing a rectangle cannot be undone")
+	}
+	d := sketch.NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(400, 300))}}
+	e.Restore(d)
+	if e.CanUndo() || e.CanRedo() || e.Undo() || e.Document() != d {
+		t.Fatalf("after Restore: can undo %v, can redo %v, part %p, want the restored %p with no history",
+			e.CanUndo(), e.CanRedo(), e.Document(), d)
+	}
+	e.NewPart()
+	if !e.Undo() || e.Document() != d {
+		t.Fatal("emptying a restored part cannot be undone")
+	}
+}

@@ -1,5 +1,7 @@
 // Package shop prints what a fabricator takes to the bench: a full-size drilling template and a one-page
-// part report, both as PDF (through github.com/go-pdf/fpdf), the report also as Markdown.
+// part report, both as PDF, the report also as Markdown. The PDF is written by the package's own small
+// writer (pdf.go: vector paths and text in the embedded Go fonts, per ISO 32000-1:2008), which keeps the
+// browser app small.
 //
 // # Scale
 //

@@ -5,9 +5,7 @@ import (
 	"math"
 	"time"
 
-	"github.com/go-pdf/fpdf"
 	"golang.org/x/image/font/gofont/gobold"
-	"golang.org/x/image/font/gofont/goitalic"
 	"golang.org/x/image/font/gofont/goregular"
 
 	"plumb/density"
@@ -128,21 +126,15 @@ var (
 	stripTint = rgb{190, 190, 190}
 )
 
-// sheet is an fpdf document in millimetres with the fonts the outputs use.
-type sheet struct{ *fpdf.Fpdf }
+// sheet is a PDF document in millimetres with the fonts the outputs use: Go Regular and Go Bold, the
+// faces the browser app draws with, so the app carries one copy of each.
+type sheet struct{ *pdfDoc }
 
 func newSheet(p Paper, title string) sheet {
-	f := fpdf.NewCustom(&fpdf.InitType{UnitStr: "mm", Size: fpdf.SizeType{Wd: p.W, Ht: p.H}})
-	f.AddUTF8FontFromBytes("go", "", goregular.TTF)
-	f.AddUTF8FontFromBytes("go", "B", gobold.TTF)
-	f.AddUTF8FontFromBytes("go", "I", goitalic.TTF)
-	f.SetAutoPageBreak(false, 0)
-	f.SetMargins(0, 0, 0)
-	f.SetTitle(title, true)
-	f.SetCreator("plumb", true)
-	f.SetLineCapStyle("round")
-	f.SetLineJoinStyle("round")
-	return sheet{f}
+	d := newPDF(p.W, p.H, title)
+	d.addFont("", goregular.TTF)
+	d.addFont("B", gobold.TTF)
+	return sheet{d}
 }
 
 func (s sheet) draw(c rgb)                    { s.SetDrawColor(c.r, c.g, c.b) }
@@ -396,7 +388,7 @@ func (s sheet) plumbLine(x0, y0, x1, y1 float64) {
 	}
 	ux, uy := dx/l, dy/l
 	// The bob: a small triangle pointing along the line, under a disc.
-	s.Polygon([]fpdf.PointType{{X: x1 + 2.4*ux, Y: y1 + 2.4*uy}, {X: x1 - 1.1*uy, Y: y1 + 1.1*ux},
+	s.Polygon([]pointType{{X: x1 + 2.4*ux, Y: y1 + 2.4*uy}, {X: x1 - 1.1*uy, Y: y1 + 1.1*ux},
 		{X: x1 + 1.1*uy, Y: y1 - 1.1*ux}}, "F")
 	s.Circle(x1, y1, 1.1, "F")
 }
@@ -409,7 +401,7 @@ func (s sheet) arrow(x, y, dx, dy float64) {
 	}
 	ux, uy := dx/l, dy/l
 	const long, half = 2.2, 0.7
-	s.Polygon([]fpdf.PointType{{X: x, Y: y}, {X: x - long*ux - half*uy, Y: y - long*uy + half*ux},
+	s.Polygon([]pointType{{X: x, Y: y}, {X: x - long*ux - half*uy, Y: y - long*uy + half*ux},
 		{X: x - long*ux + half*uy, Y: y - long*uy - half*ux}}, "F")
 }
 

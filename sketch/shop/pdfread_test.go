@@ -13,7 +13,7 @@ import (
 // offset (ISO 32000-1:2008, §7.5.4), the page tree's Kids list the pages in order (§7.7.3.2), and each
 // page's Contents stream is read by its /Length and inflated when its filter is FlateDecode (§7.4.4, a
 // zlib stream per RFC 1950). It reads unencrypted files with a classic cross-reference table, as any
-// conforming writer may produce, not just fpdf's output.
+// conforming writer may produce, not just this package's own.
 
 var (
 	startxrefRe = regexp.MustCompile(`startxref\s+(\d+)\s+%%EOF\s*$`)

@@ -162,7 +162,8 @@ func plan(e geom.Rect, p Paper, landscape bool, overlap float64, keep []geom.Rec
 
 // gridStart returns where a grid of n windows, each step past the last and overlap longer, starts
 // along one axis to cover [lo, hi]: centred, or moved by as little as possible within the spare length
-// so that no cut line (start + k·step, k = 1 … n−1) falls inside a span to keep whole.
+// so that no overlap strip (from the cut line start + k·step, k = 1 … n−1, overlap long) meets a span
+// to keep whole: what lies in a strip is covered on one page and cut by the edge of the other.
 func gridStart(lo, hi float64, n int, step, overlap float64, keep [][2]float64) float64 {
 	spare := float64(n)*step + overlap - (hi - lo)
 	centred := lo - spare/2
@@ -170,7 +171,7 @@ func gridStart(lo, hi float64, n int, step, overlap float64, keep [][2]float64) 
 		for k := 1; k < n; k++ {
 			cut := start + float64(k)*step
 			for _, s := range keep {
-				if cut > s[0] && cut < s[1] {
+				if cut < s[1] && cut+overlap > s[0] {
 					return false
 				}
 			}
@@ -195,7 +196,10 @@ func tileCount(size, win, overlap float64) int {
 
 // Template writes a full-size drilling template of the part as PDF: the part at exactly 1:1 with its
 // cut-outs, the hang hole as a centre cross and a circle of its diameter, the balance point, the plumb
-// line, and the distances from two part edges to the hole centre; tiled over as many pages as it needs.
+// line, and the distances to the hole centre from the nearest straight edges of the part square to x and
+// y (where the part has none, from reference lines laid against it, drawn and named); tiled over as many
+// pages as it needs, with the holes clear of the strips that neighbouring pages share where there is
+// room, and every label in the part of its page that no neighbour covers.
 // Every page carries the scale check, the part's facts and the cautions.
 func Template(w io.Writer, p Part, opt TemplateOptions) error {
 	f, err := p.facts()
@@ -246,12 +250,11 @@ type drawing struct {
 	plumbEnd geom.Point
 }
 
-// hole is a hole to mark with the signed distances from its centre to the chosen part edges along x
-// and y (0 when the line misses the part).
+// hole is a hole to mark with the lines its position is measured from: rules[0] measures x, rules[1] y.
 type hole struct {
-	at         geom.Point
-	dia        float64
-	dimX, dimY float64
+	at    geom.Point
+	dia   float64
+	rules [2]ruleLine
 }
 
 func newDrawing(p Part, f facts) *drawing {
@@ -265,8 +268,9 @@ func newDrawing(p Part, f facts) *drawing {
 	}
 	body := p.Analysis.Body
 	add := func(at geom.Point, dia float64) {
+		minEdge := minRuleEdgeMM / d.mm
 		d.holes = append(d.holes, hole{at: at, dia: dia,
-			dimX: edgeDistance(body, at, geom.Pt(1, 0)), dimY: edgeDistance(body, at, geom.Pt(0, 1))})
+			rules: [2]ruleLine{nearestRule(body, at, true, minEdge), nearestRule(body, at, false, minEdge)}})
 	}
 	switch {
 	case p.Hang != nil:
@@ -308,31 +312,11 @@ func onMaterial(in []bool) bool {
 	return true
 }
 
-// edgeDistance returns the signed distance from p along the unit direction dir (or against it) to the
-// outermost crossing of the boundary on the nearer side: the part edge a rule laid along that line
-// meets; 0 when the line misses the part.
-func edgeDistance(b geom.Boundary, p, dir geom.Point) float64 {
-	hits := b.LineHits(p, dir)
-	if len(hits) == 0 {
-		return 0
-	}
-	lo, hi := hits[0], hits[len(hits)-1]
-	switch {
-	case lo >= 0:
-		return hi
-	case hi <= 0:
-		return lo
-	case -lo < hi:
-		return lo
-	}
-	return hi
-}
-
 // layout plans the pages, keeping each hole and its cross clear of the cut lines where it can.
 func (d *drawing) layout(paper Paper, overlap float64) Layout {
 	var keep []geom.Rect
 	for _, h := range d.holes {
-		r := h.dia/2*d.mm + 8 // mm: the circle and the cross's arms
+		r := h.dia/2*d.mm + 12 // mm: the circle, the cross's arms and the hole's label
 		c := h.at.Mul(d.mm)
 		keep = append(keep, geom.Rect{Min: c.Sub(geom.Pt(r, r)), Max: c.Add(geom.Pt(r, r))})
 	}
@@ -375,15 +359,51 @@ func (d *drawing) tile(s sheet, lay Layout, t Tile) {
 		s.Rect(margin, margin+size.Y-lay.Overlap, size.X, lay.Overlap, "F")
 	}
 	s.SetAlpha(1, "Normal")
-	d.marks(p, 1)
+	area := pageArea{view: geom.Rect{Min: geom.Pt(margin, margin), Max: geom.Pt(margin+size.X, margin+size.Y)}}
+	area.own = area.view
+	if t.Col < lay.Cols-1 {
+		area.own.Max.X -= lay.Overlap
+	}
+	if t.Row < lay.Rows-1 {
+		area.own.Max.Y -= lay.Overlap
+	}
+	d.marks(p, 1, area)
 	alignmentMarks(frame, lay, win)
 	s.ClipEnd()
 	d.frame(s, lay, t)
 }
 
+// pageArea is where on a page (mm from its top-left corner, y down) the marks may go: view is the window
+// the drawing shows, own the part of it that no neighbouring page covers. Words go in own, so that none
+// is hidden under a neighbour or cut at the window's edge; a page whose view shows a mark repeats its
+// words.
+type pageArea struct{ view, own geom.Rect }
+
+// everywhere is the area of a page that is not cut up: the map on the cover.
+func everywhere() pageArea {
+	all := geom.Rect{Min: geom.Pt(-1e9, -1e9), Max: geom.Pt(1e9, 1e9)}
+	return pageArea{view: all, own: all}
+}
+
+// label writes txt as p.text does at (x, y), moved as little as needed to lie wholly in own.
+func (p pen) label(own geom.Rect, x, y float64, align, txt string) {
+	w := p.GetStringWidth(txt)
+	_, h := p.GetFontSize()
+	left := x
+	switch align {
+	case "C":
+		left -= w / 2
+	case "R":
+		left -= w
+	}
+	dx := math.Max(own.Min.X-left, 0) + math.Min(own.Max.X-(left+w), 0)
+	dy := math.Max(own.Min.Y-(y-0.8*h), 0) + math.Min(own.Max.Y-(y+0.25*h), 0)
+	p.text(x+dx, y+dy, align, txt)
+}
+
 // marks draws the plumb line, the balance point, the holes and their dimensions; k scales the symbols,
 // and below 1 leaves out the words.
-func (d *drawing) marks(p pen, k float64) {
+func (d *drawing) marks(p pen, k float64, area pageArea) {
 	if d.Hang != nil {
 		hx, hy := p.at(d.Hang.At)
 		ex, ey := p.at(d.plumbEnd)
@@ -394,36 +414,50 @@ func (d *drawing) marks(p pen, k float64) {
 	if k == 1 {
 		p.font("", 7)
 		p.textInk(ink)
-		p.text(cx+4, cy-3, "L", "balance point")
+		if inside(area.view, cx, cy) {
+			p.label(area.own, cx+4, cy-3, "L", "balance point")
+		}
 		for i, o := range d.overlays {
 			ox, oy := p.at(o.Bounds().Center())
-			p.text(ox, oy+1, "C", d.names[i])
+			if inside(area.view, ox, oy) {
+				p.label(area.own, ox, oy+1, "C", d.names[i])
+			}
 		}
 	}
 	for _, h := range d.holes {
-		d.hole(p, h, k)
+		d.hole(p, h, k, area)
 	}
 }
 
-// hole marks one hole; at full size, with its label and the dimensions from the edges to its centre,
-// each in a quadrant of its own.
-func (d *drawing) hole(p pen, h hole, k float64) {
+// inside reports whether the page point (x, y) lies in r.
+func inside(r geom.Rect, x, y float64) bool {
+	return x >= r.Min.X && x <= r.Max.X && y >= r.Min.Y && y <= r.Max.Y
+}
+
+// hole marks one hole; at full size, with its label and the dimensions from the lines it is measured
+// from, each in a quadrant of its own.
+func (d *drawing) hole(p pen, h hole, k float64, area pageArea) {
 	hx, hy := p.at(h.at)
 	dia := h.dia * p.s
 	p.holeMark(hx, hy, dia, 5*k)
 	if k != 1 {
 		return
 	}
-	sx, sy := side(h.dimX), side(h.dimY)
+	// The label goes in the quadrant away from both dimensions.
+	sx, sy := side(h.rules[0].at-h.at.X), side(h.rules[1].at-h.at.Y)
+	for _, r := range h.rules {
+		d.dimension(p, h.at, r, area)
+	}
+	if !inside(area.view, hx, hy) {
+		return
+	}
 	p.font("B", 7.5)
 	p.textInk(holeInk)
 	lx, ly := hx-sx*(dia/2+2.5), hy+sy*(dia/2+2.5)
 	if sy < 0 {
 		ly += 2.5
 	}
-	p.text(lx, ly, align(-sx), fmt.Sprintf("Ø %.1f mm hole", h.dia*d.mm))
-	d.dimension(p, h.at, geom.Pt(h.dimX, 0), -sy)
-	d.dimension(p, h.at, geom.Pt(0, h.dimY), -sx)
+	p.label(area.own, lx, ly, align(-sx), fmt.Sprintf("Ø %.1f mm hole", h.dia*d.mm))
 }
 
 // side is the sign of v, with 0 counted as positive.
@@ -442,15 +476,17 @@ func align(side float64) string {
 	return "L"
 }
 
-// dimension draws the distance from the part edge at at + v to the hole centre at, arrows at both ends,
-// its label on the given side of the line (+1 right or above the line as the part is drawn, −1 left or
-// below).
-func (d *drawing) dimension(p pen, at, v geom.Point, labelSide float64) {
-	if v.Norm() == 0 {
+// dimension draws the distance from the rule line r to the hole centre at, square to the line, arrows at
+// both ends. A straight edge that ends short of the dimension gets a dashed extension line to it; a
+// reference line is drawn across the part, dash-dotted, and named. The value is written on every page
+// that shows enough of the dimension, in the part of the page no neighbour covers.
+func (d *drawing) dimension(p pen, at geom.Point, r ruleLine, area pageArea) {
+	foot := r.foot(at)
+	if foot.Dist(at) == 0 {
 		return
 	}
 	hx, hy := p.at(at)
-	ex, ey := p.at(at.Add(v))
+	ex, ey := p.at(foot)
 	p.solid()
 	p.draw(ink)
 	p.fill(ink)
@@ -458,19 +494,102 @@ func (d *drawing) dimension(p pen, at, v geom.Point, labelSide float64) {
 	p.Line(ex, ey, hx, hy)
 	p.arrow(ex, ey, ex-hx, ey-hy)
 	p.arrow(hx, hy, hx-ex, hy-ey)
+	d.ruleMark(p, at, r, area)
 	p.font("B", 8)
 	p.textInk(ink)
-	label := length(v.Norm() * d.mm)
-	mx, my := (ex+hx)/2, (ey+hy)/2
-	if v.Y == 0 {
-		if labelSide > 0 {
-			p.text(mx, my-1.5, "C", label)
-		} else {
-			p.text(mx, my+3.8, "C", label)
+	label := length(foot.Dist(at) * d.mm)
+	a, b, ok := clipAxial(area.own, ex, ey, hx, hy)
+	if !ok {
+		return
+	}
+	if b-a < p.GetStringWidth(label)+6 { // too short to write along: beside its foot, outside
+		if inside(area.own, ex, ey) {
+			// Left of a vertical dimension (the hole's label takes the other side), above or below
+			// the end of a horizontal one, away from the hole.
+			if ex == hx {
+				y := ey - 1.5
+				if ey > hy {
+					y = ey + 3.2
+				}
+				p.label(area.own, ex-2, y, "R", label)
+			} else {
+				p.label(area.own, ex+side(ex-hx)*2, ey-1.5, align(side(ex-hx)), label)
+			}
 		}
 		return
 	}
-	p.text(mx+labelSide*1.8, my+1, align(labelSide), label)
+	mid := (a + b) / 2
+	if r.vertical { // a horizontal dimension: the value above the line
+		p.label(area.own, mid, ey-1.5, "C", label)
+		return
+	}
+	p.label(area.own, ex+1.8, mid+1, "L", label)
+}
+
+// ruleMark draws what a dimension starts from beyond the part's own edge: the extension of a straight
+// edge that ends short of the dimension, or the reference line.
+func (d *drawing) ruleMark(p pen, at geom.Point, r ruleLine, area pageArea) {
+	t := r.along(at)
+	if !r.ref {
+		if t >= r.lo && t <= r.hi {
+			return
+		}
+		end := r.point(math.Min(math.Max(t, r.lo), r.hi))
+		beyond := r.point(t + side(t-r.lo)*3/d.mm)
+		ax, ay := p.at(end)
+		bx, by := p.at(beyond)
+		p.SetLineWidth(0.15)
+		p.dashed(1.2, 0.8)
+		p.Line(ax, ay, bx, by)
+		p.solid()
+		return
+	}
+	over := 12 / d.mm
+	a, b := r.point(r.lo-over), r.point(r.hi+over)
+	ax, ay := p.at(a)
+	bx, by := p.at(b)
+	p.SetLineWidth(0.25)
+	p.SetDashPattern([]float64{6, 1.2, 0.8, 1.2}, 0)
+	p.Line(ax, ay, bx, by)
+	p.solid()
+	p.font("", 7)
+	p.textInk(ink)
+	const note = "reference line: a straight edge laid against the part here"
+	fx, fy := p.at(r.foot(at))
+	if !inside(area.view, fx, fy) {
+		return
+	}
+	// Beside the line, on the side away from the part.
+	hx, hy := p.at(at)
+	if r.vertical {
+		out := side(fx - hx)
+		if x := fx + out*(1.5+p.GetStringWidth(note)); x > area.own.Max.X || x < area.own.Min.X {
+			out = -out // no room outside on this page
+		}
+		p.label(area.own, fx+out*1.5, fy+8, align(out), note)
+		return
+	}
+	if fy < hy {
+		p.label(area.own, fx+3, fy-1.5, "L", note)
+		return
+	}
+	p.label(area.own, fx+3, fy+3.2, "L", note)
+}
+
+// clipAxial returns the stretch of the page segment (x0, y0)–(x1, y1), which runs along x or along y,
+// that lies in r, as an interval of the coordinate that varies; ok is false when none does.
+func clipAxial(r geom.Rect, x0, y0, x1, y1 float64) (lo, hi float64, ok bool) {
+	fixed, a, b := x0, y0, y1
+	fLo, fHi, vLo, vHi := r.Min.X, r.Max.X, r.Min.Y, r.Max.Y
+	if y0 == y1 {
+		fixed, a, b = y0, x0, x1
+		fLo, fHi, vLo, vHi = r.Min.Y, r.Max.Y, r.Min.X, r.Max.X
+	}
+	if fixed < fLo || fixed > fHi {
+		return 0, 0, false
+	}
+	lo, hi = math.Max(math.Min(a, b), vLo), math.Min(math.Max(a, b), vHi)
+	return lo, hi, hi > lo
 }
 
 // alignmentMarks draws the marks on the cut lines of the grid (see the package comment) that show in
@@ -607,7 +726,7 @@ func (d *drawing) cover(s sheet, lay Layout) {
 	oy := boxTop + grid.Max.Y*k
 	p := pen{sheet: s, s: k * d.mm, ox: ox, oy: oy}
 	p.body(d.Analysis.Body, d.overlays, 0.25)
-	d.marks(p, 0.6)
+	d.marks(p, 0.6, everywhere())
 	s.SetLineWidth(0.3)
 	for _, t := range lay.Tiles {
 		x, y := ox+t.Window.Min.X*k, oy-t.Window.Max.Y*k

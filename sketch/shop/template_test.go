@@ -4,10 +4,13 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"html"
 	"math"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -387,23 +390,38 @@ func TestTemplateBadOverlap(t *testing.T) {
 	}
 }
 
-func TestEdgeDistance(t *testing.T) {
-	b := bracket().Outline.Boundary()
+// TestNearestRule checks what a hole is measured from: the nearest straight edge square to the axis
+// (the bracket's sides; an edge that ends short of the hole still counts, with an extension line), and
+// where the part has no straight edge that way, a rule laid against its extreme (the disk's bounding
+// lines, tangent to the circle).
+func TestNearestRule(t *testing.T) {
+	bracket := bracket().Outline.Boundary()
+	disk := geom.Region{Loops: []geom.Loop{geom.Circle(geom.Pt(0, 0), 50)}}.Boundary()
+	sign := bladeSign().Outline.Boundary()
 	for _, c := range []struct {
 		name     string
-		p, dir   geom.Point
-		distance float64
+		b        geom.Boundary
+		p        geom.Point
+		vertical bool
+		at       float64
+		ref      bool
 	}{
-		{"to the left edge", geom.Pt(30, 40), geom.Pt(1, 0), -30},
-		{"to the right edge", geom.Pt(90, 40), geom.Pt(1, 0), 30},
-		{"to the top edge", geom.Pt(30, 70), geom.Pt(0, 1), 10},
-		// On y = 70 the right edge is the corner arc: x = 100 + √(20² − 10²).
-		{"to the round corner", geom.Pt(90, 70), geom.Pt(1, 0), math.Sqrt(300) - 10 + 20},
-		{"off the part", geom.Pt(30, 200), geom.Pt(1, 0), 0},
+		{"bracket, left edge", bracket, geom.Pt(30, 40), true, 0, false},
+		{"bracket, right edge", bracket, geom.Pt(90, 40), true, 120, false},
+		{"bracket, top edge", bracket, geom.Pt(30, 70), false, 80, false},
+		// The right edge runs up to y = 60 only; the rounded corner is no place for a rule.
+		{"bracket, beside the round corner", bracket, geom.Pt(110, 75), true, 120, false},
+		// The blade sign's top is curved: the hole is measured from the straight bottom edge.
+		{"blade sign, under the curved top", sign, geom.Pt(300, 330), false, 0, false},
+		{"disk, measured across", disk, geom.Pt(20, 10), true, 50, true},
+		{"disk, measured down", disk, geom.Pt(20, -10), false, -50, true},
 	} {
-		if got := edgeDistance(b, c.p, c.dir); math.Abs(got-c.distance) > 1e-9 {
-			t.Errorf("%s: %g, want %g", c.name, got, c.distance)
-		}
+		t.Run(c.name, func(t *testing.T) {
+			r := nearestRule(c.b, c.p, c.vertical, minRuleEdgeMM)
+			if r.vertical != c.vertical || math.Abs(r.at-c.at) > 1e-9 || r.ref != c.ref {
+				t.Errorf("rule %+v, want at %g (reference %v)", r, c.at, c.ref)
+			}
+		})
 	}
 }
 
@@ -424,4 +442,97 @@ func BenchmarkTemplate(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// TestTemplateWordsClearOfStrips checks, in the words pdftotext finds on each page (an independent
+// reading of the PDF), that every number of a dimension or hole label lies in the part of its page that
+// no neighbouring page covers: none is hidden under a neighbour or cut at the window's edge.
+func TestTemplateWordsClearOfStrips(t *testing.T) {
+	pdftotext, err := exec.LookPath("pdftotext")
+	if err != nil {
+		t.Skip("pdftotext (poppler-utils) is not installed: apt-get install poppler-utils")
+	}
+	for _, c := range []struct {
+		name string
+		part Part
+	}{
+		{"blade sign", hungPart(t, bladeSign(), geom.Pt(300, 330), 10)},
+		{"blade sign, hole near the top", hungPart(t, bladeSign(), geom.Pt(300, 380), 8)},
+		{"gate panel", hungPart(t, gatePanel(), geom.Pt(500, 1100), 12)},
+		// 349 mm and 8 mm of margin each side fill two A4 windows (190 mm, 15 mm shared) exactly: the
+		// cut cannot move off the hole, which lies in the shared strip.
+		{"plate with the hole in the strip", hungPart(t, plateDoc(349, 150), geom.Pt(174.5, 120), 8)},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			path := filepath.Join(t.TempDir(), "t.pdf")
+			if err := os.WriteFile(path, renderTemplate(t, c.part, TemplateOptions{}), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			out, err := exec.Command(pdftotext, "-bbox", path, "-").Output()
+			if err != nil {
+				t.Fatalf("pdftotext: %v", err)
+			}
+			lay := newDrawing(c.part, mustFacts(t, c.part)).layout(Papers()[0], DefaultOverlap)
+			pages := strings.Split(string(out), "<page ")[1:]
+			checked := 0
+			for _, tile := range lay.Tiles {
+				ww, wh := windowSize(lay.Paper)
+				own := geom.Rect{Min: geom.Pt(margin, margin), Max: geom.Pt(margin+ww, margin+wh)}
+				if tile.Col < lay.Cols-1 {
+					own.Max.X -= lay.Overlap
+				}
+				if tile.Row < lay.Rows-1 {
+					own.Max.Y -= lay.Overlap
+				}
+				for _, w := range bboxWords(pages[tile.Page-1]) {
+					// Words in points from the top-left (1 pt = 25.4/72 mm); the drawing's labels are
+					// decimal numbers, "in)" and "hole".
+					box := geom.Rect{Min: w.min.Mul(25.4 / 72), Max: w.max.Mul(25.4 / 72)}
+					if !labelWord.MatchString(w.text) || box.Min.Y > margin+wh || box.Max.X < margin || box.Min.X > margin+ww {
+						continue
+					}
+					checked++
+					const tol = 0.3 // mm: pdftotext's boxes include the font's side bearings
+					if box.Min.X < own.Min.X-tol || box.Max.X > own.Max.X+tol || box.Min.Y < own.Min.Y-tol || box.Max.Y > own.Max.Y+tol {
+						t.Errorf("page %d: %q at %v mm lies outside the page's own area %v", tile.Page, w.text, box, own)
+					}
+				}
+			}
+			if checked == 0 {
+				t.Fatal("no label words found")
+			}
+		})
+	}
+}
+
+// plateDoc is a w × h mm rectangle of 3 mm steel.
+func plateDoc(w, h float64) *sketch.Document {
+	d := sketch.NewDocument()
+	d.Name = "Plate"
+	d.Material = bracket().Material
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(w, h))}}
+	return d
+}
+
+// labelWord matches the words of the drawing's dimension and hole labels.
+var labelWord = regexp.MustCompile(`^\(?\d+\.\d+$|^in\)$|^hole$`)
+
+// bboxWord is a word of pdftotext -bbox output with its box in points from the page's top-left.
+type bboxWord struct {
+	text     string
+	min, max geom.Point
+}
+
+var bboxRe = regexp.MustCompile(`<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)</word>`)
+
+func bboxWords(page string) []bboxWord {
+	var out []bboxWord
+	for _, m := range bboxRe.FindAllStringSubmatch(page, -1) {
+		var v [4]float64
+		for i := range v {
+			v[i], _ = strconv.ParseFloat(m[i+1], 64)
+		}
+		out = append(out, bboxWord{html.UnescapeString(m[5]), geom.Pt(v[0], v[1]), geom.Pt(v[2], v[3])})
+	}
+	return out
 }

@@ -250,10 +250,32 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	if min, source, err := r.doc.EdgeRule(ed.HoleDiameter(), sketch.HangOptions{Edge: ed.EdgeDistance()}); err == nil {
 		m["edge"] = edgeState{min, source, ed.EdgeDistance() > 0}
 	}
+	m["part"], m["empty"] = partFacts(r.doc), isEmpty(r.doc)
 	b, err := json.Marshal(m)
 	if err != nil { // a number that is not finite: say so rather than hand the page nothing
 		b, _ = json.Marshal(map[string]any{"file": file, "error": "the results cannot be shown: a result is not a finite number",
 			"warnings": []string{}, "cautions": sketch.Cautions()})
 	}
 	return b
+}
+
+// partFacts is the state object's "part": the part's name and material as its part file gives them,
+// for the panel's fields, so that the page needs no part file after every edit.
+func partFacts(d *sketch.Document) map[string]any {
+	s := d.Material
+	spec := map[string]any{}
+	for k, v := range map[string]string{"material": s.Material, "thickness": s.Thickness, "formula": s.Formula, "unit": s.Unit} {
+		if v != "" {
+			spec[k] = v
+		}
+	}
+	if len(s.Params) > 0 {
+		spec["params"] = s.Params
+	}
+	return map[string]any{"name": d.Name, "material": spec}
+}
+
+// isEmpty reports whether the part has nothing drawn: no outline, cut-out, doubler or hole.
+func isEmpty(d *sketch.Document) bool {
+	return len(d.Outline.Loops) == 0 && len(d.Cutouts) == 0 && len(d.Overlays) == 0 && len(d.Holes) == 0
 }

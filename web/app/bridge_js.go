@@ -14,6 +14,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/dxf"
 	"plumb/sketch/edit"
 	"plumb/sketch/shop"
 	"plumb/sketch/svg"
@@ -21,12 +22,15 @@ import (
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
 //
-//	load(text, filename) → {ok, error, warnings}   a part file (JSON) or an SVG drawing
+//	load(text, filename) → {ok, error, warnings, has_material}   a part file (JSON), SVG or DXF drawing
+//	restore(text, filename) → like load, for saved work: the part is the bottom of the undo history
+//	frames() → {drawn, last_ms}   frames painted so far, and performance.now() at the last one
 //	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
 //	exportSVG() → string    the part 1:1 in millimetres
 //	saveJSON() → string     the part file
 //	report() → string       the plain-text report with the cautions
 //	templatePDF(paper) → Uint8Array | {error}   the 1:1 drilling template on "A4", "letter", "A3" or "tabloid"
+//	cutFile("dxf"|"svg") → string | {error}     the part as a cut file with its hang holes (or the level hole)
 //	undo(), redo(), newPart(), fit()
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
@@ -36,14 +40,23 @@ import (
 //	placeSuggestedHole() → {ok, error}   the hang hole at the level-hang (else least-tilt) position
 //	shortcuts() → [{key, action}]
 //
-// After every change it calls window.plumbUI.onChange(state, partJSON).
+// After every change it calls window.plumbUI.onChange(state); the page autosaves through saveJSON when
+// the edits pause.
 func installBridge(g *Game) {
 	obj := js.Global().Get("Object").New()
 	fn := func(name string, f func(args []js.Value) any) {
 		obj.Set(name, js.FuncOf(func(_ js.Value, args []js.Value) any { return f(args) }))
 	}
 	fn("load", func(a []js.Value) any {
-		return g.change(func() any { return g.load(str(a, 0), str(a, 1)) })
+		return g.change(func() any { return g.load(str(a, 0), str(a, 1), false) })
+	})
+	fn("restore", func(a []js.Value) any {
+		return g.change(func() any { return g.load(str(a, 0), str(a, 1), true) })
+	})
+	fn("frames", func([]js.Value) any {
+		g.mu.Lock()
+		defer g.mu.Unlock()
+		return map[string]any{"drawn": g.frames.drawn, "last_ms": g.frames.lastMS}
 	})
 	fn("state", func([]js.Value) any {
 		g.mu.Lock()
@@ -66,6 +79,15 @@ func installBridge(g *Game) {
 			u := js.Global().Get("Uint8Array").New(len(b))
 			js.CopyBytesToJS(u, b)
 			return u
+		})
+	})
+	fn("cutFile", func(a []js.Value) any {
+		return read(g, func() any {
+			b, err := g.cutFile(str(a, 0))
+			if err != nil {
+				return map[string]any{"error": err.Error()}
+			}
+			return string(b)
 		})
 	})
 	fn("undo", func([]js.Value) any { return g.change(func() any { return g.ed.Undo() }) })
@@ -155,15 +177,17 @@ func installBridge(g *Game) {
 	js.Global().Set("plumb", obj)
 }
 
-// change runs f on the editor, reanalyses and tells the page, and returns f's result.
+// change runs f on the editor, reanalyses and tells the page, and returns f's result. The canvas is
+// painted on the next frame.
 func (g *Game) change(f func() any) any {
 	g.mu.Lock()
 	v := f()
+	g.dirty = true
 	g.refresh()
-	state, part, tell := g.pending()
+	state, tell := g.pending()
 	g.mu.Unlock()
 	if tell {
-		tellChange(state, part)
+		tellChange(state)
 	}
 	return v
 }
@@ -198,31 +222,35 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// load reads a part file or an SVG or DXF drawing and makes it the part. The answer says whether the part
 // came with a material (has_material), so that the page can give a drawing without one the panel's.
-func (g *Game) load(text, name string) any {
+// Restored saved work starts the undo history, so that Undo cannot empty it.
+func (g *Game) load(text, name string, restored bool) any {
 	var (
 		doc      *sketch.Document
 		warnings []string
 		err      error
 	)
-	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
-		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	switch {
+	case strings.EqualFold(path.Ext(name), ".dxf"):
+		doc, warnings, err = dxf.Read([]byte(text), dxf.Options{Name: base})
+	case strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<"):
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
-		if err == nil {
-			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
-		}
-	} else {
+	default:
 		doc, err = sketch.Load([]byte(text))
+	}
+	if err == nil {
+		err = doc.CheckExtent() // refuse parts beyond the coordinate range before anything is saved
 	}
 	if err != nil {
 		return map[string]any{"ok": false, "error": err.Error(), "warnings": []any{}}
 	}
-	if doc.Material.Material == "" && doc.Material.Formula == "" && g.chosen.haveSpec {
-		doc.Material = g.chosen.spec
-		warnings = append(warnings, "the drawing gives no material: it takes "+describeSpec(doc.Material)+", chosen last")
+	if restored {
+		g.ed.Restore(doc)
+	} else {
+		g.ed.Load(doc)
 	}
-	g.ed.Load(doc)
 	if name != "" {
 		g.file = name
 	}
@@ -253,7 +281,7 @@ func (g *Game) setMaterial(v js.Value) any {
 
 // setDefaults takes the units and material chosen last ({units, material: {material, thickness} |
 // {formula, unit, params}}, either may be missing), as the page kept them from an earlier visit: a
-// new part starts with them, and a drawing without a material takes the material.
+// new part starts with them.
 func (g *Game) setDefaults(v js.Value) any {
 	if v.Type() != js.TypeObject {
 		return outcome(errors.New("expected {units, material}"))
@@ -398,10 +426,19 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 	return buf.Bytes(), nil
 }
 
-// describeSpec names a material spec in a few words: "aluminium 5052, 3 mm" or "formula 8 + k*x kg/m2".
-func describeSpec(s density.Spec) string {
-	if s.Formula != "" {
-		return "the formula " + s.Formula + " " + cmp.Or(s.Unit, "kg/m2")
+// cutFile returns the part as a DXF or SVG cut file (format "dxf" or "svg") with its hang holes as
+// circles; a part without holes gets the level-hang hole when there is one.
+func (g *Game) cutFile(format string) ([]byte, error) {
+	d := g.ed.Document()
+	holes := d.Holes
+	if lv := g.res.level; len(holes) == 0 && lv != nil && lv.Hang != nil {
+		holes = []sketch.Hole{{At: lv.At, Diameter: lv.Diameter}}
 	}
-	return s.Material + ", " + s.Thickness
+	switch format {
+	case "dxf":
+		return dxf.Write(d, holes)
+	case "svg":
+		return svg.WriteCut(d, holes)
+	}
+	return nil, fmt.Errorf("unknown cut file format %q: want dxf or svg", format)
 }

@@ -60,9 +60,14 @@ func callPage(name string, args ...any) {
 	ui.Call(name, args...)
 }
 
-// tellChange gives the page the new state object and part file.
-func tellChange(state, part []byte) {
-	callPage("onChange", parseJSON(state), string(part))
+// tellChange gives the page the new state object.
+func tellChange(state []byte) {
+	callPage("onChange", parseJSON(state))
+}
+
+// nowMS returns the page's clock, performance.now(), in milliseconds.
+func nowMS() float64 {
+	return js.Global().Get("performance").Call("now").Float()
 }
 
 // parseJSON turns JSON text into a JavaScript value. Text that is not JSON (a value Go could not

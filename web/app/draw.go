@@ -65,17 +65,18 @@ type frame struct {
 	doc  *sketch.Document
 }
 
-// Draw draws the canvas. It changes nothing.
+// Draw paints the canvas when something on it changed since the last painted frame, and otherwise
+// leaves that frame on screen. It changes nothing the page sees.
 func (g *Game) Draw(screen *ebiten.Image) {
 	g.mu.Lock()
 	defer g.mu.Unlock()
+	if !g.dirty {
+		return
+	}
+	g.dirty = false
 	fr := &frame{g: g, p: painter{dst: screen}, v: g.ed.View, u: g.dpr, w: float64(g.w), h: float64(g.h),
 		f: g.fonts.facesFor(g.dpr), res: g.res, doc: g.ed.Document()}
-	screen.Fill(colBackground)
-	fr.grid()
-	fr.origin()
-	fr.ghost()
-	fr.part()
+	fr.base(screen)
 	fr.holes()
 	fr.level()
 	fr.plumbLine()
@@ -90,6 +91,51 @@ func (g *Game) Draw(screen *ebiten.Image) {
 	fr.scaleBar()
 	fr.emptyHint()
 	fr.status()
+	g.drawnRes = g.res
+	g.frames.drawn++
+	g.frames.lastMS = nowMS()
+}
+
+// partLayer keeps the background, grid, hanging ghost and part (fill, doublers and edges) painted for
+// one part, analysis and view, so that frames that change only the marks over it (the pointer, a
+// hover, a typed value) do not flatten and fill every curve again.
+type partLayer struct {
+	img *ebiten.Image
+	key layerKey
+}
+
+// layerKey is what the part layer shows: it is painted again when any of it changes.
+type layerKey struct {
+	res  *result
+	doc  *sketch.Document
+	view edit.View
+	w, h int
+	u    float64
+}
+
+// base draws the part layer onto the screen, painting it first if it is out of date.
+func (fr *frame) base(screen *ebiten.Image) {
+	l := &fr.g.layer
+	if l.img != nil && l.img.Bounds().Size() != screen.Bounds().Size() {
+		l.img.Deallocate()
+		l.img = nil
+	}
+	if l.img == nil {
+		l.img = ebiten.NewImageWithOptions(screen.Bounds(), nil)
+		l.key = layerKey{}
+	}
+	key := layerKey{fr.res, fr.doc, fr.v, fr.g.w, fr.g.h, fr.u}
+	if key != l.key {
+		l.key = key
+		fr.p.dst = l.img
+		l.img.Fill(colBackground)
+		fr.grid()
+		fr.origin()
+		fr.ghost()
+		fr.part()
+		fr.p.dst = screen
+	}
+	screen.DrawImage(l.img, nil)
 }
 
 func (fr *frame) screen(p geom.Point) geom.Point { return fr.v.ToScreen(p) }

@@ -33,6 +33,19 @@ type Game struct {
 
 	ready     bool // window.plumbUI.ready has been called
 	toldState uiState
+
+	// The canvas is painted only when something it shows changed: Draw leaves the last frame on
+	// screen otherwise (the screen is not cleared between frames), so an idle page does no drawing.
+	dirty    bool
+	drawnRes *result // the analysis the last painted frame showed
+	layer    partLayer
+	frames   frameStats
+}
+
+// frameStats counts the painted frames, for the page's measurements (plumb.frames()).
+type frameStats struct {
+	drawn  int     // frames painted since the start
+	lastMS float64 // performance.now() when the last one was painted
 }
 
 // choice is the units and material the user chose last, for a new part and for a drawing that gives
@@ -57,7 +70,7 @@ type uiState struct {
 }
 
 func newGame() *Game {
-	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true}
+	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true, dirty: true}
 	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0)
 	// The empty starting part is nothing to tell: the page loads the autosaved or demo part when it
 	// is ready, and that load is the first change it hears of.
@@ -74,14 +87,17 @@ func (g *Game) refresh() {
 }
 
 // refreshLevel looks for the level hole, once nothing is being dragged, of a part that can be
-// analysed. It takes several analyses, so Update runs it on the frame after a change, never inside a
-// call from the page (typing in the panel's fields stays quick).
-func (g *Game) refreshLevel() {
+// analysed, and reports whether it did. It takes several analyses, so Update runs it only once a frame
+// has shown the new analysis, never inside a call from the page (typing in the panel's fields stays
+// quick, and an edit reaches the screen before the search).
+func (g *Game) refreshLevel() bool {
 	stale := !g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter() || g.res.levelEdge != g.ed.EdgeDistance()
-	if g.res.err == nil && stale && !g.ed.Dragging() {
-		g.res.findLevel(g.ed.HoleDiameter(), g.ed.EdgeDistance())
-		g.ed.SetGuides(g.guides())
+	if g.res.err != nil || !stale || g.ed.Dragging() || g.drawnRes != g.res {
+		return false
 	}
+	g.res.findLevel(g.ed.HoleDiameter(), g.ed.EdgeDistance())
+	g.ed.SetGuides(g.guides())
+	return true
 }
 
 // guides are the analysis points the pointer snaps to: the balance point and the level hole.
@@ -102,16 +118,17 @@ func (g *Game) uiState() uiState {
 		g.ed.HoleDiameter(), g.ed.EdgeDistance(), g.ed.CornerRadius(), g.res.levelDone}
 }
 
-// pending returns what the page must be told after this change, if anything: a reanalysis or a
-// change of tool, target or undo state. It marks it told.
-func (g *Game) pending() (state, part []byte, tell bool) {
+// pending returns the state the page must be told of after this change, if anything: a reanalysis or
+// a change of tool, target or undo state. It marks it told, and the canvas for painting. The part file
+// is not written here: the page asks for it (plumb.saveJSON) when it autosaves, off the edit path.
+func (g *Game) pending() (state []byte, tell bool) {
 	now := g.uiState()
 	if now == g.toldState {
-		return nil, nil, false
+		return nil, false
 	}
 	g.toldState = now
-	part, _ = g.ed.Document().Save()
-	return g.res.stateJSON(g.file, g.ed), part, true
+	g.dirty = true
+	return g.res.stateJSON(g.file, g.ed), true
 }
 
 // Update handles input and reanalyses the part after changes.
@@ -127,6 +144,9 @@ func (g *Game) Update() error {
 		g.needFit = g.needFit || g.autoFit
 	}
 	view, rev := g.ed.View, g.ed.Rev()
+	if g.in.active() {
+		g.dirty = true
+	}
 	g.handleInput()
 	if g.ed.View != view || g.ed.Rev() != rev {
 		g.autoFit = false // the user has taken over: the picture stays where they put it
@@ -134,13 +154,16 @@ func (g *Game) Update() error {
 	if g.needFit && g.w > 0 {
 		g.fit()
 	}
+	res := g.res
 	g.refresh()
-	g.refreshLevel()
-	state, part, tell := g.pending()
+	if g.refreshLevel() || g.res != res || g.ed.View != view {
+		g.dirty = true
+	}
+	state, tell := g.pending()
 	g.mu.Unlock()
 
 	if tell {
-		tellChange(state, part)
+		tellChange(state)
 	}
 	return nil
 }
@@ -148,6 +171,7 @@ func (g *Game) Update() error {
 // setPage records the canvas edges the page covers and tells the editor what is clear of them.
 func (g *Game) setPage(page edit.Insets) {
 	g.page = page
+	g.dirty = true
 	// The rulers, and the status line above the bottom one, are ours to keep clear as well.
 	page.Left += rulerLeft * g.dpr
 	page.Bottom += (rulerBottom + 24) * g.dpr
@@ -179,6 +203,7 @@ func (g *Game) Layout(outsideWidth, outsideHeight int) (int, int) {
 		g.ed.PixelRatio = dpr
 		g.ed.Resize(float64(w), float64(h))
 		g.needFit = g.needFit || g.autoFit
+		g.dirty = true
 	}
 	return w, h
 }

@@ -19,6 +19,33 @@ type inputState struct {
 	pinch   [2]geom.Point // finger positions last frame, while pinching
 	pinched bool
 	chars   []rune
+
+	seen geom.Point   // the cursor position at the last check for activity
+	keys []ebiten.Key // scratch space for that check
+}
+
+// active reports whether any input arrived since the last call: the pointer moved, the wheel turned,
+// or a button, key or finger is down or has just come up. Without input or a change the canvas is not
+// painted.
+func (in *inputState) active() bool {
+	x, y := ebiten.CursorPosition()
+	cur := geom.Pt(float64(x), float64(y))
+	moved := cur != in.seen
+	in.seen = cur
+	if dx, dy := ebiten.Wheel(); moved || dx != 0 || dy != 0 {
+		return true
+	}
+	for _, b := range []ebiten.MouseButton{ebiten.MouseButtonLeft, ebiten.MouseButtonMiddle, ebiten.MouseButtonRight} {
+		if ebiten.IsMouseButtonPressed(b) || inpututil.IsMouseButtonJustReleased(b) {
+			return true
+		}
+	}
+	in.keys = inpututil.AppendPressedKeys(in.keys[:0])
+	in.keys = inpututil.AppendJustReleasedKeys(in.keys)
+	if len(in.keys) > 0 {
+		return true
+	}
+	return len(ebiten.AppendTouchIDs(nil)) > 0 || len(inpututil.AppendJustReleasedTouchIDs(nil)) > 0
 }
 
 // specialKeys are the keys the editor takes by name (KeyboardEvent.key spelling); the arrows and

@@ -15,6 +15,7 @@ func main() {
 	installBridge(g)
 	ebiten.SetWindowTitle("Plumb")
 	ebiten.SetRunnableOnUnfocused(true)
+	ebiten.SetScreenClearedEveryFrame(false) // Draw paints only on change; the last frame stays
 	if err := ebiten.RunGame(g); err != nil {
 		reportFatal(err)
 	}

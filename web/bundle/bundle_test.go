@@ -4,9 +4,9 @@ import (
 	"bytes"
 	"compress/gzip"
 	"context"
-	"encoding/base64"
 	"io"
 	"regexp"
+	"strconv"
 	"testing"
 	"time"
 
@@ -34,13 +34,14 @@ func TestBuildHello(t *testing.T) {
 			t.Errorf("page lacks %q", want)
 		}
 	}
-	m := regexp.MustCompile(`(?s)<script type="application/octet-stream" id="plumb-module">(.*?)</script>`).FindSubmatch(html)
+	m := regexp.MustCompile(`(?s)<script type="application/octet-stream" id="plumb-module" data-bytes="(\d+)">(.*?)</script>`).FindSubmatch(html)
 	if m == nil {
 		t.Fatal("page has no module")
 	}
-	packed, err := base64.StdEncoding.DecodeString(string(m[1]))
+	n, _ := strconv.Atoi(string(m[1]))
+	packed, err := page.Unpack7(string(m[2]), n)
 	if err != nil {
-		t.Fatalf("module is not base64: %v", err)
+		t.Fatalf("module does not unpack: %v", err)
 	}
 	zr, err := gzip.NewReader(bytes.NewReader(packed))
 	if err != nil {

@@ -18,8 +18,10 @@ func TestRenderKeepsDemoInsideItsScript(t *testing.T) {
 	if !bytes.Contains(html, []byte(`window.PLUMB_DEMO = "{\"name\": \"\u003c/script\u003e`)) {
 		t.Errorf("demo part not embedded as an escaped string")
 	}
-	if !bytes.Contains(html, []byte(`id="plumb-module">AQID</script>`)) {
-		t.Errorf("module not embedded as base64")
+	// 01 02 03 in seven-bit groups: 0000000 1000000 1000000 0110000 (padded): NUL, then @ @ 0; the NUL
+	// cannot stand alone and goes with the group after it, U+0100 + 0x40 = U+0140.
+	if !bytes.Contains(html, []byte("id=\"plumb-module\" data-bytes=\"3\">\u0140@0</script>")) {
+		t.Errorf("module not embedded packed seven bits a character")
 	}
 }
 

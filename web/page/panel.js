@@ -3,11 +3,14 @@
 // WebGL context, which makes the app reload the page) never loses work.
 //
 // The app talks to this script through the bridge: it sets window.plumb when it is ready and then calls
-// window.plumbUI.ready(); after every recompute it calls window.plumbUI.onChange(state, partJSON).
+// window.plumbUI.ready(); after every recompute it calls window.plumbUI.onChange(state).
 "use strict";
 (() => {
-  const AUTOSAVE = "plumb.autosave"; // the current part, as a part file
-  const PREVIOUS = "plumb.previous"; // the part the demo replaced when the page was opened with #demo
+  const AUTOSAVE = "plumb.autosave"; // the current part, as a part file (packed when large, see packText)
+  const SOUND = "plumb.sound"; // the last saved part that analysed sound; "=" when that is the autosave
+  const PREVIOUS = "plumb.previous"; // a part replaced by the demo, or emptied: offered back
+  const STARTING = "plumb.starting"; // set while a saved part opens; still set on the next visit, it crashed
+  const CRASHED = "plumb.crashed"; // the part that was opening when the page stopped, kept for rescue
   const UNREADABLE = "plumb.unreadable"; // an autosave that could not be read back, kept for rescue
   const FOLDED = "plumb.panelFolded";
   const PAPER = "plumb.paper"; // the paper chosen for the drilling template
@@ -24,6 +27,7 @@
   const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
+  let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
   let state = null; // the app's last state
   let partName = ""; // the part's own name, from its part file
   let mode = "sheet"; // "sheet" (material and thickness) or "formula"
@@ -79,19 +83,38 @@
     $("loading-msg").textContent = msg;
   }
 
-  function decodeBase64(text) {
-    const bin = atob(text);
-    const bytes = new Uint8Array(bin.length);
-    for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
-    return bytes;
+  // unpack7 reverses the Go side's Pack7 (web/page/pack.go): seven bits a character; characters from
+  // U+0100 carry one of the three values that cannot stand in a script element and the seven bits after it.
+  const UNSAFE_GROUPS = [0x00, 0x0d, 0x3c];
+  function unpack7(text, n) {
+    const out = new Uint8Array(n);
+    let acc = 0, bits = 0, o = 0;
+    const put = (g) => {
+      acc = (acc << 7) | g;
+      bits += 7;
+      if (bits >= 8) {
+        bits -= 8;
+        if (o < n) out[o++] = (acc >> bits) & 0xff;
+        acc &= (1 << bits) - 1;
+      }
+    };
+    for (let i = 0; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c < 0x80) { put(c); continue; }
+      put(UNSAFE_GROUPS[(c - 0x100) >> 7]);
+      put((c - 0x100) & 0x7f);
+    }
+    if (o !== n) throw new Error("the packed app holds " + o + " bytes, not " + n);
+    return out;
   }
 
   async function startApp() {
     const holder = $("plumb-module");
-    const packed = decodeBase64(holder.textContent.trim());
+    const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
     const module = await new Response(stream).arrayBuffer();
+    startup = await readStartup();
     const go = new Go();
     const { instance } = await WebAssembly.instantiate(module, go.importObject);
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
@@ -114,15 +137,18 @@
       if (chosen) app.setDefaults(chosen);
     } catch { /* a choice that cannot be read is forgotten: the part's own units and material serve */ }
     try {
-      restore(readStore(AUTOSAVE));
+      if (startup.crashed) recoverFromCrash();
+      else restore(startup.saved);
     } catch (e) {
       toast("The part could not be restored: " + e.message, true);
     }
     restored = true;
     refresh();
+    if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
     requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
+    settleStartup();
   }
 
   // restore brings back the autosaved part, or shows the demo part when there is none or the address asks
@@ -132,7 +158,8 @@
       showDemo(saved);
       return;
     }
-    const r = app.load(saved, "autosave.json");
+    writeStore(STARTING, "1");
+    const r = app.restore(saved, "autosave.json");
     if (!r.ok) {
       writeStore(UNREADABLE, saved);
       loadText(window.PLUMB_DEMO, "demo.json", true);
@@ -145,27 +172,136 @@
   // plumb.previous with a way back, and drops #demo from the address so that a reload restores work.
   function showDemo(previous) {
     loadText(window.PLUMB_DEMO, "demo.json", true);
-    if (previous !== null && previous !== app.saveJSON()) {
-      writeStore(PREVIOUS, previous);
-      $("previous").hidden = false;
-    }
+    if (previous !== null && previous !== app.saveJSON()) offerPrevious(previous, "The demo replaced your last part.");
     try { history.replaceState(null, "", location.pathname + location.search); } catch { /* file:// may refuse */ }
   }
 
-  function onChange(s, partJSON) {
+  function onChange(s) {
     state = s;
     try {
-      save(partJSON);
+      if (restored) autosaveSoon();
+      if (s.part) showPart(s.part);
       render();
     } catch (e) {
       toast("The panel could not show the results: " + e.message, true);
     }
   }
 
-  function save(partJSON) {
-    if (typeof partJSON !== "string" || partJSON === "") return;
-    if (restored && !writeStore(AUTOSAVE, partJSON)) toast("This browser's storage is full: save the part to a file.", true);
-    showPart(partJSON);
+  // ---- the saved part ----
+  //
+  // The part is saved to local storage when the edits pause (AUTOSAVE_DELAY after the last, when the
+  // browser is idle): never on the edit path, since writing the part file of a large part takes longer than
+  // the edit. Large part files are gzipped (CompressionStream) and kept as "gzip:" and base64, a quarter
+  // of their size or less, so that a lettered sign fits in the storage a browser gives a page. Alongside:
+  // the last part that analysed sound (SOUND); a part that an edit emptied, offered back (PREVIOUS); and
+  // a start-up marker (STARTING) that only a crash while opening the saved part leaves behind.
+
+  const AUTOSAVE_DELAY = 800; // ms
+  const PACK_OVER = 200000; // characters: part files longer than this are gzipped
+  let autosaveTimer = 0;
+  let saving = false; // an autosave is being packed and written
+  let lastSaved = { text: null, stored: null, empty: true }; // what the autosave holds now
+
+  function autosaveSoon() {
+    clearTimeout(autosaveTimer);
+    autosaveTimer = setTimeout(() => {
+      if (typeof requestIdleCallback === "function") requestIdleCallback(autosave, { timeout: 2000 });
+      else autosave();
+    }, AUTOSAVE_DELAY);
+  }
+
+  async function autosave() {
+    if (!app || saving) { autosaveSoon(); return; }
+    const s = state;
+    const text = app.saveJSON();
+    if (text === lastSaved.text) return;
+    saving = true;
+    try {
+      const stored = await packText(text);
+      // An edit that empties the part keeps the part it emptied one click away.
+      if (s.empty && !lastSaved.empty && lastSaved.stored !== null) offerPrevious(lastSaved.stored, "Your last part was emptied.");
+      // The last sound part stays when the part stops analysing (an outline half redrawn, say).
+      if (s.error && !s.empty && readStore(SOUND) === "=" && lastSaved.stored !== null) writeStore(SOUND, lastSaved.stored);
+      if (!writeStore(AUTOSAVE, stored)) {
+        toast("This browser's storage is full: save the part to a file.", true);
+        return;
+      }
+      if (!s.error) writeStore(SOUND, "=");
+      lastSaved = { text, stored, empty: Boolean(s.empty) };
+    } catch (e) {
+      toast("The part could not be autosaved: " + e.message + ". Save it to a file.", true);
+    } finally {
+      saving = false;
+    }
+  }
+
+  // packText returns text as stored: as it is, or gzipped after "gzip:" in base64 when it is long.
+  async function packText(text) {
+    if (text.length <= PACK_OVER) return text;
+    const gz = await new Response(new Blob([text]).stream().pipeThrough(new CompressionStream("gzip"))).arrayBuffer();
+    const bytes = new Uint8Array(gz);
+    let bin = "";
+    for (let i = 0; i < bytes.length; i += 0x8000) bin += String.fromCharCode.apply(null, bytes.subarray(i, i + 0x8000));
+    return "gzip:" + btoa(bin);
+  }
+
+  // unpackText reverses packText; null stays null.
+  async function unpackText(stored) {
+    if (stored === null || !stored.startsWith("gzip:")) return stored;
+    const bytes = Uint8Array.from(atob(stored.slice(5)), (c) => c.charCodeAt(0));
+    return new Response(new Blob([bytes]).stream().pipeThrough(new DecompressionStream("gzip"))).text();
+  }
+
+  // readStartup reads the autosave, and whether the last visit stopped while opening it, before the app
+  // starts (unpacking takes a moment and the app asks for the part on its first frame).
+  async function readStartup() {
+    const stored = readStore(AUTOSAVE);
+    let saved = null;
+    try {
+      saved = await unpackText(stored);
+    } catch {
+      writeStore(UNREADABLE, stored);
+    }
+    lastSaved = { text: saved, stored, empty: saved === null };
+    return { saved, crashed: readStore(STARTING) !== null && stored !== null };
+  }
+
+  // settleStartup clears the start-up marker once the app has painted the part twice and a second has
+  // passed: the part opened without stopping the page.
+  function settleStartup() {
+    const from = performance.now();
+    const check = () => {
+      if (app.frames().drawn >= 2 && performance.now() - from > 1000) {
+        try { localStorage.removeItem(STARTING); } catch { /* nothing to clear */ }
+        return;
+      }
+      requestAnimationFrame(check);
+    };
+    requestAnimationFrame(check);
+  }
+
+  // recoverFromCrash runs when the last visit stopped while opening the saved part: that part is not
+  // opened again but kept under plumb.crashed, the demo is shown, and the last part that analysed sound,
+  // when it is another, is offered back.
+  function recoverFromCrash() {
+    const crashed = readStore(AUTOSAVE);
+    writeStore(CRASHED, crashed);
+    const sound = readStore(SOUND);
+    loadText(window.PLUMB_DEMO, "demo.json", true);
+    let msg = "Plumb stopped while opening your last part, so it was not opened again; it is kept in this " +
+      "browser's storage under " + CRASHED + ".";
+    if (sound !== null && sound !== "=" && sound !== crashed) {
+      offerPrevious(sound, "Plumb stopped while opening your last part.");
+      msg += " The last part that analysed soundly is one click away.";
+    }
+    toast(msg, true);
+  }
+
+  // offerPrevious keeps a part (as stored) under plumb.previous and shows the way back to it.
+  function offerPrevious(stored, why) {
+    writeStore(PREVIOUS, stored);
+    $("previous-why").textContent = why;
+    $("previous").hidden = false;
   }
 
   function refresh() {
@@ -214,7 +350,7 @@
   // baseName names downloaded files after the part, or else after the file it came from.
   function baseName() {
     const name = partName || (state && state.file) || "part";
-    return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
+    return name.replace(/\.(json|svg|dxf)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
   // download offers data (a string or a Uint8Array) as a file.
@@ -264,10 +400,9 @@
     return $("material-error").textContent !== "" || document.activeElement.closest(".material") !== null;
   }
 
-  // showPart fills the name and, unless the user is editing them, the material fields from a part file.
-  function showPart(partJSON) {
-    let doc;
-    try { doc = JSON.parse(partJSON); } catch { return; }
+  // showPart fills the name and, unless the user is editing them, the material fields from the state's
+  // part facts ({name, material} as the part file gives them).
+  function showPart(doc) {
     partName = doc.name || "";
     $("part-name").textContent = partName || "Untitled part";
     const spec = doc.material;
@@ -596,6 +731,12 @@
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
     report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    cutfile: () => {
+      const format = $("cut-format").value;
+      const text = app.cutFile(format);
+      if (typeof text === "string") download(text, baseName() + "-cut." + format, format === "svg" ? "image/svg+xml" : "application/dxf");
+      else toast("Cut file: " + text.error, true);
+    },
     template: () => {
       const pdf = app.templatePDF($("paper").value);
       if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
@@ -612,8 +753,9 @@
     "dismiss-units-note": () => { $("units-note").hidden = true; },
     "undo-units": () => { app.undo(); $("units-note").hidden = true; },
     "restore-previous": () => {
-      const prev = readStore(PREVIOUS);
-      if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
+      unpackText(readStore(PREVIOUS)).then((prev) => {
+        if (prev !== null && loadText(prev, "previous.json")) $("previous").hidden = true;
+      }, (e) => toast("The previous part could not be read back: " + e.message, true));
     },
   };
 

@@ -1,0 +1,201 @@
+package sketch
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"plumb/density"
+	"plumb/geom"
+)
+
+// densityResult is the outcome of integrating one density over its part of the material.
+type densityResult struct {
+	geom.Result
+	poly     *localPoly // the density about a point of the part, when it is a polynomial
+	warnings []string
+}
+
+// integrateField integrates f over the material m. A constant density scales m's area moments
+// shape, when given. Any other density is first checked by interval arithmetic (checkDensity): it
+// must be at least zero on the part. A polynomial is then integrated exactly about a point of the
+// part. Any other density is cut along the lines where it has kinks or steps (splitAtKinks); the
+// cells where it is a polynomial are integrated exactly, the others by adaptive cubature, and the
+// interval check's guaranteed bounds of the mass go with the result, in a warning that says the
+// cubature's estimate is not a guaranteed bound.
+func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (densityResult, error) {
+	at := m.body.Pieces[0].Start()
+	if c, ok := f.Constant(); ok {
+		if err := f.CheckDomain([]float64{at.X}, []float64{at.Y}); err != nil {
+			return densityResult{}, err
+		}
+		g := &localPoly{at: at, p: geom.ConstPoly(c)}
+		if shape != nil {
+			return densityResult{Result: geom.Result{Moments: shape.Scale(c)}, poly: g}, nil
+		}
+		return densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g}, nil
+	}
+	area := m.body.IntegratePoly(geom.ConstPoly(1)).M
+	if p, ok := f.PolynomialAbout(at.X, at.Y); ok {
+		check, err := checkDensity(m.body, area, f, false)
+		if err != nil {
+			return densityResult{}, err
+		}
+		g := &localPoly{at: at, p: toGeomPoly(p)}
+		return densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
+			warnings: check.signWarnings(f)}, nil
+	}
+	local := m.translated(at.Mul(-1))
+	cells, complete := splitAtKinks(local, f, at)
+	numeric := slices.ContainsFunc(cells, func(c densityCell) bool { _, ok := c.r.Field.Polynomial(); return !ok })
+	check, err := checkDensity(m.body, area, f, numeric)
+	if err != nil {
+		return densityResult{}, err
+	}
+	res := densityResult{warnings: check.signWarnings(f)}
+	res.Result, cells, err = integrateAround(local, cells, f, check, at, opt)
+	if err != nil {
+		return densityResult{}, err
+	}
+	if numeric {
+		res.warnings = append(res.warnings, check.boundWarning(f, &res.Result, cells, complete))
+	}
+	return res, nil
+}
+
+// focusTries is how many times integrateAround cuts out the place where the density varies most.
+const focusTries = 2
+
+// integrateAround integrates f over the cells of the material m, both given about the point o of
+// the part (moved by −o). When the mass falls outside the interval check's guaranteed bounds, the
+// cubature has missed a narrow feature (a spike): the material is cut again, into the square around
+// the check's hot boxes (three times their extent) and the rest, so that the square's edges bring
+// the cubature's nodes to the feature, up to focusTries times. It returns the cells integrated last.
+func integrateAround(m materialPart, cells []densityCell, f *density.Field, check checkResult, o geom.Point, opt AnalyzeOptions) (geom.Result, []densityCell, error) {
+	parts := []materialPart{m}
+	hot := geom.Rect{Min: check.hot.Min.Sub(o), Max: check.hot.Max.Sub(o)}
+	for try := 0; ; try++ {
+		r, err := integrateCells(cells, f, o, opt)
+		if err != nil || try == focusTries || check.encloses(r.M) || check.hot.IsEmpty() {
+			return r, cells, err
+		}
+		parts, cells = focus(parts, hot), nil
+		for _, p := range parts {
+			c, _ := splitAtKinks(p, f, o)
+			cells = append(cells, c...)
+		}
+	}
+}
+
+// encloses reports whether the mass lies within the check's guaranteed bounds, up to rounding.
+func (c checkResult) encloses(mass float64) bool {
+	slack := 1e-12 * math.Abs(mass)
+	return mass >= c.lo-slack && mass <= c.hi+slack
+}
+
+// focus cuts each part into its piece inside the square around hot (three times hot's extent) and
+// the rest.
+func focus(parts []materialPart, hot geom.Rect) []materialPart {
+	size := hot.Size()
+	side := 1.5 * math.Max(size.X, size.Y)
+	c := hot.Center()
+	square := geom.Region{Loops: []geom.Loop{geom.RectLoop(c.Sub(geom.Pt(side, side)), c.Add(geom.Pt(side, side)))}}
+	var out []materialPart
+	for _, p := range parts {
+		n := len(p.regions)
+		regions := append(append([]geom.Region(nil), p.regions...), square)
+		in := func(in []bool) bool { return in[n] && p.keep(in[:n]) }
+		outside := func(in []bool) bool { return !in[n] && p.keep(in[:n]) }
+		for _, keep := range []func([]bool) bool{in, outside} {
+			if b := geom.Combine(keep, regions...); !b.IsEmpty() {
+				out = append(out, materialPart{regions: regions, keep: keep, body: b})
+			}
+		}
+	}
+	return out
+}
+
+// integrateCells integrates each cell's density, the cells given about the point o: exactly where
+// the density is a polynomial, by cubature elsewhere. The result is moved back by o. The error
+// estimates add, each relative to its cell's mass. A point where the density fails is reported
+// with f's domain error, in document coordinates.
+func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt AnalyzeOptions) (r geom.Result, err error) {
+	absErr := 0.0
+	for _, c := range cells {
+		g := c.r.Field
+		if p, ok := g.PolynomialAbout(o.X, o.Y); ok {
+			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)).Translate(o))
+			continue
+		}
+		q, err := c.body.Integrate(&shiftedField{f: g, o: o}, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
+		var de *geom.DensityError
+		if errors.As(err, &de) {
+			return r, f.DomainError(o.X+de.X, o.Y+de.Y, de.Value)
+		}
+		if err != nil {
+			return r, err
+		}
+		r.Moments = r.Moments.Add(q.Moments.Translate(o))
+		absErr += q.RelErr * math.Abs(q.M)
+		r.LimitHit = r.LimitHit || q.LimitHit
+		r.Evals += q.Evals
+	}
+	if r.M != 0 {
+		r.RelErr = absErr / math.Abs(r.M)
+	}
+	return r, nil
+}
+
+// signWarnings says where the interval check could not prove the density at least zero.
+func (c checkResult) signWarnings(f *density.Field) []string {
+	if c.proved {
+		return nil
+	}
+	return []string{fmt.Sprintf("interval arithmetic could not prove the density at least zero everywhere on the part "+
+		"(%d boxes): near %s it may be negative, though every value evaluated is zero or more", c.boxesIn, f.Where(c.doubt.X, c.doubt.Y))}
+}
+
+// boundWarning says that r's error estimate is not a guaranteed bound, why, and what the interval
+// check guarantees. When the cubature's mass lies outside the guaranteed bounds, r's estimate is
+// raised to the distance to the farther bound, which is one.
+func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []densityCell, complete bool) string {
+	var rough []string
+	for _, cell := range cells {
+		for _, n := range cell.r.Rough {
+			if !contains(rough, n) {
+				rough = append(rough, n)
+			}
+		}
+	}
+	var why string
+	switch {
+	case len(rough) > 0:
+		why = strings.Join(rough, ", ") + " of an argument that is not linear in x and y has kinks or steps along curves, which the integration does not follow"
+	case !complete:
+		why = fmt.Sprintf("it has more kinks or steps across the part than it is cut at (%d pieces)", maxCells)
+	default:
+		why = "it is not a polynomial on the part, so it was integrated numerically"
+	}
+	w := "the error estimate is not a guaranteed bound for this density: " + why
+	if math.IsInf(c.lo, 0) || math.IsInf(c.hi, 0) || math.IsNaN(c.lo+c.hi) {
+		return w + "; interval arithmetic gives no bounds on the mass (the formula may be undefined or unbounded near the part)"
+	}
+	w += fmt.Sprintf("; interval arithmetic puts the mass between %.7g and %.7g kg", c.lo, c.hi)
+	if !c.encloses(r.M) {
+		p := c.widest.Center()
+		r.RelErr = math.Max(r.RelErr, math.Max(c.hi-r.M, r.M-c.lo)/math.Abs(r.M))
+		w += fmt.Sprintf(", and the computed mass %.7g kg lies outside: the density varies faster than the integration followed, most near %s", r.M, f.Where(p.X, p.Y))
+	}
+	return w
+}
+
+func contains(list []string, s string) bool {
+	for _, t := range list {
+		if t == s {
+			return true
+		}
+	}
+	return false
+}
