@@ -137,6 +137,7 @@ func TestHostileInput(t *testing.T) {
 			{"template", []string{"template", "testdata/gate-panel.json", "--level", "-o"}, "t.pdf"},
 			{"report", []string{"report", "testdata/gate-panel.json", "-o"}, "r.pdf"},
 			{"convert", []string{"convert", big, "--out"}, "c.svg"},
+			{"cutfile", []string{"cutfile", big, "--level", "--hole", "6", "-o"}, "k.dxf"},
 		} {
 			out := filepath.Join(dir, c.out)
 			r := limited(append(c.args, out)...)
@@ -279,6 +280,7 @@ func walkFlags(t *testing.T, plumb func(args ...string) plumbRun) {
 		"convert":   {"testdata/bakery-sign.json", "--force", "--out", filepath.Join(dir, "out.svg")},
 		"template":  {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
 		"report":    {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
+		"cutfile":   {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.dxf")},
 		"materials": {},
 		// build and serve would build the app: an extra operand stops them after the flags.
 		"build": {"extra"},
