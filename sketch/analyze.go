@@ -111,9 +111,11 @@ func (d *Document) lengthUnit() (density.Length, error) {
 
 // Analyze computes the mass properties of the part: its material is the outline minus the cut-outs
 // with the base density, and each overlay adds its own density where it lies on that material.
-// Constant and polynomial densities are integrated exactly; any other density adaptively, with the
-// error estimate reported in RelErr. A density that is negative, infinite or NaN on the part is an
-// error naming the point in document units.
+// Constant and polynomial densities are integrated exactly, and so is a density that is a polynomial
+// on each piece between the lines where it has kinks or steps; any other density adaptively, with
+// the error estimate reported in RelErr and a warning that the estimate is not a guaranteed bound
+// (with the interval check's guaranteed bounds of the mass). A density that is negative, infinite or
+// NaN on the part is an error naming the point in document units (see integrateField).
 func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	unit, err := d.lengthUnit()
 	if err != nil {
@@ -313,7 +315,7 @@ func (d *Document) material(p plan, crossed bool) (geom.Boundary, geom.Moments) 
 	if m.M < 0 {
 		b, m = geom.Boundary{Pieces: loop.Reverse()}, m.Scale(-1)
 	}
-	return b, m
+	return b.Indexed(), m
 }
 
 // checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings; crossed
@@ -435,7 +437,7 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	circle := geom.Circle(h.At, h.Diameter/2)
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
-	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
+	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}.Indexed()
 	if err := part.setMoments(a.Origin.Sub(disk.IntegratePolyAbout(a.poly.at, a.poly.p))); err != nil {
 		return nil, err
 	}

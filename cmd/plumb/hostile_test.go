@@ -203,7 +203,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, r, exitFailed, "warning: least tilt: a hole at (")
 		r = plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "60")
 		wantFailure(t, r, exitFailed, "no position has room for the hole")
-		if !strings.Contains(r.stdout, "no position on the part has room for a 60 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
+		if !strings.Contains(r.stdout, "no position on the part has room for a 60.0 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
 			t.Errorf("U level, 60 mm hole: stdout %q", r.stdout)
 		}
 	})
@@ -241,6 +241,7 @@ func walkFlags(t *testing.T, plumb func(args ...string) plumbRun) {
 		"convert":   {"testdata/bakery-sign.json", "--force", "--out", filepath.Join(dir, "out.svg")},
 		"template":  {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
 		"report":    {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
+		"cutfile":   {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.dxf")},
 		"materials": {},
 		// build and serve would build the app: an extra operand stops them after the flags.
 		"build": {"extra"},

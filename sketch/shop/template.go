@@ -375,10 +375,13 @@ func (d *drawing) marks(p pen, k float64, area pageArea) {
 		if inside(area.view, cx, cy) {
 			p.label(area.own, cx+4, cy-3, "L", "balance point")
 		}
+		// An overlay is named inside its lower left corner, away from the hole marks at its middle, on
+		// every page that shows some of it.
 		for i, o := range d.overlays {
-			ox, oy := p.at(o.Bounds().Center())
-			if inside(area.view, ox, oy) {
-				p.label(area.own, ox, oy+1, "C", d.names[i])
+			ox, oy := p.at(o.Bounds().Min)
+			tx, ty := p.at(o.Bounds().Max)
+			if ox < area.view.Max.X && tx > area.view.Min.X && ty < area.view.Max.Y && oy > area.view.Min.Y {
+				p.label(area.own, math.Max(ox, area.own.Min.X)+1.5, math.Min(oy, area.own.Max.Y)-1.5, "L", d.names[i])
 			}
 		}
 	}
