@@ -23,11 +23,11 @@ type fonts struct {
 	strong       font.Face
 }
 
-// Text sizes in CSS pixels.
+// Text sizes in CSS pixels: 12 at the least, to read at arm's length on a shop screen.
 const (
-	smallPt  = 11
-	labelPt  = 12.5
-	strongPt = 14
+	smallPt  = 12
+	labelPt  = 13
+	strongPt = 15
 )
 
 var (
