@@ -240,6 +240,11 @@ func TestScreenshots(t *testing.T) {
 	b.load(partJSON(t, uPart()), "u.json")
 	b.waitFor(`plumb.state().level_pending === false`)
 	shot("u")
+	eval[any](b, `(document.getElementById("material").select(), null)`)
+	b.typeInto("material", "unobtainium")
+	b.waitFor(`document.getElementById("answers").classList.contains("stale")`)
+	eval[any](b, `(document.getElementById("answers").scrollIntoView(), null)`)
+	shot("stale")
 }
 
 // checkStaleFiguresGreyed checks that while the material field holds an error the figures are greyed

@@ -663,13 +663,14 @@
     return "tilts " + fmtDeg(Math.abs(deg)) + (deg > 0 ? " counter-clockwise" : " clockwise");
   }
 
-  // renderEdge shows the edge distance in effect: the one typed, or the rule's as the placeholder.
+  // renderEdge shows the edge distance in effect: the one typed, or "auto" and the rule's in the hint.
   function renderEdge(u) {
     const e = state.edge;
     if (!e) { $("edge-hint").textContent = ""; return; }
     if (document.activeElement !== $("edge")) $("edge").value = e.asked ? fmtField(e.min) : "";
-    $("edge").placeholder = fmtField(e.min);
-    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")";
+    $("edge").placeholder = "auto";
+    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")" +
+      (e.asked ? "; clear the field for the common-practice rule" : "");
   }
 
   // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
