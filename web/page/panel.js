@@ -24,7 +24,9 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
+  // Milliseconds since navigation: unpackedMs (the module's text decoded), compiledMs, readyMs (the app's
+  // first frame), restoredMs (the part is on screen).
+  const timing = { scriptMs: performance.now() };
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
@@ -118,21 +120,26 @@
     return out;
   }
 
+  // startApp unpacks the module and compiles it while it is still being inflated (a Response typed
+  // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
   async function startApp() {
     const holder = $("plumb-module");
     const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
+    timing.unpackedMs = performance.now();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
-    const module = await new Response(stream).arrayBuffer();
-    startup = await readStartup();
     const go = new Go();
-    const { instance } = await WebAssembly.instantiate(module, go.importObject);
+    const compiled = WebAssembly.instantiateStreaming(
+      new Response(stream, { headers: { "Content-Type": "application/wasm" } }), go.importObject);
+    startup = await readStartup();
+    const { instance } = await compiled;
+    timing.compiledMs = performance.now();
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
   }
 
   function setEnabled(on) {
     for (const el of document.querySelectorAll("#tools button, #panel button, #panel input, #panel select")) {
-      if (el.dataset.action === "help" || el.dataset.action === "cautions" || el.id === "fold") continue;
+      if (["help", "cautions", "about"].includes(el.dataset.action) || el.id === "fold") continue;
       el.disabled = !on;
     }
   }
@@ -153,10 +160,12 @@
       toast("The part could not be restored: " + e.message, true);
     }
     restored = true;
+    $("text-font").replaceChildren(...app.fonts().map((f) => new Option(f, f)));
     refresh();
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
+    timing.loadedMs = performance.now();
     requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
     settleStartup();
   }
@@ -604,6 +613,48 @@
     renderEdge(u);
     renderStale();
     renderWarnings();
+    renderLettering();
+  }
+
+  // renderLettering shows the Lettering fields while the Lettering tool is active or lettering is
+  // selected, with the selected lettering's style (else the style new lettering gets).
+  function renderLettering() {
+    const l = state.lettering;
+    const show = Boolean(l) && (state.tool === "lettering" || l.selected >= 0);
+    $("lettering").hidden = !show;
+    if (!show) return;
+    $("text-what").textContent = l.selected >= 0 ? "· “" + l.text + "”" : "· new lettering";
+    const set = (id, v) => { if (document.activeElement !== $(id)) $(id).value = v; };
+    set("text-font", l.font || "go-regular");
+    set("text-height", fmtField(l.height));
+    set("text-role", l.role || "cutout");
+    set("text-angle", String(Number(l.angle_deg.toFixed(3))));
+    set("text-spacing", fmtField(l.spacing));
+    $("text-stencil").checked = l.stencil_count > 0;
+    if (l.stencil_count > 0) { set("text-bridge", fmtField(l.stencil_width)); set("text-bridges", String(l.stencil_count)); }
+    $("text-stencil").disabled = (l.role || "cutout") !== "cutout";
+    for (const id of ["text-bridge", "text-bridges"]) $(id).disabled = !$("text-stencil").checked || $("text-stencil").disabled;
+  }
+
+  // sendTextStyle gives the app the Lettering fields: the style of the selected lettering and of new
+  // lettering.
+  function sendTextStyle() {
+    if (!app) return;
+    const num = (id) => Number($(id).value);
+    const stencil = $("text-stencil").checked && $("text-role").value === "cutout";
+    if (stencil && !(num("text-bridge") > 0)) $("text-bridge").value = fmtField(Math.max(num("text-height") / 20, 0.1));
+    const r = app.setTextStyle({
+      font: $("text-font").value, height: num("text-height"), role: $("text-role").value,
+      angle_deg: num("text-angle"), spacing: num("text-spacing"),
+      stencil_width: stencil ? num("text-bridge") : 0, stencil_count: stencil ? num("text-bridges") : 0,
+    });
+    if (!r.ok) toast("Lettering: " + r.error, true);
+    refresh();
+  }
+
+  function showAbout() {
+    if (app) $("about-licence").textContent = app.fontLicence();
+    $("about").hidden = false;
   }
 
   function renderAnswers(u) {
@@ -777,6 +828,7 @@
     },
     help: showHelp,
     cautions: showCautions,
+    about: showAbout,
     close: closeOverlays,
     "dismiss-units-note": () => { $("units-note").hidden = true; },
     "dismiss-guide": () => { $("guide").hidden = true; writeStore(GUIDE_DONE, "1"); },
@@ -814,7 +866,7 @@
     if (!b || b.disabled) return;
     const d = b.dataset;
     if (d.action) {
-      if (!app && !["help", "cautions", "close"].includes(d.action)) return;
+      if (!app && !["help", "cautions", "about", "close"].includes(d.action)) return;
       ACTIONS[d.action]();
     } else if (d.tool) {
       app.setTool(d.tool);
@@ -838,8 +890,8 @@
     } else {
       return;
     }
-    if (app && !["help", "cautions", "open"].includes(d.action)) refresh();
-    if (!b.closest(".overlay") && d.action !== "help" && d.action !== "cautions") giveCanvasKeys();
+    if (app && !["help", "cautions", "about", "open"].includes(d.action)) refresh();
+    if (!b.closest(".overlay") && !["help", "cautions", "about"].includes(d.action)) giveCanvasKeys();
   }
 
   function onKey(e) {
@@ -892,6 +944,9 @@
       input.addEventListener("scroll", () => { input.closest(".field").querySelector(".mirror").scrollLeft = input.scrollLeft; });
     }
     $("material").addEventListener("change", fillThicknessList);
+    for (const id of ["text-font", "text-height", "text-role", "text-angle", "text-spacing", "text-stencil", "text-bridge", "text-bridges"]) {
+      $(id).addEventListener("change", () => { sendTextStyle(); if ($(id).tagName === "SELECT" || $(id).type === "checkbox") giveCanvasKeys(); });
+    }
     $("density-unit").addEventListener("change", sendMaterial);
     $("hole-dia").addEventListener("change", () => {
       const d = Number($("hole-dia").value);
