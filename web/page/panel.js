@@ -773,7 +773,8 @@
       const row = document.createElement("div");
       const a = document.createElement("span");
       const b = document.createElement("span");
-      for (const part of String(k.key).split(" ")) {
+      // "Ctrl O" is two keys; a typed form such as "250 at 30" is one thing to type.
+      for (const part of /\d/.test(k.key) ? [String(k.key)] : String(k.key).split(" ")) {
         const kbd = document.createElement("kbd");
         kbd.textContent = part;
         a.append(kbd, " ");
