@@ -724,13 +724,14 @@
     return "tilts " + fmtDeg(Math.abs(deg)) + (deg > 0 ? " counter-clockwise" : " clockwise");
   }
 
-  // renderEdge shows the edge distance in effect: the one typed, or the rule's as the placeholder.
+  // renderEdge shows the edge distance in effect: the one typed, or "auto" and the rule's in the hint.
   function renderEdge(u) {
     const e = state.edge;
     if (!e) { $("edge-hint").textContent = ""; return; }
     if (document.activeElement !== $("edge")) $("edge").value = e.asked ? fmtField(e.min) : "";
-    $("edge").placeholder = fmtField(e.min);
-    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")";
+    $("edge").placeholder = "auto";
+    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")" +
+      (e.asked ? "; clear the field for the common-practice rule" : "");
   }
 
   // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
@@ -782,7 +783,8 @@
       const row = document.createElement("div");
       const a = document.createElement("span");
       const b = document.createElement("span");
-      for (const part of String(k.key).split(" ")) {
+      // "Ctrl O" is two keys; a typed form such as "250 at 30" is one thing to type.
+      for (const part of /\d/.test(k.key) ? [String(k.key)] : String(k.key).split(" ")) {
         const kbd = document.createElement("kbd");
         kbd.textContent = part;
         a.append(kbd, " ");
