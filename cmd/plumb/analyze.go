@@ -16,7 +16,7 @@ searched for all three. The material comes from the part file or from --material
 --density; without one, area, balance point and second moments come from the shape alone (per unit
 areal density) and mass is null.
 Formats: text (a table with units), json (one object per line, keys file, units, area, mass,
-centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file;
+centroid, inertia, principal, error_estimate, pieces, warnings), csv (a header row, then one row per file;
 stderr gets a summary line: the count and total mass per material). A long batch shows a progress
 bar when stderr is a terminal.`
 

@@ -191,7 +191,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, plumb("analyze", in("too-big.json")), exitFailed, "too-big.json: the file is 16777", "more than the limit of 16777216")
 
 		r = plumb("hang", in("two-pieces.json"), "--at", "50,90")
-		if r.code != 0 || !strings.Contains(r.stdout, "the part is 2 separate pieces of material") {
+		if r.code != 0 || !strings.Contains(r.stdout, "the part comes apart in 2 pieces: the hang uses the piece holding the hole") {
 			t.Errorf("two pieces: exit %d, stdout %q", r.code, r.stdout)
 		}
 		// The U has no material above its balance point: the least-tilt holes are listed, in the
@@ -204,7 +204,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, r, exitFailed, "warning: least tilt: a hole at (")
 		r = plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "60")
 		wantFailure(t, r, exitFailed, "no position has room for the hole")
-		if !strings.Contains(r.stdout, "no position on the part has room for a 60 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
+		if !strings.Contains(r.stdout, "no position on the part has room for a 60.0 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
 			t.Errorf("U level, 60 mm hole: stdout %q", r.stdout)
 		}
 	})

@@ -65,7 +65,7 @@ func Write(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang) ([]byte, e
 		return nil, err
 	}
 	w.path(slices.Concat(loops...), `fill="#c9d3dc" stroke="#1d2a36" stroke-width="0.25"`)
-	for _, o := range d.Overlays {
+	for _, o := range d.Overlaid() {
 		w.printf(`<g %s><title>%s</title>`, marksAttr, escape(o.Name))
 		for _, l := range o.Region.Loops {
 			w.path(l, fmt.Sprintf(`fill="#d9a441" fill-opacity="0.45" fill-rule="%s" stroke="#8a6414" stroke-width="0.2"`,

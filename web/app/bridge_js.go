@@ -8,6 +8,7 @@ import (
 	"errors"
 	"fmt"
 	"maps"
+	"math"
 	"path"
 	"strings"
 	"syscall/js"
@@ -16,6 +17,7 @@ import (
 	"plumb/sketch"
 	"plumb/sketch/dxf"
 	"plumb/sketch/edit"
+	"plumb/sketch/letter"
 	"plumb/sketch/shop"
 	"plumb/sketch/svg"
 )
@@ -39,6 +41,10 @@ import (
 //	setEdgeDistance(e) (document units, 0: the common-practice rule) → {ok, error}
 //	placeSuggestedHole() → {ok, error}   the hang hole at the level-hang (else least-tilt) position
 //	shortcuts() → [{key, action}]
+//	setTextStyle({font, height, role, angle_deg, spacing, stencil_width, stencil_count}) → {ok, error}
+//	  the Lettering tool's style, given also to the selected lettering
+//	fonts() → [name]        the fonts lettering may use
+//	fontLicence() → string  the Go fonts' licence notice, for the about box
 //
 // After every change it calls window.plumbUI.onChange(state); the page autosaves through saveJSON when
 // the edits pause.
@@ -167,6 +173,17 @@ func installBridge(g *Game) {
 			return outcome(nil)
 		})
 	})
+	fn("setTextStyle", func(a []js.Value) any {
+		return g.change(func() any { return outcome(g.setTextStyle(arg(a, 0))) })
+	})
+	fn("fonts", func([]js.Value) any {
+		var out []any
+		for _, f := range letter.Fonts() {
+			out = append(out, f)
+		}
+		return out
+	})
+	fn("fontLicence", func([]js.Value) any { return letter.Licence })
 	fn("shortcuts", func([]js.Value) any {
 		var out []any
 		for _, s := range edit.Shortcuts() {
@@ -380,9 +397,9 @@ func (g *Game) report() string {
 	var buf bytes.Buffer
 	r := g.res
 	if r.err != nil {
-		fmt.Fprintf(&buf, "%s: cannot analyse the part: %v\n\n", g.file, r.err)
+		fmt.Fprintf(&buf, "%s: cannot analyse the part: %v\n\n", g.title(), r.err)
 	} else {
-		rep := sketch.Report{File: g.file, Doc: r.doc, Analysis: r.a, Hang: r.hang}
+		rep := sketch.Report{File: g.title(), Doc: r.doc, Analysis: r.a, Hang: r.hang}
 		if r.hang == nil {
 			rep.Level = r.level
 		}
@@ -394,6 +411,19 @@ func (g *Game) report() string {
 		fmt.Fprintf(&buf, "cautions: %v\n", err)
 	}
 	return buf.String()
+}
+
+// title names the part in the report: by its own name, else by the file it was opened from, never by
+// the page's own names for the autosaved, demo or replaced part.
+func (g *Game) title() string {
+	if n := g.ed.Document().Name; n != "" {
+		return n
+	}
+	switch g.file {
+	case "autosave.json", "demo.json", "previous.json", "part.json":
+		return "Untitled part"
+	}
+	return g.file
 }
 
 // templatePDF returns the 1:1 drilling template of the part on the named paper, marking the hang hole
@@ -424,6 +454,31 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
+}
+
+// setTextStyle reads the Lettering fields the page sends and gives them to the editor.
+func (g *Game) setTextStyle(v js.Value) error {
+	if v.Type() != js.TypeObject {
+		return errors.New("expected {font, height, role, angle_deg, spacing, stencil_width, stencil_count}")
+	}
+	num := func(name string) float64 {
+		if f := v.Get(name); f.Type() == js.TypeNumber {
+			return f.Float()
+		}
+		return math.NaN()
+	}
+	text := func(name string) string {
+		if f := v.Get(name); f.Type() == js.TypeString {
+			return f.String()
+		}
+		return ""
+	}
+	st := edit.TextStyle{Font: text("font"), Height: num("height"), Role: sketch.TextRole(text("role")),
+		AngleDeg: num("angle_deg"), Spacing: num("spacing")}
+	if n := num("stencil_count"); n >= 1 && n <= letter.MaxBridges {
+		st.Stencil = letter.Bridges{Width: num("stencil_width"), Count: int(n)}
+	}
+	return g.ed.SetTextStyle(st)
 }
 
 // cutFile returns the part as a DXF or SVG cut file (format "dxf" or "svg") with its hang holes as
