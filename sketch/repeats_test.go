@@ -90,7 +90,7 @@ func FuzzWithoutRepeats(f *testing.F) {
 				r.Loops = append(r.Loops, l) // a repeat
 			case 3:
 				s := geom.Line(l[0].Start(), geom.Pt(7.123, 7.377)) // off every sample point
-				l = append(geom.Loop{s, s.Reverse()}, l...) // a spur
+				l = append(geom.Loop{s, s.Reverse()}, l...)         // a spur
 			}
 			r.Loops = append(r.Loops, l)
 		}
