@@ -82,6 +82,19 @@
 // products. Its working columns come from a pool, so it does not allocate per point or, once warm,
 // per call. The benchmarks compare it with the same formula written in Go.
 //
+// # Bounds and pieces
+//
+// Field.Bounds evaluates the formula over a box in interval arithmetic, each operation rounded
+// outward (elementary functions by two units in the last place, beyond their accuracy), so the
+// interval it returns holds every value the density takes in the box; where the formula may be
+// undefined in the box (a square root of a range below zero, a division by a range holding zero)
+// it is the whole line. Field.Restrict simplifies the formula on one piece of the plane, given by
+// the range of any linear function over it: abs, min and max of arguments linear in x and y become
+// one argument, floor and ceil a whole number, blend 0, 1 or its cubic, and theta is cut along the
+// negative x axis; where such a kink or step crosses the piece it names the line to cut along.
+// Kinks of arguments that are not linear (abs(x² − y)) are named as rough. Both serve the sign
+// proof and the piecewise exact integration in package sketch.
+//
 // # Lengths and thicknesses
 //
 // ParseLength and Spec.Thickness read a number or constant expression followed by a unit: "3 mm",

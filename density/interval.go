@@ -7,11 +7,14 @@ import (
 
 // Interval is the closed range of reals [Lo, Hi]. An interval that may hold a value that is not a
 // number (the square root of a range that reaches below zero, a division by a range that holds
-// zero) is the whole line, [−∞, +∞].
+// zero) is the whole line, [−∞, +∞], and any operation on the whole line gives the whole line.
 type Interval struct{ Lo, Hi float64 }
 
 // whole is the interval that says nothing.
 var whole = Interval{math.Inf(-1), math.Inf(1)}
+
+// unbounded reports whether the interval reaches an infinity.
+func (a Interval) unbounded() bool { return math.IsInf(a.Lo, 0) || math.IsInf(a.Hi, 0) }
 
 // Contains reports whether v lies in the interval.
 func (a Interval) Contains(v float64) bool { return a.Lo <= v && v <= a.Hi }
@@ -56,7 +59,7 @@ func (f *Field) Bounds(x0, x1, y0, y1 float64) Interval {
 func intervalOf(n *node, x, y Interval) Interval {
 	switch n.op {
 	case opConst:
-		return Interval{n.k, n.k}
+		return outward(n.k, n.k, 0) // the whole line for a constant that is not a number
 	case opX:
 		return x
 	case opY:
@@ -69,6 +72,9 @@ func intervalOf(n *node, x, y Interval) Interval {
 	args := make([]Interval, len(n.args))
 	for i, a := range n.args {
 		args[i] = intervalOf(a, x, y)
+		if args[i] == whole { // it may hold a value that is not a number, and so may the result
+			return whole
+		}
 	}
 	if n.op == opPow && n.args[1].isConst() {
 		return powConstInterval(args[0], n.args[1].k)
@@ -130,9 +136,13 @@ func monotoneInterval(op opcode, a Interval) Interval {
 	return r
 }
 
-// mulInterval multiplies by the four products of the ends; 0 × ∞ counts as 0 (the ends are bounds,
-// so a zero end times an unbounded one bounds nothing new).
+// mulInterval multiplies by the four products of the ends. A factor that may be zero times one that
+// may be infinite may be 0 × ∞, not a number: the whole line. Otherwise 0 × ∞ between ends counts as
+// 0 (the ends are bounds, so a zero end times an unbounded one bounds nothing new).
 func mulInterval(a, b Interval) Interval {
+	if a.Contains(0) && b.unbounded() || b.Contains(0) && a.unbounded() {
+		return whole
+	}
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, p := range [4]float64{mul0(a.Lo, b.Lo), mul0(a.Lo, b.Hi), mul0(a.Hi, b.Lo), mul0(a.Hi, b.Hi)} {
 		lo, hi = math.Min(lo, p), math.Max(hi, p)
@@ -246,7 +256,10 @@ func trigInterval(op opcode, a Interval) Interval {
 		shift = math.Pi / 2
 	}
 	lo, hi := a.Lo+shift, a.Hi+shift
-	if math.IsInf(lo, 0) || math.IsInf(hi, 0) || hi-lo >= 2*math.Pi {
+	switch {
+	case a.unbounded():
+		return whole // the sine of an infinite value is not a number
+	case hi-lo >= 2*math.Pi:
 		return Interval{-1, 1}
 	}
 	f := unaryFuncs[op]

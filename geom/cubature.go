@@ -15,6 +15,10 @@ type Field interface{ Eval(xs, ys, out []float64) }
 type Options struct {
 	Tol      float64 // requested relative accuracy; 0 means DefaultTol
 	MaxEvals int     // work limit in density evaluations; 0 means DefaultMaxEvals
+	// SignChecked says the caller has made sure the density is at least zero on the region, so a
+	// value below zero at a node outside it (the nodes fill the bounding box) is integrated as it
+	// is instead of stopping the integration; NaN and infinite values still stop it.
+	SignChecked bool
 }
 
 // The defaults for Options.
@@ -60,7 +64,7 @@ func (e *DensityError) Error() string {
 // whether the outer or the inner error dominates; the piece then gets a higher outer order (beyond
 // outerMax it is cut in half) or a higher inner order (beyond innerMax, more inner panels). Refinement stops early when it would pass opt.MaxEvals
 // (Result.LimitHit). The density is evaluated in batches into reused buffers; a NaN, infinite or negative
-// value stops the integration with a *DensityError.
+// value stops the integration with a *DensityError (a negative one only without opt.SignChecked).
 func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	tol, maxEvals := opt.Tol, opt.MaxEvals
 	if tol < 0 || maxEvals < 0 || math.IsNaN(tol) {
@@ -81,7 +85,7 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	}
 	box := Loop(pieces).Bounds()
 	cb := &cubature{f: f, o: o, c: box.Center(), base: box.Min.X - box.Center().X,
-		half: math.Max(box.Size().X, box.Size().Y) / 2}
+		half: math.Max(box.Size().X, box.Size().Y) / 2, signChecked: opt.SignChecked}
 	const room = 2 * batchNodes // a batch plus one more piece's rules, usually
 	cb.xs, cb.ys, cb.us, cb.out = make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room)
 	return cb.run(Boundary{Pieces: pieces}, tol, maxEvals)
@@ -126,6 +130,7 @@ type cubature struct {
 	vs, ws      []float64 // per outer node: local ordinate and weight W·y'·(panel length)
 	jobs        []gridJob // product rules queued for the next batch evaluation
 	evals       int
+	signChecked bool // Options.SignChecked
 }
 
 // gridJob is one product rule queued for evaluation: its orders and where its nodes and outer nodes
@@ -377,7 +382,7 @@ func (c *cubature) flush() error {
 	c.f.Eval(c.xs, c.ys, out)
 	c.evals += n
 	for i, v := range out {
-		if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+		if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 && !c.signChecked {
 			return &DensityError{X: c.xs[i], Y: c.ys[i], Value: v}
 		}
 	}

@@ -190,3 +190,20 @@ func TestIntegrateEmptyAndMisuse(t *testing.T) {
 	}()
 	bnd(Circle(Pt(0, 0), 1)).Integrate(ConstPoly(1), Options{Tol: -1})
 }
+
+// TestIntegrateSignChecked integrates ρ = x − 2 + 8(y − 1.5)² over the square [0, 3]² less the
+// notch [0, 2] × [1, 2] open to the left: ρ is at least zero on the part (for x < 2 there
+// |y − 1.5| ≥ 0.5) but negative in the notch, where the cubature's horizontals from the left edge
+// place nodes. The mass, square less notch by the elementary integrals: (−4.5 + 54) − (−2 + 4/3)
+// = 301/6. Without SignChecked the integration stops at a node in the notch.
+func TestIntegrateSignChecked(t *testing.T) {
+	b := Boundary{Pieces: Polygon(Pt(0, 0), Pt(3, 0), Pt(3, 3), Pt(0, 3), Pt(0, 2), Pt(2, 2), Pt(2, 1), Pt(0, 1))}
+	f := funcField(func(x, y float64) float64 { return x - 2 + 8*(y-1.5)*(y-1.5) })
+	if _, err := b.Integrate(f, Options{}); err == nil {
+		t.Fatal("no error for negative values in the notch")
+	}
+	r, err := b.Integrate(f, Options{SignChecked: true})
+	if err != nil || math.Abs(r.M-301.0/6) > 1e-12*301/6 {
+		t.Errorf("mass %v, %v; want 301/6", r.M, err)
+	}
+}

@@ -39,7 +39,10 @@
 // "Product Gauss cubature over polygons based on Green's integration formula", BIT Numerical Mathematics
 // 47 (2007) 441–453, and its extension to curved boundaries, "Gauss–Green cubature and moment computation
 // over arbitrary geometries", J. Comput. Appl. Math. 231 (2009) (volume and year from memory). Nodes may
-// lie outside a non-convex region, so the density must be defined on the whole bounding box.
+// lie outside a non-convex region, so the density must be defined on the whole bounding box; it must
+// also be at least zero there unless the caller has checked its sign on the region itself
+// (Options.SignChecked), since values outside the region cancel in the sum whatever their sign.
+// Boundary.Local gives the pieces about a nearby exact origin, for callers that work in a local frame.
 //
 // For a constant density the straight edges use the closed-form moments of the triangles they form with
 // the local origin (Steger, below), and curved pieces are converted to the same triangle-fan form by

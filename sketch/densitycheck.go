@@ -17,13 +17,18 @@ import (
 // is spent.
 const (
 	checkBoxes = 4096 // box budget of one check
+	// encloseBoxes is the part of the budget spent on narrowing the mass enclosure once the sign is
+	// proved: enough to find a narrow spike the cubature missed (the boxes go where the bounds are
+	// widest), while the check stays a small part of an analysis.
+	encloseBoxes = 512
 	// checkMinBox is the smallest box side, relative to the part's larger side: boxes are not cut
 	// below it (a formula's bounds hardly narrow further in double precision).
 	checkMinBox = 1e-9
 	// checkEdgeBox is the smallest side, relative to the part's larger side, of a box the part's
 	// edge crosses. Such a box is not cut further for the sign proof: the box reaches outside the
 	// part, where a density may well be negative (100 − r² on a disk of radius 10), and its bounds
-	// cannot tell. Within these boxes the density is only sampled at their centres.
+	// cannot tell. Within these boxes the density is only sampled: at their centres, and at the
+	// cubature's nodes that lie in the part (integrateCells).
 	checkEdgeBox = 1.0 / 256
 	// checkZero is how far below zero, relative to the largest density value met, a lower bound may
 	// lie and still count as zero: the rounding of the formula's own arithmetic, as in 1 − x/300 at
@@ -50,7 +55,8 @@ func (c *checkBox) area() float64 { s := c.r.Size(); return s.X * s.Y }
 type densityCheck struct {
 	body      geom.Boundary
 	f         *density.Field
-	bounds    []geom.Rect // of body's pieces
+	bounds    []geom.Rect    // of body's pieces
+	ray       []geom.Segment // reused by contains and crossing
 	minSide   float64
 	edgeSide  float64
 	scale     float64 // the largest density value met so far
@@ -68,6 +74,7 @@ type checkResult struct {
 	lo, hi  float64    // ∬ρ dA over the part lies in [lo, hi] (when asked for)
 	widest  geom.Rect  // the box that adds most to the enclosure's width
 	hot     geom.Rect  // the box around every box where the density varies by hotShare of its range
+	scale   float64    // the largest density value met
 	boxesIn int
 }
 
@@ -110,7 +117,7 @@ func (c *densityCheck) push(r geom.Rect, straddle bool, pieces []int) error {
 	if straddle {
 		pieces = c.crossing(r, pieces)
 		if len(pieces) == 0 {
-			if !c.body.Contains(r.Center()) {
+			if !c.contains(r.Center()) {
 				return nil
 			}
 			straddle = false
@@ -128,11 +135,25 @@ func (c *densityCheck) push(r geom.Rect, straddle bool, pieces []int) error {
 	return nil
 }
 
+// contains reports whether p lies in the part: Boundary.Contains on the pieces whose boxes (widened
+// by rounding) reach the ray from p towards +x, the only ones whose winding about p can count.
+func (c *densityCheck) contains(p geom.Point) bool {
+	ray := geom.Boundary{Pieces: c.ray[:0]}
+	for i, s := range c.bounds {
+		pad := 1e-12 * (math.Abs(s.Min.Y) + math.Abs(s.Max.Y) + math.Abs(s.Max.X) + 1)
+		if s.Min.Y-pad <= p.Y && p.Y <= s.Max.Y+pad && p.X <= s.Max.X+pad {
+			ray.Pieces = append(ray.Pieces, c.body.Pieces[i])
+		}
+	}
+	c.ray = ray.Pieces
+	return ray.Contains(p)
+}
+
 // crossing returns the pieces among from whose boxes meet r, or none when none of them comes
 // within r's half-diagonal of its centre (so none meets r).
 func (c *densityCheck) crossing(r geom.Rect, from []int) []int {
 	var out []int
-	near := geom.Boundary{}
+	near := geom.Boundary{Pieces: c.ray[:0]}
 	for _, i := range from {
 		s := c.bounds[i]
 		if s.Min.X <= r.Max.X && s.Max.X >= r.Min.X && s.Min.Y <= r.Max.Y && s.Max.Y >= r.Min.Y {
@@ -140,6 +161,7 @@ func (c *densityCheck) crossing(r geom.Rect, from []int) []int {
 			near.Pieces = append(near.Pieces, c.body.Pieces[i])
 		}
 	}
+	c.ray = near.Pieces
 	if len(out) > 0 && near.Distance(r.Center()) > r.Size().Norm()/2 {
 		return nil
 	}
@@ -156,7 +178,7 @@ func (c *densityCheck) tryCentre(b *checkBox) error {
 		c.scale = math.Max(c.scale, v[0])
 		return nil
 	}
-	if b.straddle && !c.body.Contains(p) {
+	if b.straddle && !c.contains(p) {
 		return nil
 	}
 	return c.f.DomainError(p.X, p.Y, v[0])
@@ -193,7 +215,7 @@ func (c *densityCheck) settled(i int) bool {
 	switch {
 	case top.priority == math.Inf(1):
 		return false
-	case !c.enclose:
+	case !c.enclose || c.evaluated >= encloseBoxes:
 		return true
 	case i%64 != 0:
 		return false
@@ -277,7 +299,7 @@ func cmpFloat(a, b float64) int {
 
 // result summarises the check.
 func (c *densityCheck) result() checkResult {
-	r := checkResult{proved: true, boxesIn: c.evaluated, hot: geom.EmptyRect()}
+	r := checkResult{proved: true, boxesIn: c.evaluated, hot: geom.EmptyRect(), scale: c.scale}
 	widest := -1.0
 	width := func(b *checkBox) float64 { return (b.b.Hi - b.b.Lo) * b.area() }
 	for _, b := range c.all() {

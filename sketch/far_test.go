@@ -2,6 +2,7 @@ package sketch
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"plumb/density"
@@ -36,6 +37,32 @@ func TestAnalyzePolynomialWrittenAboutFarPoint(t *testing.T) {
 		}
 		if a.RelErr != 0 || len(a.Warnings) != 0 {
 			t.Errorf("offset %g: error estimate %g, warnings %q; want an exact result", o, a.RelErr, a.Warnings)
+		}
+	}
+}
+
+// TestAnalyzeCancellingFormulaWarns checks that a polynomial typed as terms that cancel near a part
+// far from the origin, (x − 1e6)²(y − 1e6) multiplied out, is flagged, while the same polynomial
+// written about the far point is not.
+func TestAnalyzeCancellingFormulaWarns(t *testing.T) {
+	o := 1e6
+	for _, tt := range []struct {
+		formula string
+		warns   bool
+	}{
+		{"k*(x^2*y - 2e6*x*y + 1e12*y - 1e6*x^2 + 2e12*x - 1e18)", true},
+		{"k*(x-1e6)^2*(y-1e6)", false},
+	} {
+		d := NewDocument()
+		d.Outline = rectRegion(o+123.5, o+77.25, o+423.5, o+277.25)
+		d.Material = density.Spec{Formula: tt.formula, Unit: "kg/m2", Params: map[string]float64{"k": 1e-6}}
+		a := mustAnalyze(t, d)
+		warned := false
+		for _, w := range a.Warnings {
+			warned = warned || strings.Contains(w, "loses digits to rounding")
+		}
+		if warned != tt.warns {
+			t.Errorf("%s: warnings %q, want the cancellation warning: %v", tt.formula, a.Warnings, tt.warns)
 		}
 	}
 }

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"plumb/density"
@@ -26,7 +27,7 @@ type densityResult struct {
 // interval check's guaranteed bounds of the mass go with the result, in a warning that says the
 // cubature's estimate is not a guaranteed bound.
 func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (densityResult, error) {
-	at := m.body.Pieces[0].Start()
+	at, pieces := m.body.Local()
 	if c, ok := f.Constant(); ok {
 		if err := f.CheckDomain([]float64{at.X}, []float64{at.Y}); err != nil {
 			return densityResult{}, err
@@ -44,10 +45,14 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 			return densityResult{}, err
 		}
 		g := &localPoly{at: at, p: toGeomPoly(p)}
-		return densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
-			warnings: check.signWarnings(f)}, nil
+		res := densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
+			warnings: check.signWarnings(f)}
+		if w := g.disagreement(f, pieces, check.scale); w != "" {
+			res.warnings = append(res.warnings, w)
+		}
+		return res, nil
 	}
-	local := m.translated(at.Mul(-1))
+	local := m.translated(at.Mul(-1), pieces)
 	cells, complete := splitAtKinks(local, f, at)
 	numeric := slices.ContainsFunc(cells, func(c densityCell) bool { _, ok := c.r.Field.Polynomial(); return !ok })
 	check, err := checkDensity(m.body, area, f, numeric)
@@ -117,25 +122,41 @@ func focus(parts []materialPart, hot geom.Rect) []materialPart {
 	return out
 }
 
+// minCellEvals is the least work limit a cell's cubature gets, however much the cells before it
+// used: enough for its first estimates.
+const minCellEvals = 1 << 14
+
 // integrateCells integrates each cell's density, the cells given about the point o: exactly where
-// the density is a polynomial, by cubature elsewhere. The result is moved back by o. The error
+// the density is a polynomial, by cubature elsewhere. The cells share the work limit
+// opt.MaxEvals (each gets at least minCellEvals). The result is moved back by o. The error
 // estimates add, each relative to its cell's mass. A point where the density fails is reported
 // with f's domain error, in document coordinates.
 func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt AnalyzeOptions) (r geom.Result, err error) {
 	absErr := 0.0
+	budget := opt.MaxEvals
+	if budget == 0 {
+		budget = geom.DefaultMaxEvals
+	}
 	for _, c := range cells {
 		g := c.r.Field
 		if p, ok := g.PolynomialAbout(o.X, o.Y); ok {
 			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)).Translate(o))
 			continue
 		}
-		q, err := c.body.Integrate(&shiftedField{f: g, o: o}, geom.Options{Tol: opt.Tol, MaxEvals: opt.MaxEvals})
+		sf := &shiftedField{f: g, o: o}
+		limit := max(budget-r.Evals, minCellEvals)
+		q, err := c.body.Integrate(sf, geom.Options{Tol: opt.Tol, MaxEvals: limit, SignChecked: true})
 		var de *geom.DensityError
 		if errors.As(err, &de) {
 			return r, f.DomainError(o.X+de.X, o.Y+de.Y, de.Value)
 		}
 		if err != nil {
 			return r, err
+		}
+		for _, p := range sf.negative {
+			if c.body.Contains(p) {
+				return r, f.DomainError(o.X+p.X, o.Y+p.Y, sf.value(p))
+			}
 		}
 		r.Moments = r.Moments.Add(q.Moments.Translate(o))
 		absErr += q.RelErr * math.Abs(q.M)
@@ -182,7 +203,8 @@ func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []dens
 	if math.IsInf(c.lo, 0) || math.IsInf(c.hi, 0) || math.IsNaN(c.lo+c.hi) {
 		return w + "; interval arithmetic gives no bounds on the mass (the formula may be undefined or unbounded near the part)"
 	}
-	w += fmt.Sprintf("; interval arithmetic puts the mass between %.7g and %.7g kg", c.lo, c.hi)
+	lo, hi := distinctDigits(c.lo, c.hi)
+	w += fmt.Sprintf("; interval arithmetic puts the mass between %s and %s kg", lo, hi)
 	if !c.encloses(r.M) {
 		p := c.widest.Center()
 		r.RelErr = math.Max(r.RelErr, math.Max(c.hi-r.M, r.M-c.lo)/math.Abs(r.M))
@@ -198,4 +220,53 @@ func contains(list []string, s string) bool {
 		}
 	}
 	return false
+}
+
+// distinctDigits formats two bounds with 7 significant digits, or as many more as tell them apart.
+func distinctDigits(lo, hi float64) (string, string) {
+	digits := 7
+	for ; digits < 17; digits++ {
+		if strconv.FormatFloat(lo, 'g', digits, 64) != strconv.FormatFloat(hi, 'g', digits, 64) {
+			break
+		}
+	}
+	return strconv.FormatFloat(lo, 'g', digits, 64), strconv.FormatFloat(hi, 'g', digits, 64)
+}
+
+// polyAgreement is the largest difference, relative to the largest value, that a polynomial density
+// expanded about the part may show against its formula evaluated as written before the two are
+// said to disagree: both are accurate to a few units of rounding when the formula's terms do not
+// cancel near the part.
+const polyAgreement = 1e-9
+
+// disagreement compares the polynomial with its formula at the ends and middles of (up to 64 of)
+// the part's pieces, given about g.at, and returns a warning when they differ by more than
+// polyAgreement of the density's size (scale, or the largest value met here): the formula, written
+// in terms that cancel near the part (x² − 2e6·x + 1e12 at x ≈ 1e6), loses digits in either form.
+func (g *localPoly) disagreement(f *density.Field, pieces []geom.Segment, scale float64) string {
+	step := max(1, len(pieces)/64)
+	var xs, ys, us, vs []float64
+	for i := 0; i < len(pieces); i += step {
+		for _, t := range [2]float64{0, 0.5} {
+			p := pieces[i].At(t)
+			x, y := g.at.X+p.X, g.at.Y+p.Y // the point as the formula sees it; x − at is exact
+			xs, ys, us, vs = append(xs, x), append(ys, y), append(us, x-g.at.X), append(vs, y-g.at.Y)
+		}
+	}
+	want, got := make([]float64, len(xs)), make([]float64, len(xs))
+	f.Eval(xs, ys, want)
+	g.p.Eval(us, vs, got)
+	worst, at := 0.0, 0
+	for i := range want {
+		scale = math.Max(scale, math.Max(math.Abs(want[i]), math.Abs(got[i])))
+		if d := math.Abs(want[i] - got[i]); d > worst {
+			worst, at = d, i
+		}
+	}
+	if !(worst > polyAgreement*scale) {
+		return ""
+	}
+	return fmt.Sprintf("the density formula loses digits to rounding this far from the origin: its terms cancel "+
+		"(two ways of evaluating it differ by %.1e of its largest value, at %s); write it about a point near the part, "+
+		"as in k*(x - x0)^2 with x0 near the part's x", worst/scale, f.Where(xs[at], ys[at]))
 }

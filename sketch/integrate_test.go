@@ -117,6 +117,15 @@ func TestAnalyzeNegativeSpot(t *testing.T) {
 	if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
 		t.Errorf("a spot outside the plate: %v", err)
 	}
+	// Spots near the edge of a 1000 × 600 mm plate, where the interval check stops cutting boxes
+	// at 1/256 of the plate: the cubature's nodes in the part find them.
+	for _, x := range []float64{999.5, 999.9, 0.3} {
+		d := rectFormula(0, 0, 1000, 600, "5 - 6*exp(-((x-c)^2+(y-300.2)^2)/0.0125)")
+		d.Material.Params = map[string]float64{"c": x}
+		if _, err := Analyze(d, AnalyzeOptions{}); err == nil || !strings.Contains(err.Error(), "material: density is −") {
+			t.Errorf("spot at x = %g: Analyze error %v, want the negative density named", x, err)
+		}
+	}
 }
 
 // TestAnalyzeDensityZeroOnEdge checks that densities that fall to zero on the part's edge pass the
@@ -145,5 +154,21 @@ func TestAnalyzeSmoothDensityWarns(t *testing.T) {
 	checkNear(t, "mass", a.Mass, want, 1e-10, 0)
 	if len(a.Warnings) != 1 || !strings.Contains(a.Warnings[0], notBound) || !strings.Contains(a.Warnings[0], "interval arithmetic puts the mass between") {
 		t.Errorf("warnings %q", a.Warnings)
+	}
+}
+
+// TestAnalyzeNegativeOutsidePart checks that a density that is positive on the part but negative in
+// its bounding box's corners, (8 + 0.001·x·y)·exp(x/1000) on a disk of radius 100 (|x·y| ≤ 5000 on
+// the disk, 10000 at the corners), is integrated without a false error, and that the same density
+// on the whole box is refused, naming a point of the box.
+func TestAnalyzeNegativeOutsidePart(t *testing.T) {
+	d := NewDocument()
+	d.Outline = diskRegion(geom.Pt(0, 0), 100)
+	d.Material = areal("(8 + 0.001*x*y)*exp(x/1000)")
+	if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
+		t.Errorf("disk: %v", err)
+	}
+	if _, err := Analyze(rectFormula(-100, -100, 100, 100, d.Material.Formula), AnalyzeOptions{}); err == nil || !strings.Contains(err.Error(), "density is −") {
+		t.Errorf("box: error %v, want the negative density named", err)
 	}
 }

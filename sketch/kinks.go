@@ -51,18 +51,67 @@ func splitAtKinks(m materialPart, f *density.Field, o geom.Point) (cells []densi
 			cells = append(cells, densityCell{body: p.body, r: r})
 			continue
 		}
+		// Cut the cell itself when its pieces chain into loops (few pieces each time), else the
+		// material within the cell's convex polygon.
+		loops, chained := chainLoops(p.body.Pieces, 1e-9*math.Max(box.Size().X, box.Size().Y))
 		for _, side := range [2]float64{1, -1} {
 			within := clipConvex(p.within, r.Cut, side)
 			if len(within) < 3 {
 				continue
 			}
 			region := geom.Region{Loops: []geom.Loop{geom.Polygon(within...)}}
-			if b := geom.Combine(keep, append(slices.Clone(m.regions), region)...); !b.IsEmpty() {
+			var b geom.Boundary
+			if chained {
+				b = geom.Combine(bothIn, geom.Region{Loops: loops}, region)
+			} else {
+				b = geom.Combine(keep, append(slices.Clone(m.regions), region)...)
+			}
+			if !b.IsEmpty() {
 				queue = append(queue, pending{within: within, body: b})
 			}
 		}
 	}
 	return cells, complete
+}
+
+// bothIn keeps what lies in both of two regions.
+func bothIn(in []bool) bool { return in[0] && in[1] }
+
+// chainLoops orders boundary pieces into closed loops, each piece followed by one that starts
+// within tol of its end; ok is false when some piece has no such follower or a loop does not close.
+func chainLoops(pieces []geom.Segment, tol float64) (loops []geom.Loop, ok bool) {
+	used := make([]bool, len(pieces))
+	byX := make([]int, len(pieces))
+	for i := range byX {
+		byX[i] = i
+	}
+	slices.SortFunc(byX, func(a, b int) int { return cmpFloat(pieces[a].Start().X, pieces[b].Start().X) })
+	next := func(p geom.Point) int {
+		k, _ := slices.BinarySearchFunc(byX, p.X-tol, func(i int, x float64) int { return cmpFloat(pieces[i].Start().X, x) })
+		for ; k < len(byX) && pieces[byX[k]].Start().X <= p.X+tol; k++ {
+			if i := byX[k]; !used[i] && pieces[i].Start().Dist(p) <= tol {
+				return i
+			}
+		}
+		return -1
+	}
+	for first := range pieces {
+		if used[first] {
+			continue
+		}
+		loop := geom.Loop{pieces[first]}
+		used[first] = true
+		for pieces[first].Start().Dist(loop[len(loop)-1].End()) > tol {
+			i := next(loop[len(loop)-1].End())
+			if i < 0 {
+				return nil, false
+			}
+			used[i] = true
+			loop = append(loop, pieces[i])
+		}
+		loops = append(loops, loop)
+	}
+	return loops, true
 }
 
 // keepWithin returns the rule that keeps what keep keeps of the first n regions and lies in the
@@ -122,8 +171,9 @@ func lineCrossing(l density.Line, p, q geom.Point, t float64) geom.Point {
 	return p.Add(q.Sub(p).Mul(t))
 }
 
-// translated returns the material moved by d (translatedSegments).
-func (m materialPart) translated(d geom.Point) materialPart {
+// translated returns the material moved by d (translatedSegments), with body, its boundary
+// already moved (geom.Boundary.Local gives it exactly).
+func (m materialPart) translated(d geom.Point, body []geom.Segment) materialPart {
 	regions := make([]geom.Region, len(m.regions))
 	for i, r := range m.regions {
 		regions[i] = geom.Region{Rule: r.Rule, Loops: make([]geom.Loop, len(r.Loops))}
@@ -131,7 +181,7 @@ func (m materialPart) translated(d geom.Point) materialPart {
 			regions[i].Loops[j] = translatedSegments(l, d)
 		}
 	}
-	return materialPart{regions: regions, keep: m.keep, body: geom.Boundary{Pieces: translatedSegments(m.body.Pieces, d)}}
+	return materialPart{regions: regions, keep: m.keep, body: geom.Boundary{Pieces: body}}
 }
 
 // translatedSegments returns the segments moved by d: their points and arc centres move, radii and
@@ -150,12 +200,19 @@ func translatedSegments(ss []geom.Segment, d geom.Point) []geom.Segment {
 }
 
 // shiftedField is a density field taking points about o: (u, v) ↦ ρ(o.X + u, o.Y + v), for
-// integrating cells given about o. It reuses its buffers, so it serves one integration at a time.
+// integrating cells given about o. It keeps the first few nodes where the density is below zero
+// (the cubature, told the sign is checked, integrates them as they are): those that lie in the
+// part, which only the caller can tell, are errors the interval check missed. It reuses its
+// buffers, so it serves one integration at a time.
 type shiftedField struct {
-	f      *density.Field
-	o      geom.Point
-	xs, ys []float64
+	f        *density.Field
+	o        geom.Point
+	xs, ys   []float64
+	negative []geom.Point // about o
 }
+
+// maxNegative is how many nodes with a value below zero a shiftedField keeps.
+const maxNegative = 16
 
 // Eval sets out[i] to the density at (o.X + us[i], o.Y + vs[i]).
 func (s *shiftedField) Eval(us, vs, out []float64) {
@@ -164,4 +221,16 @@ func (s *shiftedField) Eval(us, vs, out []float64) {
 		s.xs[i], s.ys[i] = s.o.X+us[i], s.o.Y+vs[i]
 	}
 	s.f.Eval(s.xs, s.ys, out)
+	for i, v := range out {
+		if v < 0 && len(s.negative) < maxNegative {
+			s.negative = append(s.negative, geom.Pt(us[i], vs[i]))
+		}
+	}
+}
+
+// value returns the density at p, given about o.
+func (s *shiftedField) value(p geom.Point) float64 {
+	out := []float64{0}
+	s.f.Eval([]float64{s.o.X + p.X}, []float64{s.o.Y + p.Y}, out)
+	return out[0]
 }

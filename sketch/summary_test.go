@@ -48,7 +48,7 @@ func reportJSON(t *testing.T, r *Report) map[string]json.RawMessage {
 	return keysOf(t, b.Bytes())
 }
 
-var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "warnings"}
+var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "pieces", "warnings"}
 
 func TestSummaryKeys(t *testing.T) {
 	d := plate(200, 100, "10")
@@ -110,7 +110,7 @@ func TestWriteText(t *testing.T) {
 	}
 	out := b.String()
 	for _, want := range []string{"gate.json — garden gate panel", "mm²", " kg", " N (", "lbf", "balance point", "kg·mm²",
-		"turns", "swing period", "warning", "read note", "keep at least 30 mm", "licensed engineer"} {
+		"turns", "swing period", "warning", "read note", "keep at least 30.0 mm", "licensed engineer"} {
 		if !strings.Contains(out, want) {
 			t.Errorf("text output lacks %q:\n%s", want, out)
 		}

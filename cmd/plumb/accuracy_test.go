@@ -112,4 +112,38 @@ func TestCommandLineAccuracy(t *testing.T) {
 			}
 		}
 	})
+
+	// 1 + |x − 130|/50 on 300 × 200 mm: ∫₀³⁰⁰ (1 + |x − 130|/50) dx = 300 + (130² + 170²)/100 = 758
+	// (by hand), so the mass is 758 × 200 mm² × 1e-6 kg/mm² = 0.1516 kg, exact after the cut.
+	// The spike 8 + 1000·exp(−1000 r²) about (50.123, 50.456) on [0, 100]²: (8·10⁴ + π)·1e-6 kg,
+	// the Gaussian integral π/a over the plane (any calculus text).
+	t.Run("kinks, spikes and negative spots", func(t *testing.T) {
+		abs := writeRectPart(t, 0, 0, 300, 200, "1+abs(x-130)/50", nil)
+		spike := writeRectPart(t, 0, 0, 100, 100, "8 + 1000*exp(-((x-50.123)^2+(y-50.456)^2)*1000)", nil)
+		for _, cmd := range [][]string{{"analyze", "--tol", "1e-10"}, {"hang", "--at", "150,190"}} {
+			m := analyzeJSON(t, plumb, append(cmd, abs, "--format", "json")...)
+			wantNear(t, "abs mass", num(t, m, "mass"), 0.1516, 1e-13)
+			if e, w := num(t, m, "error_estimate"), warningsOf(m); e != 0 || strings.Contains(w, "not a guaranteed bound") {
+				t.Errorf("%s abs: error estimate %g, warnings %q; want an exact result", cmd[0], e, w)
+			}
+			args := append(cmd[:1:1], spike, "--format", "json")
+			if cmd[0] == "hang" {
+				args = append(args, "--at", "50,90")
+			}
+			m = analyzeJSON(t, plumb, args...)
+			if cmd[0] == "analyze" {
+				wantNear(t, "spike mass", num(t, m, "mass"), (8e4+math.Pi)*1e-6, 1e-12)
+			}
+			if w := warningsOf(m); !strings.Contains(w, "the error estimate is not a guaranteed bound for this density: ") {
+				t.Errorf("%s spike: warnings %q", cmd[0], w)
+			}
+		}
+		neg := writeRectPart(t, 0, 0, 100, 100, "5 - 6*exp(-((x-40.3)^2+(y-30.7)^2)/0.0125)", nil)
+		for _, cmd := range [][]string{{"analyze"}, {"hang", "--level"}} {
+			r := plumb(append(cmd, neg)...)
+			if r.code == 0 || !strings.Contains(r.stderr, "material: density is −") || !strings.Contains(r.stderr, "x = 40.") {
+				t.Errorf("%s negative spot: exit %d, stderr %q", cmd[0], r.code, r.stderr)
+			}
+		}
+	})
 }

@@ -190,7 +190,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, plumb("analyze", in("too-big.json")), exitFailed, "too-big.json: the file is 16777", "more than the limit of 16777216")
 
 		r = plumb("hang", in("two-pieces.json"), "--at", "50,90")
-		if r.code != 0 || !strings.Contains(r.stdout, "the part is 2 separate pieces of material") {
+		if r.code != 0 || !strings.Contains(r.stdout, "the part comes apart in 2 pieces: the hang uses the piece holding the hole") {
 			t.Errorf("two pieces: exit %d, stdout %q", r.code, r.stdout)
 		}
 		// The U has no material above its balance point: the least-tilt holes are listed, in the
@@ -203,7 +203,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, r, exitFailed, "warning: least tilt: a hole at (")
 		r = plumb("hang", "testdata/u-bracket.json", "--level", "--hole", "60")
 		wantFailure(t, r, exitFailed, "no position has room for the hole")
-		if !strings.Contains(r.stdout, "no position on the part has room for a 60 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
+		if !strings.Contains(r.stdout, "no position on the part has room for a 60.0 mm hole") || strings.Contains(r.stdout, "least-tilt position") {
 			t.Errorf("U level, 60 mm hole: stdout %q", r.stdout)
 		}
 	})
@@ -241,6 +241,7 @@ func walkFlags(t *testing.T, plumb func(args ...string) plumbRun) {
 		"convert":   {"testdata/bakery-sign.json", "--force", "--out", filepath.Join(dir, "out.svg")},
 		"template":  {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
 		"report":    {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.pdf")},
+		"cutfile":   {"testdata/bakery-sign.json", "-o", filepath.Join(dir, "out.dxf")},
 		"materials": {},
 		// build and serve would build the app: an extra operand stops them after the flags.
 		"build": {"extra"},
@@ -323,7 +324,7 @@ func helpFlags(t *testing.T, plumb func(args ...string) plumbRun, command string
 // flagKinds lists every flag the walk knows, so that a new flag must be classified.
 var flagKinds = func() map[string]bool {
 	m := map[string]bool{}
-	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "format", "paper", "o", "out"} {
+	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "layers", "skip-layers", "format", "paper", "o", "out"} {
 		m[name] = true
 	}
 	for name := range numericFlags {

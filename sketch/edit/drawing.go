@@ -96,6 +96,10 @@ func (e *Editor) release(s geom.Point) {
 
 // place puts the next point at p, as a click there would.
 func (e *Editor) place(p geom.Point) {
+	if e.tool == ToolLetter {
+		e.letterAt, e.sel = &p, Selection{Hole: -1}
+		return
+	}
 	if e.tool == ToolOutline {
 		e.snap = Snap{At: p}
 		e.press(e.View.ToScreen(p))
@@ -282,7 +286,7 @@ func (e *Editor) measureOf(a, b geom.Point) Measurement {
 	m := Measurement{A: a, B: b, Dist: d.Norm(), DX: d.X, DY: d.Y, AngleDeg: math.Atan2(d.Y, d.X) * 180 / math.Pi}
 	f := func(v float64) string { return FormatLength(v, e.doc.Units) }
 	m.Text = fmt.Sprintf("%s %s   Δx %s   Δy %s   %s°", f(m.Dist), e.doc.Units, f(m.DX), f(m.DY),
-		FormatLength(m.AngleDeg, "mm"))
+		sketch.FormatAngle(m.AngleDeg))
 	return m
 }
 
@@ -345,7 +349,7 @@ func (e *Editor) outlinePreview(cur geom.Point) Preview {
 	}
 	if d := cur.Sub(last.at); !e.draw.pressing && d.Norm() > 0 {
 		p.Label = "L " + FormatLength(d.Norm(), e.doc.Units) + "  " +
-			FormatLength(math.Atan2(d.Y, d.X)*180/math.Pi, "mm") + "°"
+			sketch.FormatAngle(math.Atan2(d.Y, d.X)*180/math.Pi) + "°"
 	}
 	return p
 }

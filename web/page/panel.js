@@ -24,7 +24,9 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
+  // Milliseconds since navigation: unpackedMs (the module's text decoded), compiledMs, readyMs (the app's
+  // first frame), restoredMs (the part is on screen).
+  const timing = { scriptMs: performance.now() };
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
@@ -40,10 +42,13 @@
   function writeStore(key, value) {
     try { localStorage.setItem(key, value); return true; } catch { return false; }
   }
-  // remember keeps one of the choices a new part starts with (units or material) for later visits.
+  // chosen returns the choices kept for later visits: {units, material} for a new part, and the last
+  // sheet and formula fields ({sheet, formula}) for the tab a part does not use.
+  function chosen() {
+    try { return JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { return {}; }
+  }
   function remember(key, value) {
-    let c = {};
-    try { c = JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { c = {}; }
+    const c = chosen();
     c[key] = value;
     writeStore(CHOSEN, JSON.stringify(c));
   }
@@ -59,8 +64,15 @@
   function canvas() { return document.querySelector("canvas"); }
   function giveCanvasKeys() { const c = canvas(); if (c) c.focus({ preventScroll: true }); }
   function unitName() { return (state && state.units && state.units.length) || "mm"; }
+  // minus writes a number's text with the true minus sign, U+2212, and no sign on a value that rounds
+  // to zero.
+  function minus(text) {
+    if (!text.startsWith("-")) return text;
+    return /[1-9]/.test(text) ? "\u2212" + text.slice(1) : text.slice(1);
+  }
+  // fmtLen writes a length as the canvas and the warnings do (sketch.FormatLength): fixed decimals per unit.
   function fmtLen(v) {
-    return Number.isFinite(v) ? v.toFixed(DECIMALS[unitName()] ?? 3) : "—";
+    return Number.isFinite(v) ? minus(v.toFixed(DECIMALS[unitName()] ?? 3)) : "—";
   }
   // fmtField writes a length for a field the user may edit: rounded, without trailing zeros. The app
   // keeps the exact value until the user types a new one.
@@ -70,10 +82,10 @@
   function fmtSig(v, digits = 4) {
     if (!Number.isFinite(v)) return "—";
     const a = Math.abs(v);
-    if (a !== 0 && (a < 1e-3 || a >= 1e7)) return v.toExponential(digits - 1);
-    return Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 });
+    if (a !== 0 && (a < 1e-3 || a >= 1e7)) return minus(v.toExponential(digits - 1)).replace("e-", "e\u2212");
+    return minus(Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 }));
   }
-  function fmtDeg(v) { return Number.isFinite(v) ? v.toFixed(1) + "°" : "—"; }
+  function fmtDeg(v) { return Number.isFinite(v) ? minus(v.toFixed(1)) + "°" : "—"; }
 
   // ---- starting the app ----
 
@@ -108,21 +120,26 @@
     return out;
   }
 
+  // startApp unpacks the module and compiles it while it is still being inflated (a Response typed
+  // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
   async function startApp() {
     const holder = $("plumb-module");
     const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
+    timing.unpackedMs = performance.now();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
-    const module = await new Response(stream).arrayBuffer();
-    startup = await readStartup();
     const go = new Go();
-    const { instance } = await WebAssembly.instantiate(module, go.importObject);
+    const compiled = WebAssembly.instantiateStreaming(
+      new Response(stream, { headers: { "Content-Type": "application/wasm" } }), go.importObject);
+    startup = await readStartup();
+    const { instance } = await compiled;
+    timing.compiledMs = performance.now();
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
   }
 
   function setEnabled(on) {
     for (const el of document.querySelectorAll("#tools button, #panel button, #panel input, #panel select")) {
-      if (el.dataset.action === "help" || el.dataset.action === "cautions" || el.id === "fold") continue;
+      if (["help", "cautions", "about"].includes(el.dataset.action) || el.id === "fold") continue;
       el.disabled = !on;
     }
   }
@@ -133,8 +150,8 @@
     app = window.plumb;
     timing.readyMs = performance.now();
     try {
-      const chosen = JSON.parse(readStore(CHOSEN) || "null");
-      if (chosen) app.setDefaults(chosen);
+      const kept = chosen();
+      app.setDefaults({ units: kept.units, material: kept.material });
     } catch { /* a choice that cannot be read is forgotten: the part's own units and material serve */ }
     try {
       if (startup.crashed) recoverFromCrash();
@@ -143,10 +160,12 @@
       toast("The part could not be restored: " + e.message, true);
     }
     restored = true;
+    $("text-font").replaceChildren(...app.fonts().map((f) => new Option(f, f)));
     refresh();
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
+    timing.loadedMs = performance.now();
     requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
     settleStartup();
   }
@@ -350,7 +369,7 @@
   // baseName names downloaded files after the part, or else after the file it came from.
   function baseName() {
     const name = partName || (state && state.file) || "part";
-    return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
+    return name.replace(/\.(json|svg|dxf)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
   // download offers data (a string or a Uint8Array) as a file.
@@ -405,20 +424,34 @@
   function showPart(doc) {
     partName = doc.name || "";
     $("part-name").textContent = partName || "Untitled part";
+    $("part-name").title = partName || "Untitled part";
     const spec = doc.material;
     if (!spec || editingMaterial()) return;
+    // Each tab keeps its fields for later: the other one is filled from the last part that used it.
+    const kept = chosen();
     if (spec.formula) {
       setMode("formula");
-      $("formula").value = spec.formula;
-      $("density-unit").value = spec.unit || "kg/m2";
-      $("params").value = Object.entries(spec.params || {}).map(([k, v]) => k + " = " + v).join(", ");
-    } else {
+      fillFormula(spec);
+      if ($("material").value === "" && kept.sheet) fillSheet(kept.sheet);
+      remember("formula", spec);
+    } else if (spec.material) {
       setMode("sheet");
-      $("material").value = spec.material || "";
-      $("thickness").value = spec.thickness || "";
+      fillSheet(spec);
+      if ($("formula").value === "" && kept.formula) fillFormula(kept.formula);
+      remember("sheet", spec);
     }
     showThickness();
     fillThicknessList();
+  }
+
+  function fillSheet(spec) {
+    $("material").value = spec.material || "";
+    $("thickness").value = spec.thickness || "";
+  }
+  function fillFormula(spec) {
+    $("formula").value = spec.formula || "";
+    $("density-unit").value = spec.unit || "kg/m2";
+    $("params").value = Object.entries(spec.params || {}).map(([k, v]) => k + " = " + v).join(", ");
   }
 
   function setMode(m) {
@@ -470,7 +503,7 @@
     if (!err) {
       const r = app.setMaterial(spec);
       if (!r.ok) err = r.error || { msg: "not accepted" };
-      else remember("material", spec);
+      else { remember("material", spec); remember(mode, spec); }
     }
     showMaterialError(err);
     showThickness();
@@ -580,6 +613,48 @@
     renderEdge(u);
     renderStale();
     renderWarnings();
+    renderLettering();
+  }
+
+  // renderLettering shows the Lettering fields while the Lettering tool is active or lettering is
+  // selected, with the selected lettering's style (else the style new lettering gets).
+  function renderLettering() {
+    const l = state.lettering;
+    const show = Boolean(l) && (state.tool === "lettering" || l.selected >= 0);
+    $("lettering").hidden = !show;
+    if (!show) return;
+    $("text-what").textContent = l.selected >= 0 ? "· “" + l.text + "”" : "· new lettering";
+    const set = (id, v) => { if (document.activeElement !== $(id)) $(id).value = v; };
+    set("text-font", l.font || "go-regular");
+    set("text-height", fmtField(l.height));
+    set("text-role", l.role || "cutout");
+    set("text-angle", String(Number(l.angle_deg.toFixed(3))));
+    set("text-spacing", fmtField(l.spacing));
+    $("text-stencil").checked = l.stencil_count > 0;
+    if (l.stencil_count > 0) { set("text-bridge", fmtField(l.stencil_width)); set("text-bridges", String(l.stencil_count)); }
+    $("text-stencil").disabled = (l.role || "cutout") !== "cutout";
+    for (const id of ["text-bridge", "text-bridges"]) $(id).disabled = !$("text-stencil").checked || $("text-stencil").disabled;
+  }
+
+  // sendTextStyle gives the app the Lettering fields: the style of the selected lettering and of new
+  // lettering.
+  function sendTextStyle() {
+    if (!app) return;
+    const num = (id) => Number($(id).value);
+    const stencil = $("text-stencil").checked && $("text-role").value === "cutout";
+    if (stencil && !(num("text-bridge") > 0)) $("text-bridge").value = fmtField(Math.max(num("text-height") / 20, 0.1));
+    const r = app.setTextStyle({
+      font: $("text-font").value, height: num("text-height"), role: $("text-role").value,
+      angle_deg: num("text-angle"), spacing: num("text-spacing"),
+      stencil_width: stencil ? num("text-bridge") : 0, stencil_count: stencil ? num("text-bridges") : 0,
+    });
+    if (!r.ok) toast("Lettering: " + r.error, true);
+    refresh();
+  }
+
+  function showAbout() {
+    if (app) $("about-licence").textContent = app.fontLicence();
+    $("about").hidden = false;
   }
 
   function renderAnswers(u) {
@@ -587,9 +662,12 @@
       $("weight").textContent = "—";
       $("weight-sub").textContent = "no material: choose one for the weight";
     } else {
-      $("weight").textContent = fmtSig(state.mass) + " kg";
-      const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
-      $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+      // Pounds first on a part drawn in inches or feet, kilograms first otherwise.
+      const lb = fmtSig(Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB) + " lb";
+      const kg = fmtSig(state.mass) + " kg";
+      const imperial = u === "in" || u === "ft";
+      $("weight").textContent = imperial ? lb : kg;
+      $("weight-sub").textContent = (imperial ? kg : lb) + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
     }
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
     $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
@@ -731,6 +809,12 @@
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
     report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    cutfile: () => {
+      const format = $("cut-format").value;
+      const text = app.cutFile(format);
+      if (typeof text === "string") download(text, baseName() + "-cut." + format, format === "svg" ? "image/svg+xml" : "application/dxf");
+      else toast("Cut file: " + text.error, true);
+    },
     template: () => {
       const pdf = app.templatePDF($("paper").value);
       if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
@@ -743,8 +827,11 @@
     },
     help: showHelp,
     cautions: showCautions,
+    about: showAbout,
     close: closeOverlays,
     "dismiss-units-note": () => { $("units-note").hidden = true; },
+    "dismiss-guide": () => { $("guide").hidden = true; writeStore(GUIDE_DONE, "1"); },
+    "show-guide": () => { closeOverlays(); $("guide").hidden = false; writeStore(GUIDE_DONE, ""); },
     "undo-units": () => { app.undo(); $("units-note").hidden = true; },
     "restore-previous": () => {
       unpackText(readStore(PREVIOUS)).then((prev) => {
@@ -778,7 +865,7 @@
     if (!b || b.disabled) return;
     const d = b.dataset;
     if (d.action) {
-      if (!app && !["help", "cautions", "close"].includes(d.action)) return;
+      if (!app && !["help", "cautions", "about", "close"].includes(d.action)) return;
       ACTIONS[d.action]();
     } else if (d.tool) {
       app.setTool(d.tool);
@@ -802,8 +889,8 @@
     } else {
       return;
     }
-    if (app && !["help", "cautions", "open"].includes(d.action)) refresh();
-    if (!b.closest(".overlay") && d.action !== "help" && d.action !== "cautions") giveCanvasKeys();
+    if (app && !["help", "cautions", "about", "open"].includes(d.action)) refresh();
+    if (!b.closest(".overlay") && !["help", "cautions", "about"].includes(d.action)) giveCanvasKeys();
   }
 
   function onKey(e) {
@@ -856,6 +943,9 @@
       input.addEventListener("scroll", () => { input.closest(".field").querySelector(".mirror").scrollLeft = input.scrollLeft; });
     }
     $("material").addEventListener("change", fillThicknessList);
+    for (const id of ["text-font", "text-height", "text-role", "text-angle", "text-spacing", "text-stencil", "text-bridge", "text-bridges"]) {
+      $(id).addEventListener("change", () => { sendTextStyle(); if ($(id).tagName === "SELECT" || $(id).type === "checkbox") giveCanvasKeys(); });
+    }
     $("density-unit").addEventListener("change", sendMaterial);
     $("hole-dia").addEventListener("change", () => {
       const d = Number($("hole-dia").value);
@@ -883,6 +973,7 @@
     if ([...$("paper").options].some((o) => o.value === paper)) $("paper").value = paper;
     $("paper").addEventListener("change", () => writeStore(PAPER, $("paper").value));
     if (readStore(FOLDED)) $("fold").click();
+    $("guide").hidden = Boolean(readStore(GUIDE_DONE));
   }
 
   window.plumbUI = { ready, onChange, timing };

@@ -1,0 +1,32 @@
+package geom
+
+import "testing"
+
+// TestLocal checks that the local pieces, moved back by the origin, are the boundary's own pieces,
+// for a literal boundary and for one Combine made far from the origin; there the local points of
+// the cut are exact: the square [5e9, 5e9 + 3]² less the half-plane x > 5e9 + 1 keeps the cut at
+// local x = 1 exactly.
+func TestLocal(t *testing.T) {
+	far := Pt(5e9, 5e9)
+	square := Region{Loops: []Loop{RectLoop(far, far.Add(Pt(3, 3)))}}
+	cut := Region{Loops: []Loop{RectLoop(far.Add(Pt(1, -1)), far.Add(Pt(4, 4)))}}
+	for _, b := range []Boundary{
+		{Pieces: RectLoop(Pt(2, 3), Pt(5, 7))},
+		Combine(func(in []bool) bool { return in[0] && !in[1] }, square, cut),
+	} {
+		o, local := b.Local()
+		if len(local) != len(b.Pieces) {
+			t.Fatalf("%d local pieces, want %d", len(local), len(b.Pieces))
+		}
+		box := EmptyRect()
+		for i, s := range local {
+			box = box.Union(s.Bounds())
+			if got, want := s.Start().Add(o), b.Pieces[i].Start(); got.Dist(want) > 1e-6 {
+				t.Errorf("piece %d starts at %v + %v, want %v", i, o, s.Start(), want)
+			}
+		}
+		if b.Pieces[0].Start().X >= 5e9 && box.Max.X+o.X-far.X != 1 {
+			t.Errorf("local box %v about %v; want the cut at x = 5e9 + 1 exactly", box, o)
+		}
+	}
+}
