@@ -104,7 +104,7 @@ func measure(b *testing.B, items int, op func()) {
 // (PolygonMoments) and from a Boundary of lines (IntegratePoly), against orb's planar.CentroidArea (area
 // and centroid only) on the same random star polygon.
 func BenchmarkPolygonMoments(b *testing.B) {
-	for _, n := range []int{100_000, 1_000_000} {
+	for _, n := range []int{1_000, 100_000, 1_000_000} {
 		pts, ring := randomStarPolygon(rand.New(rand.NewPCG(9, uint64(n))), n, Pt(1e3, 2e3))
 		boundary := bnd(Polygon(pts...))
 		poly := orb.Polygon{ring}

@@ -52,7 +52,7 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	if o != (Point{}) {
 		regions = translatedRegions(regions, o.Mul(-1))
 	}
-	ms := regionMonos(regions)
+	ms, starts := regionMonos(regions)
 	if len(ms) == 0 {
 		return Boundary{}
 	}
@@ -61,34 +61,39 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 		box = box.Union(ms[i].box)
 	}
 	tol := tolerance(Rect{box.Min.Add(o), box.Max.Add(o)})
-	c := newClassifier(ms, regions, keep, box, tol)
+	c := newClassifier(ms, starts, regions, keep, tol)
 	kept := c.classify(cutList(ms, findHits(ms, tol, nil), tol))
 	pieces := closeUp(dedupe(kept, c.side), c.side)
 	if o == (Point{}) {
-		return Boundary{Pieces: pieces}
+		return Boundary{Pieces: pieces}.Indexed()
 	}
 	abs := make([]Segment, len(pieces))
 	for i, s := range pieces {
 		abs[i] = s.translated(o)
 	}
-	return Boundary{Pieces: abs, local: pieces, origin: o}
+	return Boundary{Pieces: abs, local: pieces, origin: o}.Indexed()
 }
 
-// regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index.
-func regionMonos(regions []Region) monos {
+// regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index, and
+// where each loop's pieces start (the pieces of loop k are ms[starts[k]:starts[k+1]]; loops without
+// pieces are left out).
+func regionMonos(regions []Region) (ms monos, starts []int32) {
 	n := 0
 	for _, r := range regions {
 		for _, l := range r.Loops {
 			n += len(l)
 		}
 	}
-	ms := make(monos, 0, 2*n) // most segments have at most one turning point
+	ms = make(monos, 0, 2*n) // most segments have at most one turning point
+	starts = []int32{0}
 	for ri, r := range regions {
 		for _, l := range r.Loops {
-			ms = appendMonos(ms, l, ri)
+			if ms = appendMonos(ms, l, ri); len(ms) > int(starts[len(starts)-1]) {
+				starts = append(starts, int32(len(ms)))
+			}
 		}
 	}
-	return ms
+	return ms, starts
 }
 
 // cut is a parameter at which a piece must be cut.
@@ -202,27 +207,89 @@ func (ms monos) moveHit(h hit, p Point, tol float64) (ti, tj float64, ok bool) {
 }
 
 // classifier decides which pieces of a set of regions bound the set that keep selects.
+//
+// The winding numbers about a probe come from the loops whose box holds it: a closed chain of pieces
+// whose box does not hold the probe crosses the probe's ray not at all (the probe is above, below or
+// right of it) or with steps that add up to 0 (left of it). So a probe costs the pieces of the few
+// loops around it, found through a box tree over the loops (and, for a loop of many pieces, one over
+// its pieces), not the pieces of every region on its horizontal. Chains that do not close (a loop with
+// an unusable segment) are always counted.
 type classifier struct {
-	ms    monos
-	rules []FillRule
-	keep  func([]bool) bool
-	index yIndex
-	ws    [2]windings // about the two probes beside a piece
-	in    []bool      // membership by region, false outside decide
-	tol   float64
-	side  float64
+	ms       monos
+	rules    []FillRule
+	keep     func([]bool) bool
+	loops    []loopSpan
+	loopTree *boxTree    // over the closed loops' boxes
+	open     []int       // the loops whose chain of pieces does not close
+	monoTree *boxTree    // over the pieces' boxes
+	ws       [2]windings // about the two probes beside a piece
+	in       []bool      // membership by region, false outside decide
+	memo     map[[memoRegions]int32]bool
+	inside   []int32
+	tol      float64
+	side     float64
 }
 
-func newClassifier(ms monos, regions []Region, keep func([]bool) bool, box Rect, tol float64) *classifier {
-	c := &classifier{ms: ms, keep: keep, index: newYIndex(ms, box), tol: tol, side: sideTolerance * tol,
-		rules: make([]FillRule, len(regions)), in: make([]bool, len(regions))}
+// loopSpan is a loop's pieces ms[lo:hi], with a box tree over them for a loop of many pieces.
+type loopSpan struct {
+	lo, hi int
+	box    Rect
+	tree   *boxTree
+}
+
+// bigLoop is the number of pieces from which a loop gets its own box tree.
+const bigLoop = 64
+
+// memoRegions is the most regions a probe may lie in for keep's answer to be remembered (decide).
+const memoRegions = 4
+
+func newClassifier(ms monos, starts []int32, regions []Region, keep func([]bool) bool, tol float64) *classifier {
+	c := &classifier{ms: ms, keep: keep, tol: tol, side: sideTolerance * tol,
+		rules: make([]FillRule, len(regions)), in: make([]bool, len(regions)),
+		memo: make(map[[memoRegions]int32]bool)}
 	for j := range c.ws {
 		c.ws[j].w = make([]int, len(regions))
 	}
 	for i, r := range regions {
 		c.rules[i] = r.Rule
 	}
+	boxes := make([]Rect, len(ms))
+	for i := range ms {
+		boxes[i] = ms[i].box
+	}
+	c.monoTree = newBoxTree(boxes)
+	loopBoxes := make([]Rect, len(starts)-1)
+	for k := range loopBoxes {
+		span := loopSpan{lo: int(starts[k]), hi: int(starts[k+1]), box: EmptyRect()}
+		for _, b := range boxes[span.lo:span.hi] {
+			span.box = span.box.Union(b)
+		}
+		if span.hi-span.lo >= bigLoop {
+			span.tree = newBoxTree(boxes[span.lo:span.hi])
+		}
+		c.loops = append(c.loops, span)
+		loopBoxes[k] = span.box
+		if !ms.closedChain(span.lo, span.hi) {
+			c.open, loopBoxes[k] = append(c.open, k), EmptyRect()
+		}
+	}
+	c.loopTree = newBoxTree(loopBoxes)
 	return c
+}
+
+// closedChain reports whether the pieces ms[lo:hi] form a closed chain: each starts exactly where the
+// one before it ends, and the first where the last ends.
+func (ms monos) closedChain(lo, hi int) bool {
+	for k := lo; k < hi; k++ {
+		prev := k - 1
+		if k == lo {
+			prev = hi - 1
+		}
+		if ms[k].a != ms[prev].b {
+			return false
+		}
+	}
+	return true
 }
 
 // classify cuts every piece at its cuts (ordered by piece) and returns the parts that bound the set.
@@ -338,17 +405,16 @@ func (c *classifier) clearance(i int, p Point, piece [3]Point, limit float64) fl
 		}
 		return true
 	}
-	for b := c.index.band(p.Y - limit); b <= c.index.band(p.Y+limit); b++ {
-		for _, k := range c.index.in(b) {
-			m := &c.ms[k]
-			if int(k) == i || !boxesMeet(m.box, near, 0) {
-				continue
-			}
-			if _, d := nearest(m.s, m.t0, m.t1, p); d < r && (d > c.tol || !along(m)) {
-				r = d
-			}
+	c.monoTree.overlapping(near, func(k int) bool {
+		m := &c.ms[k]
+		if k == i {
+			return true
 		}
-	}
+		if _, d := nearest(m.s, m.t0, m.t1, p); d < r && (d > c.tol || !along(m)) {
+			r = d
+		}
+		return true
+	})
 	return r
 }
 
@@ -366,33 +432,38 @@ func (ws *windings) add(region, w int) {
 }
 
 // sides reports whether keep holds at the probes ps[0] and ps[1] beside mono own, whose crossings of
-// the probes' rays (when the probe is within its y range) are ownCross. The probes lie within a band or
-// two of each other, so the pieces of a band are looked at once for both.
+// the probes' rays (when the probe is within its y range) are ownCross.
 func (c *classifier) sides(ps [2]Point, own int, ownCross [2]int) (bool, bool) {
-	b0, b1 := c.index.band(ps[0].Y), c.index.band(ps[1].Y)
-	if b0 == b1 {
-		c.accumulate(b0, ps, own, ownCross, 0, 1)
-	} else {
-		c.accumulate(b0, ps, own, ownCross, 0, 0)
-		c.accumulate(b1, ps, own, ownCross, 1, 1)
+	for j := range ps {
+		c.windingAt(ps[j], own, ownCross[j], &c.ws[j])
 	}
 	return c.decide(&c.ws[0]), c.decide(&c.ws[1])
 }
 
-// accumulate adds the crossings of the rays from probes ps[first..last] with the pieces of band b.
-func (c *classifier) accumulate(b int, ps [2]Point, own int, ownCross [2]int, first, last int) {
-	lo := Point{math.Min(ps[first].X, ps[last].X), math.Min(ps[first].Y, ps[last].Y)}
-	hi := Point{math.Max(ps[first].X, ps[last].X), math.Max(ps[first].Y, ps[last].Y)}
-	for _, k := range c.index.in(b) {
-		m := &c.ms[k]
-		if hi.Y < m.box.Min.Y || lo.Y > m.box.Max.Y || lo.X > m.box.Max.X {
-			continue // the rays miss m, or both its ends lie on one side (step 0)
-		}
-		for j := first; j <= last; j++ {
-			if w := c.crossing(m, int(k) == own, ps[j], ownCross[j]); w != 0 {
-				c.ws[j].add(m.region, w)
+// windingAt adds to ws the crossings of the ray from p towards +x with the pieces of the loops whose
+// box holds p and of the open loops (see classifier).
+func (c *classifier) windingAt(p Point, own, ownCross int, ws *windings) {
+	loop := func(l int) bool {
+		span := &c.loops[l]
+		add := func(k int) bool {
+			m := &c.ms[k]
+			if w := c.crossing(m, k == own, p, ownCross); w != 0 {
+				ws.add(m.region, w)
 			}
+			return true
 		}
+		if span.tree == nil {
+			for k := span.lo; k < span.hi; k++ {
+				add(k)
+			}
+			return true
+		}
+		ray := Rect{p, Pt(math.Max(p.X, span.box.Max.X), p.Y)}
+		return span.tree.overlapping(ray, func(k int) bool { return add(span.lo + k) })
+	}
+	c.loopTree.overlapping(Rect{p, p}, loop)
+	for _, l := range c.open {
+		loop(l)
 	}
 }
 
@@ -412,16 +483,43 @@ func (c *classifier) crossing(m *mono, own bool, p Point, ownCross int) int {
 	return 0
 }
 
-// decide reports whether keep holds for the winding numbers ws, and clears ws.
+// decide reports whether keep holds for the winding numbers ws, and clears ws. Outside every region
+// keep is false (Combine checks it), and where the probe lies in at most memoRegions regions keep's
+// answer for that set is remembered: keep may look at every region (a difference with thousands of
+// cut-outs), while a probe lies in few.
 func (c *classifier) decide(ws *windings) bool {
+	inside := c.inside[:0]
 	for _, r := range ws.touched {
-		c.in[r] = c.rules[r].inside(ws.w[r])
+		if c.rules[r].inside(ws.w[r]) {
+			inside = append(inside, int32(r))
+		}
+		ws.w[r] = 0
+	}
+	ws.touched, c.inside = ws.touched[:0], inside
+	if len(inside) == 0 {
+		return false
+	}
+	var key [memoRegions]int32
+	if len(inside) <= memoRegions {
+		for i := range key {
+			key[i] = -1
+		}
+		slices.Sort(inside)
+		copy(key[:], inside)
+		if k, ok := c.memo[key]; ok {
+			return k
+		}
+	}
+	for _, r := range inside {
+		c.in[r] = true
 	}
 	k := c.keep(c.in)
-	for _, r := range ws.touched {
-		ws.w[r], c.in[r] = 0, false
+	for _, r := range inside {
+		c.in[r] = false
 	}
-	ws.touched = ws.touched[:0]
+	if len(inside) <= memoRegions {
+		c.memo[key] = k
+	}
 	return k
 }
 
@@ -509,53 +607,3 @@ func samePiece(a, b keptPiece, tol float64) bool {
 	_, d := nearest(b.s, 0, 1, a.mid)
 	return d <= tol
 }
-
-// yIndex lists, for each of a number of equal horizontal bands, the pieces whose y range meets the
-// band, so that a ray's crossings are looked for only among the pieces of its band.
-type yIndex struct {
-	y0, h float64
-	start []int32 // band k holds items[start[k]:start[k+1]]
-	items []int32
-}
-
-func newYIndex(ms monos, box Rect) yIndex {
-	n := min(max(1, 4*int(math.Sqrt(float64(len(ms))))), 4096)
-	x := yIndex{y0: box.Min.Y, h: (box.Max.Y - box.Min.Y) / float64(n), start: make([]int32, n+1)}
-	if !(x.h > 0) {
-		x.h, n = 1, 1
-		x.start = x.start[:2]
-	}
-	for i := range ms {
-		for k := x.band(ms[i].box.Min.Y); k <= x.band(ms[i].box.Max.Y); k++ {
-			x.start[k+1]++
-		}
-	}
-	for k := range n {
-		x.start[k+1] += x.start[k]
-	}
-	x.items = make([]int32, x.start[n])
-	fill := slices.Clone(x.start[:n])
-	for i := range ms {
-		for k := x.band(ms[i].box.Min.Y); k <= x.band(ms[i].box.Max.Y); k++ {
-			x.items[fill[k]] = int32(i)
-			fill[k]++
-		}
-	}
-	return x
-}
-
-// band returns the band holding y (the first or last for y outside the index).
-func (x *yIndex) band(y float64) int {
-	last := len(x.start) - 2
-	f := (y - x.y0) / x.h
-	switch {
-	case !(f > 0):
-		return 0
-	case f >= float64(last):
-		return last
-	}
-	return int(f)
-}
-
-// in returns the pieces whose y range meets band b.
-func (x *yIndex) in(b int) []int32 { return x.items[x.start[b]:x.start[b+1]] }

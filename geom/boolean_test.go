@@ -346,3 +346,16 @@ func TestTangentSpurKeepsArea(t *testing.T) {
 		}
 	}
 }
+
+// TestDifferenceManyCutouts checks a plate with 300 glyph cut-outs (some with counters, which stay
+// material) against the plate's moments less the glyphs' own, each integrated alone: the glyphs lie
+// apart, so the moments add (Green's theorem).
+func TestDifferenceManyCutouts(t *testing.T) {
+	plate, glyphs := glyphPlate(300)
+	want := unitMoments(plate.Boundary())
+	for _, g := range glyphs {
+		want = want.Sub(unitMoments(g.Boundary()))
+	}
+	got := unitMoments(Difference(plate, glyphs...))
+	momentsAgree(t, "plate with 300 glyphs", got, want, Pt(0, 0), 1e-12)
+}

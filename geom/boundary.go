@@ -1,5 +1,10 @@
 package geom
 
+import (
+	"math"
+	"sync"
+)
+
 // Boundary is the oriented boundary of a material set: material lies on the left of every piece
 // (counter-clockwise outer edges, clockwise hole edges). It is what the integrals and queries run on.
 //
@@ -7,11 +12,64 @@ package geom
 // where the points Combine computed (intersections, cuts) are exact to the part's own scale rather
 // than rounded to the absolute coordinates of Pieces; the integrators use that copy. It is dropped
 // when Pieces is changed in length; a Boundary written as a literal has none.
+//
+// A Boundary made by Combine or Indexed answers its queries (Contains, Distance, LineHits, Bounds)
+// through a spatial index of its pieces, built on the first query and shared by its copies; the
+// pieces must not change after that (a change in their number drops the index).
 type Boundary struct {
 	Pieces []Segment
 
 	local  []Segment // the pieces relative to origin, when origin is not (0, 0)
 	origin Point
+	index  *queryIndex
+}
+
+// Indexed returns b with a spatial index for its queries (see Boundary), built on the first query.
+func (b Boundary) Indexed() Boundary {
+	b.index = &queryIndex{}
+	return b
+}
+
+// queryIndex is the spatial index of a Boundary's pieces: a box tree over their bounds (padded for
+// rounding like coarseBox), and the Boundary's bounds and coincidence tolerance.
+type queryIndex struct {
+	once   sync.Once
+	n      int
+	tree   *boxTree
+	bounds Rect
+	tol    float64
+}
+
+// queries returns b's index, built now if need be, or nil when b has none or its pieces changed in
+// number.
+func (b Boundary) queries() *queryIndex {
+	x := b.index
+	if x == nil {
+		return nil
+	}
+	x.once.Do(func() {
+		boxes := make([]Rect, len(b.Pieces))
+		for i, s := range b.Pieces {
+			boxes[i] = EmptyRect()
+			if usable(s) {
+				boxes[i] = paddedBounds(s)
+			}
+		}
+		x.n, x.tree, x.bounds = len(b.Pieces), newBoxTree(boxes), b.scanBounds()
+		x.tol = tolerance(x.bounds)
+	})
+	if x.n != len(b.Pieces) {
+		return nil
+	}
+	return x
+}
+
+// paddedBounds returns s.Bounds() widened by coarsePad of the coordinates' magnitude, as coarseBox is:
+// it holds every point of s as evaluated in floating point.
+func paddedBounds(s Segment) Rect {
+	r := s.Bounds()
+	m := coarsePad * max(math.Abs(r.Min.X), math.Abs(r.Max.X), math.Abs(r.Min.Y), math.Abs(r.Max.Y))
+	return Rect{r.Min.Sub(Pt(m, m)), r.Max.Add(Pt(m, m))}
 }
 
 // frame returns an exactly representable origin o near the pieces, the pieces, and the offset d to

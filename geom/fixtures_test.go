@@ -178,3 +178,50 @@ func closedFormShapes() []shapeFixture {
 		},
 	}
 }
+
+// glyph returns a letter-like cut-out in the cell of side 10 at (x, y): every third one an "o" (an
+// outer and a counter loop of four cubics each, the counter turning the other way, so it stays
+// material), the others a wavy blob of ten cubics. About 9.3 cubics per glyph.
+func glyph(k int, x, y float64) Region {
+	c := Pt(x+5, y+5)
+	if k%3 == 0 {
+		return Region{Loops: []Loop{cubicEllipse(c, 3.5, 4.2), cubicEllipse(c, 1.8, 2.6).Reverse()}}
+	}
+	const n = 10
+	pts := make([]Point, n)
+	for i := range pts {
+		th := 2 * math.Pi * float64(i) / n
+		r := 3.6 + 0.6*math.Sin(3*th+float64(k))
+		pts[i] = c.Add(Pt(r*math.Cos(th), r*math.Sin(th)))
+	}
+	l := make(Loop, n)
+	for i := range l {
+		a, b := pts[i], pts[(i+1)%n]
+		prev, next := pts[(i+n-1)%n], pts[(i+2)%n]
+		l[i] = Cubic(a, a.Add(b.Sub(prev).Mul(1.0/6)), b.Sub(next.Sub(a).Mul(1.0/6)), b)
+	}
+	return Region{Loops: []Loop{l}}
+}
+
+// cubicEllipse returns the counter-clockwise ellipse about c with semi-axes a, b as four cubics
+// (the usual quarter-circle control distance 0.5523).
+func cubicEllipse(c Point, a, b float64) Loop {
+	const k = 0.5523
+	pt := func(x, y float64) Point { return c.Add(Pt(x, y)) }
+	return Loop{
+		Cubic(pt(a, 0), pt(a, k*b), pt(k*a, b), pt(0, b)),
+		Cubic(pt(0, b), pt(-k*a, b), pt(-a, k*b), pt(-a, 0)),
+		Cubic(pt(-a, 0), pt(-a, -k*b), pt(-k*a, -b), pt(0, -b)),
+		Cubic(pt(0, -b), pt(k*a, -b), pt(a, -k*b), pt(a, 0)),
+	}
+}
+
+// glyphPlate returns a plate with k glyph cut-outs in rows of twice as many columns as rows.
+func glyphPlate(k int) (plate Region, glyphs []Region) {
+	cols := int(math.Ceil(math.Sqrt(2 * float64(k))))
+	rows := (k + cols - 1) / cols
+	for i := range k {
+		glyphs = append(glyphs, glyph(i, 10*float64(i%cols), 10*float64(i/cols)))
+	}
+	return Region{Loops: []Loop{RectLoop(Pt(-5, -5), Pt(10*float64(cols)+5, 10*float64(rows)+5))}}, glyphs
+}

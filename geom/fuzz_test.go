@@ -55,8 +55,9 @@ func (r *byteReader) region() Region {
 	return reg
 }
 
-// FuzzCombine combines random regions: nothing panics, and union, intersection and difference obey
-// inclusion–exclusion in area and every moment (the moments are integrals over the set, so additive).
+// FuzzCombine combines random regions: nothing panics, union, intersection and difference obey
+// inclusion–exclusion in area and every moment (the moments are integrals over the set, so additive),
+// and the connected pieces of the difference add up to it.
 func FuzzCombine(f *testing.F) {
 	f.Add([]byte{1, 4, 4, 4, 0, 0, 1, 8, 4, 4})
 	f.Fuzz(func(t *testing.T, data []byte) {
@@ -82,6 +83,22 @@ func FuzzCombine(f *testing.F) {
 			if m.M < -1e-9*L*L {
 				t.Errorf("negative area %g", m.M)
 			}
+		}
+		// The connected pieces of the difference (islands included) add up to it, none is empty, and
+		// the loops of each bound it again.
+		var sum Moments
+		for i, p := range Difference(a, b).Components() {
+			mp := unitMoments(p)
+			sum = sum.Add(mp)
+			if mp.M < -1e-9*L*L {
+				t.Errorf("piece %d has area %g", i, mp.M)
+			}
+			if again := unitMoments(Region{Loops: p.Loops()}.Boundary()); !momentsNear(again, mp, L, 1e-9) {
+				t.Errorf("piece %d: its loops bound %+v, the piece %+v", i, again, mp)
+			}
+		}
+		if !momentsNear(sum, d, L, 1e-9) {
+			t.Errorf("the pieces of A∖B add up to %+v, A∖B is %+v", sum, d)
 		}
 	})
 }

@@ -124,15 +124,20 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 func (ms monos) sweep(tol float64, visit func(j, i int) bool) {
 	// Sorting the left edges beside the indices keeps the comparisons within one small slice (the
 	// order is the one sorting the indices by ms[i].box.Min.X gives, ties included).
-	type edge struct {
-		x float64
-		i int
-	}
 	order := make([]edge, len(ms))
 	for i := range order {
 		order[i] = edge{ms[i].box.Min.X, i}
 	}
 	slices.SortFunc(order, func(a, b edge) int { return cmp.Compare(a.x, b.x) })
+	if len(ms) >= sweepTreeMin {
+		ms.sweepTree(order, tol, visit)
+		return
+	}
+	ms.sweepList(order, tol, visit)
+}
+
+// sweepList is sweep with the list of open boxes.
+func (ms monos) sweepList(order []edge, tol float64, visit func(j, i int) bool) {
 	active := make([]int, 0, 64)
 	for _, e := range order {
 		i, bi := e.i, ms[e.i].box
@@ -150,6 +155,47 @@ func (ms monos) sweep(tol float64, visit func(j, i int) bool) {
 			}
 		}
 		active = append(active, i)
+	}
+}
+
+// edge is a box's left edge in the order of sweep.
+type edge struct {
+	x float64
+	i int
+}
+
+// sweepTreeMin is the number of pieces from which sweep finds the boxes near each one through a box
+// tree instead of its list of open boxes, which grows with the pieces spanning one x (the rows of a
+// sign with thousands of glyphs).
+const sweepTreeMin = 2048
+
+// sweepTree visits the same pairs as sweep's list of open boxes, in the same order: for the box i at
+// rank r in order, every j of lower rank whose box comes within tol, in rank order. (Sweep drops j
+// only once a left edge lies beyond its right edge, when j can meet no later box.)
+func (ms monos) sweepTree(order []edge, tol float64, visit func(j, i int) bool) {
+	rank := make([]int32, len(ms))
+	boxes := make([]Rect, len(ms))
+	for r, e := range order {
+		rank[e.i], boxes[e.i] = int32(r), ms[e.i].box
+	}
+	tree := newBoxTree(boxes)
+	var near []int32
+	for r, e := range order {
+		bi := boxes[e.i]
+		near = near[:0]
+		q := Rect{bi.Min.Sub(Pt(tol, tol)), bi.Max.Add(Pt(tol, tol))}
+		tree.overlapping(q, func(j int) bool {
+			if int(rank[j]) < r && boxesMeet(boxes[j], bi, tol) {
+				near = append(near, rank[j])
+			}
+			return true
+		})
+		slices.Sort(near)
+		for _, rj := range near {
+			if !visit(order[rj].i, e.i) {
+				return
+			}
+		}
 	}
 }
 

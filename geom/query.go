@@ -9,6 +9,14 @@ import (
 // on the boundary may go either way.
 func (b Boundary) Contains(p Point) bool {
 	w := 0
+	if x := b.queries(); x != nil {
+		x.tree.overlapping(Rect{p, Pt(math.Max(p.X, x.bounds.Max.X), p.Y)}, func(i int) bool {
+			s := &b.Pieces[i]
+			w += segmentWinding(*s, s.Start(), p)
+			return true
+		})
+		return w != 0
+	}
 	for _, s := range b.Pieces {
 		// A piece wholly above, below or right of p does not cross the ray from p towards +x;
 		// segmentWinding would find the same from the tight box.
@@ -24,6 +32,12 @@ func (b Boundary) Contains(p Point) bool {
 // Distance returns the distance from p to the nearest point of b's pieces (the true curves), or +Inf
 // when b is empty.
 func (b Boundary) Distance(p Point) float64 {
+	if x := b.queries(); x != nil {
+		return x.tree.nearest(p, func(i int) float64 {
+			_, d := nearest(b.Pieces[i], 0, 1, p)
+			return d
+		})
+	}
 	// Every piece passes through its start, so the nearest start bounds the answer from above; a
 	// piece whose coarse box lies no nearer cannot improve on it.
 	best, first, firstSq := math.Inf(1), -1, math.Inf(1)
@@ -87,19 +101,29 @@ func (b Boundary) LineHits(p, dir Point) []float64 {
 	if dir == (Point{}) {
 		panic("geom: LineHits needs a non-zero direction")
 	}
-	tol := tolerance(b.Bounds())
 	var ts []float64
 	var buf [8][2]float64
-	for _, s := range b.Pieces {
-		if !usable(s) {
-			continue
-		}
-		// Roots are sought a little past the ends too: a line through a vertex must not slip
-		// between the two pieces that meet there.
+	tol := 0.0
+	// meet appends the meetings with s. Roots are sought a little past the ends too: a line through a
+	// vertex must not slip between the two pieces that meet there.
+	meet := func(s *Segment) bool {
 		slack := tol / math.Max(s.Start().Dist(s.End()), tol)
-		for _, h := range lineMeets(p, dir, s, -slack, 1+slack, tol, buf[:0]) {
+		for _, h := range lineMeets(p, dir, *s, -slack, 1+slack, tol, buf[:0]) {
 			if h[1] >= -slack && h[1] <= 1+slack {
 				ts = append(ts, h[0])
+			}
+		}
+		return true
+	}
+	if x := b.queries(); x != nil {
+		tol = x.tol
+		near := lineNear(p, dir, 4*tol)
+		x.tree.visit(near, func(i int) bool { return meet(&b.Pieces[i]) })
+	} else {
+		tol = tolerance(b.Bounds())
+		for i := range b.Pieces {
+			if usable(b.Pieces[i]) {
+				meet(&b.Pieces[i])
 			}
 		}
 	}
@@ -129,9 +153,36 @@ func (b Boundary) Transform(m Affine) Boundary {
 	return out
 }
 
+// lineNear returns a test of whether a rectangle comes within d of the line p + t·dir: whether its
+// corners' signed distances from the line, n·(corner − p) with n normal to dir, are not all beyond d on
+// one side.
+func lineNear(p, dir Point, d float64) func(Rect) bool {
+	n := Point{-dir.Y, dir.X}
+	pad := d * n.Norm()
+	return func(r Rect) bool {
+		if r.IsEmpty() {
+			return false
+		}
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for _, c := range [4]Point{r.Min, r.Max, {r.Min.X, r.Max.Y}, {r.Max.X, r.Min.Y}} {
+			v := n.Dot(c.Sub(p))
+			lo, hi = math.Min(lo, v), math.Max(hi, v)
+		}
+		return lo <= pad && hi >= -pad
+	}
+}
+
 // Bounds returns the tightest axis-aligned rectangle holding b's pieces (those with finite data and a
 // proper shape).
 func (b Boundary) Bounds() Rect {
+	if x := b.queries(); x != nil {
+		return x.bounds
+	}
+	return b.scanBounds()
+}
+
+// scanBounds is Bounds computed from the pieces.
+func (b Boundary) scanBounds() Rect {
 	// The pieces' ends lie in the result; only a piece whose coarse box reaches beyond all the ends
 	// can widen it, and only such pieces need their tight bounds.
 	r := EmptyRect()

@@ -197,11 +197,24 @@ func TestCoarseBoxHoldsBounds(t *testing.T) {
 }
 
 // TestQueriesMatchExact compares Contains, Distance and Bounds, which skip pieces by their coarse
-// boxes, with the same answers computed from every piece, at random points near the curves far from
-// the origin.
+// boxes or through the spatial index (Indexed), with the same answers computed from every piece, at
+// random points near the curves far from the origin, and LineHits with and without the index.
 func TestQueriesMatchExact(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 4))
-	for k, b := range queryShapes() {
+	var shapes []Boundary
+	for _, b := range queryShapes() {
+		shapes = append(shapes, b, b.Indexed())
+	}
+	for k, b := range shapes {
+		if b.index != nil {
+			plain := Boundary{Pieces: b.Pieces}
+			for _, p := range nearCurve(rng, b, 50) {
+				dir := Pt(rng.NormFloat64(), rng.NormFloat64())
+				if got, want := b.LineHits(p, dir), plain.LineHits(p, dir); !slices.Equal(got, want) {
+					t.Errorf("shape %d: LineHits(%v, %v) = %v, want %v", k, p, dir, got, want)
+				}
+			}
+		}
 		wantBox := EmptyRect()
 		for _, s := range b.Pieces {
 			wantBox = wantBox.Union(s.Bounds())

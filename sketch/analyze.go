@@ -35,6 +35,13 @@ type Analysis struct {
 	Warnings   []string
 	Cautions   []string
 	Body       geom.Boundary // the material of the part (outline minus cut-outs)
+	// Pieces are the connected pieces of material that come off the table after cutting, largest area
+	// first: one when the part holds together.
+	Pieces []Piece
+
+	// layers are the material and each overlay's material on the part, with their densities, in the
+	// order they were integrated: Pieces splits them.
+	layers []layer
 
 	// poly is the one polynomial density of all the material, or nil when the density is not a
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
@@ -46,6 +53,22 @@ type Analysis struct {
 type localPoly struct {
 	at geom.Point
 	p  geom.Poly
+}
+
+// Piece is one connected piece of a part's material: one outer edge with its holes. Lengths are in the
+// document unit, masses in kg.
+type Piece struct {
+	Body     geom.Boundary
+	Area     float64
+	Mass     float64
+	Centroid geom.Point
+	Origin   geom.Moments // mass moments about the document origin, overlays included
+}
+
+// layer is material of one density: the part's base material or an overlay where it lies on the part.
+type layer struct {
+	b geom.Boundary
+	f *density.Field
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -65,33 +88,12 @@ func Cautions() []string {
 	}
 }
 
-// Body returns the boundary of the part's material: the outline minus every cut-out.
+// Body returns the boundary of the part's material: the outline minus every cut-out and the lettering
+// cut out of it, with separate lettering. Lettering that cannot be laid out is left out (Analyze
+// reports it).
 func (d *Document) Body() geom.Boundary {
-	return geom.Combine(outlineMinusCutouts, d.regions()...)
-}
-
-// regions lists the outline followed by the cut-outs, the order outlineMinusCutouts expects.
-func (d *Document) regions() []geom.Region {
-	return append([]geom.Region{d.Outline}, d.Cutouts...)
-}
-
-// outlineMinusCutouts keeps the points in the outline (in[0]) and in no cut-out (in[1:]).
-func outlineMinusCutouts(in []bool) bool {
-	if !in[0] {
-		return false
-	}
-	for _, c := range in[1:] {
-		if c {
-			return false
-		}
-	}
-	return true
-}
-
-// onOverlay keeps the points of the part's material that the overlay (the last region) covers.
-func onOverlay(in []bool) bool {
-	n := len(in) - 1
-	return in[n] && outlineMinusCutouts(in[:n])
+	p, _ := d.plan()
+	return geom.Combine(p.keep, p.regions...)
 }
 
 // lengthUnit returns the document's length unit (millimetres when unset).
@@ -127,8 +129,12 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
+	p, err := d.plan()
+	if err != nil {
+		return nil, err
+	}
 	var shape geom.Moments
-	a.Body, shape = d.material(crossed)
+	a.Body, shape = d.material(p, crossed)
 	a.Area = shape.M
 	if err := checkArea(a.Body, a.Area, len(d.Cutouts)); err != nil {
 		return nil, err
@@ -136,34 +142,131 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if !d.HasMaterial() {
 		return a.shapeOnly(d, shape, unit)
 	}
-	regions := d.regions()
-	whole := materialPart{regions: regions, keep: outlineMinusCutouts, body: a.Body}
+	whole := materialPart{regions: p.regions, keep: p.keep, body: a.Body}
 	total, poly, err := a.addDensity(whole, &shape, d.Material, "material", unit, opt)
 	if err != nil {
 		return nil, err
 	}
-	if len(d.Overlays) == 0 {
+	if len(p.overlays) == 0 {
 		a.poly = poly
 	}
-	for i, ov := range d.Overlays {
-		path := fmt.Sprintf("overlays[%d]", i)
-		on := append(slices.Clone(regions), ov.Region)
-		b := geom.Combine(onOverlay, on...)
+	for i, ov := range p.overlays {
+		path := p.paths[i]
+		on := append(slices.Clone(p.regions), ov.Region)
+		b := geom.Combine(p.onOverlay, on...)
 		if b.IsEmpty() {
 			a.Warnings = append(a.Warnings, fmt.Sprintf("%s (%s) does not lie on the part's material", path, overlayName(ov, i)))
 			continue
 		}
-		part := materialPart{regions: on, keep: onOverlay, body: b}
+		part := materialPart{regions: on, keep: p.onOverlay, body: b}
 		m, _, err := a.addDensity(part, nil, ov.Material, path+".material", unit, opt)
 		if err != nil {
 			return nil, err
 		}
 		total = total.Add(m)
 	}
+	a.addShapeError(d, unit)
 	if err := a.setMoments(total); err != nil {
 		return nil, err
 	}
+	if err := a.splitPieces(unit, opt); err != nil {
+		return nil, err
+	}
 	return a, nil
+}
+
+// splitPieces fills in Pieces: the connected pieces of the body, each with the mass of every layer on
+// it (or its area, for a part without material), and a warning naming the islands when there is more
+// than one. A piece of an overlay's material
+// lies on one piece of the body, the one its boundary runs in or along.
+func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
+	comps := a.Body.Components()
+	if len(comps) <= 1 {
+		a.Pieces = a.whole()
+		return nil
+	}
+	a.Pieces = make([]Piece, len(comps))
+	for i, c := range comps {
+		a.Pieces[i].Body, a.Pieces[i].Area = c, c.IntegratePoly(geom.ConstPoly(1)).M
+	}
+	if a.NoMaterial {
+		for i, c := range comps {
+			a.Pieces[i].Origin = c.IntegratePoly(geom.ConstPoly(1))
+		}
+	}
+	for li, l := range a.layers {
+		parts := comps
+		if li > 0 {
+			parts = l.b.Components()
+		}
+		for k, part := range parts {
+			if li > 0 {
+				k = holdingPiece(comps, part)
+			}
+			r, err := integrateField(pieceOf(part), nil, l.f, opt)
+			if err != nil {
+				return err
+			}
+			a.RelErr = math.Max(a.RelErr, r.RelErr)
+			a.Pieces[k].Origin = a.Pieces[k].Origin.Add(r.Moments)
+		}
+	}
+	for i := range a.Pieces {
+		p := &a.Pieces[i]
+		p.Mass, p.Centroid = p.Origin.M, p.Origin.Centroid()
+	}
+	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s %s fall out unless bridged",
+		len(a.Pieces), pieceList(a.Pieces[1:]), unit.Name))
+	return nil
+}
+
+// pieceOf describes the material b bounds for integrateField: one region, its loops chained from b.
+func pieceOf(b geom.Boundary) materialPart {
+	return materialPart{regions: []geom.Region{{Loops: b.Loops()}}, keep: func(in []bool) bool { return in[0] }, body: b}
+}
+
+// whole returns the part as its one piece.
+func (a *Analysis) whole() []Piece {
+	return []Piece{{Body: a.Body, Area: a.Area, Mass: a.Mass, Centroid: a.Centroid, Origin: a.Origin}}
+}
+
+// holdingPiece returns the index of the piece of comps that part lies on: the one around or along the
+// middle of part's first boundary piece.
+func holdingPiece(comps []geom.Boundary, part geom.Boundary) int {
+	p := part.Pieces[0].At(0.5)
+	tol := 1e-9 * partSize(part)
+	for i, c := range comps {
+		if c.Contains(p) || c.Distance(p) <= tol {
+			return i
+		}
+	}
+	return 0
+}
+
+// pieceList lists the centroids of pieces as "(x, y), (x, y)".
+func pieceList(pieces []Piece) string {
+	var b strings.Builder
+	for i, p := range pieces {
+		if i > 0 {
+			b.WriteString(", ")
+		}
+		fmt.Fprintf(&b, "(%s, %s)", formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y))
+	}
+	return b.String()
+}
+
+// addShapeError adds the reader's bound on approximated curves to the error estimate: an area δA
+// between drawn and held curves changes each moment ∬f by at most δA·max|f|, and max|f| ≤ R^k for a
+// moment of order k with R the farthest point of the part from the origin, so δA/A bounds the error of
+// every moment relative to A·R^k.
+func (a *Analysis) addShapeError(d *Document, unit density.Length) {
+	if !(d.ShapeError > 0) {
+		return
+	}
+	rel := d.ShapeError / a.Area
+	a.RelErr += rel
+	a.Warnings = append(a.Warnings, fmt.Sprintf("some curves of the drawing were approximated by lines (within %.2g %s² of area, %.1e relative)",
+		d.ShapeError, unit.Name, rel))
 }
 
 // HasMaterial reports whether the part's base material is given: a material name or an areal-density
@@ -186,19 +289,24 @@ func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Lengt
 		a.Warnings = append(a.Warnings, fmt.Sprintf("overlays[%d] (%s) is not counted: the part has no base material",
 			i, overlayName(ov, i)))
 	}
+	a.addShapeError(d, unit)
 	if err := a.setMoments(shape); err != nil {
+		return nil, err
+	}
+	if err := a.splitPieces(unit, AnalyzeOptions{}); err != nil {
 		return nil, err
 	}
 	return a, nil
 }
 
-// material returns the boundary of the part's material and its area moments (density 1). One outline
-// loop that neither crosses nor touches itself (crossed is false), with no cut-outs, bounds its inside
+// material returns the boundary of the part's material laid out by p and its area moments (density 1).
+// One outline loop that neither crosses nor touches itself (crossed is false), with no cut-outs or
+// lettering, bounds its inside
 // under either fill rule: the boundary is the loop itself, turned counter-clockwise, and there are no
 // intersections to look for. Anything else goes through Combine.
-func (d *Document) material(crossed bool) (geom.Boundary, geom.Moments) {
-	if crossed || len(d.Cutouts) > 0 || len(d.Outline.Loops) != 1 {
-		b := geom.Combine(outlineMinusCutouts, d.regions()...)
+func (d *Document) material(p plan, crossed bool) (geom.Boundary, geom.Moments) {
+	if crossed || len(p.regions) > 1 || len(d.Outline.Loops) != 1 {
+		b := geom.Combine(p.keep, p.regions...)
 		return b, b.IntegratePoly(geom.ConstPoly(1))
 	}
 	loop := d.Outline.Loops[0]
@@ -207,7 +315,7 @@ func (d *Document) material(crossed bool) (geom.Boundary, geom.Moments) {
 	if m.M < 0 {
 		b, m = geom.Boundary{Pieces: loop.Reverse()}, m.Scale(-1)
 	}
-	return b, m
+	return b.Indexed(), m
 }
 
 // checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings; crossed
@@ -228,8 +336,10 @@ func (a *Analysis) checkRegions(d *Document) (crossed bool, err error) {
 		}
 		return nil
 	}
-	if err := check("outline", d.Outline); err != nil {
-		return false, err
+	if len(d.Outline.Loops) > 0 || !d.hasSeparateText() {
+		if err := check("outline", d.Outline); err != nil {
+			return false, err
+		}
 	}
 	crossed = len(a.Warnings) > 0
 	for i, c := range d.Cutouts {
@@ -243,6 +353,17 @@ func (a *Analysis) checkRegions(d *Document) (crossed bool, err error) {
 		}
 	}
 	return crossed, nil
+}
+
+// hasSeparateText reports whether the part has lettering cut as pieces of its own, which is material
+// without an outline.
+func (d *Document) hasSeparateText() bool {
+	for _, t := range d.Texts {
+		if t.role() == RoleSeparate {
+			return true
+		}
+	}
+	return false
 }
 
 // validationPath extends a region's path with the loop and segment a validation problem names.
@@ -283,6 +404,7 @@ func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
 	a.Materials = append(a.Materials, f.Describe())
+	a.layers = append(a.layers, layer{m.body, f})
 	r, err := integrateField(m, shape, f, opt)
 	if err != nil {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
@@ -301,9 +423,10 @@ func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.
 // withHole returns the analysis of the part with the round hole h removed. When the hole lies inside
 // the material (as checkHole makes sure) and one polynomial density covers all of it, the hole removes
 // exactly the moments of its disk (IntegratePoly over the disk's circle) and its circle, turned
-// clockwise, joins the boundary. Otherwise the part is analysed afresh with the hole as a cut-out.
+// clockwise, joins the boundary. Otherwise (other densities, or a part in several pieces) the part is
+// analysed afresh with the hole as a cut-out.
 func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis, error) {
-	if a.poly == nil {
+	if a.poly == nil || len(a.Pieces) > 1 {
 		return Analyze(d.withHoles(h), opt)
 	}
 	part := *a
@@ -314,10 +437,11 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	circle := geom.Circle(h.At, h.Diameter/2)
 	disk := geom.Boundary{Pieces: circle}
 	part.Area -= disk.IntegratePoly(geom.ConstPoly(1)).M
-	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}
+	part.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}.Indexed()
 	if err := part.setMoments(a.Origin.Sub(disk.IntegratePolyAbout(a.poly.at, a.poly.p))); err != nil {
 		return nil, err
 	}
+	part.Pieces = part.whole()
 	return &part, nil
 }
 

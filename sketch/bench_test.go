@@ -10,7 +10,9 @@ import (
 	"testing"
 	"time"
 
+	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch/letter"
 )
 
 // measure runs op in the benchmark loop, reporting allocations and the CPU time per op.
@@ -94,5 +96,38 @@ func BenchmarkLevelHoleFlower(b *testing.B) {
 				}
 			})
 		})
+	}
+}
+
+// BenchmarkRecomputeLettering is the browser's work per keystroke on a lettered sign: the 1000 × 300
+// mm panel with "BAKERY" cut out in Go Bold (five pieces: the counters fall out) or stencilled (one
+// piece), analysed and hung from a 6 mm hole. The pieces step, splitting the body into connected
+// pieces (Components), is measured on its own beside it, on the flower part (one piece) and on the
+// lettered panel.
+func BenchmarkRecomputeLettering(b *testing.B) {
+	for _, c := range []struct {
+		name    string
+		stencil letter.Bridges
+	}{{"cutout", letter.Bridges{}}, {"stencil", letter.Bridges{Width: 6, Count: 1}}} {
+		d := bakeryPanel(c.stencil)
+		d.Material = density.Spec{Material: "aluminium 5052", Thickness: "3 mm"}
+		b.Run(c.name, func(b *testing.B) {
+			measure(b, func() {
+				a, err := Analyze(d, AnalyzeOptions{})
+				if err != nil {
+					b.Fatal(err)
+				}
+				if _, err := HangFrom(d, geom.Pt(500, 270), 6, HangOptions{Whole: a}); err != nil {
+					b.Fatal(err)
+				}
+			})
+		})
+	}
+	for _, c := range []struct {
+		name string
+		d    *Document
+	}{{"components/flower", flowerDocument(1000, flowerDensities[0].spec)}, {"components/cutout", bakeryPanel(letter.Bridges{})}} {
+		body := c.d.Body()
+		b.Run(c.name, func(b *testing.B) { measure(b, func() { body.Components() }) })
 	}
 }

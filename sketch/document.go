@@ -7,7 +7,8 @@ import (
 
 // Document is one flat part in its own length unit, with y up.
 //
-// The material of the part is the Outline minus every cut-out. Overlays (doublers, facings, coatings
+// The material of the part is the Outline minus every cut-out and the lettering cut out of it, together
+// with lettering cut as pieces of its own. Overlays (doublers, facings, coatings
 // over part of the face) add their own areal density where they lie on that material. Holes are hang
 // holes, kept with the part so that a saved part remembers where it is meant to be drilled.
 type Document struct {
@@ -18,7 +19,13 @@ type Document struct {
 	Cutouts  []geom.Region
 	Overlays []Overlay
 	Holes    []Hole
+	Texts    []Text // lettering, cut out, added or separate by its role
 	Notes    string
+	// ShapeError bounds the area, in square document units, between the drawing a reader took the
+	// part from and the segments it holds, where the reader had to approximate curves the segments
+	// cannot represent (0: exact). Analyze adds it to the error estimate. It is not saved: a part file
+	// holds its own segments exactly.
+	ShapeError float64
 }
 
 // Overlay is a second layer of material bonded to part of the face, such as a doubler plate. Its

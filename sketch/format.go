@@ -2,6 +2,7 @@ package sketch
 
 import (
 	"bytes"
+	"cmp"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -14,6 +15,7 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch/letter"
 )
 
 // FormatName and FormatVersion identify the part file format that Save writes and Load reads.
@@ -22,7 +24,7 @@ import (
 //
 //	{
 //	  "format": "plumb-part",
-//	  "version": 1,
+//	  "version": 2,
 //	  "name": "bakery blade sign",
 //	  "units": "mm",
 //	  "material": {"material": "aluminium 5052", "thickness": "3 mm"},
@@ -30,10 +32,13 @@ import (
 //	  "cutouts": [{"rule": "nonzero", "loops": [ ... ]}],
 //	  "overlays": [{"name": "doubler", "material": { ... }, "region": { ... }}],
 //	  "holes": [{"at": [300, 410], "diameter": 8}],
+//	  "texts": [{"text": "OPEN", "font": "go-bold", "height": 120, "at": [100, 50], "angle_deg": 0,
+//	             "spacing": 0, "role": "cutout", "stencil": {"width": 4, "count": 1}}],
 //	  "notes": "free text"
 //	}
 //
 // "format" and "version" are required; a file with a newer version than FormatVersion is refused.
+// Version 1 files (the same format without "texts") are read as they are; Save writes version 2.
 // Unknown keys are errors (they are usually misspellings). "units" is a length unit ("mm" when
 // absent). A material is either {"material", "thickness"} or {"formula", "unit", "params"},
 // optionally with "custom" materials ({"key", "name", "density", "areal", "approx", "gauge_system",
@@ -56,9 +61,20 @@ import (
 // gives (Save writes them only then, as after an SVG arc): they must lie on the arc to within 1e-9 of
 // its size, and they are kept exactly so that consecutive segments join without a gap. Hand-written
 // files leave them out.
+//
+// A text is one line of lettering kept as text: "text" (printable characters), "font" (one of
+// go-regular, go-medium, go-bold, go-italic, go-bold-italic, go-mono, go-mono-bold, go-smallcaps;
+// go-regular when absent),
+// "height" (the height of the font's capital H, in the document unit), "at" (the left end of the
+// baseline), "angle_deg" (the baseline's direction, counter-clockwise; 0 when absent), "spacing" (extra
+// space after each letter, negative to tighten; 0 when absent) and "role": "cutout" (the default: cut
+// out of the part), "added" (welded or bonded on, like an overlay, with its own optional "material",
+// else the part's) or "separate" (cut from the same sheet as pieces of their own). Lettering cut out
+// may take "stencil": {"width", "count"}: count bridges (1 to 4, default 1: up, down, left, right) of
+// the given width across the stroke around every counter, so that the counters stay attached.
 const (
 	FormatName    = "plumb-part"
-	FormatVersion = 1
+	FormatVersion = 2
 )
 
 // arcEndTol is the largest distance, relative to the arc's reach (|centre| + radius), between an
@@ -92,11 +108,15 @@ func Load(data []byte) (*Document, error) {
 	if err != nil {
 		return nil, err
 	}
-	if err := checkFormat(root); err != nil {
+	ver, err := checkFormat(root)
+	if err != nil {
 		return nil, err
 	}
+	if tn, ok := root.get("texts"); ok && ver < 2 {
+		return nil, tn.fail("lettering needs a part file of version 2 or later; this one says version %d", ver)
+	}
 	if err := root.only("format", "version", "name", "units", "material", "outline", "cutouts",
-		"overlays", "holes", "notes"); err != nil {
+		"overlays", "holes", "texts", "notes"); err != nil {
 		return nil, err
 	}
 	d := NewDocument()
@@ -179,34 +199,34 @@ func jsonErrorText(err error, data []byte) string {
 	return fmt.Sprintf("line %d, col %d: %v", line, col, err)
 }
 
-func checkFormat(root object) error {
+func checkFormat(root object) (int, error) {
 	f, ok := root.get("format")
 	if !ok {
-		return &PathError{Msg: `not a Plumb part file (no "format": "` + FormatName + `")`}
+		return 0, &PathError{Msg: `not a Plumb part file (no "format": "` + FormatName + `")`}
 	}
 	name, err := f.str()
 	if err != nil {
-		return err
+		return 0, err
 	}
 	if name != FormatName {
-		return f.fail("expected %q, found %q", FormatName, name)
+		return 0, f.fail("expected %q, found %q", FormatName, name)
 	}
 	vn, ok := root.get("version")
 	if !ok {
-		return vn.fail("missing")
+		return 0, vn.fail("missing")
 	}
 	ver, err := vn.integer()
 	if err != nil {
-		return err
+		return 0, err
 	}
 	if ver > FormatVersion {
-		return vn.fail("this part file has format version %d, newer than the version %d this Plumb "+
+		return 0, vn.fail("this part file has format version %d, newer than the version %d this Plumb "+
 			"reads; update Plumb to open it", ver, FormatVersion)
 	}
 	if ver < 1 {
-		return vn.fail("must be at least 1, found %d", ver)
+		return 0, vn.fail("must be at least 1, found %d", ver)
 	}
-	return nil
+	return ver, nil
 }
 
 func loadDocument(root object, d *Document) error {
@@ -247,7 +267,80 @@ func loadDocument(root object, d *Document) error {
 			return err
 		}
 	}
+	if n, ok := root.get("texts"); ok {
+		load := func(e node) (Text, error) { return loadText(e, unit) }
+		if d.Texts, err = loadList(n, load); err != nil {
+			return err
+		}
+	}
 	return nil
+}
+
+// loadText reads a line of lettering and checks that it can be laid out.
+func loadText(n node, unit density.Length) (Text, error) {
+	var t Text
+	obj, err := n.objectWith("text", "font", "height", "at", "angle_deg", "spacing", "role", "material", "stencil")
+	if err != nil {
+		return t, err
+	}
+	var role string
+	if err := obj.stringFields(field[string]{"text", &t.Text}, field[string]{"font", &t.Font}, field[string]{"role", &role}); err != nil {
+		return t, err
+	}
+	t.Role = TextRole(cmp.Or(role, string(RoleCutout)))
+	if _, err := obj.need("text"); err != nil {
+		return t, err
+	}
+	hn, err := obj.need("height")
+	if err != nil {
+		return t, err
+	}
+	if t.Height, err = hn.number(); err != nil {
+		return t, err
+	}
+	an, err := obj.need("at")
+	if err != nil {
+		return t, err
+	}
+	if t.At, err = an.point(); err != nil {
+		return t, err
+	}
+	if err := obj.numberFields(field[float64]{"angle_deg", &t.AngleDeg}, field[float64]{"spacing", &t.Spacing}); err != nil {
+		return t, err
+	}
+	if mn, ok := obj.get("material"); ok {
+		if t.Material, err = loadSpec(mn, unit); err != nil {
+			return t, err
+		}
+	}
+	if sn, ok := obj.get("stencil"); ok {
+		if t.Stencil, err = loadStencil(sn); err != nil {
+			return t, err
+		}
+	}
+	_, err = t.Shape(n.path)
+	return t, err
+}
+
+// loadStencil reads stencil bridges: {"width": 3, "count": 1}.
+func loadStencil(n node) (letter.Bridges, error) {
+	var b letter.Bridges
+	obj, err := n.objectWith("width", "count")
+	if err != nil {
+		return b, err
+	}
+	wn, err := obj.need("width")
+	if err != nil {
+		return b, err
+	}
+	if b.Width, err = wn.number(); err != nil {
+		return b, err
+	}
+	b.Count = 1
+	if cn, ok := obj.get("count"); ok {
+		b.Count, err = cn.integer()
+	}
+	return b, err
 }
 
 // loadList loads every element of the array n with load; an empty array gives nil.
@@ -819,6 +912,11 @@ type field[T any] struct {
 	dst *T
 }
 
+// numberFields reads the optional number members fields.
+func (o object) numberFields(fields ...field[float64]) error {
+	return readFields(o, node.number, fields)
+}
+
 // stringFields reads the optional string members fields.
 func (o object) stringFields(fields ...field[string]) error { return readFields(o, node.str, fields) }
 
@@ -863,6 +961,9 @@ func (d *Document) Save() ([]byte, error) {
 	}
 	for _, h := range d.Holes {
 		f.Holes = append(f.Holes, fileHole{At: ptOf(h.At), Diameter: h.Diameter})
+	}
+	for _, t := range d.Texts {
+		f.Texts = append(f.Texts, saveText(t))
 	}
 	if path, ok := nonFinite(reflect.ValueOf(f), ""); ok {
 		return nil, &PathError{Path: path, Msg: "not a finite number; a part file holds only finite numbers"}
@@ -928,7 +1029,23 @@ type (
 		Cutouts  []fileRegion  `json:"cutouts,omitempty"`
 		Overlays []fileOverlay `json:"overlays,omitempty"`
 		Holes    []fileHole    `json:"holes,omitempty"`
+		Texts    []fileText    `json:"texts,omitempty"`
 		Notes    string        `json:"notes,omitempty"`
+	}
+	fileText struct {
+		Text     string       `json:"text"`
+		Font     string       `json:"font,omitempty"`
+		Height   float64      `json:"height"`
+		At       pt           `json:"at"`
+		AngleDeg float64      `json:"angle_deg"`
+		Spacing  float64      `json:"spacing"`
+		Role     string       `json:"role"`
+		Material *fileSpec    `json:"material,omitempty"`
+		Stencil  *fileStencil `json:"stencil,omitempty"`
+	}
+	fileStencil struct {
+		Width float64 `json:"width"`
+		Count int     `json:"count"`
 	}
 	fileSpec struct {
 		Material  string             `json:"material,omitempty"`
@@ -985,6 +1102,15 @@ type (
 	}
 	pt [2]float64
 )
+
+func saveText(t Text) fileText {
+	f := fileText{Text: t.Text, Font: t.Font, Height: t.Height, At: ptOf(t.At), AngleDeg: t.AngleDeg,
+		Spacing: t.Spacing, Role: string(t.role()), Material: saveSpec(t.Material)}
+	if t.Stencil.Count > 0 {
+		f.Stencil = &fileStencil{Width: t.Stencil.Width, Count: t.Stencil.Count}
+	}
+	return f
+}
 
 func saveSpec(s density.Spec) *fileSpec {
 	f := &fileSpec{Material: s.Material, Thickness: s.Thickness, Formula: s.Formula, Unit: s.Unit,

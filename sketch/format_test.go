@@ -13,6 +13,7 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch/letter"
 )
 
 // sampleDocument is a part using every kind of segment, both fill rules, and every document field.
@@ -42,6 +43,13 @@ func sampleDocument() *Document {
 				GaugeSystem: density.GaugeSteel}}},
 	}}
 	d.Holes = []Hole{{At: geom.Pt(200, 340), Diameter: 8}, {At: geom.Pt(-0.1, 1e-7)}}
+	d.Texts = []Text{
+		{Text: "GATE 7", Font: "go-bold", Height: 40, At: geom.Pt(150, 230), Role: RoleCutout,
+			Stencil: letter.Bridges{Width: 3, Count: 2}},
+		{Text: "No. 7", Height: 12.5, At: geom.Pt(250, 30), AngleDeg: 15, Spacing: -0.5, Role: RoleAdded,
+			Material: density.Spec{Material: "aluminium 5052", Thickness: "3 mm"}},
+		{Text: "tag", Font: "go-mono", Height: 20, At: geom.Pt(500, 0), Role: RoleSeparate},
+	}
 	d.Notes = "line one\nline two"
 	return d
 }
@@ -102,7 +110,7 @@ func TestSaveLayout(t *testing.T) {
 	}
 	want := `{
   "format": "plumb-part",
-  "version": 1,
+  "version": 2,
   "units": "mm",
   "outline": {
     "rule": "nonzero",
@@ -187,6 +195,7 @@ func square(x float64, extra string) string {
 
 func TestLoadErrors(t *testing.T) {
 	head := `"format": "plumb-part", "version": 1`
+	head2 := `"format": "plumb-part", "version": 2`
 	zeroArc := `{"arc": {"center": [2.5, 0.5], "radius": 0, "start_deg": 180, "sweep_deg": 90}}`
 	tests := []struct {
 		name, json, want string
@@ -198,10 +207,10 @@ func TestLoadErrors(t *testing.T) {
 		{"other format", `{"format": "other", "version": 1}`, `format: expected "plumb-part", found "other"`},
 		{"no version", `{"format": "plumb-part"}`, `version: missing`},
 		{"newer version", `{"format": "plumb-part", "version": 7, "future": true}`,
-			"version: this part file has format version 7, newer than the version 1 this Plumb reads; " +
+			"version: this part file has format version 7, newer than the version 2 this Plumb reads; " +
 				"update Plumb to open it"},
 		{"unknown key", `{` + head + `, "outlines": {}}`, `outlines: unknown key (expected one of: ` +
-			`"format", "version", "name", "units", "material", "outline", "cutouts", "overlays", "holes", "notes")`},
+			`"format", "version", "name", "units", "material", "outline", "cutouts", "overlays", "holes", "texts", "notes")`},
 		{"bad units", `{` + head + `, "units": "furlong"}`, "units: ..."},
 		{"duplicate top key", `{` + head + `, "units": "mm", "units": "in"}`, `units: the key "units" is given twice in one object`},
 		{"duplicate nested key", `{` + head + `, "outline": {"loops": [` + square(0, `{"arc": {"center": [0, 0], "radius": 1, "radius": 2, "start_deg": 0, "sweep_deg": 90}}`) + `]}}`,
@@ -258,6 +267,23 @@ func TestLoadErrors(t *testing.T) {
 		{"material name", `{` + head + `, "overlays": [{"region": {"loops": [` + square(0, "") +
 			`]}, "material": {"material": "unobtainium", "thickness": "3 mm"}}]}`, `overlays[0].material.material: ...`},
 		{"version type", `{"format": "plumb-part", "version": "1"}`, `version: expected a whole number, found "1"`},
+		{"lettering in version 1", `{"format": "plumb-part", "version": 1, "texts": []}`,
+			`texts: lettering needs a part file of version 2 or later; this one says version 1`},
+		{"text without height", `{` + head2 + `, "texts": [{"text": "A", "at": [0, 0]}]}`, `texts[0].height: missing`},
+		{"text unknown font", `{` + head2 + `, "texts": [{"text": "A", "at": [0, 0], "height": 5, "font": "go-fancy"}]}`,
+			`texts[0].font: unknown font "go-fancy" (the fonts are go-regular, ...`},
+		{"text bad role", `{` + head2 + `, "texts": [{"text": "A", "at": [0, 0], "height": 5, "role": "engraved"}]}`,
+			`texts[0].role: role must be "cutout", "added" or "separate", found "engraved"`},
+		{"text zero height", `{` + head2 + `, "texts": [{"text": "A", "at": [0, 0], "height": 0}]}`,
+			`texts[0].height: the letter height must be a positive number, found 0`},
+		{"text not in font", `{` + head2 + `, "texts": [{"text": "AB☃", "at": [0, 0], "height": 5}]}`,
+			`texts[0].text: character 3 '☃' is not in this font`},
+		{"stencil on added", `{` + head2 + `, "texts": [{"text": "O", "at": [0, 0], "height": 5, "role": "added", "stencil": {"width": 1}}]}`,
+			`texts[0].stencil: stencil bridges are for lettering cut out of the part`},
+		{"stencil count", `{` + head2 + `, "texts": [{"text": "O", "at": [0, 0], "height": 5, "stencil": {"width": 1, "count": 9}}]}`,
+			`texts[0].stencil: a counter takes 0 to 4 bridges, found 9`},
+		{"text key", `{` + head2 + `, "texts": [{"text": "O", "at": [0, 0], "height": 5, "size": 3}]}`,
+			`texts[0].size: unknown key ...`},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -360,11 +386,11 @@ func ExampleLoad() {
 	_, err := Load([]byte(`{"format": "plumb-part", "version": 1, "outline": {"loops": [{"segments": [
 		{"arc": {"center": [0, 0], "radius": 0, "start_deg": 0, "sweep_deg": 360}}]}]}}`))
 	fmt.Println(err)
-	_, err = Load([]byte(`{"format": "plumb-part", "version": 2}`))
+	_, err = Load([]byte(`{"format": "plumb-part", "version": 3}`))
 	fmt.Println(err)
 	// Output:
 	// outline.loops[0].segments[0].arc.radius: arc radius is 0
-	// version: this part file has format version 2, newer than the version 1 this Plumb reads; update Plumb to open it
+	// version: this part file has format version 3, newer than the version 2 this Plumb reads; update Plumb to open it
 }
 
 func ExampleDocument_Save() {
@@ -382,7 +408,7 @@ func ExampleDocument_Save() {
 	// Output:
 	// {
 	//   "format": "plumb-part",
-	//   "version": 1,
+	//   "version": 2,
 	//   "name": "washer",
 	//   "units": "mm",
 	//   "material": {"material": "steel", "thickness": "1.5 mm"},

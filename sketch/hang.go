@@ -112,6 +112,10 @@ func HangFrom(d *Document, at geom.Point, dia float64, opt HangOptions) (*Hang, 
 	if err != nil {
 		return nil, err
 	}
+	d, whole, dropped, err := onPiece(d, whole, pieceAt(whole.Pieces, at), "the piece holding the hole", unit, opt)
+	if err != nil {
+		return nil, err
+	}
 	edge, err := checkHole(whole.Body, at, dia, d.edgeRule(dia, opt, unit), unit)
 	if err != nil {
 		return nil, err
@@ -125,7 +129,46 @@ func HangFrom(d *Document, at geom.Point, dia float64, opt HangOptions) (*Hang, 
 		h.Edge = edge
 		h.Warnings = append([]string{edge.Msg}, h.Warnings...)
 	}
+	if dropped != "" {
+		h.Warnings = append([]string{dropped}, h.Warnings...)
+	}
 	return h, nil
+}
+
+// pieceAt returns the index of the piece whose material holds p, or −1.
+func pieceAt(pieces []Piece, p geom.Point) int {
+	for i, pc := range pieces {
+		if pc.Body.Contains(p) {
+			return i
+		}
+	}
+	return -1
+}
+
+// onPiece returns the part cut down to piece i of its analysis whole, with that piece's analysis and
+// a warning naming the pieces that drop out (which says how the piece was chosen): a copy of d whose
+// outline is the piece's material (cut-outs and lettering cut out or separate already applied),
+// overlays and added lettering kept. A part in one piece, or i < 0 (no piece), comes back as it is.
+func onPiece(d *Document, whole *Analysis, i int, which string, unit density.Length, opt HangOptions) (*Document, *Analysis, string, error) {
+	if len(whole.Pieces) <= 1 || i < 0 {
+		return d, whole, "", nil
+	}
+	c := *d
+	c.Outline = geom.Region{Loops: whole.Pieces[i].Body.Loops()}
+	c.Cutouts, c.Texts = nil, nil
+	for _, t := range d.Texts {
+		if t.role() == RoleAdded {
+			c.Texts = append(c.Texts, t)
+		}
+	}
+	a, err := Analyze(&c, opt.Analyze)
+	if err != nil {
+		return nil, nil, "", err
+	}
+	loose := slices.Delete(slices.Clone(whole.Pieces), i, i+1)
+	msg := fmt.Sprintf("the part comes apart in %d pieces: the hang uses %s (%s kg of %s kg); the piece(s) at %s %s drop out",
+		len(whole.Pieces), which, formatNumber(a.Mass), formatNumber(whole.Mass), pieceList(loose), unit.Name)
+	return &c, a, msg, nil
 }
 
 // whole returns opt.Whole, or the analysis of d when it is nil.
@@ -347,9 +390,16 @@ func LevelHole(d *Document, dia float64, opt HangOptions) (*Level, error) {
 	if err != nil {
 		return nil, err
 	}
+	d, whole, dropped, err := onPiece(d, whole, 0, "the largest piece", unit, opt)
+	if err != nil {
+		return nil, err
+	}
 	opt.Whole = whole
 	s := newHoleSearch(d, whole, dia, opt, unit)
 	lv := &Level{Diameter: dia}
+	if dropped != "" {
+		lv.Warnings = append(lv.Warnings, dropped)
+	}
 	if s.rule.min == 0 {
 		lv.Warnings = append(lv.Warnings, "no edge distance is kept (the thickness is not known and the hole is a pin): give one")
 	}
@@ -538,7 +588,21 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	if b.X < a.X {
 		a, b = b, a
 	}
-	body := d.Body()
+	whole, err := opt.whole(d)
+	if err != nil {
+		return nil, err
+	}
+	// Holes on one piece hang that piece; holes on different pieces lift the pieces as one part, which
+	// holds only if they are joined (piecesWarning says so).
+	on := pieceAt(whole.Pieces, a)
+	if pieceAt(whole.Pieces, b) != on {
+		on = -1
+	}
+	d, whole, dropped, err := onPiece(d, whole, on, "the piece holding both holes", unit, opt)
+	if err != nil {
+		return nil, err
+	}
+	body := whole.Body
 	size := partSize(body)
 	if b.X-a.X <= levelTol*size {
 		return nil, fmt.Errorf("the two holes are on one vertical (x = %s %s): chains need them apart across the part", formatNumber(a.X), unit.Name)
@@ -547,6 +611,9 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 		return nil, fmt.Errorf("the two holes overlap")
 	}
 	lift := &Lift{Diameter: dia, LegDeg: legDeg}
+	if dropped != "" {
+		lift.Warnings = append(lift.Warnings, dropped)
+	}
 	rule := d.edgeRule(dia, opt, unit)
 	for _, p := range [2]geom.Point{a, b} {
 		edge, err := checkHole(body, p, dia, rule, unit)

@@ -1,11 +1,101 @@
 package sketch
 
 import (
+	"math"
 	"strings"
 	"testing"
 
 	"plumb/geom"
 )
+
+// ringWithIsland is a 200 × 200 mm plate of 10 kg/m² with a ring cut out around (100, 100), radii 30
+// and 50 mm: the disc of radius 30 inside the ring falls out after cutting. Closed forms: a disc of
+// radius r has area πr² and its centroid at its centre; the panel, the rectangle w × h minus the disc
+// of radius 50, has area wh − π·50².
+func ringWithIsland() *Document {
+	d := plate(200, 200, "10")
+	ring := geom.Region{Rule: geom.EvenOdd, Loops: []geom.Loop{geom.Circle(geom.Pt(100, 100), 50), geom.Circle(geom.Pt(100, 100), 30)}}
+	d.Cutouts = []geom.Region{ring}
+	return d
+}
+
+func TestPiecesRingWithIsland(t *testing.T) {
+	d := ringWithIsland()
+	a := mustAnalyze(t, d)
+	if len(a.Pieces) != 2 {
+		t.Fatalf("%d pieces, want 2", len(a.Pieces))
+	}
+	const rho = 10e-6 // kg/mm²
+	panel := 200*200 - math.Pi*50*50
+	island := math.Pi * 30 * 30
+	for i, want := range []struct {
+		area float64
+		c    geom.Point
+	}{{panel, geom.Pt(100, 100)}, {island, geom.Pt(100, 100)}} {
+		p := a.Pieces[i]
+		checkNear(t, "area", p.Area, want.area, 1e-12, 0)
+		checkNear(t, "mass", p.Mass, rho*want.area, 1e-12, 0)
+		checkNear(t, "x̄", p.Centroid.X, want.c.X, 1e-12, 200)
+		checkNear(t, "ȳ", p.Centroid.Y, want.c.Y, 1e-12, 200)
+	}
+	checkNear(t, "area of the pieces", a.Pieces[0].Area+a.Pieces[1].Area, a.Area, 1e-12, 0)
+	if len(a.Warnings) != 1 || !strings.HasPrefix(a.Warnings[0], "2 pieces: after cutting, the island(s) at (100, 100) mm fall out unless bridged") {
+		t.Errorf("warnings %q", a.Warnings)
+	}
+	s := Summarize("ring.json", d, a)
+	if len(s.Pieces) != 2 || s.Pieces[1].Area != a.Pieces[1].Area {
+		t.Errorf("summary pieces %+v", s.Pieces)
+	}
+}
+
+// TestPiecesOverlay lays a doubler strip (30 kg/m², y from 90 to 110) across the panel and the
+// island: each piece carries the doubler's mass where the strip lies on it, and the pieces' masses
+// add up to the part's.
+func TestPiecesOverlay(t *testing.T) {
+	d := ringWithIsland()
+	d.Overlays = []Overlay{{Name: "strip", Region: rectRegion(0, 90, 200, 110), Material: areal("30")}}
+	a := mustAnalyze(t, d)
+	if len(a.Pieces) != 2 {
+		t.Fatalf("%d pieces, want 2", len(a.Pieces))
+	}
+	checkNear(t, "mass of the pieces", a.Pieces[0].Mass+a.Pieces[1].Mass, a.Mass, 1e-12, 0)
+	// The strip covers y 90..110 of the island disc of radius 30: the circular segment areas follow
+	// from A(h) = r² acos(1 − h/r) − (r − h)√(2rh − h²) for a cap of height h (any table of circle
+	// segments); the band |y| ≤ 10 is the disc minus two caps of height 20.
+	r, h := 30.0, 20.0
+	cap := r*r*math.Acos(1-h/r) - (r-h)*math.Sqrt(2*r*h-h*h)
+	band := math.Pi*r*r - 2*cap
+	checkNear(t, "island mass", a.Pieces[1].Mass, 10e-6*math.Pi*r*r+30e-6*band, 1e-12, 0)
+}
+
+// TestPiecesHang hangs the ring-with-island plate from a hole in the panel: the island drops out, so
+// the hang uses the panel alone, whose centroid is the plate's centre; a hole 60 mm above it hangs
+// level, and a warning names the island.
+func TestPiecesHang(t *testing.T) {
+	d := ringWithIsland()
+	h := mustHang(t, d, geom.Pt(100, 180), 0, HangOptions{Edge: 1})
+	checkNear(t, "hang angle", h.AngleDeg, 0, 1e-9, 1)
+	checkNear(t, "mass", h.Part.Mass, 10e-6*(200*200-math.Pi*50*50), 1e-12, 0)
+	if len(h.Warnings) == 0 || !strings.Contains(h.Warnings[0], "the piece(s) at (100, 100) mm drop out") {
+		t.Errorf("warnings %q", h.Warnings)
+	}
+	// Hung from the island, the part is the disc alone: a pin 10 mm right of its centre hangs it
+	// with the centre straight below, a turn of 90° clockwise.
+	h = mustHang(t, d, geom.Pt(110, 100), 0, HangOptions{Edge: 1})
+	checkNear(t, "hang angle", h.AngleDeg, 90, 1e-9, 1)
+	checkNear(t, "mass", h.Part.Mass, 10e-6*math.Pi*30*30, 1e-12, 0)
+
+	lv, err := LevelHole(d, 8, HangOptions{Edge: 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if lv.Hang == nil || math.Abs(lv.At.X-100) > 1e-6 || lv.At.Y < 150 {
+		t.Fatalf("level hole %+v", lv)
+	}
+	if !strings.Contains(lv.Warnings[0], "the largest piece") {
+		t.Errorf("level warnings %q", lv.Warnings)
+	}
+}
 
 func TestSeparatePieces(t *testing.T) {
 	square := func(x0, y0, side float64) geom.Loop {
@@ -47,7 +137,7 @@ func TestHangTwoPiecesWarns(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !strings.Contains(strings.Join(h.Warnings, "\n"), "the part is 2 separate pieces") {
+	if !strings.Contains(strings.Join(h.Warnings, "\n"), "the part comes apart in 2 pieces: the hang uses the piece holding the hole") {
 		t.Errorf("hang warnings %q", h.Warnings)
 	}
 	lift, err := TwoChains(d, geom.Pt(50, 40), geom.Pt(200, 40), 4, 90, HangOptions{})

@@ -30,7 +30,10 @@ type Summary struct {
 	Inertia       Inertia   `json:"inertia"`
 	Principal     Principal `json:"principal"`
 	ErrorEstimate float64   `json:"error_estimate"`
-	Warnings      []string  `json:"warnings"`
+	// Pieces are the connected pieces of material after cutting, largest first (one when the part
+	// holds together).
+	Pieces   []PieceSummary `json:"pieces"`
+	Warnings []string       `json:"warnings"`
 	// Hang is set for a part hung from one hole at a given point.
 	Hang *HangSummary `json:"hang,omitempty"`
 	// Hole is set for the level hole, when one exists.
@@ -66,6 +69,13 @@ type Principal struct {
 	I1       float64 `json:"i1"`
 	I2       float64 `json:"i2"`
 	AngleDeg float64 `json:"angle_deg"`
+}
+
+// PieceSummary is one connected piece of material: its area, mass and centroid.
+type PieceSummary struct {
+	Area     float64 `json:"area"`
+	Mass     float64 `json:"mass"`
+	Centroid XY      `json:"centroid"`
 }
 
 // HangSummary is a part hung from one hole: the hole's centre and diameter and the rotation from the
@@ -111,8 +121,18 @@ func Summarize(file string, d *Document, a *Analysis) Summary {
 		Inertia:       Inertia{Ixx: a.Ixx, Iyy: a.Iyy, Ixy: a.Ixy},
 		Principal:     Principal{I1: a.I1, I2: a.I2, AngleDeg: a.AngleDeg},
 		ErrorEstimate: a.RelErr,
+		Pieces:        pieceSummaries(a.Pieces),
 		Warnings:      append([]string{}, a.Warnings...),
 	}
+}
+
+// pieceSummaries summarizes pieces, never nil.
+func pieceSummaries(pieces []Piece) []PieceSummary {
+	out := make([]PieceSummary, len(pieces))
+	for i, p := range pieces {
+		out[i] = PieceSummary{Area: p.Area, Mass: p.Mass, Centroid: xy(p.Centroid.X, p.Centroid.Y)}
+	}
+	return out
 }
 
 func xy(x, y float64) XY { return XY{X: x, Y: y} }
@@ -285,6 +305,12 @@ func (r *Report) WriteText(w io.Writer) error {
 	t.row("principal", fmt.Sprintf("i1 %s, i2 %s %s, axis of i1 at %s° from x", formatNumber(a.I1), formatNumber(a.I2), iu, formatNumber(a.AngleDeg)))
 	t.row("gyration", fmt.Sprintf("kx %s, ky %s %s", formatNumber(a.Kx), formatNumber(a.Ky), u))
 	t.row("error estimate", errorText(a))
+	if len(a.Pieces) > 1 {
+		for i, p := range a.Pieces {
+			t.row(fmt.Sprintf("piece %d", i+1), fmt.Sprintf("%s %s², %s kg, centroid x %s, y %s %s",
+				formatNumber(p.Area), u, formatNumber(p.Mass), formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y), u))
+		}
+	}
 	r.hangRows(t, u)
 	for _, wn := range r.warnings() {
 		t.row("warning", wn)

@@ -48,7 +48,7 @@ func reportJSON(t *testing.T, r *Report) map[string]json.RawMessage {
 	return keysOf(t, b.Bytes())
 }
 
-var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "warnings"}
+var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "pieces", "warnings"}
 
 func TestSummaryKeys(t *testing.T) {
 	d := plate(200, 100, "10")

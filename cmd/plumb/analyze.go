@@ -11,10 +11,12 @@ import (
 
 const analyzeAbout = `Prints the area, mass, weight, balance point (centroid), second moments, principal axes and
 radii of gyration of each part, with the integration error estimate and warnings. FILE is a part file
-(.json) or an SVG drawing (lengths in mm); a directory is searched for both. The material comes from
-the part file or from --material and --thickness, or --density.
+(.json), an SVG drawing (lengths in mm) or a DXF drawing (in its $INSUNITS unit); a directory is
+searched for all three. The material comes from the part file or from --material and --thickness, or
+--density; without one, area, balance point and second moments come from the shape alone (per unit
+areal density) and mass is null.
 Formats: text (a table with units), json (one object per line, keys file, units, area, mass,
-centroid, inertia, principal, error_estimate, warnings), csv (a header row, then one row per file;
+centroid, inertia, principal, error_estimate, pieces, warnings), csv (a header row, then one row per file;
 stderr gets a summary line: the count and total mass per material). A long batch shows a progress
 bar when stderr is a terminal.`
 
@@ -47,7 +49,7 @@ func runAnalyze(args []string, stdout, stderr io.Writer) int {
 	b := &batch{stderr: prog}
 	var tot totals
 	b.run(files, prog.each(func(path string) error {
-		p, err := loadPart(path, rf.r)
+		p, err := loadPart(path, rf)
 		if err != nil {
 			return err
 		}

@@ -13,7 +13,7 @@ import (
 	"plumb/sketch/svg"
 )
 
-const convertAbout = `Converts SVG drawings to part files (.json) and part files to 1:1 SVG drawings (sizes in mm,
+const convertAbout = `Converts SVG and DXF drawings to part files (.json) and part files to 1:1 SVG drawings (sizes in mm,
 with the balance point, hang holes and plumb line when the material is known), ready to print at 100 %.
 Each output is written beside its input with the other extension, or to --out (a file for one input,
 a directory for several); "-" writes to standard output. Existing files are kept unless --force.`
@@ -37,7 +37,7 @@ func runConvert(args []string, stdout, stderr io.Writer) int {
 	if len(files) == 0 {
 		return usageError(stderr, "convert", "no files given")
 	}
-	c := &converter{out: *out, force: *force, stdout: stdout, stderr: stderr, material: mf, reading: rf.r}
+	c := &converter{out: *out, force: *force, stdout: stdout, stderr: stderr, material: mf, reading: rf}
 	if info, err := os.Stat(c.out); err == nil && info.IsDir() {
 		c.outDir = true
 	}
@@ -55,7 +55,7 @@ type converter struct {
 	outDir, force  bool
 	stdout, stderr io.Writer
 	material       materialFlags
-	reading        svg.Reading
+	reading        readingFlag
 }
 
 // convert converts one file. Errors after the file is read name the output that was not written.
@@ -66,7 +66,7 @@ func (c *converter) convert(path string) error {
 		return err
 	}
 	ext := ".svg"
-	if p.fromSVG {
+	if p.fromDrawing {
 		ext = ".json"
 	}
 	target := c.target(path, ext)
@@ -86,7 +86,7 @@ func (c *converter) output(path string, p part, err error) ([]byte, error) {
 		say(c.stderr, "plumb: %s: warning: %s", path, w)
 	}
 	c.material.apply(p.doc)
-	if p.fromSVG {
+	if p.fromDrawing {
 		return p.doc.Save()
 	}
 	return c.drawing(path, p.doc)

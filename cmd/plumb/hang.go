@@ -96,7 +96,7 @@ func runHang(args []string, stdout, stderr io.Writer) int {
 	}
 	b := &batch{stderr: stderr}
 	b.run(files, func(path string) error {
-		p, err := loadPart(path, h.reading.r)
+		p, err := loadPart(path, h.reading)
 		if err != nil {
 			return err
 		}

@@ -190,7 +190,7 @@ func TestHostileInput(t *testing.T) {
 		wantFailure(t, plumb("analyze", in("too-big.json")), exitFailed, "too-big.json: the file is 16777", "more than the limit of 16777216")
 
 		r = plumb("hang", in("two-pieces.json"), "--at", "50,90")
-		if r.code != 0 || !strings.Contains(r.stdout, "the part is 2 separate pieces of material") {
+		if r.code != 0 || !strings.Contains(r.stdout, "the part comes apart in 2 pieces: the hang uses the piece holding the hole") {
 			t.Errorf("two pieces: exit %d, stdout %q", r.code, r.stdout)
 		}
 		// The U has no material above its balance point: the least-tilt holes are listed, in the
@@ -323,7 +323,7 @@ func helpFlags(t *testing.T, plumb func(args ...string) plumbRun, command string
 // flagKinds lists every flag the walk knows, so that a new flag must be classified.
 var flagKinds = func() map[string]bool {
 	m := map[string]bool{}
-	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "format", "paper", "o", "out"} {
+	for _, name := range []string{"density", "unit", "material", "thickness", "reading", "layers", "skip-layers", "format", "paper", "o", "out"} {
 		m[name] = true
 	}
 	for name := range numericFlags {

@@ -13,6 +13,7 @@ import (
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/dxf"
 	"plumb/sketch/svg"
 )
 
@@ -111,8 +112,11 @@ func (p paramFlag) merge(file map[string]float64) map[string]float64 {
 	return out
 }
 
-// readingFlag selects how SVG drawings are read.
-type readingFlag struct{ r svg.Reading }
+// readingFlag selects how drawings are read: SVG by --reading, DXF by the layer choice.
+type readingFlag struct {
+	r                  svg.Reading
+	layers, skipLayers string // comma-separated DXF layer names
+}
 
 func (f *readingFlag) String() string {
 	switch f.r {
@@ -140,31 +144,51 @@ func (f *readingFlag) Set(s string) error {
 
 func (f *readingFlag) register(fs *flag.FlagSet) {
 	fs.Var(f, "reading", "how to read SVG, a `mode`: auto, filled (painted regions) or cut (stroked contours, nested even-odd)")
+	fs.StringVar(&f.layers, "layers", "", "DXF: read only these `layers` (comma-separated, e.g. CUT,OUTER)")
+	fs.StringVar(&f.skipLayers, "skip-layers", "", "DXF: leave out these `layers` (comma-separated, e.g. ETCH)")
 }
 
-// part is a document read from a file, with the warnings from reading it.
+// layerList splits a comma-separated list of layer names.
+func layerList(s string) []string {
+	var out []string
+	for _, l := range strings.Split(s, ",") {
+		if l = strings.TrimSpace(l); l != "" {
+			out = append(out, l)
+		}
+	}
+	return out
+}
+
+// part is a document read from a file, with the warnings from reading it; fromDrawing is set for a
+// drawing (SVG or DXF) rather than a part file.
 type part struct {
-	doc      *sketch.Document
-	warnings []string
-	fromSVG  bool
+	doc         *sketch.Document
+	warnings    []string
+	fromDrawing bool
 }
 
-// loadPart reads a part file (.json) or an SVG drawing.
-func loadPart(path string, reading svg.Reading) (part, error) {
-	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes))
+// loadPart reads a part file (.json), an SVG drawing or a DXF drawing.
+func loadPart(path string, rf readingFlag) (part, error) {
+	data, err := readLimited(path, max(sketch.MaxPartBytes, svg.DefaultMaxBytes, dxf.DefaultMaxBytes))
 	if err != nil {
 		return part{}, err
 	}
-	if !isSVG(path, data) {
-		d, err := sketch.Load(data)
+	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
+	var d *sketch.Document
+	var warnings []string
+	switch {
+	case isDXF(path):
+		d, warnings, err = dxf.Read(data, dxf.Options{Name: name, Layers: layerList(rf.layers), SkipLayers: layerList(rf.skipLayers)})
+	case isSVG(path, data):
+		d, warnings, err = svg.Read(data, svg.Options{Reading: rf.r, Name: name})
+	default:
+		d, err = sketch.Load(data)
 		return part{doc: d}, err
 	}
-	name := strings.TrimSuffix(filepath.Base(path), filepath.Ext(path))
-	d, warnings, err := svg.Read(data, svg.Options{Reading: reading, Name: name})
 	if err == nil {
 		err = d.CheckExtent()
 	}
-	return part{doc: d, warnings: warnings, fromSVG: true}, err
+	return part{doc: d, warnings: warnings, fromDrawing: true}, err
 }
 
 // readLimited reads the file at path, refusing one over limit bytes before reading it whole (a
@@ -188,6 +212,9 @@ func readLimited(path string, limit int) ([]byte, error) {
 	return data, nil
 }
 
+// isDXF tells a DXF drawing by its extension.
+func isDXF(path string) bool { return strings.EqualFold(filepath.Ext(path), ".dxf") }
+
 // isSVG tells an SVG drawing by its extension, or, for other names, by its first character.
 func isSVG(path string, data []byte) bool {
 	switch strings.ToLower(filepath.Ext(path)) {
@@ -199,10 +226,10 @@ func isSVG(path string, data []byte) bool {
 	return bytes.HasPrefix(bytes.TrimSpace(data), []byte("<"))
 }
 
-// isPartName reports whether a file met while walking a directory is a part: .json or .svg.
+// isPartName reports whether a file met while walking a directory is a part: .json, .svg or .dxf.
 func isPartName(name string) bool {
 	ext := strings.ToLower(filepath.Ext(name))
-	return ext == ".json" || ext == ".svg"
+	return ext == ".json" || ext == ".svg" || ext == ".dxf"
 }
 
 // batch runs one file at a time through a function, reporting each failure on stderr with the file's

@@ -1,5 +1,5 @@
 // Command plumb computes the weight, balance point (centroid) and second moments of flat sheet parts
-// and where to drill a hang hole, from part files (.json) and SVG drawings.
+// and where to drill a hang hole, from part files (.json) and SVG and DXF drawings.
 //
 // Usage:
 //
@@ -41,11 +41,12 @@ type command struct {
 // commands is the command table. A new command is one line here and a run function in its own file.
 func commands() []command {
 	return []command{
-		{"analyze", "mass, weight, balance point and second moments of parts (.json, .svg, directories)", runAnalyze},
+		{"analyze", "mass, weight, balance point and second moments of parts (.json, .svg, .dxf, directories)", runAnalyze},
 		{"hang", "how a part hangs from a hole, where to drill a level hole, loads on two chains", runHang},
-		{"convert", "SVG drawing to part file (.json); part file to a 1:1 SVG drawing", runConvert},
+		{"convert", "SVG or DXF drawing to part file (.json); part file to a 1:1 SVG drawing", runConvert},
 		{"template", "a full-size (1:1) drilling template as PDF, tiled over pages", runTemplate},
 		{"report", "a one-page part report as PDF or Markdown", runReport},
+		{"cutfile", "the part as a DXF or SVG cut file with the hang hole(s) in it", runCutfile},
 		{"materials", "the sheet materials and gauges, with their sources", runMaterials},
 		{"build", "build the browser app into one offline HTML file", runBuild},
 		{"serve", "build the browser app and serve it on 127.0.0.1 with a demo part", runServe},
@@ -86,7 +87,8 @@ func lookup(name string) (command, bool) {
 // coordinatesAbout says where a drawing's coordinates come from, for positions (--at) and formulas.
 const coordinatesAbout = `Coordinates: x to the right, y up, from the drawing's own origin. An SVG drawing keeps its
 own user coordinates scaled to mm with y flipped (x = s·x_svg, y = −s·y_svg; the viewBox offset does
-not move the origin); a part file keeps its own. --at X,Y and density formulas use these coordinates.`
+not move the origin); a DXF drawing keeps its world x, y in its $INSUNITS unit (no flip); a part file
+keeps its own. --at X,Y and density formulas use these coordinates.`
 
 // writeUsage writes the command list and the cautions.
 func writeUsage(w io.Writer) {

@@ -104,7 +104,7 @@ func wantNear(t *testing.T, what string, got, want, rel float64) {
 	}
 }
 
-var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "warnings"}
+var summaryKeys = []string{"file", "units", "area", "mass", "centroid", "inertia", "principal", "error_estimate", "pieces", "warnings"}
 
 func TestCommandLine(t *testing.T) {
 	plumb := buildPlumb(t)

@@ -53,7 +53,7 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	return exitOK
 }
 
-// shopFlags are the options of plumb template and plumb report: the holes to mark, taken as plumb hang
+// shopFlags are the options of plumb template, report and cutfile: the holes to mark, taken as plumb hang
 // takes them, the material, how to read SVG, and the output file.
 type shopFlags struct {
 	hang hangFlags
@@ -78,7 +78,7 @@ func (s *shopFlags) check(fs *flag.FlagSet, files []string) error {
 	}
 	switch {
 	case len(files) != 1:
-		return errors.New("give one part file (.json or .svg)")
+		return errors.New("give one part file or drawing (.json, .svg or .dxf)")
 	case s.out == "":
 		return errors.New("give the output file with -o")
 	}
@@ -88,7 +88,7 @@ func (s *shopFlags) check(fs *flag.FlagSet, files []string) error {
 // part reads the file and analyses it with the holes asked for: --at, --level, or the part file's own.
 // Warnings from reading and from the analysis go to stderr as well as onto the pages.
 func (s *shopFlags) part(path string, stderr io.Writer) (shop.Part, error) {
-	in, err := loadPart(path, s.hang.reading.r)
+	in, err := loadPart(path, s.hang.reading)
 	if err != nil {
 		return shop.Part{}, err
 	}

@@ -96,6 +96,10 @@ func (e *Editor) release(s geom.Point) {
 
 // place puts the next point at p, as a click there would.
 func (e *Editor) place(p geom.Point) {
+	if e.tool == ToolLetter {
+		e.letterAt, e.sel = &p, Selection{Hole: -1}
+		return
+	}
 	if e.tool == ToolOutline {
 		e.snap = Snap{At: p}
 		e.press(e.View.ToScreen(p))

@@ -23,9 +23,10 @@ const (
 	ToolSlot                // the two end centres, then the width
 	ToolHole                // place a hang hole, or drag one
 	ToolMeasure             // distance between two points
+	ToolLetter              // click the baseline's start, then type lettering
 )
 
-var toolNames = [...]string{"select", "outline", "rect", "circle", "slot", "hole", "measure"}
+var toolNames = [...]string{"select", "outline", "rect", "circle", "slot", "hole", "measure", "lettering"}
 
 // String returns the tool's name as the bridge spells it ("select", "rect", ...).
 func (t Tool) String() string { return toolNames[t] }
@@ -113,6 +114,10 @@ type Editor struct {
 	message string
 	measure *Measurement
 	guides  []geom.Point
+
+	textStyle  TextStyle   // of new lettering
+	letterAt   *geom.Point // where typing starts new lettering, placed by the Lettering tool
+	typingText bool        // keystrokes into the selected lettering replace the last undo step's result
 }
 
 // New returns an editor holding an empty part in millimetres, with the select tool and every kind of
@@ -128,6 +133,7 @@ func New() *Editor {
 		height:     600,
 	}
 	e.sel.Hole, e.hover.Hole = -1, -1
+	e.textStyle = defaultTextStyle("mm")
 	return e
 }
 
@@ -143,6 +149,7 @@ func (e *Editor) Tool() Tool { return e.tool }
 // SetTool switches tools, dropping any shape half drawn.
 func (e *Editor) SetTool(t Tool) {
 	e.cancelDrawing()
+	e.endLettering(false)
 	e.tool = t
 	e.measure = nil
 }
@@ -255,11 +262,17 @@ func docBounds(d *sketch.Document) geom.Rect {
 	for _, h := range d.Holes {
 		r = r.Union(geom.Rect{Min: h.At, Max: h.At})
 	}
+	for i := range d.Texts {
+		if f, ok := TextFrame(d, i); ok {
+			r = r.Union(geom.RectFromPoints(f[:]...))
+		}
+	}
 	return r
 }
 
 // commit makes nd the current document as one undoable step.
 func (e *Editor) commit(nd *sketch.Document) {
+	e.typingText = false
 	e.undo = append(e.undo, e.doc)
 	e.redo = nil
 	e.setDoc(nd)
@@ -275,6 +288,9 @@ func (e *Editor) setDoc(nd *sketch.Document) {
 		e.holeDia *= k
 		e.edge *= k
 		e.cornerRadius *= k
+		e.textStyle.Height *= k
+		e.textStyle.Spacing *= k
+		e.textStyle.Stencil.Width *= k
 		e.View.Scale /= k
 	}
 	e.doc = nd
@@ -338,6 +354,7 @@ func (e *Editor) step(from, to *[]*sketch.Document) bool {
 	if n == 0 {
 		return false
 	}
+	e.typingText = false
 	*to = append(*to, e.doc)
 	next := (*from)[n-1]
 	*from = (*from)[:n-1]
@@ -349,6 +366,7 @@ func (e *Editor) step(from, to *[]*sketch.Document) bool {
 // caller must not modify it afterwards.
 func (e *Editor) Load(d *sketch.Document) {
 	e.cancelDrawing()
+	e.endLettering(true)
 	e.sel, e.hover = Selection{Hole: -1}, Selection{Hole: -1}
 	e.commit(d)
 	switch u, err := density.LengthUnit(d.Units); {

@@ -24,6 +24,9 @@ var shortcuts = []struct {
 	{"l", "Slot: two end centres, then the width", func(e *Editor) { e.SetTool(ToolSlot) }},
 	{"h", "Hang hole: click to place, drag to move", func(e *Editor) { e.SetTool(ToolHole) }},
 	{"m", "Measure a distance", func(e *Editor) { e.SetTool(ToolMeasure) }},
+	{"t", "Lettering: click the baseline's start, type; Enter ends", func(e *Editor) { e.SetTool(ToolLetter) }},
+	{"[", "Turn the selected lettering 15° clockwise", func(e *Editor) { e.rotateText(-rotateStepDeg) }},
+	{"]", "Turn the selected lettering 15° counter-clockwise", func(e *Editor) { e.rotateText(rotateStepDeg) }},
 	{"a", "Arcs on/off for the next outline points", func(e *Editor) { e.arc = !e.arc }},
 	{"p", "New shapes form the part outline", func(e *Editor) { e.target = TargetOutline }},
 	{"x", "New shapes are cut-outs", func(e *Editor) { e.target = TargetCutout }},
@@ -64,6 +67,9 @@ func (e *Editor) Key(key string, m Mods) bool {
 			return e.Redo()
 		}
 		return false
+	}
+	if e.letterKey(key, m) {
+		return true
 	}
 	if e.typing(key) {
 		e.typed += key

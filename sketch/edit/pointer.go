@@ -81,6 +81,8 @@ func (e *Editor) PointerDown(s geom.Point, m Mods) {
 	case ToolSelect:
 		e.sel = e.pick(s)
 		e.startDrag(s, e.sel)
+	case ToolLetter:
+		e.startLettering(s, m)
 	case ToolHole:
 		if h := e.pick(s); h.Kind == SelHole {
 			e.sel = h

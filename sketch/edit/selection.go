@@ -14,6 +14,7 @@ const (
 	SelShape         // a whole loop: Point.Shape
 	SelPoint         // a vertex or control point: Point
 	SelHole          // a hang hole: Hole
+	SelText          // a line of lettering: Text
 )
 
 // Selection is what the select tool picked (or, for Hover, would pick).
@@ -21,6 +22,7 @@ type Selection struct {
 	Kind  SelKind
 	Point PointRef // Point.Shape for SelShape
 	Hole  int      // index into Document.Holes for SelHole, else -1
+	Text  int      // index into Document.Texts for SelText
 }
 
 // Selection returns what is selected.
@@ -48,6 +50,8 @@ func selectionValid(d *sketch.Document, s Selection) bool {
 	switch s.Kind {
 	case SelHole:
 		return s.Hole >= 0 && s.Hole < len(d.Holes)
+	case SelText:
+		return s.Text >= 0 && s.Text < len(d.Texts)
 	case SelShape, SelPoint:
 		l := ShapeLoop(d, s.Point.Shape)
 		return l != nil && s.Point.Seg < len(l) && s.Point.Ctrl <= l[s.Point.Seg].Degree()
@@ -97,6 +101,9 @@ func (e *Editor) pick(s geom.Point) Selection {
 		return found
 	}
 	p := e.View.ToDoc(s)
+	if i, ok := pickText(e.doc, p); ok {
+		return Selection{Kind: SelText, Text: i, Hole: -1}
+	}
 	eachShape(e.doc, func(ref ShapeRef, l geom.Loop) bool {
 		if (geom.Region{Loops: []geom.Loop{l}}).Contains(p) {
 			found = Selection{Kind: SelShape, Point: PointRef{Shape: ref}, Hole: -1}
@@ -115,6 +122,8 @@ func (e *Editor) mover(sel Selection, press geom.Point) (anchor geom.Point, appl
 	case SelHole:
 		ex.hole = sel.Hole
 		return e.doc.Holes[sel.Hole].At, func(d *sketch.Document, at geom.Point) { d.Holes[sel.Hole].At = at }, ex
+	case SelText:
+		return e.doc.Texts[sel.Text].At, func(d *sketch.Document, at geom.Point) { d.Texts[sel.Text].At = at }, ex
 	case SelPoint:
 		ref := sel.Point
 		ex.shape, ex.hasShape, ex.vertex = ref.Shape, ref.Ctrl == 0, ref.Seg
@@ -139,6 +148,8 @@ func (e *Editor) Delete() bool {
 	switch e.sel.Kind {
 	case SelHole:
 		nd.Holes = append(nd.Holes[:e.sel.Hole], nd.Holes[e.sel.Hole+1:]...)
+	case SelText:
+		nd.Texts = append(nd.Texts[:e.sel.Text], nd.Texts[e.sel.Text+1:]...)
 	case SelShape:
 		setLoop(nd, e.sel.Point.Shape, nil)
 	case SelPoint:

@@ -97,6 +97,11 @@ func Clone(d *sketch.Document) *sketch.Document {
 		c.Overlays[i] = sketch.Overlay{Name: o.Name, Region: cloneRegion(o.Region), Material: cloneSpec(o.Material)}
 	}
 	c.Holes = append([]sketch.Hole(nil), d.Holes...)
+	c.Texts = make([]sketch.Text, len(d.Texts))
+	for i, t := range d.Texts {
+		c.Texts[i] = t
+		c.Texts[i].Material = cloneSpec(t.Material)
+	}
 	return &c
 }
 
@@ -120,8 +125,9 @@ func cloneSpec(s density.Spec) density.Spec {
 	return c
 }
 
-// transformDoc applies m to every loop and hole of d in place; hole diameters scale by the square
-// root of |det m| (m is a similarity wherever the editor uses it).
+// transformDoc applies m to every loop, hole and line of lettering of d in place; hole diameters and
+// letter sizes scale by the square root of |det m| (m is a similarity without rotation wherever the
+// editor uses it).
 func transformDoc(d *sketch.Document, m geom.Affine) {
 	d.Outline = d.Outline.Transform(m)
 	for i := range d.Cutouts {
@@ -134,6 +140,11 @@ func transformDoc(d *sketch.Document, m geom.Affine) {
 	for i := range d.Holes {
 		d.Holes[i].At = m.Apply(d.Holes[i].At)
 		d.Holes[i].Diameter *= k
+	}
+	for i := range d.Texts {
+		t := &d.Texts[i]
+		t.At = m.Apply(t.At)
+		t.Height, t.Spacing, t.Stencil.Width = t.Height*k, t.Spacing*k, t.Stencil.Width*k
 	}
 }
 

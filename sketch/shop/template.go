@@ -213,9 +213,8 @@ type hole struct {
 
 func newDrawing(p Part, f facts) *drawing {
 	d := &drawing{Part: p, facts: f, mm: f.unit.MM}
-	regions := append([]geom.Region{p.Doc.Outline}, p.Doc.Cutouts...)
-	for _, o := range p.Doc.Overlays {
-		if b := geom.Combine(onMaterial, append(regions[:len(regions):len(regions)], o.Region)...); !b.IsEmpty() {
+	for _, o := range p.Doc.Overlaid() {
+		if b := p.Doc.OnMaterial(o.Region); !b.IsEmpty() {
 			d.overlays = append(d.overlays, b)
 			d.names = append(d.names, o.Name)
 		}
@@ -251,19 +250,24 @@ func newDrawing(p Part, f facts) *drawing {
 	return d
 }
 
-// onMaterial keeps the points of an overlay (the last region) that lie on the part: in the outline (the
-// first) and in no cut-out (the others).
-func onMaterial(in []bool) bool {
-	last := len(in) - 1
-	if !in[0] || !in[last] {
-		return false
+// edgeDistance returns the signed distance from p along the unit direction dir (or against it) to the
+// outermost crossing of the boundary on the nearer side: the part edge a rule laid along that line
+// meets; 0 when the line misses the part.
+func edgeDistance(b geom.Boundary, p, dir geom.Point) float64 {
+	hits := b.LineHits(p, dir)
+	if len(hits) == 0 {
+		return 0
 	}
-	for _, cut := range in[1:last] {
-		if cut {
-			return false
-		}
+	lo, hi := hits[0], hits[len(hits)-1]
+	switch {
+	case lo >= 0:
+		return hi
+	case hi <= 0:
+		return lo
+	case -lo < hi:
+		return lo
 	}
-	return true
+	return hi
 }
 
 // layout plans the pages, keeping each hole and its cross clear of the cut lines where it can.

@@ -15,6 +15,7 @@ import (
 
 	"plumb/geom"
 	"plumb/sketch"
+	"plumb/sketch/contour"
 )
 
 // Reading chooses how Read turns the shapes of a drawing into a part.
@@ -93,7 +94,8 @@ const (
 // stroke, display and visibility from attributes, style attributes and simple style sheets. The part
 // is in millimetres with y up: document x = SVG x and document y = −SVG y after the viewBox and all
 // transforms. Shapes in other namespaces, defs and other non-rendered elements are skipped; other
-// unknown elements are skipped with a warning. Text must be converted to paths first. Nothing outside
+// unknown elements are skipped with a warning, and so is text (its lettering does not count until
+// converted to paths). Nothing outside
 // the file is ever fetched, and entities are never expanded.
 func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	limit := opt.MaxBytes
@@ -452,7 +454,7 @@ var nonRendered = []string{"defs", "symbol", "clipPath", "mask", "marker", "patt
 	"radialGradient", "filter", "title", "desc", "metadata", "style", "script", "font", "font-face",
 	"cursor", "view"}
 
-// textElements cannot be read: glyph outlines depend on fonts.
+// textElements are skipped with a warning: glyph outlines depend on fonts.
 var textElements = []string{"text", "tspan", "textPath", "tref", "flowRoot", "flowPara"}
 
 func (r *svgReader) children(e *element, ctx inherited, uses int) error {
@@ -489,7 +491,8 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 		return nil
 	}
 	if slices.Contains(textElements, e.name) {
-		return &Error{Element: e.String(), Msg: "text is not read: convert text to paths first"}
+		r.warn("%s: text skipped: lettering does not count until it is converted to paths", e)
+		return nil
 	}
 	own, err := transformAttr(e)
 	if err != nil {
@@ -765,7 +768,7 @@ func (r *svgReader) build(d *sketch.Document, reading Reading) error {
 			}
 		}
 	}
-	tol := regionTol(box)
+	tol := contour.Tol(box)
 	var err error
 	if reading == ReadFilled {
 		var n int
@@ -789,15 +792,6 @@ func (r *svgReader) chooseReading() Reading {
 	return ReadFilled
 }
 
-// regionTol is the distance below which geom's region check takes two points as one (1e-9 of the
-// drawing's size, plus 1e-13 of its distance from the origin); segments shorter than this are
-// dropped rather than kept as degenerate.
-func regionTol(box geom.Rect) float64 {
-	size := box.Size()
-	far := max(-box.Min.X, box.Max.X, -box.Min.Y, box.Max.Y)
-	return 1e-9*max(size.X, size.Y) + 1e-13*far
-}
-
 // filled makes the painted region: each filled shape by its own fill rule (open contours closed by a
 // straight line, as filling does), and the union of them all. It also returns the number of shapes
 // that enclose area.
@@ -814,7 +808,7 @@ func (r *svgReader) filled(tol float64) (geom.Region, int, error) {
 			reg.Rule = geom.EvenOdd
 		}
 		for _, sub := range s.subs {
-			if l := closeLoop(sub.segs, tol); fillable(l) {
+			if l := contour.Close(sub.segs, tol, closeTolMM); fillable(l) {
 				reg.Loops = append(reg.Loops, l)
 			}
 		}
@@ -840,8 +834,11 @@ func (r *svgReader) filled(tol float64) (geom.Region, int, error) {
 		return regions[0], 1, nil
 	}
 	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, regions...)
-	loops, err := chainLoops(union.Pieces, tol)
-	return geom.Region{Loops: loops}, len(regions), err
+	loops, err := contour.Boundary(union.Pieces, tol)
+	if err != nil {
+		return geom.Region{}, 0, &Error{Msg: "the union of the filled shapes does not close into loops"}
+	}
+	return geom.Region{Loops: loops}, len(regions), nil
 }
 
 // fillable reports whether a loop can enclose area: not a single segment and its way back.
@@ -862,7 +859,7 @@ func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
 				open = append(open, p)
 				continue
 			}
-			reg.Loops = append(reg.Loops, closeLoop(sub.segs, tol))
+			reg.Loops = append(reg.Loops, contour.Close(sub.segs, tol, closeTolMM))
 			owners = append(owners, s.el)
 		}
 	}
@@ -871,7 +868,7 @@ func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
 		return reg, err
 	}
 	for _, l := range joined {
-		reg.Loops = append(reg.Loops, closeLoop(l, tol))
+		reg.Loops = append(reg.Loops, contour.Close(l, tol, closeTolMM))
 	}
 	owners = append(owners, joinedOwners...)
 	warnings, err := reg.Check()
@@ -890,95 +887,6 @@ func (r *svgReader) cutFile(tol float64) (geom.Region, error) {
 
 func loopError(e *element, err error) error {
 	return &Error{Element: e.String(), Msg: err.Error()}
-}
-
-// closeLoop returns segs as a closed loop without degenerate segments: segments no longer than tol are
-// dropped and the ends they leave apart are joined, and the loop's last end is joined to its start,
-// by moving a line or curve end point when the gap is within closeTolMM+tol, else by a straight line.
-func closeLoop(segs []geom.Segment, tol float64) geom.Loop {
-	var l geom.Loop
-	for _, s := range segs {
-		if extent(s) <= tol {
-			continue
-		}
-		if len(l) > 0 {
-			l[len(l)-1], s = join(l[len(l)-1], s)
-		}
-		l = append(l, s)
-	}
-	if len(l) == 0 {
-		return nil
-	}
-	if gap := l[len(l)-1].End().Dist(l[0].Start()); gap > closeTolMM+tol {
-		l = append(l, geom.Line(l[len(l)-1].End(), l[0].Start()))
-	}
-	l[len(l)-1], l[0] = join(l[len(l)-1], l[0])
-	return l
-}
-
-// extent is how far the control points of s reach from its start.
-func extent(s geom.Segment) float64 {
-	if s.Kind == geom.KindArc {
-		return max(s.RX, s.RY) * math.Abs(s.Sweep)
-	}
-	d := 0.0
-	for _, p := range s.P[1 : s.Degree()+1] {
-		d = max(d, p.Dist(s.P[0]))
-	}
-	return d
-}
-
-// join makes b start exactly where a ends, moving an end point of a line or Bézier (arcs keep theirs,
-// which must match their centre form); a gap between two arcs is left for the region check to judge.
-func join(a, b geom.Segment) (geom.Segment, geom.Segment) {
-	end := a.End()
-	switch {
-	case end == b.Start():
-	case b.Kind != geom.KindArc:
-		b.P[0] = end
-	case a.Kind != geom.KindArc:
-		a.P[a.Degree()] = b.Start()
-	}
-	return a, b
-}
-
-// chainLoops links boundary pieces end to start into closed loops, leaving out slivers no longer
-// than tol that splitting at intersections can produce.
-func chainLoops(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
-	used := make([]bool, len(pieces))
-	var loops []geom.Loop
-	for i := range pieces {
-		if used[i] {
-			continue
-		}
-		used[i] = true
-		l := geom.Loop{pieces[i]}
-		for last := i; l[len(l)-1].End().Dist(l[0].Start()) > tol; {
-			if last = nextPiece(pieces, used, l[len(l)-1].End(), last+1, tol); last < 0 {
-				return nil, &Error{Msg: "the union of the filled shapes does not close into loops"}
-			}
-			used[last] = true
-			l = append(l, pieces[last])
-		}
-		if l = closeLoop(l, tol); len(l) > 0 {
-			loops = append(loops, l)
-		}
-	}
-	return loops, nil
-}
-
-// nextPiece returns the first unused piece that starts within tol of p, trying hint first (pieces
-// usually come in order), or -1.
-func nextPiece(pieces []geom.Segment, used []bool, p geom.Point, hint int, tol float64) int {
-	if hint < len(pieces) && !used[hint] && pieces[hint].Start().Dist(p) <= tol {
-		return hint
-	}
-	for k, s := range pieces {
-		if !used[k] && s.Start().Dist(p) <= tol {
-			return k
-		}
-	}
-	return -1
 }
 
 // paint computes e's paint properties from its parent's p: presentation attributes, then matching

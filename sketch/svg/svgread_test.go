@@ -209,15 +209,21 @@ func TestReadSVGWarnings(t *testing.T) {
 		`<use href="other.svg#part"/>` +
 		`<path d="M0 50h10" stroke="#000" fill="none"/>` +
 		`<rect clip-path="url(#c)" x="50" width="1" height="1"/>` +
-		`<rect id="paper" fill="#FFF" x="100" width="10" height="10"/>`)
-	_, warnings := readSVG(t, svg, ReadAuto)
+		`<rect id="paper" fill="#FFF" x="100" width="10" height="10"/>` +
+		`<text id="name" x="1" y="1">Bakery</text>`)
+	d, warnings := readSVG(t, svg, ReadAuto)
 	want := []string{
 		`image#logo (element 3): not a shape Plumb reads; skipped`,
 		`use (element 5): reference "other.svg#part" outside the file is not followed`,
 		`rect (element 7): clip-path is not applied; the shapes are read unclipped`,
+		`text#name (element 9): text skipped: lettering does not count until it is converted to paths`,
 		`rect#paper (element 8) is filled white; it counts as material like every filled shape (a page ` +
 			`background would fill the whole page: remove it, or read the drawing as a cut file)`,
 		`1 stroked shapes without fill are left out of the filled drawing`,
+	}
+	// The lettering adds nothing: the part is the two squares and the white one.
+	if got := outlineArea(d); math.Abs(got-201) > 1e-9 {
+		t.Errorf("area %g, want 100 + 1 + 100 without the text", got)
 	}
 	if strings.Join(warnings, "\n") != strings.Join(want, "\n") {
 		t.Errorf("warnings\n%s\nwant\n%s", strings.Join(warnings, "\n"), strings.Join(want, "\n"))
@@ -233,8 +239,6 @@ func TestReadSVGErrors(t *testing.T) {
 			`<path id="bracket" d="M10 10 L30 10 L30 30"/></g>`),
 			"path#bracket (element 4): contour 1 is open (its ends are 28.3 mm apart); a cut file needs closed contours",
 			Options{}},
-		{"text", mmSVG(`<rect width="8" height="8"/><text id="name" x="1" y="1">Bakery</text>`),
-			"text#name (element 3): text is not read: convert text to paths first", Options{}},
 		{"entities declared", `<?xml version="1.0"?><!DOCTYPE svg [<!ENTITY a "aaaaaaaaaa">]>` + mmSVG(`<rect/>`),
 			"the document type declares entities; Plumb does not expand entities", Options{}},
 		{"entity used", mmSVG(`<rect id="&a;"/>`), "not well-formed XML: XML syntax error on line 1: invalid character entity &a;",

@@ -12,6 +12,7 @@ import (
 	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch"
+	"plumb/sketch/contour"
 )
 
 // Drawing sizes of Write, in millimetres on paper.
@@ -59,12 +60,12 @@ func Write(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang) ([]byte, e
 
 	w := &svgWriter{toUser: toUser}
 	w.printf(`<g id="part">`)
-	loops, err := chainLoops(body.Pieces, regionTol(box))
+	loops, err := contour.Boundary(body.Pieces, contour.Tol(box))
 	if err != nil {
 		return nil, err
 	}
 	w.path(slices.Concat(loops...), `fill="#c9d3dc" stroke="#1d2a36" stroke-width="0.25"`)
-	for _, o := range d.Overlays {
+	for _, o := range d.Overlaid() {
 		w.printf(`<g %s><title>%s</title>`, marksAttr, escape(o.Name))
 		for _, l := range o.Region.Loops {
 			w.path(l, fmt.Sprintf(`fill="#d9a441" fill-opacity="0.45" fill-rule="%s" stroke="#8a6414" stroke-width="0.2"`,
@@ -117,12 +118,13 @@ func (w *svgWriter) path(segs []geom.Segment, attrs string) {
 	if len(segs) == 0 {
 		return
 	}
-	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toUser), attrs)
+	w.printf(`<path d="%s" %s/>`, pathData(segs, w.toUser, num), attrs)
 }
 
-// pathData writes segments as SVG path data after mapping them by m, starting a subpath wherever a
-// segment does not begin at the previous one's end, and closing each subpath that returns to its start.
-func pathData(segs []geom.Segment, m geom.Affine) string {
+// pathData writes segments as SVG path data after mapping them by m, with numbers formatted by f,
+// starting a subpath wherever a segment does not begin at the previous one's end, and closing each
+// subpath that returns to its start.
+func pathData(segs []geom.Segment, m geom.Affine, f func(float64) string) string {
 	var b strings.Builder
 	var start, cur geom.Point
 	for i, s := range segs {
@@ -132,9 +134,9 @@ func pathData(segs []geom.Segment, m geom.Affine) string {
 				b.WriteString("Z")
 			}
 			start = s.Start()
-			fmt.Fprintf(&b, "M%s ", pair(start))
+			fmt.Fprintf(&b, "M%s %s ", f(start.X), f(start.Y))
 		}
-		writeSegment(&b, s)
+		writeSegment(&b, s, f)
 		cur = s.End()
 	}
 	if cur.Dist(start) <= 1e-9 {
@@ -146,26 +148,27 @@ func pathData(segs []geom.Segment, m geom.Affine) string {
 // writeSegment writes one segment's path command. Arcs are written in pieces of at most a quarter
 // turn: near a half turn, the centre SVG recovers from the end points (W3C SVG 1.1, F.6.5) is
 // ill-conditioned, and rounding the end points would move it.
-func writeSegment(b *strings.Builder, s geom.Segment) {
+func writeSegment(b *strings.Builder, s geom.Segment, f func(float64) string) {
+	pt := func(p geom.Point) string { return f(p.X) + " " + f(p.Y) }
 	switch s.Kind {
 	case geom.KindLine:
-		fmt.Fprintf(b, "L%s ", pair(s.P[1]))
+		fmt.Fprintf(b, "L%s ", pt(s.P[1]))
 	case geom.KindQuad:
-		fmt.Fprintf(b, "Q%s %s ", pair(s.P[1]), pair(s.P[2]))
+		fmt.Fprintf(b, "Q%s %s ", pt(s.P[1]), pt(s.P[2]))
 	case geom.KindCubic:
-		fmt.Fprintf(b, "C%s %s %s ", pair(s.P[1]), pair(s.P[2]), pair(s.P[3]))
+		fmt.Fprintf(b, "C%s %s %s ", pt(s.P[1]), pt(s.P[2]), pt(s.P[3]))
 	case geom.KindArc:
 		if math.Abs(s.Sweep) > math.Pi/2 {
 			h1, h2 := s.Split(0.5)
-			writeSegment(b, h1)
-			writeSegment(b, h2)
+			writeSegment(b, h1, f)
+			writeSegment(b, h2, f)
 			return
 		}
 		sweep := 0
 		if s.Sweep > 0 {
 			sweep = 1
 		}
-		fmt.Fprintf(b, "A%s %s %s 0 %d %s ", num(s.RX), num(s.RY), num(s.Rot*180/math.Pi), sweep, pair(s.P[1]))
+		fmt.Fprintf(b, "A%s %s %s 0 %d %s ", f(s.RX), f(s.RY), f(s.Rot*180/math.Pi), sweep, pt(s.P[1]))
 	}
 }
 
@@ -239,7 +242,11 @@ func (w *svgWriter) centroidMark(c geom.Point) {
 func (w *svgWriter) label(d *sketch.Document, a *sketch.Analysis, hang *sketch.Hang, unit density.Length, width, top float64) float64 {
 	var lines []string
 	lines = append(lines, partTitle(d))
-	if a != nil {
+	switch {
+	case a != nil && a.NoMaterial:
+		lines = append(lines, fmt.Sprintf("No material given: mass unknown; balance point x %.5g, y %.5g %s (from the shape)",
+			a.Centroid.X, a.Centroid.Y, unit.Name))
+	case a != nil:
 		lines = append(lines, fmt.Sprintf("Mass %.4g kg (weight %.4g N, %.4g lbf); balance point x %.5g, y %.5g %s",
 			a.Mass, a.WeightN, a.WeightLbf, a.Centroid.X, a.Centroid.Y, unit.Name))
 		for _, m := range a.Materials {

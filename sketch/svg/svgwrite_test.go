@@ -142,7 +142,7 @@ func TestPathData(t *testing.T) {
 		geom.EllipticalArc(geom.Pt(0, 5), 3, 5, 0, math.Pi/2, math.Pi),
 	}
 	flip := geom.Scale(1, -1)
-	subs, err := parsePath(pathData(segs, flip))
+	subs, err := parsePath(pathData(segs, flip, num))
 	if err != nil {
 		t.Fatal(err)
 	}

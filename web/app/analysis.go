@@ -5,7 +5,6 @@ package main
 import (
 	"encoding/json"
 	"regexp"
-	"slices"
 	"strconv"
 	"time"
 
@@ -50,9 +49,9 @@ func analyse(doc *sketch.Document, rev int, edge float64) *result {
 	case sound:
 		r.body = doc.Body()
 	}
-	for i := range doc.Overlays {
-		if sound {
-			r.onPart = append(r.onPart, overlayOnPart(doc, i))
+	if sound {
+		for _, o := range doc.Overlaid() {
+			r.onPart = append(r.onPart, doc.OnMaterial(o.Region))
 		}
 	}
 	r.flagged = flaggedSegments(doc, r)
@@ -140,15 +139,6 @@ func atoi(s string) int {
 	return n
 }
 
-// overlayOnPart returns the part of overlay i that lies on the material (inside the outline, outside
-// every cut-out): where it adds weight.
-func overlayOnPart(d *sketch.Document, i int) geom.Boundary {
-	regions := append(append([]geom.Region{d.Outline}, d.Cutouts...), d.Overlays[i].Region)
-	return geom.Combine(func(in []bool) bool {
-		return in[0] && in[len(in)-1] && !slices.Contains(in[1:len(in)-1], true)
-	}, regions...)
-}
-
 // xy is a point in the state object.
 type xy struct {
 	X float64 `json:"x"`
@@ -186,6 +176,28 @@ type edgeState struct {
 	Min    float64 `json:"min"`
 	Source string  `json:"source"`
 	Asked  bool    `json:"asked"`
+}
+
+// letteringState is the state object's "lettering": the Lettering tool's style (of the selected
+// lettering, else of new lettering), the selected lettering's index (−1 for none) and text, and
+// whether keys type into lettering.
+type letteringState struct {
+	edit.TextStyle
+	StencilWidth float64 `json:"stencil_width"`
+	StencilCount int     `json:"stencil_count"`
+	Selected     int     `json:"selected"`
+	Text         string  `json:"text"`
+	Writing      bool    `json:"writing"`
+}
+
+func letteringStateOf(ed *edit.Editor) letteringState {
+	st := ed.TextStyle()
+	ls := letteringState{TextStyle: st, StencilWidth: st.Stencil.Width, StencilCount: st.Stencil.Count,
+		Selected: -1, Writing: ed.Writing()}
+	if sel := ed.Selection(); sel.Kind == edit.SelText {
+		ls.Selected, ls.Text = sel.Text, ed.Document().Texts[sel.Text].Text
+	}
+	return ls
 }
 
 // stateJSON returns the object window.plumb.state() gives: the keys of `plumb analyze --format json`
@@ -247,6 +259,7 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	m["tool"], m["target"] = ed.Tool().String(), ed.Target().String()
 	m["arc"], m["can_undo"], m["can_redo"] = ed.ArcMode(), ed.CanUndo(), ed.CanRedo()
 	m["hole_diameter"], m["corner_radius"] = ed.HoleDiameter(), ed.CornerRadius()
+	m["lettering"] = letteringStateOf(ed)
 	if min, source, err := r.doc.EdgeRule(ed.HoleDiameter(), sketch.HangOptions{Edge: ed.EdgeDistance()}); err == nil {
 		m["edge"] = edgeState{min, source, ed.EdgeDistance() > 0}
 	}

@@ -8,20 +8,23 @@ import (
 	"errors"
 	"fmt"
 	"maps"
+	"math"
 	"path"
 	"strings"
 	"syscall/js"
 
 	"plumb/density"
 	"plumb/sketch"
+	"plumb/sketch/dxf"
 	"plumb/sketch/edit"
+	"plumb/sketch/letter"
 	"plumb/sketch/shop"
 	"plumb/sketch/svg"
 )
 
 // installBridge sets window.plumb, the page's and the tests' way into the app:
 //
-//	load(text, filename) → {ok, error, warnings}   a part file (JSON) or an SVG drawing
+//	load(text, filename) → {ok, error, warnings, has_material}   a part file (JSON), SVG or DXF drawing
 //	restore(text, filename) → like load, for saved work: the part is the bottom of the undo history
 //	frames() → {drawn, last_ms}   frames painted so far, and performance.now() at the last one
 //	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
@@ -29,6 +32,7 @@ import (
 //	saveJSON() → string     the part file
 //	report() → string       the plain-text report with the cautions
 //	templatePDF(paper) → Uint8Array | {error}   the 1:1 drilling template on "A4", "letter", "A3" or "tabloid"
+//	cutFile("dxf"|"svg") → string | {error}     the part as a cut file with its hang holes (or the level hole)
 //	undo(), redo(), newPart(), fit()
 //	setMaterial({material, thickness} | {formula, unit, params}) → {ok, error: {field, col, msg}}
 //	setUnits("mm"|"in"|…), setTool(name), setTarget(name), setHoleDiameter(d),
@@ -37,6 +41,10 @@ import (
 //	setEdgeDistance(e) (document units, 0: the common-practice rule) → {ok, error}
 //	placeSuggestedHole() → {ok, error}   the hang hole at the level-hang (else least-tilt) position
 //	shortcuts() → [{key, action}]
+//	setTextStyle({font, height, role, angle_deg, spacing, stencil_width, stencil_count}) → {ok, error}
+//	  the Lettering tool's style, given also to the selected lettering
+//	fonts() → [name]        the fonts lettering may use
+//	fontLicence() → string  the Go fonts' licence notice, for the about box
 //
 // After every change it calls window.plumbUI.onChange(state); the page autosaves through saveJSON when
 // the edits pause.
@@ -77,6 +85,15 @@ func installBridge(g *Game) {
 			u := js.Global().Get("Uint8Array").New(len(b))
 			js.CopyBytesToJS(u, b)
 			return u
+		})
+	})
+	fn("cutFile", func(a []js.Value) any {
+		return read(g, func() any {
+			b, err := g.cutFile(str(a, 0))
+			if err != nil {
+				return map[string]any{"error": err.Error()}
+			}
+			return string(b)
 		})
 	})
 	fn("undo", func([]js.Value) any { return g.change(func() any { return g.ed.Undo() }) })
@@ -156,6 +173,17 @@ func installBridge(g *Game) {
 			return outcome(nil)
 		})
 	})
+	fn("setTextStyle", func(a []js.Value) any {
+		return g.change(func() any { return outcome(g.setTextStyle(arg(a, 0))) })
+	})
+	fn("fonts", func([]js.Value) any {
+		var out []any
+		for _, f := range letter.Fonts() {
+			out = append(out, f)
+		}
+		return out
+	})
+	fn("fontLicence", func([]js.Value) any { return letter.Licence })
 	fn("shortcuts", func([]js.Value) any {
 		var out []any
 		for _, s := range edit.Shortcuts() {
@@ -211,7 +239,7 @@ func outcome(err error) any {
 	return map[string]any{"ok": true, "error": ""}
 }
 
-// load reads a part file or an SVG drawing and makes it the part. The answer says whether the part
+// load reads a part file or an SVG or DXF drawing and makes it the part. The answer says whether the part
 // came with a material (has_material), so that the page can give a drawing without one the panel's.
 // Restored saved work starts the undo history, so that Undo cannot empty it.
 func (g *Game) load(text, name string, restored bool) any {
@@ -220,14 +248,17 @@ func (g *Game) load(text, name string, restored bool) any {
 		warnings []string
 		err      error
 	)
-	if strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<") {
-		base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	base := strings.TrimSuffix(path.Base(name), path.Ext(name))
+	switch {
+	case strings.EqualFold(path.Ext(name), ".dxf"):
+		doc, warnings, err = dxf.Read([]byte(text), dxf.Options{Name: base})
+	case strings.EqualFold(path.Ext(name), ".svg") || strings.HasPrefix(strings.TrimSpace(text), "<"):
 		doc, warnings, err = svg.Read([]byte(text), svg.Options{Name: base})
-		if err == nil {
-			err = doc.CheckExtent() // sketch.Load checks a part file's extent itself
-		}
-	} else {
+	default:
 		doc, err = sketch.Load([]byte(text))
+	}
+	if err == nil {
+		err = doc.CheckExtent() // refuse parts beyond the coordinate range before anything is saved
 	}
 	if err != nil {
 		return map[string]any{"ok": false, "error": err.Error(), "warnings": []any{}}
@@ -410,4 +441,46 @@ func (g *Game) templatePDF(paperName string) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
+}
+
+// setTextStyle reads the Lettering fields the page sends and gives them to the editor.
+func (g *Game) setTextStyle(v js.Value) error {
+	if v.Type() != js.TypeObject {
+		return errors.New("expected {font, height, role, angle_deg, spacing, stencil_width, stencil_count}")
+	}
+	num := func(name string) float64 {
+		if f := v.Get(name); f.Type() == js.TypeNumber {
+			return f.Float()
+		}
+		return math.NaN()
+	}
+	text := func(name string) string {
+		if f := v.Get(name); f.Type() == js.TypeString {
+			return f.String()
+		}
+		return ""
+	}
+	st := edit.TextStyle{Font: text("font"), Height: num("height"), Role: sketch.TextRole(text("role")),
+		AngleDeg: num("angle_deg"), Spacing: num("spacing")}
+	if n := num("stencil_count"); n >= 1 && n <= letter.MaxBridges {
+		st.Stencil = letter.Bridges{Width: num("stencil_width"), Count: int(n)}
+	}
+	return g.ed.SetTextStyle(st)
+}
+
+// cutFile returns the part as a DXF or SVG cut file (format "dxf" or "svg") with its hang holes as
+// circles; a part without holes gets the level-hang hole when there is one.
+func (g *Game) cutFile(format string) ([]byte, error) {
+	d := g.ed.Document()
+	holes := d.Holes
+	if lv := g.res.level; len(holes) == 0 && lv != nil && lv.Hang != nil {
+		holes = []sketch.Hole{{At: lv.At, Diameter: lv.Diameter}}
+	}
+	switch format {
+	case "dxf":
+		return dxf.Write(d, holes)
+	case "svg":
+		return svg.WriteCut(d, holes)
+	}
+	return nil, fmt.Errorf("unknown cut file format %q: want dxf or svg", format)
 }

@@ -43,6 +43,8 @@ var (
 	colPreviewFill = rgba(0x2f6fd6, 0.08)
 	colSnap        = rgba(0xd2386c, 1)
 	colLevel       = rgba(0x1f6470, 1)
+	colLoose       = rgba(0xd2386c, 0.28)
+	colLooseEdge   = rgba(0xa4204f, 1)
 )
 
 // Canvas furniture sizes in CSS pixels.
@@ -257,7 +259,8 @@ func (fr *frame) part() {
 	case len(d.Outline.Loops) > 0:
 		fr.p.fill(fr.regionPath(d.Outline), colMaterial, fillRule(d.Outline.Rule))
 	}
-	for i, o := range d.Overlays {
+	fr.loosePieces()
+	for i, o := range d.Overlaid() {
 		// The tint shows where the doubler adds weight: on the material only. Its edge shows all of it.
 		if fr.res.doc == d && i < len(fr.res.onPart) {
 			fr.fillBoundary(fr.res.onPart[i], colOverlay)
@@ -271,6 +274,45 @@ func (fr *frame) part() {
 	for _, r := range append([]geom.Region{d.Outline}, d.Cutouts...) {
 		fr.p.stroke(fr.regionPath(r), 1.5*fr.u, colEdge)
 	}
+	for i, t := range d.Texts {
+		if sh, err := t.Shape(""); err == nil && t.Role != sketch.RoleAdded {
+			fr.p.stroke(fr.regionPath(sh.Region), 1.2*fr.u, colEdge)
+		} else if err != nil {
+			fr.textError(i)
+		}
+	}
+}
+
+// loosePieces shades the pieces of material that come apart from the largest after cutting (the
+// counters of cut-out letters, islands inside cut-outs), numbers each where it lies, and says below
+// the part what the shading means.
+func (fr *frame) loosePieces() {
+	a := fr.res.a
+	if a == nil || fr.res.doc != fr.doc || len(a.Pieces) < 2 {
+		return
+	}
+	for i, p := range a.Pieces[1:] {
+		fr.fillBoundary(p.Body, colLoose)
+		fr.dashedSegs(p.Body.Pieces, 1.2, 4, 3, colLooseEdge)
+		c := fr.screen(p.Centroid)
+		drawText(fr.p.dst, strconv.Itoa(i+1), fr.f.small, c.X, c.Y, alignCentreMiddle, colLooseEdge)
+	}
+	n := len(a.Pieces) - 1
+	label := fmt.Sprintf("%d loose pieces (shaded) fall out after cutting unless bridged", n)
+	if n == 1 {
+		label = "1 loose piece (shaded) falls out after cutting unless bridged"
+	}
+	b := fr.res.body.Bounds()
+	c := fr.screen(geom.Pt((b.Min.X+b.Max.X)/2, b.Min.Y))
+	fr.pill(label, fr.f.small, c.X, c.Y+16*fr.u, alignCentreMiddle, colLooseEdge)
+}
+
+// textError marks lettering that cannot be laid out with a dashed cross at its baseline's start.
+func (fr *frame) textError(i int) {
+	c := fr.screen(fr.doc.Texts[i].At)
+	r := 8 * fr.u
+	fr.p.line(c.Add(geom.Pt(-r, -r)), c.Add(geom.Pt(r, r)), 2*fr.u, colPlumb)
+	fr.p.line(c.Add(geom.Pt(-r, r)), c.Add(geom.Pt(r, -r)), 2*fr.u, colPlumb)
 }
 
 func fillRule(r geom.FillRule) ebiten.FillRule {
@@ -462,6 +504,11 @@ func (fr *frame) edgeWarnings() {
 // Bézier handles to grab.
 func (fr *frame) selection() {
 	ed := fr.g.ed
+	if ed.Tool() == edit.ToolLetter {
+		fr.highlight(ed.Selection(), colSelect, 1.5)
+		fr.caret()
+		return
+	}
 	if ed.Tool() != edit.ToolSelect && ed.Tool() != edit.ToolHole {
 		return
 	}
@@ -476,6 +523,10 @@ func (fr *frame) highlight(s edit.Selection, clr color.Color, width float64) {
 		if s.Hole < len(d.Holes) {
 			h := d.Holes[s.Hole]
 			fr.p.circle(fr.screen(h.At), math.Max(h.Diameter/2*fr.v.Scale, 3*fr.u)+4*fr.u, width*fr.u, clr)
+		}
+	case edit.SelText:
+		if f, ok := edit.TextFrame(d, s.Text); ok {
+			fr.p.stroke(fr.segPath(geom.Polygon(f[:]...), true), width*fr.u, clr)
 		}
 	case edit.SelShape, edit.SelPoint:
 		l := edit.ShapeLoop(d, s.Point.Shape)
@@ -692,6 +743,12 @@ var toolHints = map[edit.Tool]string{
 	edit.ToolSlot:    "Slot: click both end centres, then the width · type a length, then the width",
 	edit.ToolHole:    "Hang hole: click to place · drag a hole to move it · the first hole is the one the part hangs from",
 	edit.ToolMeasure: "Measure: click two points",
+	edit.ToolLetter:  "Lettering: click where the baseline starts, then type · click lettering to add to it, drag to move it · Enter or Esc ends · font, height and role in the panel",
+}
+
+// roleWords name the roles of lettering in the status line.
+var roleWords = map[sketch.TextRole]string{
+	sketch.RoleCutout: "cut out", sketch.RoleAdded: "added on", sketch.RoleSeparate: "separate pieces",
 }
 
 var targetWords = map[edit.Target]string{
@@ -712,6 +769,9 @@ func (fr *frame) status() {
 		}
 	case edit.ToolHole:
 		hint = "Ø " + fr.length(ed.HoleDiameter()) + " " + fr.doc.Units + " · " + hint
+	case edit.ToolLetter:
+		st := ed.TextStyle()
+		hint = st.Font + " " + fr.length(st.Height) + " " + fr.doc.Units + " · " + roleWords[st.Role] + " · " + hint
 	}
 	if r := ed.CornerRadius(); ed.Tool() == edit.ToolRect && r > 0 {
 		hint = "Corners r " + fr.length(r) + " " + fr.doc.Units + " · " + hint
@@ -811,3 +871,25 @@ func (fr *frame) pill(s string, face text.Face, x, y float64, a align, clr color
 
 // length formats a length or coordinate in the document unit for a label.
 func (fr *frame) length(v float64) string { return edit.FormatLength(v, fr.doc.Units) }
+
+// caret draws where the Lettering tool's next character goes: at the end of the selected lettering's
+// baseline, or at the placed start of new lettering, as tall as a capital of the current style.
+func (fr *frame) caret() {
+	ed := fr.g.ed
+	st := ed.TextStyle()
+	at, ok := ed.LetteringAt()
+	if sel := ed.Selection(); sel.Kind == edit.SelText {
+		t := fr.doc.Texts[sel.Text]
+		sh, err := t.Shape("")
+		if err != nil {
+			return
+		}
+		at, ok = t.At.Add(geom.Pt(1, 0).Rotate(t.AngleDeg*math.Pi/180).Mul(sh.Length)), true
+	}
+	if !ok {
+		return
+	}
+	up := geom.Pt(0, 1).Rotate(st.AngleDeg * math.Pi / 180).Mul(st.Height)
+	fr.p.line(fr.screen(at), fr.screen(at.Add(up)), 2*fr.u, colSelect)
+	fr.p.circle(fr.screen(at), 3*fr.u, 0, colSelect)
+}

@@ -114,7 +114,7 @@ func (g *Game) handleInput() {
 // left button to the editor otherwise.
 func (g *Game) handleMouse(cur geom.Point, mods edit.Mods) {
 	in := &g.in
-	panKey := ebiten.IsKeyPressed(ebiten.KeySpace) && g.ed.Typed() == ""
+	panKey := ebiten.IsKeyPressed(ebiten.KeySpace) && g.ed.Typed() == "" && !g.ed.Writing()
 	switch {
 	case inpututil.IsMouseButtonJustPressed(ebiten.MouseButtonMiddle),
 		inpututil.IsMouseButtonJustPressed(ebiten.MouseButtonRight),
@@ -191,7 +191,7 @@ func (g *Game) handleKeys(mods edit.Mods) {
 	in := &g.in
 	in.chars = ebiten.AppendInputChars(in.chars[:0])
 	for _, r := range in.chars {
-		if r == ' ' && g.ed.Typed() == "" {
+		if r == ' ' && g.ed.Typed() == "" && !g.ed.Writing() {
 			continue // Space pans
 		}
 		g.ed.Key(string(r), mods)
@@ -209,7 +209,9 @@ func (g *Game) setCursorShape() {
 	switch {
 	case g.in.panning:
 		shape = ebiten.CursorShapeMove
-	case g.ed.Tool() == edit.ToolSelect && g.ed.Hover().Kind == edit.SelShape:
+	case g.ed.Tool() == edit.ToolLetter:
+		shape = ebiten.CursorShapeText
+	case g.ed.Tool() == edit.ToolSelect && (g.ed.Hover().Kind == edit.SelShape || g.ed.Hover().Kind == edit.SelText):
 		shape = ebiten.CursorShapeMove // a drag moves the whole shape
 	case g.ed.Tool() == edit.ToolSelect && g.ed.Hover().Kind != edit.SelNone:
 		shape = ebiten.CursorShapePointer

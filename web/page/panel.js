@@ -122,7 +122,7 @@
 
   function setEnabled(on) {
     for (const el of document.querySelectorAll("#tools button, #panel button, #panel input, #panel select")) {
-      if (el.dataset.action === "help" || el.dataset.action === "cautions" || el.id === "fold") continue;
+      if (["help", "cautions", "about"].includes(el.dataset.action) || el.id === "fold") continue;
       el.disabled = !on;
     }
   }
@@ -143,6 +143,7 @@
       toast("The part could not be restored: " + e.message, true);
     }
     restored = true;
+    $("text-font").replaceChildren(...app.fonts().map((f) => new Option(f, f)));
     refresh();
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
@@ -350,7 +351,7 @@
   // baseName names downloaded files after the part, or else after the file it came from.
   function baseName() {
     const name = partName || (state && state.file) || "part";
-    return name.replace(/\.(json|svg)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
+    return name.replace(/\.(json|svg|dxf)$/i, "").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "part";
   }
 
   // download offers data (a string or a Uint8Array) as a file.
@@ -580,6 +581,48 @@
     renderEdge(u);
     renderStale();
     renderWarnings();
+    renderLettering();
+  }
+
+  // renderLettering shows the Lettering fields while the Lettering tool is active or lettering is
+  // selected, with the selected lettering's style (else the style new lettering gets).
+  function renderLettering() {
+    const l = state.lettering;
+    const show = Boolean(l) && (state.tool === "lettering" || l.selected >= 0);
+    $("lettering").hidden = !show;
+    if (!show) return;
+    $("text-what").textContent = l.selected >= 0 ? "· “" + l.text + "”" : "· new lettering";
+    const set = (id, v) => { if (document.activeElement !== $(id)) $(id).value = v; };
+    set("text-font", l.font || "go-regular");
+    set("text-height", fmtField(l.height));
+    set("text-role", l.role || "cutout");
+    set("text-angle", String(Number(l.angle_deg.toFixed(3))));
+    set("text-spacing", fmtField(l.spacing));
+    $("text-stencil").checked = l.stencil_count > 0;
+    if (l.stencil_count > 0) { set("text-bridge", fmtField(l.stencil_width)); set("text-bridges", String(l.stencil_count)); }
+    $("text-stencil").disabled = (l.role || "cutout") !== "cutout";
+    for (const id of ["text-bridge", "text-bridges"]) $(id).disabled = !$("text-stencil").checked || $("text-stencil").disabled;
+  }
+
+  // sendTextStyle gives the app the Lettering fields: the style of the selected lettering and of new
+  // lettering.
+  function sendTextStyle() {
+    if (!app) return;
+    const num = (id) => Number($(id).value);
+    const stencil = $("text-stencil").checked && $("text-role").value === "cutout";
+    if (stencil && !(num("text-bridge") > 0)) $("text-bridge").value = fmtField(Math.max(num("text-height") / 20, 0.1));
+    const r = app.setTextStyle({
+      font: $("text-font").value, height: num("text-height"), role: $("text-role").value,
+      angle_deg: num("text-angle"), spacing: num("text-spacing"),
+      stencil_width: stencil ? num("text-bridge") : 0, stencil_count: stencil ? num("text-bridges") : 0,
+    });
+    if (!r.ok) toast("Lettering: " + r.error, true);
+    refresh();
+  }
+
+  function showAbout() {
+    if (app) $("about-licence").textContent = app.fontLicence();
+    $("about").hidden = false;
   }
 
   function renderAnswers(u) {
@@ -731,6 +774,12 @@
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
     svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
     report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
+    cutfile: () => {
+      const format = $("cut-format").value;
+      const text = app.cutFile(format);
+      if (typeof text === "string") download(text, baseName() + "-cut." + format, format === "svg" ? "image/svg+xml" : "application/dxf");
+      else toast("Cut file: " + text.error, true);
+    },
     template: () => {
       const pdf = app.templatePDF($("paper").value);
       if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
@@ -743,6 +792,7 @@
     },
     help: showHelp,
     cautions: showCautions,
+    about: showAbout,
     close: closeOverlays,
     "dismiss-units-note": () => { $("units-note").hidden = true; },
     "undo-units": () => { app.undo(); $("units-note").hidden = true; },
@@ -778,7 +828,7 @@
     if (!b || b.disabled) return;
     const d = b.dataset;
     if (d.action) {
-      if (!app && !["help", "cautions", "close"].includes(d.action)) return;
+      if (!app && !["help", "cautions", "about", "close"].includes(d.action)) return;
       ACTIONS[d.action]();
     } else if (d.tool) {
       app.setTool(d.tool);
@@ -802,8 +852,8 @@
     } else {
       return;
     }
-    if (app && !["help", "cautions", "open"].includes(d.action)) refresh();
-    if (!b.closest(".overlay") && d.action !== "help" && d.action !== "cautions") giveCanvasKeys();
+    if (app && !["help", "cautions", "about", "open"].includes(d.action)) refresh();
+    if (!b.closest(".overlay") && !["help", "cautions", "about"].includes(d.action)) giveCanvasKeys();
   }
 
   function onKey(e) {
@@ -856,6 +906,9 @@
       input.addEventListener("scroll", () => { input.closest(".field").querySelector(".mirror").scrollLeft = input.scrollLeft; });
     }
     $("material").addEventListener("change", fillThicknessList);
+    for (const id of ["text-font", "text-height", "text-role", "text-angle", "text-spacing", "text-stencil", "text-bridge", "text-bridges"]) {
+      $(id).addEventListener("change", () => { sendTextStyle(); if ($(id).tagName === "SELECT" || $(id).type === "checkbox") giveCanvasKeys(); });
+    }
     $("density-unit").addEventListener("change", sendMaterial);
     $("hole-dia").addEventListener("change", () => {
       const d = Number($("hole-dia").value);
