@@ -77,13 +77,14 @@ const focusTries = 2
 // the part (moved by −o). When the mass falls outside the interval check's guaranteed bounds, the
 // cubature has missed a narrow feature (a spike): the material is cut again, into the square around
 // the check's hot boxes (three times their extent) and the rest, so that the square's edges bring
-// the cubature's nodes to the feature, up to focusTries times. It returns the cells integrated last.
+// the cubature's nodes to the feature, up to focusTries times, unless the cubature stopped at its
+// work limit (its result then says so). It returns the cells integrated last.
 func integrateAround(m materialPart, cells []densityCell, f *density.Field, check checkResult, o geom.Point, opt AnalyzeOptions) (geom.Result, []densityCell, error) {
 	parts := []materialPart{m}
 	hot := geom.Rect{Min: check.hot.Min.Sub(o), Max: check.hot.Max.Sub(o)}
 	for try := 0; ; try++ {
 		r, err := integrateCells(cells, f, o, opt)
-		if err != nil || try == focusTries || check.encloses(r.M) || check.hot.IsEmpty() {
+		if err != nil || r.LimitHit || try == focusTries || check.encloses(r.M) || check.hot.IsEmpty() {
 			return r, cells, err
 		}
 		parts, cells = focus(parts, hot), nil
