@@ -212,14 +212,14 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 // point by more than opt.MaxTiltDeg, and how far the hole would need to be (need); a need beyond the
 // part's size (or beyond float64) is said as such.
 func tiltWarning(arm, need, size float64, opt HangOptions, unit density.Length) string {
-	msg := fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° ", formatNumber(opt.DrillTol),
-		unit.Name, formatNumber(tiltDeg(arm, opt.DrillTol)), formatNumber(opt.MaxTiltDeg))
+	msg := fmt.Sprintf("a %s %s drilling error tilts the part by up to %s°; to hold %s° ", FormatLength(opt.DrillTol, unit.Name),
+		unit.Name, FormatAngle(tiltDeg(arm, opt.DrillTol)), FormatAngle(opt.MaxTiltDeg))
 	if need > size || math.IsInf(need, 0) {
 		return msg + fmt.Sprintf("the hole would need to be farther from the balance point than the part is large (%s %s)",
-			formatNumber(size), unit.Name)
+			FormatLength(size, unit.Name), unit.Name)
 	}
 	return msg + fmt.Sprintf("the hole needs to be at least %s %s from the balance point (it is %s)",
-		formatNumber(need), unit.Name, formatNumber(arm))
+		FormatLength(need, unit.Name), unit.Name, FormatLength(arm, unit.Name))
 }
 
 // halfTurnDeg converts an angle in radians to degrees in (−180, 180].
@@ -322,7 +322,7 @@ func (d *Document) thickness(unit density.Length) (float64, bool) {
 // checkHole reports a hole off the material or breaking an edge as an error, and one nearer an edge
 // than the rule allows as an EdgeDistance.
 func checkHole(body geom.Boundary, at geom.Point, dia float64, rule edgeRule, unit density.Length) (*EdgeDistance, error) {
-	where := fmt.Sprintf("the hole at (%s, %s) %s", formatNumber(at.X), formatNumber(at.Y), unit.Name)
+	where := fmt.Sprintf("the hole at (%s, %s) %s", FormatLength(at.X, unit.Name), FormatLength(at.Y, unit.Name), unit.Name)
 	if !at.IsFinite() || !(dia >= 0) || math.IsInf(dia, 0) {
 		return nil, fmt.Errorf("%s: position and diameter must be finite, diameter ≥ 0", where)
 	}
@@ -332,7 +332,7 @@ func checkHole(body geom.Boundary, at geom.Point, dia float64, rule edgeRule, un
 	dist := body.Distance(at)
 	if dist <= dia/2 {
 		return nil, fmt.Errorf("%s breaks the edge: its centre is %s %s from the nearest edge and its radius is %s",
-			where, formatNumber(dist), unit.Name, formatNumber(dia/2))
+			where, FormatLength(dist, unit.Name), unit.Name, FormatLength(dia/2, unit.Name))
 	}
 	edge := dist - dia/2
 	if edge >= rule.min*(1-1e-9) {
@@ -340,7 +340,7 @@ func checkHole(body geom.Boundary, at geom.Point, dia float64, rule edgeRule, un
 	}
 	return &EdgeDistance{Hole: at, Nearest: nearestPoint(body, at), Clear: edge, Min: rule.min,
 		Msg: fmt.Sprintf("%s is %s %s from the nearest edge; keep at least %s %s (%s)",
-			where, formatNumber(edge), unit.Name, formatNumber(rule.min), unit.Name, rule.source)}, nil
+			where, FormatLength(edge, unit.Name), unit.Name, FormatLength(rule.min, unit.Name), unit.Name, rule.source)}, nil
 }
 
 // nearestPoint returns the point of b nearest to p. The nearest piece is halved again and again,
@@ -494,10 +494,10 @@ func (s *holeSearch) noLevel(lv *Level, x float64, material bool) (*Level, error
 	u := s.unit.Name
 	if material {
 		lv.Warnings = append(lv.Warnings, fmt.Sprintf("the material above the balance point (%s, %s) %s is too narrow for a %s %s hole with %s %s edge distance (%s)",
-			formatNumber(x), formatNumber(g.Y), u, formatNumber(s.dia), u, formatNumber(s.rule.min), u, s.rule.source))
+			FormatLength(x, u), FormatLength(g.Y, u), u, FormatLength(s.dia, u), u, FormatLength(s.rule.min, u), u, s.rule.source))
 	} else {
 		lv.Warnings = append(lv.Warnings, fmt.Sprintf("there is no material above the balance point (%s, %s) %s (an open shape such as a U): no single hole hangs this part level",
-			formatNumber(x), formatNumber(g.Y), u))
+			FormatLength(x, u), FormatLength(g.Y, u), u))
 	}
 	alts, err := s.leastTilt()
 	if err != nil {
@@ -506,15 +506,15 @@ func (s *holeSearch) noLevel(lv *Level, x float64, material bool) (*Level, error
 	lv.Alternatives = alts
 	if len(alts) == 0 {
 		lv.Warnings = append(lv.Warnings, fmt.Sprintf("no position on the part has room for a %s %s hole with %s %s edge distance: use a smaller hole or give a smaller edge distance",
-			formatNumber(s.dia), u, formatNumber(s.rule.min), u))
+			FormatLength(s.dia, u), u, FormatLength(s.rule.min, u), u))
 		return lv, nil
 	}
 	places := make([]string, len(alts))
 	for i, h := range alts {
-		places[i] = fmt.Sprintf("(%s, %s) %s turns the part %s°", formatNumber(h.At.X), formatNumber(h.At.Y), u, formatNumber(h.AngleDeg))
+		places[i] = fmt.Sprintf("(%s, %s) %s turns the part %s°", FormatLength(h.At.X, u), FormatLength(h.At.Y, u), u, FormatAngle(h.AngleDeg))
 	}
 	lv.Warnings = append(lv.Warnings, fmt.Sprintf("least tilt: a hole at %s; or hang from two holes, or add a tab reaching above the balance point at x = %s %s",
-		strings.Join(places, ", or at "), formatNumber(x), u))
+		strings.Join(places, ", or at "), FormatLength(x, u), u))
 	return lv, nil
 }
 
@@ -605,7 +605,7 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	body := whole.Body
 	size := partSize(body)
 	if b.X-a.X <= levelTol*size {
-		return nil, fmt.Errorf("the two holes are on one vertical (x = %s %s): chains need them apart across the part", formatNumber(a.X), unit.Name)
+		return nil, fmt.Errorf("the two holes are on one vertical (x = %s %s): chains need them apart across the part", FormatLength(a.X, unit.Name), unit.Name)
 	}
 	if a.Dist(b) <= dia {
 		return nil, fmt.Errorf("the two holes overlap")
@@ -637,6 +637,9 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	}{{a, sa}, {b, 1 - sa}} {
 		v := c.share * part.WeightN
 		lift.Chains[i] = Chain{At: c.at, Share: c.share, Vertical: v, Tension: v * lift.Factor}
+		if math.IsInf(lift.Chains[i].Tension, 0) || math.IsInf(lift.Factor, 0) {
+			return nil, fmt.Errorf("leg angle %s°: so flat that the chain tension is beyond any number", formatNumber(legDeg))
+		}
 	}
 	lift.warn(unit)
 	if w := piecesWarning(part.Body, "the chain loads hold"); w != "" {
@@ -650,7 +653,7 @@ func (l *Lift) warn(unit density.Length) {
 	a, b, g := l.Chains[0].At, l.Chains[1].At, l.Centroid
 	if g.X < a.X || g.X > b.X {
 		l.Warnings = append(l.Warnings, fmt.Sprintf("the balance point (x = %s %s) lies outside the span between the chains (%s to %s): the part tips and one chain goes slack",
-			formatNumber(g.X), unit.Name, formatNumber(a.X), formatNumber(b.X)))
+			FormatLength(g.X, unit.Name), unit.Name, FormatLength(a.X, unit.Name), FormatLength(b.X, unit.Name)))
 	}
 	if l.LegDeg < minLegDeg {
 		l.Warnings = append(l.Warnings, fmt.Sprintf("legs at %s° to the horizontal: rigging guidance (ASME B30.9) advises against legs below 30°", formatNumber(l.LegDeg)))

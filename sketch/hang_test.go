@@ -95,9 +95,9 @@ func TestHangEdges(t *testing.T) {
 		err     string
 		warning string
 	}{
-		{"clear 6 mm hole", geom.Pt(100, 90), 6, "", ""},                  // 10 − 3 = 7 ≥ 6
-		{"near 6 mm hole", geom.Pt(100, 92), 6, "", "keep at least 6 mm"}, // 8 − 3 = 5 < 6
-		{"clear 3 mm hole", geom.Pt(100, 94), 3, "", ""},                  // 6 − 1.5 = 4.5
+		{"clear 6 mm hole", geom.Pt(100, 90), 6, "", ""},                    // 10 − 3 = 7 ≥ 6
+		{"near 6 mm hole", geom.Pt(100, 92), 6, "", "keep at least 6.0 mm"}, // 8 − 3 = 5 < 6
+		{"clear 3 mm hole", geom.Pt(100, 94), 3, "", ""},                    // 6 − 1.5 = 4.5
 		{"near 3 mm hole", geom.Pt(100, 95), 3, "", "keep at least 4.5 mm"},
 		{"breaks the edge", geom.Pt(100, 98), 6, "breaks the edge", ""},
 		{"off the part", geom.Pt(250, 50), 6, "not on the part", ""},
@@ -121,7 +121,7 @@ func TestHangEdges(t *testing.T) {
 	}
 	// A user-set edge distance overrides the rule of thumb.
 	h := mustHang(t, d, geom.Pt(100, 90), 6, HangOptions{Edge: 10})
-	if len(h.Warnings) != 1 || !strings.Contains(h.Warnings[0], "keep at least 10 mm") {
+	if len(h.Warnings) != 1 || !strings.Contains(h.Warnings[0], "keep at least 10.0 mm") {
 		t.Errorf("warnings %q, want the 10 mm edge distance", h.Warnings)
 	}
 }
@@ -241,7 +241,7 @@ func TestTilt(t *testing.T) {
 	checkNear(t, "arm for 1° at 0.5 mm", ArmForTilt(1, 0.5), 0.5/math.Tan(math.Pi/180), 1e-12, 0) // 28.6 mm
 
 	h = mustHang(t, plate(200, 100, "10"), geom.Pt(100, 60), 0, HangOptions{Edge: 1, MaxTiltDeg: 1, DrillTol: 0.5})
-	if len(h.Warnings) != 1 || !strings.Contains(h.Warnings[0], "at least 28.645 mm") {
+	if len(h.Warnings) != 1 || !strings.Contains(h.Warnings[0], "at least 28.6 mm") {
 		t.Errorf("warnings %q, want the 28.6 mm hole height", h.Warnings)
 	}
 }
@@ -410,5 +410,14 @@ func TestEdgeRule(t *testing.T) {
 				t.Errorf("EdgeRule = %g (%q), %v; want %g", got, source, err, tc.want)
 			}
 		})
+	}
+}
+
+// TestTwoChainsTooFlat checks that legs so flat that the tension overflows are an error, not +Inf.
+func TestTwoChainsTooFlat(t *testing.T) {
+	d := plate(200, 100, "10")
+	_, err := TwoChains(d, geom.Pt(20, 90), geom.Pt(180, 90), 6, math.SmallestNonzeroFloat64, HangOptions{})
+	if err == nil || !strings.Contains(err.Error(), "so flat that the chain tension is beyond any number") {
+		t.Errorf("error %v", err)
 	}
 }

@@ -110,7 +110,7 @@ func TestWriteText(t *testing.T) {
 	}
 	out := b.String()
 	for _, want := range []string{"gate.json — garden gate panel", "mm²", " kg", " N (", "lbf", "balance point", "kg·mm²",
-		"turns", "swing period", "warning", "read note", "keep at least 30 mm", "licensed engineer"} {
+		"turns", "swing period", "warning", "read note", "keep at least 30.0 mm", "licensed engineer"} {
 		if !strings.Contains(out, want) {
 			t.Errorf("text output lacks %q:\n%s", want, out)
 		}

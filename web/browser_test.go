@@ -4,13 +4,14 @@ package web
 // plumb.html, driven through the mouse, the panel and the window.plumb bridge.
 //
 // Chromium comes from /usr/bin/chromium (Debian's package). Without it the tests skip, unless
-// PLUMB_BROWSER=1, when they fail. A test that fails leaves a screenshot in
-// $TMPDIR/plumb-browser-artifacts and logs its path.
+// PLUMB_BROWSER=1, when they fail; -short or PLUMB_BROWSER=0 skips them. A test that fails leaves a
+// screenshot in $TMPDIR/plumb-browser-artifacts and logs its path.
 
 import (
 	"bytes"
 	"context"
 	"encoding/json"
+	"flag"
 	"fmt"
 	"math"
 	"net/url"
@@ -57,6 +58,11 @@ func TestMain(m *testing.M) {
 }
 
 func runBrowserTests(m *testing.M) int {
+	flag.Parse()
+	if testing.Short() || os.Getenv("PLUMB_BROWSER") == "0" {
+		built.skip = "browser tests skipped (-short or PLUMB_BROWSER=0)"
+		return m.Run()
+	}
 	if _, err := exec.LookPath(chromiumPath); err != nil {
 		built.skip = "browser tests need Chromium at " + chromiumPath + " (apt-get install chromium)"
 		if os.Getenv("PLUMB_BROWSER") == "1" {
@@ -387,7 +393,7 @@ func TestPageLoadsOfflineFromFile(t *testing.T) {
 	}
 	b.open()
 	timing := eval[map[string]float64](b, `plumbUI.timing`)
-	t.Logf("page size: %d bytes (%.2f MB; goal 5 MB)", built.size, float64(built.size)/1e6)
+	t.Logf("page size: %d bytes (%.2f MB; goal ≤ %.1f MB, checked by TestPageSizeAndFirstFrame)", built.size, float64(built.size)/1e6, maxPageBytes/1e6)
 	t.Logf("navigation to first interactive frame: %.0f ms (app ready at %.0f ms)", timing["restoredMs"], timing["readyMs"])
 	b.frames(3)
 	b.mu.Lock()

@@ -40,17 +40,18 @@ func (b *browser) reload() {
 }
 
 func TestPageSizeAndFirstFrame(t *testing.T) {
-	b := newBrowser(t) // skips without Chromium; the loads below each get a fresh context
+	var first, ready []float64
+	for range firstFrameRuns {
+		b := newBrowser(t) // a fresh browser context each time: nothing cached, nothing stored
+		b.open()
+		tm := eval[map[string]float64](b, `plumbUI.timing`)
+		t.Logf("load: script %.0f ms, module decoded %.0f ms, compiled %.0f ms, app's first frame %.0f ms, part loaded %.0f ms, on screen %.0f ms",
+			tm["scriptMs"], tm["unpackedMs"], tm["compiledMs"], tm["readyMs"], tm["loadedMs"], tm["restoredMs"])
+		first, ready = append(first, tm["restoredMs"]), append(ready, tm["readyMs"])
+	}
 	t.Logf("page size: %d bytes (%.2f MB; goal ≤ %.1f MB)", built.size, float64(built.size)/1e6, maxPageBytes/1e6)
 	if built.size > maxPageBytes {
 		t.Errorf("page is %d bytes, over the %d-byte goal", built.size, maxPageBytes)
-	}
-	var first, ready []float64
-	for range firstFrameRuns {
-		c := newBrowser(t)
-		c.open()
-		tm := eval[map[string]float64](c, `plumbUI.timing`)
-		first, ready = append(first, tm["restoredMs"]), append(ready, tm["readyMs"])
 	}
 	slices.Sort(first)
 	slices.Sort(ready)
@@ -60,7 +61,6 @@ func TestPageSizeAndFirstFrame(t *testing.T) {
 	if med > float64(maxFirstFrame.Milliseconds()) {
 		t.Errorf("first interactive frame after a median %.0f ms, over the %v goal", med, maxFirstFrame)
 	}
-	_ = b
 }
 
 // TestIdlePageDrawsNothing counts the frames the app paints while nothing happens: the canvas keeps the

@@ -4,12 +4,16 @@ package web
 // before any is placed, stale figures, the edge distance, moving shapes with the Select tool.
 
 import (
+	"context"
 	"encoding/base64"
 	"math"
 	"os"
+	"os/exec"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/chromedp/cdproto/input"
 	"github.com/chromedp/chromedp"
@@ -44,11 +48,11 @@ func (b *browser) pressKey(key string) {
 	}
 }
 
-// TestTypedEntry draws a 200 × 100 rectangle as an outline from typed values in the page's own forms:
+// checkTypedEntry draws a 200 × 100 rectangle as an outline from typed values in the page's own forms:
 // a point, two steps from the last point, and a length at an angle.
-func TestTypedEntry(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkTypedEntry(b *browser) {
+	t := b.t
+	t.Helper()
 	eval[any](b, `(plumb.newPart(), plumb.setMaterial({material: "aluminium 5052", thickness: "3 mm"}),
 		plumb.setUnits("mm"), plumb.setTarget("outline"), plumb.setTool("outline"), document.querySelector("canvas").focus(), null)`)
 	b.frames(2)
@@ -61,6 +65,13 @@ func TestTypedEntry(t *testing.T) {
 	d := b.savedPart()
 	if len(d.Outline.Loops) != 1 {
 		t.Fatalf("outline has %d loops, want 1", len(d.Outline.Loops))
+	}
+	// The ? sheet lists the forms as typed.
+	keys := eval[string](b, `plumb.shortcuts().map((s) => s.key).join(" | ")`)
+	for _, form := range []string{"120,80", "+120,−40", "250 at 30"} {
+		if !strings.Contains(keys, form) {
+			t.Errorf("the help sheet lists %q, not the typed form %q", keys, form)
+		}
 	}
 	// A 200 × 100 rectangle: area 20000 mm², its centre (100, 50) the centroid ("List of centroids").
 	s := b.state()
@@ -88,11 +99,11 @@ func (b *browser) level() levelState {
 	return eval[levelState](b, `plumb.state()`)
 }
 
-// TestLevelHoleShownBeforeAnyHole checks that a part without a hole shows the level-hang hole as the
+// checkLevelHoleShownBeforeAnyHole checks that a part without a hole shows the level-hang hole as the
 // answer, that one click places it, and that the part then hangs level.
-func TestLevelHoleShownBeforeAnyHole(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkLevelHoleShownBeforeAnyHole(b *browser) {
+	t := b.t
+	t.Helper()
 	b.load(partJSON(t, plainPlate()), "plate.json")
 	eval[any](b, `(plumb.setHoleDiameter(8), null)`)
 	b.waitFor(`plumb.state().level !== null && document.getElementById("hang").textContent !== "—"`)
@@ -129,11 +140,11 @@ func uPart() *sketch.Document {
 	return d
 }
 
-// TestLeastTiltWhereNoLevelHole checks that a U shows its least-tilt positions in the panel, and
+// checkLeastTiltWhereNoLevelHole checks that a U shows its least-tilt positions in the panel, and
 // that placing the hole gives the tilt promised.
-func TestLeastTiltWhereNoLevelHole(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkLeastTiltWhereNoLevelHole(b *browser) {
+	t := b.t
+	t.Helper()
 	b.load(partJSON(t, uPart()), "u.json")
 	b.waitFor(`plumb.state().least_tilt.length > 0`)
 	st := b.level()
@@ -152,11 +163,11 @@ func TestLeastTiltWhereNoLevelHole(t *testing.T) {
 	}
 }
 
-// TestEdgeDistanceMovesSuggestedHole checks that the panel's edge distance reaches the level-hole
+// checkEdgeDistanceMovesSuggestedHole checks that the panel's edge distance reaches the level-hole
 // search: on the plain plate the hole sits the edge distance plus its radius below the top edge.
-func TestEdgeDistanceMovesSuggestedHole(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkEdgeDistanceMovesSuggestedHole(b *browser) {
+	t := b.t
+	t.Helper()
 	b.load(partJSON(t, plainPlate()), "plate.json")
 	eval[any](b, `(plumb.setHoleDiameter(8), null)`)
 	b.waitFor(`plumb.state().level !== null`)
@@ -202,6 +213,8 @@ func TestScreenshots(t *testing.T) {
 	}
 	b.waitFor(`plumb.state().level_pending === false`)
 	shot("demo")
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="dismiss-guide"]`)))
+	shot("demo-no-guide")
 	pdf, err := base64.StdEncoding.DecodeString(eval[string](b, `(() => {
 		const r = plumb.templatePDF("A4");
 		let s = "";
@@ -229,11 +242,11 @@ func TestScreenshots(t *testing.T) {
 	shot("u")
 }
 
-// TestStaleFiguresGreyed checks that while the material field holds an error the figures are greyed
+// checkStaleFiguresGreyed checks that while the material field holds an error the figures are greyed
 // and say which material they belong to, and that fixing the field brings them back.
-func TestStaleFiguresGreyed(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkStaleFiguresGreyed(b *browser) {
+	t := b.t
+	t.Helper()
 	b.load(partJSON(t, plainPlate()), "plate.json")
 	eval[any](b, `document.getElementById("material").select()`)
 	b.typeInto("material", "unobtainium")
@@ -252,11 +265,11 @@ func TestStaleFiguresGreyed(t *testing.T) {
 	}
 }
 
-// TestNewPartTakesTheLastChoices checks that a new part starts in the units and material chosen last,
+// checkNewPartTakesTheLastChoices checks that a new part starts in the units and material chosen last,
 // also after a reload, and that a drawing without a material takes the material.
-func TestNewPartTakesTheLastChoices(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkNewPartTakesTheLastChoices(b *browser) {
+	t := b.t
+	t.Helper()
 	b.load(partJSON(t, plainPlate()), "plate.json")
 	b.do(chromedp.Click(chromedp.CSS(`[data-units="in"]`)))
 	eval[any](b, `document.getElementById("material").select()`)
@@ -264,7 +277,7 @@ func TestNewPartTakesTheLastChoices(t *testing.T) {
 	eval[any](b, `document.getElementById("thickness").select()`)
 	b.typeInto("thickness", "16 ga")
 	b.waitFor(`JSON.parse(plumb.saveJSON()).material.thickness === "16 ga"`)
-	b.do(chromedp.Reload())
+	b.reloadAfterAutosave()
 	b.waitStarted()
 	b.load(partJSON(t, plainPlate()), "plate.json") // in mm, aluminium
 	b.do(chromedp.Click(chromedp.CSS(`[data-action="new"]`)))
@@ -286,12 +299,12 @@ func TestNewPartTakesTheLastChoices(t *testing.T) {
 	}
 }
 
-// TestUnitChangeWeightJumpNote checks the note on a part whose density formula reads x and y: in
+// checkUnitChangeWeightJumpNote checks the note on a part whose density formula reads x and y: in
 // inches the same numbers mean other places, and the weight of k·x²·y changes by 25.4³ (1 in = 25.4 mm
 // exactly).
-func TestUnitChangeWeightJumpNote(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkUnitChangeWeightJumpNote(b *browser) {
+	t := b.t
+	t.Helper()
 	d := plainPlate()
 	d.Material = density.Spec{Formula: "k*x^2*y", Unit: "kg/m2", Params: map[string]float64{"k": 1e-6}}
 	b.load(partJSON(t, d), "formula.json")
@@ -304,11 +317,11 @@ func TestUnitChangeWeightJumpNote(t *testing.T) {
 	b.waitFor(`plumb.state().units.length === "mm"`)
 }
 
-// TestSelectDragMovesShape checks that with the Select tool a drag that starts inside a filled shape
+// checkSelectDragMovesShape checks that with the Select tool a drag that starts inside a filled shape
 // moves the shape, and that the same drag with Space held pans the view instead.
-func TestSelectDragMovesShape(t *testing.T) {
-	b := newBrowser(t)
-	b.open()
+func checkSelectDragMovesShape(b *browser) {
+	t := b.t
+	t.Helper()
 	b.load(partJSON(t, plainPlate()), "plate.json")
 	eval[any](b, `(plumb.fit(), plumb.setTool("select"), document.querySelector("canvas").focus(), null)`)
 	b.frames(3)
@@ -333,4 +346,155 @@ func TestSelectDragMovesShape(t *testing.T) {
 	if x := b.savedPart().Outline.Bounds().Min.X; x != moved {
 		t.Errorf("a Space-drag moved the part from x = %g to %g; it must pan", moved, x)
 	}
+}
+
+// checkPanelDetails checks the panel's small promises: true minus signs, pounds first in inches, the
+// New button looking ready, a long name shown whole on hover, the report titled by the part's name
+// after a reload, and the Sheet-material fields kept when a formula part comes back.
+func checkPanelDetails(b *browser) {
+	t := b.t
+	t.Helper()
+	d := plainPlate()
+	d.Name = "Shelf bracket for the north wall of the bakery, left of the oven, second row"
+	d.Outline = d.Outline.Transform(geom.Translate(-1000, -500))
+	b.load(partJSON(t, d), "plate.json")
+	if got := eval[string](b, `document.getElementById("balance").textContent`); !strings.Contains(got, "−800.0") || strings.Contains(got, "-") {
+		t.Errorf("balance point %q, want −800.0 with a true minus sign", got)
+	}
+	if got := eval[string](b, `document.getElementById("part-name").title`); got != d.Name {
+		t.Errorf("part name title %q, want the whole name", got)
+	}
+	if eval[bool](b, `(() => { const n = document.querySelector('[data-action="new"]'); return n.disabled || n.classList.contains("quiet"); })()`) {
+		t.Error("the New button looks disabled")
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-units="in"]`)))
+	b.waitFor(`plumb.state().units.length === "in"`)
+	if got := eval[string](b, `document.getElementById("weight").textContent`); !strings.HasSuffix(got, " lb") {
+		t.Errorf("weight of a part in inches reads %q, want pounds first", got)
+	}
+	// The sheet material is kept for the other tab: a formula part, reloaded, leaves it in the fields.
+	f := plainPlate()
+	f.Material = density.Spec{Formula: "8 + k*x", Unit: "kg/m2", Params: map[string]float64{"k": 0.001}}
+	b.load(partJSON(t, f), "formula.json")
+	b.reloadAfterAutosave()
+	b.waitStarted()
+	if got := eval[string](b, `document.getElementById("material").value`); got != "aluminium 5052" {
+		t.Errorf("after reloading a formula part the Sheet-material tab holds %q, want aluminium 5052", got)
+	}
+	if title := strings.SplitN(eval[string](b, `plumb.report()`), "\n", 2)[0]; strings.Contains(title, "autosave") || !strings.Contains(title, "plain plate") {
+		t.Errorf("report title %q, want the part's name", title)
+	}
+}
+
+// checkFirstMinuteGuide checks that a first visit shows the guide, that it closes, and that it stays
+// closed after a reload.
+func checkFirstMinuteGuide(b *browser) {
+	t := b.t
+	t.Helper()
+	if eval[bool](b, `document.getElementById("guide").hidden`) {
+		t.Fatal("no first-minute guide on a first visit")
+	}
+	if text := eval[string](b, `document.getElementById("guide").textContent`); !strings.Contains(text, "Drop") || !strings.Contains(text, "material") || !strings.Contains(text, "hole") {
+		t.Errorf("guide says %q", text)
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="dismiss-guide"]`)))
+	b.waitFor(`document.getElementById("guide").hidden`)
+	b.reloadAfterAutosave()
+	b.waitStarted()
+	if !eval[bool](b, `document.getElementById("guide").hidden`) {
+		t.Error("the guide came back after it was closed")
+	}
+}
+
+// checkTemplateLabelsWhole checks the demo's drilling template as the page makes it, read back by
+// pdftotext (an independent reading of the PDF): every dimension label is whole on some page, with
+// both units, and the hole's label is there; none is cut at a page's edge.
+func checkTemplateLabelsWhole(b *browser) {
+	t := b.t
+	t.Helper()
+	pdftotext, err := exec.LookPath("pdftotext")
+	if err != nil {
+		t.Log("template labels not checked: pdftotext (poppler-utils) is not installed")
+		return
+	}
+	b.waitFor(`plumb.state().level_pending === false`)
+	pdf, err := base64.StdEncoding.DecodeString(eval[string](b, `(() => {
+		const r = plumb.templatePDF("A4");
+		let s = "";
+		if (r instanceof Uint8Array) for (const c of r) s += String.fromCharCode(c);
+		return btoa(s);
+	})()`))
+	if err != nil || len(pdf) == 0 {
+		t.Fatalf("template: %v (%d bytes)", err, len(pdf))
+	}
+	path := filepath.Join(t.TempDir(), "demo.pdf")
+	if err := os.WriteFile(path, pdf, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, err := exec.Command(pdftotext, "-layout", path, "-").Output()
+	if err != nil {
+		t.Fatalf("pdftotext: %v", err)
+	}
+	text := string(out)
+	whole := regexp.MustCompile(`\d+\.\d mm \(\d+\.\d{3} in\)`)
+	if n := len(whole.FindAllString(text, -1)); n < 2 || strings.Count(text, " in)") != n {
+		t.Errorf("%d whole dimension labels, %d ending in \"in)\": a label is cut", n, strings.Count(text, " in)"))
+	}
+	if !strings.Contains(text, "Ø 8.0 mm hole") {
+		t.Error("no whole hole label on any page")
+	}
+}
+
+// newLongBrowser is newBrowser with time for several checks in one page: opening the page is the
+// slow part of a browser test, so related checks share it.
+func newLongBrowser(t *testing.T) *browser {
+	b := newBrowser(t)
+	ctx, cancel := context.WithTimeout(b.root, 4*time.Minute)
+	t.Cleanup(cancel)
+	b.ctx = ctx
+	b.open()
+	return b
+}
+
+// TestCanvasTypingAndDragging covers typed values in the page's own forms and moving shapes with
+// the Select tool.
+func TestCanvasTypingAndDragging(t *testing.T) {
+	b := newLongBrowser(t)
+	checkTypedEntry(b)
+	checkSelectDragMovesShape(b)
+}
+
+// TestSuggestedHole covers the hole a fabricator comes for: the demo's drilling template read back,
+// the level hole before any is placed, the edge distance, and the least-tilt positions of a U.
+func TestSuggestedHole(t *testing.T) {
+	b := newLongBrowser(t)
+	checkTemplateLabelsWhole(b)
+	checkLevelHoleShownBeforeAnyHole(b)
+	checkEdgeDistanceMovesSuggestedHole(b)
+	checkLeastTiltWhereNoLevelHole(b)
+}
+
+// TestFiguresStayHonest covers figures greyed while the material is in error and the note on a
+// weight that jumps with a change of unit.
+func TestFiguresStayHonest(t *testing.T) {
+	b := newLongBrowser(t)
+	checkStaleFiguresGreyed(b)
+	checkUnitChangeWeightJumpNote(b)
+}
+
+// TestFirstVisitAndReloads covers what the page keeps for a user between visits: the first-minute
+// guide, the units and material chosen last, the material tabs' fields, and the panel's details.
+func TestFirstVisitAndReloads(t *testing.T) {
+	b := newLongBrowser(t)
+	checkFirstMinuteGuide(b)
+	checkNewPartTakesTheLastChoices(b)
+	checkPanelDetails(b)
+}
+
+// reloadAfterAutosave waits until the page's autosave holds the part (it waits for the edits to pause)
+// and reloads the page.
+func (b *browser) reloadAfterAutosave() {
+	b.t.Helper()
+	b.waitFor(`localStorage.getItem("plumb.autosave") === plumb.saveJSON()`)
+	b.do(chromedp.Reload())
 }

@@ -200,14 +200,14 @@ func readLimited(path string, limit int) ([]byte, error) {
 	}
 	defer f.Close()
 	if info, err := f.Stat(); err == nil && info.Size() > int64(limit) {
-		return nil, fmt.Errorf("the file is %d bytes, more than the limit of %d (16 MiB)", info.Size(), limit)
+		return nil, fmt.Errorf("the file is %d bytes, more than the limit of %d (%d MiB)", info.Size(), limit, limit>>20)
 	}
 	data, err := io.ReadAll(io.LimitReader(f, int64(limit)+1))
 	if err != nil {
 		return nil, err
 	}
 	if len(data) > limit {
-		return nil, fmt.Errorf("the file is more than the limit of %d bytes (16 MiB)", limit)
+		return nil, fmt.Errorf("the file is more than the limit of %d bytes (%d MiB)", limit, limit>>20)
 	}
 	return data, nil
 }

@@ -10,6 +10,7 @@ import (
 	"os"
 	"os/signal"
 	"strconv"
+	"syscall"
 	"time"
 
 	"plumb/web/page"
@@ -38,7 +39,7 @@ func runServe(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "plumb serve: %v\n", err)
 		return exitFailed
 	}
-	ln, err := net.Listen("tcp", net.JoinHostPort("127.0.0.1", strconv.Itoa(*port)))
+	ln, err := listen(*port)
 	if err != nil {
 		fmt.Fprintf(stderr, "plumb serve: %v\n", err)
 		return exitFailed
@@ -58,6 +59,23 @@ func runServe(args []string, stdout, stderr io.Writer) int {
 		return exitFailed
 	}
 	return exitOK
+}
+
+// listen opens the TCP port on 127.0.0.1. When another program has it, the error suggests a port near
+// it that is free now, and --port 0, which lets the system choose.
+func listen(port int) (net.Listener, error) {
+	ln, err := net.Listen("tcp", net.JoinHostPort("127.0.0.1", strconv.Itoa(port)))
+	if err == nil || !errors.Is(err, syscall.EADDRINUSE) {
+		return ln, err
+	}
+	msg := fmt.Sprintf("port %d on 127.0.0.1 is in use by another program", port)
+	for p := port + 1; p <= min(port+20, 65535) && port > 0; p++ {
+		if l, err := net.Listen("tcp", net.JoinHostPort("127.0.0.1", strconv.Itoa(p))); err == nil {
+			l.Close()
+			return nil, fmt.Errorf("%s; try --port %d, free now, or --port 0 for any free port", msg, p)
+		}
+	}
+	return nil, fmt.Errorf("%s; try --port 0 for any free port", msg)
 }
 
 // pageHandler serves the page at / and nothing else, with the page's own Content-Security-Policy.

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"fmt"
+	"net"
 	"net/http"
 	"net/http/httptest"
 	"strings"
@@ -48,6 +50,35 @@ func TestBuildAndServeRefuseOperands(t *testing.T) {
 		}
 		if !strings.Contains(stderr.String(), `unexpected argument "extra"`) {
 			t.Errorf("plumb %s extra: stderr %q does not name the argument", name, stderr.String())
+		}
+	}
+}
+
+func TestListenSuggestsAFreePort(t *testing.T) {
+	busy, err := net.Listen("tcp", "127.0.0.1:0")
+	if err != nil {
+		t.Skipf("no TCP on 127.0.0.1: %v", err)
+	}
+	defer busy.Close()
+	port := busy.Addr().(*net.TCPAddr).Port
+	ln, err := listen(port)
+	if err == nil {
+		ln.Close()
+		t.Fatalf("listen(%d) succeeded on a busy port", port)
+	}
+	for _, want := range []string{fmt.Sprintf("port %d", port), "in use", "--port 0"} {
+		if !strings.Contains(err.Error(), want) {
+			t.Errorf("error %q does not say %q", err, want)
+		}
+	}
+	// The suggested port is free.
+	var free int
+	if _, scanErr := fmt.Sscanf(err.Error()[strings.Index(err.Error(), "try --port"):], "try --port %d", &free); scanErr == nil && free != 0 {
+		ln, err := listen(free)
+		if err != nil {
+			t.Errorf("the suggested port %d: %v", free, err)
+		} else {
+			ln.Close()
 		}
 	}
 }

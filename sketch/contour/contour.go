@@ -4,6 +4,7 @@
 package contour
 
 import (
+	"cmp"
 	"errors"
 	"math"
 	"slices"
@@ -85,21 +86,22 @@ var ErrNotClosed = errors.New("the boundary does not close into loops")
 
 // Boundary links boundary pieces, each running on from the end of another (as geom.Combine returns
 // them), end to start into closed loops, leaving out slivers no longer than tol that splitting at
-// intersections can produce.
+// intersections can produce. The pieces are found through an index of their starts, so linking n
+// pieces takes about n log n steps.
 func Boundary(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
-	used := make([]bool, len(pieces))
+	c := newStarts(pieces, tol)
 	var loops []geom.Loop
 	for i := range pieces {
-		if used[i] {
+		if c.used[i] {
 			continue
 		}
-		used[i] = true
+		c.used[i] = true
 		l := geom.Loop{pieces[i]}
 		for last := i; l[len(l)-1].End().Dist(l[0].Start()) > tol; {
-			if last = nextPiece(pieces, used, l[len(l)-1].End(), last+1, tol); last < 0 {
+			if last = c.next(l[len(l)-1].End(), last+1); last < 0 {
 				return nil, ErrNotClosed
 			}
-			used[last] = true
+			c.used[last] = true
 			l = append(l, pieces[last])
 		}
 		if l = Close(l, tol, 0); len(l) > 0 {
@@ -109,18 +111,39 @@ func Boundary(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
 	return loops, nil
 }
 
-// nextPiece returns the first unused piece that starts within tol of p, trying hint first (pieces
-// usually come in order), or -1.
-func nextPiece(pieces []geom.Segment, used []bool, p geom.Point, hint int, tol float64) int {
-	if hint < len(pieces) && !used[hint] && pieces[hint].Start().Dist(p) <= tol {
+// starts finds the unused piece that starts near a point, through the pieces sorted by the x of
+// their starts.
+type starts struct {
+	pieces []geom.Segment
+	used   []bool
+	byX    []int // piece indices by the x of their start
+	tol    float64
+}
+
+func newStarts(pieces []geom.Segment, tol float64) *starts {
+	c := &starts{pieces: pieces, used: make([]bool, len(pieces)), byX: make([]int, len(pieces)), tol: tol}
+	for i := range c.byX {
+		c.byX[i] = i
+	}
+	slices.SortFunc(c.byX, func(a, b int) int { return cmp.Compare(pieces[a].Start().X, pieces[b].Start().X) })
+	return c
+}
+
+// next returns the first unused piece (in index order) that starts within tol of p, trying hint
+// first (pieces usually come in order), or -1.
+func (c *starts) next(p geom.Point, hint int) int {
+	if hint < len(c.pieces) && !c.used[hint] && c.pieces[hint].Start().Dist(p) <= c.tol {
 		return hint
 	}
-	for k, s := range pieces {
-		if !used[k] && s.Start().Dist(p) <= tol {
-			return k
+	startX := func(i int) float64 { return c.pieces[i].Start().X }
+	k, _ := slices.BinarySearchFunc(c.byX, p.X-c.tol, func(i int, x float64) int { return cmp.Compare(startX(i), x) })
+	best := -1
+	for ; k < len(c.byX) && startX(c.byX[k]) <= p.X+c.tol; k++ {
+		if i := c.byX[k]; !c.used[i] && c.pieces[i].Start().Dist(p) <= c.tol && (best < 0 || i < best) {
+			best = i
 		}
 	}
-	return -1
+	return best
 }
 
 // Chain is a run of open pieces joined end to end: its segments, the indices of the pieces it was

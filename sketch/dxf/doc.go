@@ -6,8 +6,9 @@
 // LINE, ARC, CIRCLE, ELLIPSE, LWPOLYLINE, POLYLINE (with VERTEX and SEQEND), SPLINE and INSERT of
 // BLOCKs (nested, with base point, insertion point, scale, rotation and column/row arrays). Separate
 // pieces whose ends meet within 0.01 mm are chained into closed contours in any order and direction;
-// open contours, text, dimensions, hatches and other entities are skipped with a warning naming the
-// entity's type, handle and layer.
+// open contours, text, dimensions, hatches and other entities, and entities on paper-space layouts
+// or made invisible, are skipped with a warning naming the entity's type, handle and layer. INSERTs of
+// blocks that refer to other files are skipped too: nothing outside the file is read.
 //
 // Coordinates are the drawing's own world coordinates, with no flip: document x, y = DXF x, y, in the
 // unit the header's $INSUNITS names (1 inch, 2 foot, 4 mm, 5 cm, 6 m; others are converted to mm;

@@ -110,13 +110,15 @@ func TestReadWarnings(t *testing.T) {
 	tilted := circle(50, 50, 10, g{5, "A5"}, g{210, 1}, g{220, 0}, g{230, 0})
 	// A triangle of three LINEs whose ends miss by up to 0.006 mm: closed.
 	gappy := [][]g{line(200, 0, 300, 0), line(300.006, 0, 250, 80), line(250, 80.004, 200, 0.003)}
-	d, warnings := read(t, dxfText(4, nil, append([][]g{square, text, dim, hatch, etch, tilted}, gappy...)...), Options{})
+	paper := append(circle(50, 50, 30), g{5, "A6"}, g{67, 1})
+	d, warnings := read(t, dxfText(4, nil, append([][]g{square, text, dim, hatch, etch, tilted, paper}, gappy...)...), Options{})
 	all := strings.Join(warnings, "\n")
 	for _, want := range []string{
 		"skipped TEXT (handle A1, layer NOTES, line", "lettering",
 		"skipped DIMENSION (handle A2, layer DIMS", "skipped HATCH (handle A3, layer CUT",
 		"skipped an open contour", "LINE (handle A4, layer ETCH",
 		"skipped CIRCLE (handle A5", "not parallel",
+		"skipped CIRCLE (handle A6", "paper-space",
 	} {
 		if !strings.Contains(all, want) {
 			t.Errorf("warnings lack %q:\n%s", want, all)
@@ -124,6 +126,11 @@ func TestReadWarnings(t *testing.T) {
 	}
 	if len(d.Outline.Loops) != 2 {
 		t.Errorf("%d contours, want the square and the closed triangle", len(d.Outline.Loops))
+	}
+	xref := [][]g{{{0, "BLOCK"}, {2, "FRAME"}, {70, 4}, {10, 0}, {20, 0}, {1, "frame.dxf"}}, {{0, "ENDBLK"}}}
+	_, warnings = read(t, dxfText(4, xref, square, []g{{0, "INSERT"}, {5, "B7"}, {8, "CUT"}, {2, "FRAME"}}), Options{})
+	if !strings.Contains(strings.Join(warnings, "\n"), `skipped INSERT (handle B7, layer CUT, line`) {
+		t.Errorf("an external reference is not said to be skipped: %q", warnings)
 	}
 	d, warnings = read(t, dxfText(4, nil, square, etch, circle(50, 50, 10)), Options{SkipLayers: []string{"etch"}})
 	if len(d.Outline.Loops) != 2 || strings.Contains(strings.Join(warnings, "\n"), "open contour") {

@@ -24,7 +24,7 @@ const (
 	// inserts could otherwise multiply without end.
 	maxEntities = 1 << 20
 	// maxSegments bounds the segments of the part.
-	maxSegments = 1 << 21
+	maxSegments = 1 << 20
 	// maxWarnings is the number of warnings Read lists before summing up the rest.
 	maxWarnings = 20
 	// joinMM is the largest gap (in mm) between the ends of pieces that are chained into one contour,
@@ -62,6 +62,7 @@ func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	d.Name = opt.Name
 	var toDoc geom.Affine
 	d.Units, toDoc = r.units()
+	r.unit = d.Units
 	if err := r.walk(f.entities, toDoc, "", "", 0); err != nil {
 		return nil, nil, err
 	}
@@ -83,6 +84,7 @@ type piece struct {
 type reader struct {
 	f        *file
 	opt      Options
+	unit     string // the document's unit, for messages
 	closed   []piece
 	open     []piece
 	approx   float64 // area bound of approximated curves, in square document units
@@ -188,6 +190,10 @@ func (r *reader) walk(ents []*entity, m geom.Affine, layer0, in string, depth in
 			r.filtered++
 			continue
 		}
+		if why := hidden(e); why != "" {
+			r.warn("skipped %s: %s", name, why)
+			continue
+		}
 		read, ok := readers[e.typ]
 		if !ok {
 			r.warn("skipped %s: %s", name, cmp.Or(skipReasons[e.typ], "not a cut line"))
@@ -198,6 +204,18 @@ func (r *reader) walk(ents []*entity, m geom.Affine, layer0, in string, depth in
 		}
 	}
 	return nil
+}
+
+// hidden says why an entity is not part of the drawing's model: on a paper-space layout (group 67 = 1:
+// title blocks, viewports) or made invisible (group 60 = 1); "" when it is part of it.
+func hidden(e *entity) string {
+	switch {
+	case groupText(e, 67) == "1":
+		return "it is on a paper-space layout, not in the drawing's model"
+	case groupText(e, 60) == "1":
+		return "it is invisible"
+	}
+	return ""
 }
 
 // describe names an entity for messages with the layer it is read on and the block it is in.
@@ -246,6 +264,10 @@ func (r *reader) insert(e *entity, m geom.Affine, layer, name string, depth int)
 	b, ok := r.f.blocks[strings.ToUpper(bname)]
 	if !ok {
 		return &Error{Entity: name, Msg: fmt.Sprintf("refers to block %q, which the file does not define", bname)}
+	}
+	if b.external {
+		r.warn("skipped %s: block %q refers to another file, which is not read", name, bname)
+		return nil
 	}
 	o, err := ocs(e)
 	var skip errSkip
@@ -361,7 +383,7 @@ func (r *reader) region(join float64) (geom.Region, error) {
 		}
 	}
 	for _, c := range open {
-		r.warn("skipped an open contour (its ends are %.4g apart, more than %.4g): %s", c.Gap, join, chainText(r.open, c))
+		r.warn("skipped an open contour (its ends are %.4g %s apart; pieces join within %g mm): %s", c.Gap, r.unit, joinMM, chainText(r.open, c))
 	}
 	if len(reg.Loops) == 0 {
 		return reg, &Error{Msg: "the drawing has no closed contours to cut (see the warnings for what was skipped)"}

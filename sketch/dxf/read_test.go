@@ -199,6 +199,9 @@ func TestReadEntities(t *testing.T) {
 		{"quarter circle: rational SPLINE", [][]g{
 			spline(2, []float64{0, 0, 0, 1, 1, 1}, []geom.Point{geom.Pt(r, 0), geom.Pt(r, r), geom.Pt(0, r)}, []float64{1, s2, 1}),
 			line(0, r, 0, 0), line(0, 0, r, 0)}, quarter},
+		{"quarter circle: rational cubic SPLINE (a raised quadratic)", [][]g{
+			raisedSpline([]geom.Point{geom.Pt(r, 0), geom.Pt(r, r), geom.Pt(0, r)}, []float64{1, s2, 1}),
+			line(0, r, 0, 0), line(0, 0, r, 0)}, quarter},
 		{"circle: rational SPLINE of four quarters", [][]g{spline(2, []float64{0, 0, 0, 1, 1, 2, 2, 3, 3, 4, 4, 4},
 			[]geom.Point{geom.Pt(r, 0), geom.Pt(r, r), geom.Pt(0, r), geom.Pt(-r, r), geom.Pt(-r, 0), geom.Pt(-r, -r), geom.Pt(0, -r), geom.Pt(r, -r), geom.Pt(r, 0)}, []float64{1, s2, 1, s2, 1, s2, 1, s2, 1})},
 			want{math.Pi * r * r, 0, 0, math.Pi * r * r * r * r / 4, math.Pi * r * r * r * r / 4, 0}},
@@ -245,4 +248,19 @@ func FuzzReadDXF(f *testing.F) {
 			t.Fatalf("ShapeError %g", d.ShapeError)
 		}
 	})
+}
+
+// raisedSpline writes the rational cubic SPLINE that a rational quadratic Bézier becomes by degree
+// elevation (in homogeneous coordinates H1 = (Q0 + 2Q1)/3, H2 = (2Q1 + Q2)/3).
+func raisedSpline(q []geom.Point, w []float64) []g {
+	h := homogeneous(q, w)
+	third := func(a, b hpoint, wa, wb float64) hpoint {
+		return hpoint{(wa*a[0] + wb*b[0]) / 3, (wa*a[1] + wb*b[1]) / 3, (wa*a[2] + wb*b[2]) / 3}
+	}
+	c := []hpoint{h[0], third(h[0], h[1], 1, 2), third(h[1], h[2], 2, 1), h[2]}
+	pts, ws := make([]geom.Point, 4), make([]float64, 4)
+	for i, p := range c {
+		pts[i], ws[i] = p.point(), p[2]
+	}
+	return spline(3, []float64{0, 0, 0, 0, 1, 1, 1, 1}, pts, ws)
 }

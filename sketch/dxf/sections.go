@@ -89,12 +89,14 @@ func (e *entity) nums(code int) ([]float64, error) {
 	return out, nil
 }
 
-// block is a BLOCK definition: its name, base point and entities.
+// block is a BLOCK definition: its name, base point and entities, and whether it refers to another
+// file (an external reference, BLOCK flag 4), which is never read.
 type block struct {
-	name  string
-	base  geom.Point
-	layer string
-	ents  []*entity
+	name     string
+	base     geom.Point
+	layer    string
+	ents     []*entity
+	external bool
 }
 
 // file is what Read takes from a DXF file: the header's units and the blocks and entities.
@@ -193,7 +195,11 @@ func (f *file) blockSection(pairs []pair) error {
 			if err != nil {
 				return err
 			}
-			cur = &block{name: name, base: base, layer: e.layer}
+			flags, err := e.int(70, 0)
+			if err != nil {
+				return err
+			}
+			cur = &block{name: name, base: base, layer: e.layer, external: flags&4 != 0}
 			f.blocks[strings.ToUpper(name)] = cur
 		case "ENDBLK":
 			cur = nil

@@ -56,10 +56,25 @@ func (s *bspline) insertKnot(u float64) {
 	s.knots = slices.Insert(s.knots, k+1, u)
 }
 
-// beziers splits the spline into its Bézier pieces: every distinct knot of the domain, its ends
+// beziers splits the spline into its Bézier pieces, one per non-empty knot span. Each span
+// [U_i, U_i+1] depends only on the control points P_i−p … P_i and the knots U_i−p … U_i+p+1, so it is
+// split on that local spline alone: the work grows with the number of spans, not its square.
+func (s bspline) beziers() []bezier {
+	p := s.degree
+	var out []bezier
+	for i := p; i < len(s.ctrl); i++ {
+		if s.knots[i] < s.knots[i+1] {
+			local := bspline{degree: p, knots: s.knots[i-p : i+p+2], ctrl: s.ctrl[i-p : i+1]}
+			out = append(out, local.split()...)
+		}
+	}
+	return out
+}
+
+// split splits the spline into its Bézier pieces: every distinct knot of the domain, its ends
 // included, is inserted until it occurs degree times, after which the control points P_s−p … P_s of
 // each non-empty knot span [U_s, U_s+1] are that piece's Bézier control points.
-func (s bspline) beziers() []bezier {
+func (s bspline) split() []bezier {
 	s.knots, s.ctrl = slices.Clone(s.knots), slices.Clone(s.ctrl)
 	p := s.degree
 	a, b := s.knots[p], s.knots[len(s.ctrl)]
@@ -105,6 +120,9 @@ func splineCurve(e *entity) (curve, error) {
 		segs, approx := bezierSegments(bz.ctrl)
 		c.segs = append(c.segs, segs...)
 		c.approx += approx
+		if len(c.segs) > maxSegments {
+			return curve{}, e.fail("the spline makes more than %d segments", maxSegments)
+		}
 	}
 	if len(c.segs) == 0 {
 		return curve{}, errSkip{"it has no length"}
@@ -113,8 +131,9 @@ func splineCurve(e *entity) (curve, error) {
 	return c, nil
 }
 
-// maxSplineDegree bounds a SPLINE's degree: higher degrees only cost time.
-const maxSplineDegree = 25
+// maxSplineDegree bounds a SPLINE's degree: splitting a span costs degree³ steps, and drawings use
+// far lower degrees.
+const maxSplineDegree = 11
 
 func readSpline(e *entity) (bspline, error) {
 	deg, err := e.int(71, 3)

@@ -286,7 +286,7 @@ func (e *Editor) measureOf(a, b geom.Point) Measurement {
 	m := Measurement{A: a, B: b, Dist: d.Norm(), DX: d.X, DY: d.Y, AngleDeg: math.Atan2(d.Y, d.X) * 180 / math.Pi}
 	f := func(v float64) string { return FormatLength(v, e.doc.Units) }
 	m.Text = fmt.Sprintf("%s %s   Δx %s   Δy %s   %s°", f(m.Dist), e.doc.Units, f(m.DX), f(m.DY),
-		FormatLength(m.AngleDeg, "mm"))
+		sketch.FormatAngle(m.AngleDeg))
 	return m
 }
 
@@ -349,7 +349,7 @@ func (e *Editor) outlinePreview(cur geom.Point) Preview {
 	}
 	if d := cur.Sub(last.at); !e.draw.pressing && d.Norm() > 0 {
 		p.Label = "L " + FormatLength(d.Norm(), e.doc.Units) + "  " +
-			FormatLength(math.Atan2(d.Y, d.X)*180/math.Pi, "mm") + "°"
+			sketch.FormatAngle(math.Atan2(d.Y, d.X)*180/math.Pi) + "°"
 	}
 	return p
 }

@@ -35,7 +35,7 @@ func TestPreviewFollowsThePointer(t *testing.T) {
 	click(e, geom.Pt(0, 0))
 	hover(e, geom.Pt(40, 30))
 	p, ok := e.Preview()
-	if !ok || !p.Closed || len(p.Path) != 4 || p.Label != "40 × 30" {
+	if !ok || !p.Closed || len(p.Path) != 4 || p.Label != "40.0 × 30.0" {
 		t.Fatalf("rectangle preview %+v", p)
 	}
 	e.SetTool(ToolOutline)
@@ -43,7 +43,7 @@ func TestPreviewFollowsThePointer(t *testing.T) {
 	hover(e, geom.Pt(30, 40))
 	p, ok = e.Preview()
 	// The rubber band from the first point to the pointer: the 3-4-5 triangle's hypotenuse.
-	if !ok || p.Closed || len(p.Path) != 1 || !strings.HasPrefix(p.Label, "L 50 ") {
+	if !ok || p.Closed || len(p.Path) != 1 || !strings.HasPrefix(p.Label, "L 50.0 ") {
 		t.Fatalf("outline preview %+v", p)
 	}
 	e.Key("Backspace", 0)

@@ -8,6 +8,7 @@ import (
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch"
 )
 
 // typed is a value typed while drawing. Its forms:
@@ -149,16 +150,6 @@ func (t typed) point(last, toward geom.Point, haveLast bool) (geom.Point, error)
 	return geom.Point{}, fmt.Errorf("type x,y")
 }
 
-// FormatLength returns v rounded for display in the unit: 0.01 mm, 0.001 in and alike.
-func FormatLength(v float64, unit string) string {
-	digits := map[string]int{"mm": 2, "cm": 3, "m": 4, "in": 3, "ft": 4}[unit]
-	if digits == 0 {
-		digits = 3
-	}
-	k := math.Pow(10, float64(digits))
-	v = math.Round(v*k) / k
-	if v == 0 {
-		v = 0 // no "-0"
-	}
-	return strconv.FormatFloat(v, 'f', -1, 64)
-}
+// FormatLength returns v rounded for display in the unit, as everywhere on the page: see
+// sketch.FormatLength.
+func FormatLength(v float64, unit string) string { return sketch.FormatLength(v, unit) }

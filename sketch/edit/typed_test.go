@@ -57,3 +57,25 @@ func TestTypedValueErrors(t *testing.T) {
 		}
 	}
 }
+
+// FuzzParseTyped checks that any typed text either parses to finite numbers or says why, and never
+// panics.
+func FuzzParseTyped(f *testing.F) {
+	for _, s := range []string{"120,80", "+120,−40", "(−30,−40)", "250 at 30", "250 ∠ 30°", "2 in", "120,80,5", "at", "(", "+,+"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		v, err := parseTyped(s, "mm")
+		if err != nil {
+			return
+		}
+		for _, x := range v.vals {
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				t.Fatalf("%q gives %v", s, v.vals)
+			}
+		}
+		if p, err := v.point(geom.Pt(1, 2), geom.Pt(3, 4), true); err == nil && (math.IsNaN(p.X) || math.IsNaN(p.Y)) {
+			t.Fatalf("%q gives the point %v", s, p)
+		}
+	})
+}

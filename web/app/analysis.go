@@ -272,8 +272,8 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	return b
 }
 
-// partFacts is the state object's "part": the part's name and material as its part file gives them,
-// for the panel's fields, so that the page needs no part file after every edit.
+// partFacts is the state object's "part": the part's name and material as its part file gives them
+// (null when it has none), for the panel's fields, so that the page needs no part file after every edit.
 func partFacts(d *sketch.Document) map[string]any {
 	s := d.Material
 	spec := map[string]any{}
@@ -284,6 +284,9 @@ func partFacts(d *sketch.Document) map[string]any {
 	}
 	if len(s.Params) > 0 {
 		spec["params"] = s.Params
+	}
+	if len(spec) == 0 {
+		return map[string]any{"name": d.Name, "material": nil} // as the part file leaves it out
 	}
 	return map[string]any{"name": d.Name, "material": spec}
 }

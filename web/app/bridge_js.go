@@ -397,9 +397,9 @@ func (g *Game) report() string {
 	var buf bytes.Buffer
 	r := g.res
 	if r.err != nil {
-		fmt.Fprintf(&buf, "%s: cannot analyse the part: %v\n\n", g.file, r.err)
+		fmt.Fprintf(&buf, "%s: cannot analyse the part: %v\n\n", g.title(), r.err)
 	} else {
-		rep := sketch.Report{File: g.file, Doc: r.doc, Analysis: r.a, Hang: r.hang}
+		rep := sketch.Report{File: g.title(), Doc: r.doc, Analysis: r.a, Hang: r.hang}
 		if r.hang == nil {
 			rep.Level = r.level
 		}
@@ -411,6 +411,19 @@ func (g *Game) report() string {
 		fmt.Fprintf(&buf, "cautions: %v\n", err)
 	}
 	return buf.String()
+}
+
+// title names the part in the report: by its own name, else by the file it was opened from, never by
+// the page's own names for the autosaved, demo or replaced part.
+func (g *Game) title() string {
+	if n := g.ed.Document().Name; n != "" {
+		return n
+	}
+	switch g.file {
+	case "autosave.json", "demo.json", "previous.json", "part.json":
+		return "Untitled part"
+	}
+	return g.file
 }
 
 // templatePDF returns the 1:1 drilling template of the part on the named paper, marking the hang hole

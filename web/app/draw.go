@@ -10,8 +10,8 @@ import (
 	"strings"
 
 	"github.com/hajimehoshi/ebiten/v2"
-	"github.com/hajimehoshi/ebiten/v2/text/v2"
 	"github.com/hajimehoshi/ebiten/v2/vector"
+	"golang.org/x/image/font"
 
 	"plumb/geom"
 	"plumb/sketch"
@@ -211,7 +211,7 @@ func (fr *frame) origin() {
 	fr.p.line(o, o.Add(geom.Pt(arm, 0)), 1.5*u, colInkSoft)
 	fr.p.line(o, o.Add(geom.Pt(0, -arm)), 1.5*u, colInkSoft)
 	fr.p.circle(o, 4*u, 1.5*u, colInkSoft)
-	drawText(fr.p.dst, "0,0", fr.f.small, o.X+6*u, o.Y+4*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
+	drawText(fr.p.dst, "0,0", fr.f.small, o.X+6*u, o.Y+4*u, align{atStart, atStart}, colInkSoft)
 }
 
 func gridColour(v, major, step float64) color.Color {
@@ -237,7 +237,11 @@ func (fr *frame) ghost() {
 		return
 	}
 	h := fr.res.hang
-	fr.fillBoundary(h.Hanging, colGhost)
+	// The drawn pieces, turned on the way to the screen: they join end to start exactly, as the
+	// turned copies in h.Hanging need not, so the fill has no seams between runs.
+	var path vector.Path
+	appendBoundary(&path, h.Part.Body.Pieces, h.Pose.Then(fr.v.Affine()), fr.tol())
+	fr.p.fill(&path, colGhost, ebiten.FillRuleNonZero)
 	fr.dashedSegs(h.Hanging.Pieces, 1.2, 5, 4, colGhostEdge)
 }
 
@@ -692,7 +696,7 @@ func (fr *frame) rulers() {
 		tick := 4 * u
 		if isMajor {
 			tick = 8 * u
-			drawText(fr.p.dst, fr.length(x), fr.f.small, sx+3*u, fr.h-bh+2*u, align{text.AlignStart, text.AlignStart}, colInkSoft)
+			drawText(fr.p.dst, rulerText(x, fr.doc.Units), fr.f.small, sx+3*u, fr.h-bh+2*u, align{atStart, atStart}, colInkSoft)
 		}
 		fr.p.rect(math.Round(sx), fr.h-bh, u, tick, colInkSoft)
 	}
@@ -703,9 +707,12 @@ func (fr *frame) rulers() {
 		}
 		isMajor := math.Abs(y/major-math.Round(y/major)) < 1e-6
 		tick := 4 * u
+		// A label under the tool bar would be hidden: the topmost are left out there.
 		if isMajor {
 			tick = 8 * u
-			drawText(fr.p.dst, fr.length(y), fr.f.small, lw-10*u, sy-2*u, align{text.AlignEnd, text.AlignEnd}, colInkSoft)
+			if _, th := textSize("0", fr.f.small); sy-th-4*u > fr.g.page.Top {
+				drawText(fr.p.dst, rulerText(y, fr.doc.Units), fr.f.small, lw-6*u, sy-2*u, align{atEnd, atEnd}, colInkSoft)
+			}
 		}
 		fr.p.rect(lw-tick, math.Round(sy), tick, u, colInkSoft)
 	}
@@ -719,7 +726,7 @@ func (fr *frame) scaleBar() {
 	u := fr.u
 	length := fr.v.GridStep(90 * u)
 	px := length * fr.v.Scale
-	label := fr.length(length) + " " + fr.doc.Units
+	label := rulerText(length, fr.doc.Units) + " " + fr.doc.Units
 	lw, _ := textSize(label, fr.f.small)
 	x0, y0 := fr.w-fr.g.page.Right-px-lw-28*u, fr.baseline()-4*u
 	hgt := 6 * u
@@ -799,7 +806,7 @@ func (fr *frame) baseline() float64 {
 
 // fitClauses returns the leading " · "-separated clauses of s that fit in width, at least one; a
 // first clause too wide for width is cut to what comes before its colon (the tool's name).
-func fitClauses(s string, face text.Face, width float64) string {
+func fitClauses(s string, face font.Face, width float64) string {
 	parts := strings.Split(s, " · ")
 	out := parts[0]
 	if w, _ := textSize(out, face); w > width {
@@ -842,7 +849,7 @@ func (fr *frame) emptyHint() {
 // besideMark writes s on a label gap pixels to the right of the mark at c and dy below it, or to the
 // left when the right would run under the page's panel; on a canvas too narrow for either it keeps
 // the label clear of the left ruler.
-func (fr *frame) besideMark(s string, face text.Face, c geom.Point, gap, dy float64, clr color.Color) {
+func (fr *frame) besideMark(s string, face font.Face, c geom.Point, gap, dy float64, clr color.Color) {
 	w, _ := textSize(s, face)
 	pad := 10 * fr.u
 	left := c.X + gap
@@ -854,19 +861,28 @@ func (fr *frame) besideMark(s string, face text.Face, c geom.Point, gap, dy floa
 }
 
 // pill writes s on a white rounded label so it reads over the drawing.
-func (fr *frame) pill(s string, face text.Face, x, y float64, a align, clr color.Color) {
+func (fr *frame) pill(s string, face font.Face, x, y float64, a align, clr color.Color) {
 	w, h := textSize(s, face)
 	pad := 5 * fr.u
 	left := x
 	switch a.h {
-	case text.AlignCenter:
+	case atCentre:
 		left = x - w/2
-	case text.AlignEnd:
+	case atEnd:
 		left = x - w
 	}
 	top := y - h/2
 	fr.p.roundRect(left-pad, top-pad/2, w+2*pad, h+pad, 6*fr.u, colPaper)
-	drawText(fr.p.dst, s, face, left, y, align{text.AlignStart, text.AlignCenter}, clr)
+	drawText(fr.p.dst, s, face, left, y, align{atStart, atCentre}, clr)
+}
+
+// rulerText writes a ruler or scale-bar value, a round number of the grid, without trailing zeros.
+func rulerText(v float64, unit string) string {
+	s := edit.FormatLength(v, unit)
+	if strings.Contains(s, ".") {
+		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
+	}
+	return s
 }
 
 // length formats a length or coordinate in the document unit for a label.

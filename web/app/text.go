@@ -7,24 +7,27 @@ import (
 
 	"github.com/golang/freetype/truetype"
 	"github.com/hajimehoshi/ebiten/v2"
-	"github.com/hajimehoshi/ebiten/v2/text/v2"
+	"github.com/hajimehoshi/ebiten/v2/text"
 	"golang.org/x/image/font"
 	"golang.org/x/image/font/gofont/gobold"
 	"golang.org/x/image/font/gofont/goregular"
+	"golang.org/x/image/math/fixed"
 )
 
-// fonts holds the faces the canvas writes with, built for one device scale factor.
+// fonts holds the faces the canvas writes with, built for one device scale factor. The faces are
+// golang.org/x/image font faces drawn through Ebiten's glyph cache (package text): the app needs
+// no shaping beyond the Go fonts' own advances and kerning, and that package keeps the module small.
 type fonts struct {
 	scale        float64
-	small, label *text.GoXFace
-	strong       *text.GoXFace
+	small, label font.Face
+	strong       font.Face
 }
 
-// Text sizes in CSS pixels.
+// Text sizes in CSS pixels: 12 at the least, to read at arm's length on a shop screen.
 const (
-	smallPt  = 11
-	labelPt  = 12.5
-	strongPt = 14
+	smallPt  = 12
+	labelPt  = 13
+	strongPt = 15
 )
 
 var (
@@ -40,8 +43,8 @@ func mustParse(ttf []byte) *truetype.Font {
 	return f
 }
 
-func newFace(f *truetype.Font, size float64) *text.GoXFace {
-	return text.NewGoXFace(truetype.NewFace(f, &truetype.Options{Size: size, DPI: 72, Hinting: font.HintingFull}))
+func newFace(f *truetype.Font, size float64) font.Face {
+	return truetype.NewFace(f, &truetype.Options{Size: size, DPI: 72, Hinting: font.HintingFull})
 }
 
 // facesFor returns fonts sized for the device scale factor, rebuilding them when it changed.
@@ -57,26 +60,42 @@ func (f *fonts) facesFor(scale float64) *fonts {
 	return f
 }
 
-// Alignment of text against the point it is drawn at.
-type align struct{ h, v text.Align }
+// placement is where a line of text sits against the point it is drawn at, along one axis.
+type placement int
+
+const (
+	atStart  placement = iota // left, or top
+	atCentre                  // centred
+	atEnd                     // right, or bottom
+)
+
+// Alignment of text against the point it is drawn at: h across, v up and down (the line from the
+// top of the ascent to the bottom of the descent).
+type align struct{ h, v placement }
 
 var (
-	alignLeftMiddle   = align{text.AlignStart, text.AlignCenter}
-	alignRightMiddle  = align{text.AlignEnd, text.AlignCenter}
-	alignCentreMiddle = align{text.AlignCenter, text.AlignCenter}
-	alignLeftBottom   = align{text.AlignStart, text.AlignEnd}
+	alignLeftMiddle   = align{atStart, atCentre}
+	alignRightMiddle  = align{atEnd, atCentre}
+	alignCentreMiddle = align{atCentre, atCentre}
+	alignLeftBottom   = align{atStart, atEnd}
 )
 
 // drawText writes s at (x, y) in device pixels.
-func drawText(dst *ebiten.Image, s string, face text.Face, x, y float64, a align, clr color.Color) {
-	op := &text.DrawOptions{}
+func drawText(dst *ebiten.Image, s string, face font.Face, x, y float64, a align, clr color.Color) {
+	w, h := textSize(s, face)
+	ascent := fixedPx(face.Metrics().Ascent)
+	x -= w * float64(a.h) / 2
+	y += ascent - h*float64(a.v)/2 // the baseline
+	op := &ebiten.DrawImageOptions{}
 	op.GeoM.Translate(x, y)
 	op.ColorScale.ScaleWithColor(clr)
-	op.PrimaryAlign, op.SecondaryAlign = a.h, a.v
-	text.Draw(dst, s, face, op)
+	text.DrawWithOptions(dst, s, face, op)
 }
 
-// textSize returns the width and height of s in device pixels.
-func textSize(s string, face text.Face) (float64, float64) {
-	return text.Measure(s, face, face.Metrics().HAscent+face.Metrics().HDescent)
+// textSize returns the width and height of a line of text in device pixels.
+func textSize(s string, face font.Face) (float64, float64) {
+	m := face.Metrics()
+	return fixedPx(font.MeasureString(face, s)), fixedPx(m.Ascent + m.Descent)
 }
+
+func fixedPx(v fixed.Int26_6) float64 { return float64(v) / 64 }

@@ -24,7 +24,9 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  const timing = {}; // milliseconds since navigation: readyMs, restoredMs (the part is on screen)
+  // Milliseconds since navigation: unpackedMs (the module's text decoded), compiledMs, readyMs (the app's
+  // first frame), restoredMs (the part is on screen).
+  const timing = { scriptMs: performance.now() };
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
@@ -40,10 +42,13 @@
   function writeStore(key, value) {
     try { localStorage.setItem(key, value); return true; } catch { return false; }
   }
-  // remember keeps one of the choices a new part starts with (units or material) for later visits.
+  // chosen returns the choices kept for later visits: {units, material} for a new part, and the last
+  // sheet and formula fields ({sheet, formula}) for the tab a part does not use.
+  function chosen() {
+    try { return JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { return {}; }
+  }
   function remember(key, value) {
-    let c = {};
-    try { c = JSON.parse(readStore(CHOSEN) || "{}") || {}; } catch { c = {}; }
+    const c = chosen();
     c[key] = value;
     writeStore(CHOSEN, JSON.stringify(c));
   }
@@ -59,8 +64,15 @@
   function canvas() { return document.querySelector("canvas"); }
   function giveCanvasKeys() { const c = canvas(); if (c) c.focus({ preventScroll: true }); }
   function unitName() { return (state && state.units && state.units.length) || "mm"; }
+  // minus writes a number's text with the true minus sign, U+2212, and no sign on a value that rounds
+  // to zero.
+  function minus(text) {
+    if (!text.startsWith("-")) return text;
+    return /[1-9]/.test(text) ? "\u2212" + text.slice(1) : text.slice(1);
+  }
+  // fmtLen writes a length as the canvas and the warnings do (sketch.FormatLength): fixed decimals per unit.
   function fmtLen(v) {
-    return Number.isFinite(v) ? v.toFixed(DECIMALS[unitName()] ?? 3) : "—";
+    return Number.isFinite(v) ? minus(v.toFixed(DECIMALS[unitName()] ?? 3)) : "—";
   }
   // fmtField writes a length for a field the user may edit: rounded, without trailing zeros. The app
   // keeps the exact value until the user types a new one.
@@ -70,10 +82,10 @@
   function fmtSig(v, digits = 4) {
     if (!Number.isFinite(v)) return "—";
     const a = Math.abs(v);
-    if (a !== 0 && (a < 1e-3 || a >= 1e7)) return v.toExponential(digits - 1);
-    return Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 });
+    if (a !== 0 && (a < 1e-3 || a >= 1e7)) return minus(v.toExponential(digits - 1)).replace("e-", "e\u2212");
+    return minus(Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 }));
   }
-  function fmtDeg(v) { return Number.isFinite(v) ? v.toFixed(1) + "°" : "—"; }
+  function fmtDeg(v) { return Number.isFinite(v) ? minus(v.toFixed(1)) + "°" : "—"; }
 
   // ---- starting the app ----
 
@@ -108,15 +120,20 @@
     return out;
   }
 
+  // startApp unpacks the module and compiles it while it is still being inflated (a Response typed
+  // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
   async function startApp() {
     const holder = $("plumb-module");
     const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
+    timing.unpackedMs = performance.now();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
-    const module = await new Response(stream).arrayBuffer();
-    startup = await readStartup();
     const go = new Go();
-    const { instance } = await WebAssembly.instantiate(module, go.importObject);
+    const compiled = WebAssembly.instantiateStreaming(
+      new Response(stream, { headers: { "Content-Type": "application/wasm" } }), go.importObject);
+    startup = await readStartup();
+    const { instance } = await compiled;
+    timing.compiledMs = performance.now();
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
   }
 
@@ -133,8 +150,8 @@
     app = window.plumb;
     timing.readyMs = performance.now();
     try {
-      const chosen = JSON.parse(readStore(CHOSEN) || "null");
-      if (chosen) app.setDefaults(chosen);
+      const kept = chosen();
+      app.setDefaults({ units: kept.units, material: kept.material });
     } catch { /* a choice that cannot be read is forgotten: the part's own units and material serve */ }
     try {
       if (startup.crashed) recoverFromCrash();
@@ -148,6 +165,7 @@
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
+    timing.loadedMs = performance.now();
     requestAnimationFrame(() => { timing.restoredMs = performance.now(); });
     settleStartup();
   }
@@ -406,20 +424,34 @@
   function showPart(doc) {
     partName = doc.name || "";
     $("part-name").textContent = partName || "Untitled part";
+    $("part-name").title = partName || "Untitled part";
     const spec = doc.material;
     if (!spec || editingMaterial()) return;
+    // Each tab keeps its fields for later: the other one is filled from the last part that used it.
+    const kept = chosen();
     if (spec.formula) {
       setMode("formula");
-      $("formula").value = spec.formula;
-      $("density-unit").value = spec.unit || "kg/m2";
-      $("params").value = Object.entries(spec.params || {}).map(([k, v]) => k + " = " + v).join(", ");
-    } else {
+      fillFormula(spec);
+      if ($("material").value === "" && kept.sheet) fillSheet(kept.sheet);
+      remember("formula", spec);
+    } else if (spec.material) {
       setMode("sheet");
-      $("material").value = spec.material || "";
-      $("thickness").value = spec.thickness || "";
+      fillSheet(spec);
+      if ($("formula").value === "" && kept.formula) fillFormula(kept.formula);
+      remember("sheet", spec);
     }
     showThickness();
     fillThicknessList();
+  }
+
+  function fillSheet(spec) {
+    $("material").value = spec.material || "";
+    $("thickness").value = spec.thickness || "";
+  }
+  function fillFormula(spec) {
+    $("formula").value = spec.formula || "";
+    $("density-unit").value = spec.unit || "kg/m2";
+    $("params").value = Object.entries(spec.params || {}).map(([k, v]) => k + " = " + v).join(", ");
   }
 
   function setMode(m) {
@@ -471,7 +503,7 @@
     if (!err) {
       const r = app.setMaterial(spec);
       if (!r.ok) err = r.error || { msg: "not accepted" };
-      else remember("material", spec);
+      else { remember("material", spec); remember(mode, spec); }
     }
     showMaterialError(err);
     showThickness();
@@ -630,9 +662,12 @@
       $("weight").textContent = "—";
       $("weight-sub").textContent = "no material: choose one for the weight";
     } else {
-      $("weight").textContent = fmtSig(state.mass) + " kg";
-      const lbf = Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB;
-      $("weight-sub").textContent = fmtSig(lbf) + " lb" + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
+      // Pounds first on a part drawn in inches or feet, kilograms first otherwise.
+      const lb = fmtSig(Number.isFinite(state.weight_lbf) ? state.weight_lbf : state.mass / KG_PER_LB) + " lb";
+      const kg = fmtSig(state.mass) + " kg";
+      const imperial = u === "in" || u === "ft";
+      $("weight").textContent = imperial ? lb : kg;
+      $("weight-sub").textContent = (imperial ? kg : lb) + (Number.isFinite(state.weight_n) ? " · " + fmtSig(state.weight_n) + " N" : "");
     }
     $("balance").textContent = fmtLen(state.centroid.x) + ", " + fmtLen(state.centroid.y);
     $("balance-sub").textContent = "x, y (" + u + ") from the drawing's origin";
@@ -795,6 +830,8 @@
     about: showAbout,
     close: closeOverlays,
     "dismiss-units-note": () => { $("units-note").hidden = true; },
+    "dismiss-guide": () => { $("guide").hidden = true; writeStore(GUIDE_DONE, "1"); },
+    "show-guide": () => { closeOverlays(); $("guide").hidden = false; writeStore(GUIDE_DONE, ""); },
     "undo-units": () => { app.undo(); $("units-note").hidden = true; },
     "restore-previous": () => {
       unpackText(readStore(PREVIOUS)).then((prev) => {
@@ -936,6 +973,7 @@
     if ([...$("paper").options].some((o) => o.value === paper)) $("paper").value = paper;
     $("paper").addEventListener("change", () => writeStore(PAPER, $("paper").value));
     if (readStore(FOLDED)) $("fold").click();
+    $("guide").hidden = Boolean(readStore(GUIDE_DONE));
   }
 
   window.plumbUI = { ready, onChange, timing };

@@ -2,6 +2,7 @@ package main
 
 import (
 	"math"
+	"os"
 	"strings"
 	"testing"
 )
@@ -136,4 +137,30 @@ func TestCutfile(t *testing.T) {
 	if r.code != 2 {
 		t.Errorf("-o x.pdf: exit %d, want a usage error", r.code)
 	}
+}
+
+// TestAnalyzeOffsetViewBox checks that an SVG keeps its own coordinates: a 600 × 400 plate with a
+// hole of radius 50 at (450, 200), drawn under viewBox "-50 -450 600 400" at 12 in wide, so 1 user
+// unit is 12 × 25.4 / 600 = 0.508 mm (CSS: 1 in = 25.4 mm), and document y = −0.508 · SVG y.
+func TestAnalyzeOffsetViewBox(t *testing.T) {
+	plumb := buildPlumb(t)
+	path := t.TempDir() + "/plate.svg"
+	svgText := `<svg xmlns="http://www.w3.org/2000/svg" width="12in" height="8in" viewBox="-50 -450 600 400">` +
+		`<path d="M0 -400H600V0H0Z M500 -200A50 50 0 0 0 400 -200A50 50 0 0 0 500 -200Z" fill="#000" fill-rule="evenodd"/></svg>`
+	if err := os.WriteFile(path, []byte(svgText), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	const s = 0.508
+	area, cx, cy, ixx, iyy, _ := composite(rect(0, 0, 600*s, 400*s), hole(disc(450*s, 200*s, 50*s)))
+	r := plumb("analyze", "--format", "json", path)
+	if r.code != 0 {
+		t.Fatalf("exit %d: %s", r.code, r.stderr)
+	}
+	m := jsonLines(t, r.stdout)[0]
+	size, i := math.Sqrt(area), ixx+iyy
+	wantNear(t, "area", num(t, m, "area")/area, 1, 1e-12)
+	wantNear(t, "centroid x", num(t, m, "centroid", "x")/size, cx/size, 1e-12)
+	wantNear(t, "centroid y", num(t, m, "centroid", "y")/size, cy/size, 1e-12)
+	wantNear(t, "ixx", num(t, m, "inertia", "ixx")/i, ixx/i, 1e-11)
+	wantNear(t, "iyy", num(t, m, "inertia", "iyy")/i, iyy/i, 1e-11)
 }
