@@ -17,6 +17,8 @@ type densityResult struct {
 	geom.Result
 	poly     *localPoly   // the density about a point of the part, when it is a polynomial
 	check    *checkResult // the interval check, for a density integrated numerically
+	why      string       // why the error estimate is not a guaranteed bound, when numerically integrated
+	bound    string       // the warning that says so (boundWarning), one of warnings
 	warnings []string
 }
 
@@ -70,7 +72,9 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 		return densityResult{}, err
 	}
 	if numeric {
-		res.warnings = append(res.warnings, check.boundWarning(f, &res.Result, cells, complete))
+		res.why = boundReason(cells, complete)
+		res.bound = check.boundWarning(f, &res.Result, res.why)
+		res.warnings = append(res.warnings, res.bound)
 	}
 	return res, nil
 }
@@ -80,6 +84,15 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 type holeCheck struct {
 	whole checkResult
 	hole  Hole
+}
+
+// from returns k with the check of the material without the hole, or nil when there is none.
+func (k *holeCheck) from(whole *checkResult) *holeCheck {
+	if whole == nil {
+		return nil
+	}
+	k.whole = *whole
+	return k
 }
 
 // check returns the interval check of the material with the hole for the density f, derived from
@@ -213,10 +226,9 @@ func (c checkResult) signWarnings(f *density.Field) []string {
 		"(%d boxes): near %s it may be negative, though every value evaluated is zero or more", c.boxesIn, f.Where(c.doubt.X, c.doubt.Y))}
 }
 
-// boundWarning says that r's error estimate is not a guaranteed bound, why, and what the interval
-// check guarantees. When the cubature's mass lies outside the guaranteed bounds, r's estimate is
-// raised to the distance to the farther bound, which is one.
-func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []densityCell, complete bool) string {
+// boundReason says why the error estimate of a density integrated over the cells is not a
+// guaranteed bound: kinks along curves, more kinks than maxCells, or only that it is not a polynomial.
+func boundReason(cells []densityCell, complete bool) string {
 	var rough []string
 	for _, cell := range cells {
 		for _, n := range cell.r.Rough {
@@ -225,15 +237,19 @@ func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []dens
 			}
 		}
 	}
-	var why string
 	switch {
 	case len(rough) > 0:
-		why = strings.Join(rough, ", ") + " of an argument that is not linear in x and y has kinks or steps along curves, which the integration does not follow"
+		return strings.Join(rough, ", ") + " of an argument that is not linear in x and y has kinks or steps along curves, which the integration does not follow"
 	case !complete:
-		why = fmt.Sprintf("it has more kinks or steps across the part than it is cut at (%d pieces)", maxCells)
-	default:
-		why = "it is not a polynomial on the part, so it was integrated numerically"
+		return fmt.Sprintf("it has more kinks or steps across the part than it is cut at (%d pieces)", maxCells)
 	}
+	return "it is not a polynomial on the part, so it was integrated numerically"
+}
+
+// boundWarning says that r's error estimate is not a guaranteed bound, why, and what the interval
+// check guarantees. When the cubature's mass lies outside the guaranteed bounds, r's estimate is
+// raised to the distance to the farther bound, which is one.
+func (c checkResult) boundWarning(f *density.Field, r *geom.Result, why string) string {
 	w := "the error estimate is not a guaranteed bound for this density: " + why
 	if math.IsInf(c.lo, 0) || math.IsInf(c.hi, 0) || math.IsNaN(c.lo+c.hi) {
 		return w + "; interval arithmetic gives no bounds on the mass (the formula may be undefined or unbounded near the part)"
