@@ -530,7 +530,11 @@ func dedupe(ps []keptPiece, tol float64) []Segment {
 	for i := range order {
 		order[i] = i
 	}
-	startX := func(i int) float64 { return ps[i].s.Start().X }
+	xs := make([]float64, len(ps)) // the starts' x, read once rather than at every comparison
+	for i := range ps {
+		xs[i] = ps[i].s.Start().X
+	}
+	startX := func(i int) float64 { return xs[i] }
 	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(startX(i), startX(j)) })
 	dup := make([]bool, len(ps))
 	for k, i := range order {
