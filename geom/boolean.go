@@ -175,10 +175,10 @@ type snapper struct {
 func (sn *snapper) onto(k, from, step int, target func(int) bool) bool {
 	radius := contactRadius * sn.tol
 	for l := from; l >= 0 && l < len(sn.order) && math.Abs(sn.pts[sn.order[l]].X-sn.pts[k].X) <= radius; l += step {
-		if !target(sn.order[l]) {
-			continue
-		}
 		p := sn.pts[sn.order[l]]
+		if math.Abs(p.Y-sn.pts[k].Y) > radius || !target(sn.order[l]) {
+			continue // beyond radius (a cheap test first: hits on one vertical line share their x)
+		}
 		d := p.Dist(sn.pts[k])
 		if d <= sn.tol {
 			return true
