@@ -129,6 +129,8 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 	if err != nil {
 		return nil, err
 	}
+	d, notes := d.withoutRepeats()
+	a.Warnings = append(a.Warnings, notes...)
 	p, err := d.plan()
 	if err != nil {
 		return nil, err

@@ -63,8 +63,7 @@ import (
 // files leave them out.
 //
 // A text is one line of lettering kept as text: "text" (printable characters), "font" (one of
-// go-regular, go-medium, go-bold, go-italic, go-bold-italic, go-mono, go-mono-bold, go-smallcaps;
-// go-regular when absent),
+// go-regular, go-bold, go-italic, go-mono; go-regular when absent),
 // "height" (the height of the font's capital H, in the document unit), "at" (the left end of the
 // baseline), "angle_deg" (the baseline's direction, counter-clockwise; 0 when absent), "spacing" (extra
 // space after each letter, negative to tighten; 0 when absent) and "role": "cutout" (the default: cut

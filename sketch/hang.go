@@ -637,6 +637,9 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 	}{{a, sa}, {b, 1 - sa}} {
 		v := c.share * part.WeightN
 		lift.Chains[i] = Chain{At: c.at, Share: c.share, Vertical: v, Tension: v * lift.Factor}
+		if math.IsInf(lift.Chains[i].Tension, 0) || math.IsInf(lift.Factor, 0) {
+			return nil, fmt.Errorf("leg angle %s°: so flat that the chain tension is beyond any number", formatNumber(legDeg))
+		}
 	}
 	lift.warn(unit)
 	if w := piecesWarning(part.Body, "the chain loads hold"); w != "" {

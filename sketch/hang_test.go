@@ -412,3 +412,12 @@ func TestEdgeRule(t *testing.T) {
 		})
 	}
 }
+
+// TestTwoChainsTooFlat checks that legs so flat that the tension overflows are an error, not +Inf.
+func TestTwoChainsTooFlat(t *testing.T) {
+	d := plate(200, 100, "10")
+	_, err := TwoChains(d, geom.Pt(20, 90), geom.Pt(180, 90), 6, math.SmallestNonzeroFloat64, HangOptions{})
+	if err == nil || !strings.Contains(err.Error(), "so flat that the chain tension is beyond any number") {
+		t.Errorf("error %v", err)
+	}
+}

@@ -23,14 +23,17 @@ func TestLetteringTool(t *testing.T) {
 	before := b.state()
 	// Fit shows the whole plate; this point, left of the panel and below the tool bar, is on it.
 	b.click(150, 330)
-	b.typeKeys("BAKERY")
-	b.waitFor(`plumb.state().lettering.text === "BAKERY"`)
+	b.typeKeys("BAKERY?") // "?" is a character while the tool writes, not the help overlay's key
+	b.waitFor(`plumb.state().lettering.text === "BAKERY?"`)
+	if eval[bool](b, `!document.getElementById("help").hidden`) {
+		t.Errorf("typing ? into lettering opened the help overlay")
+	}
 	after := b.state()
 	if after.Centroid == before.Centroid || !(after.Area < before.Area) {
 		t.Fatalf("balance point %v → %v, area %g → %g: the lettering changed nothing", before.Centroid, after.Centroid, before.Area, after.Area)
 	}
 	d := b.savedPart()
-	if len(d.Texts) != 1 || d.Texts[0].Text != "BAKERY" || d.Texts[0].Font != "go-bold" || d.Texts[0].Height != 50 {
+	if len(d.Texts) != 1 || d.Texts[0].Text != "BAKERY?" || d.Texts[0].Font != "go-bold" || d.Texts[0].Height != 50 {
 		t.Fatalf("saved lettering %+v", d.Texts)
 	}
 	want, err := sketch.Analyze(d, sketch.AnalyzeOptions{})
@@ -50,6 +53,17 @@ func TestLetteringTool(t *testing.T) {
 	if len(pieces.Pieces) != len(want.Pieces) || len(want.Pieces) < 2 {
 		t.Errorf("%d pieces in the browser, %d natively (the counters of A, B and R fall out)", len(pieces.Pieces), len(want.Pieces))
 	}
+
+	// The panel's role menu makes the selected word welded-on letters of the same sheet: the plate is
+	// whole again and heavier by the letters.
+	eval[any](b, `(document.getElementById("text-role").value = "added", null)`)
+	eval[any](b, `(document.getElementById("text-role").dispatchEvent(new Event("change")), null)`)
+	b.waitFor(`plumb.state().lettering.role === "added"`)
+	if s := b.state(); s.Area != before.Area || !(s.Mass > before.Mass) {
+		t.Errorf("added letters: area %.12g (plate %.12g), mass %.12g (plate %.12g)", s.Area, before.Area, s.Mass, before.Mass)
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="undo"]`)))
+	b.frames(2)
 
 	// One undo takes the whole word back.
 	b.do(chromedp.Click(chromedp.CSS(`[data-action="undo"]`)))

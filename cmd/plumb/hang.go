@@ -51,7 +51,7 @@ func (h *hangFlags) register(fs *flag.FlagSet) {
 // angle of two chains and the edge distance.
 func (h *hangFlags) registerHole(fs *flag.FlagSet, holeUsage string) {
 	floatFlag(fs, &h.hole, "hole", 0, 0, math.MaxFloat64, "a diameter of 0 or more", holeUsage)
-	floatFlag(fs, &h.leg, "angle", 90, math.SmallestNonzeroFloat64, 90, "an angle above 0 and at most 90 degrees",
+	floatFlag(fs, &h.leg, "angle", 90, 1, 90, "an angle from 1 to 90 degrees",
 		"two chains: leg `angle` to the horizontal in degrees (90: vertical chains)")
 	floatFlag(fs, &h.opt.Edge, "edge", 0, 0, math.MaxFloat64, "a distance of 0 or more",
 		"least `distance` from the hole's edge to any edge of the part (0: max(1.5 × thickness, hole))")

@@ -137,6 +137,7 @@ func TestHostileInput(t *testing.T) {
 			{"template", []string{"template", "testdata/gate-panel.json", "--level", "-o"}, "t.pdf"},
 			{"report", []string{"report", "testdata/gate-panel.json", "-o"}, "r.pdf"},
 			{"convert", []string{"convert", big, "--out"}, "c.svg"},
+			{"cutfile", []string{"cutfile", big, "--level", "--hole", "6", "-o"}, "k.dxf"},
 		} {
 			out := filepath.Join(dir, c.out)
 			r := limited(append(c.args, out)...)
@@ -208,6 +209,44 @@ func TestHostileInput(t *testing.T) {
 		}
 	})
 
+	t.Run("small files that ask for unbounded work", func(t *testing.T) {
+		// The sizes of the probe that found them: each took from 16 s to minutes and gigabytes.
+		svgOf := func(attrs, body string) string {
+			return `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100"` + attrs + `>` + body + `</svg>`
+		}
+		var rules, rects strings.Builder
+		for i := range 40000 {
+			fmt.Fprintf(&rules, ".c%d{fill:#%06x}", i, i)
+		}
+		for i := range 10000 {
+			fmt.Fprintf(&rects, `<rect class="c%d" x="%d" y="%d" width="0.5" height="0.5"/>`, i*4, i%100, i/100)
+		}
+		dir := writeFiles(t, map[string]string{
+			"comments.svg": svgOf("", "<title>"+strings.Repeat("a<!--x-->", 200000)+"</title><style>"+
+				strings.Repeat("b<!--y-->", 100000)+`</style><rect width="10" height="10"/>`),
+			"rules.svg":    svgOf("", "<style>"+rules.String()+"</style>"+rects.String()),
+			"retraced.svg": svgOf(` fill="none" stroke="black"`, `<path d="`+strings.Repeat("M0 0H1", 4000)+`"/>`),
+			"squares.svg":  svgOf("", strings.Repeat(`<rect width="10" height="10"/>`, 2000)),
+			"cut.svg":      svgOf(` fill="none" stroke="black"`, strings.Repeat(`<path d="M0 0H10V10H0Z"/>`, 2001)),
+			"metres.json":  squareJSON("m", 0, 600, ""),
+		})
+		in := func(name string) string { return filepath.Join(dir, name) }
+		r := plumb("analyze", "--density", "8", "--format", "json", in("comments.svg"), in("rules.svg"), in("squares.svg"), in("cut.svg"))
+		if objs := jsonLines(t, r.stdout); r.code != 0 || len(objs) != 4 {
+			t.Fatalf("exit %d, %d results, stderr %q", r.code, len(objs), r.stderr)
+		} else {
+			wantNear(t, "10,000 squares of 0.5 mm", num(t, objs[1], "area"), 2500, 1e-12)
+			wantNear(t, "2,000 repeats of one square", num(t, objs[2], "area"), 100, 1e-12)
+			wantNear(t, "2,001 nested even-odd", num(t, objs[3], "area"), 100, 1e-12)
+		}
+		wantFailure(t, plumb("analyze", "--density", "8", in("retraced.svg")), exitFailed, "the part has no material")
+		wantFailure(t, plumb("template", in("metres.json"), "-o", in("m.pdf")), exitFailed,
+			"the template would take 9.44e+06 pages, more than the limit of 200 (check the part's length unit)")
+		if _, err := os.Stat(in("m.pdf")); err == nil {
+			t.Error("a refused template left a file")
+		}
+	})
+
 	t.Run("every flag of every command", func(t *testing.T) {
 		walkFlags(t, plumb)
 	})
@@ -219,7 +258,7 @@ var flagValues = []string{"-1", "0", "NaN", "Inf", "1e308", "text"}
 // numericFlags take numbers only (for --at and --param, inside "X,Y" and "name=value"): NaN, Inf and
 // text must be usage errors.
 var numericFlags = map[string]bool{"tol": true, "hole": true, "angle": true, "edge": true, "tilt": true,
-	"drill-tol": true, "overlap": true, "at": true, "param": true, "port": true}
+	"drill-tol": true, "overlap": true, "at": true, "param": true, "port": true, "stencil": true}
 
 // boolFlags are given as --flag=value.
 var boolFlags = map[string]bool{"level": true, "force": true, "gauges": true}

@@ -22,6 +22,10 @@ after a first page with the map of the pages; alignment marks sit on the cut lin
 The hole: --at X,Y or --level (positions and --hole in the part's unit, mm for SVG), or else the part
 file's own hang holes; with none, the balance point alone is marked.`
 
+// forcedMaxPages is the most pages template makes with --force: some fifty square metres of A4, and
+// a few hundred megabytes of memory while the PDF is built.
+const forcedMaxPages = 2000
+
 func runTemplate(args []string, stdout, stderr io.Writer) int {
 	fs := newFlags("template", "plumb template FILE [--paper A4|letter|A3|tabloid] [--hole D] [--level | --at X,Y] [flags] -o part.pdf", templateAbout, stderr)
 	var s shopFlags
@@ -29,6 +33,7 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	paperName := fs.String("paper", "A4", "paper `size`: A4, letter, A3 or tabloid")
 	var overlap float64
 	floatFlag(fs, &overlap, "overlap", shop.DefaultOverlap, 0, 50, "a width from 0 to 50 mm", "`mm` of paper that neighbouring pages share")
+	force := fs.Bool("force", false, fmt.Sprintf("make a template of more than %d pages (up to %d)", shop.DefaultMaxPages, forcedMaxPages))
 	files, err := parseArgs(fs, args)
 	if err != nil {
 		return usageStatus(err)
@@ -42,9 +47,17 @@ func runTemplate(args []string, stdout, stderr io.Writer) int {
 	}
 	p, err := s.part(files[0], stderr)
 	if err == nil {
+		opt := shop.TemplateOptions{Paper: paper, Overlap: overlap}
+		if *force {
+			opt.MaxPages = forcedMaxPages
+		}
 		err = writeOutput(s.out, files[0], stdout, func(w io.Writer) error {
-			return shop.Template(w, p, shop.TemplateOptions{Paper: paper, Overlap: overlap})
+			return shop.Template(w, p, opt)
 		})
+	}
+	var tooMany *shop.PageLimitError
+	if errors.As(err, &tooMany) && !*force && tooMany.Pages <= forcedMaxPages {
+		err = fmt.Errorf("%w; give --force to make it", err)
 	}
 	if err != nil {
 		say(stderr, "plumb: %s: %v", files[0], err)

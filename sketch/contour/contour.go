@@ -4,6 +4,7 @@
 package contour
 
 import (
+	"cmp"
 	"errors"
 	"math"
 	"slices"
@@ -85,21 +86,22 @@ var ErrNotClosed = errors.New("the boundary does not close into loops")
 
 // Boundary links boundary pieces, each running on from the end of another (as geom.Combine returns
 // them), end to start into closed loops, leaving out slivers no longer than tol that splitting at
-// intersections can produce.
+// intersections can produce. The pieces are found through an index of their starts, so linking n
+// pieces takes about n log n steps.
 func Boundary(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
-	used := make([]bool, len(pieces))
+	c := newStarts(pieces, tol)
 	var loops []geom.Loop
 	for i := range pieces {
-		if used[i] {
+		if c.used[i] {
 			continue
 		}
-		used[i] = true
+		c.used[i] = true
 		l := geom.Loop{pieces[i]}
 		for last := i; l[len(l)-1].End().Dist(l[0].Start()) > tol; {
-			if last = nextPiece(pieces, used, l[len(l)-1].End(), last+1, tol); last < 0 {
+			if last = c.next(l[len(l)-1].End(), last+1); last < 0 {
 				return nil, ErrNotClosed
 			}
-			used[last] = true
+			c.used[last] = true
 			l = append(l, pieces[last])
 		}
 		if l = Close(l, tol, 0); len(l) > 0 {
@@ -109,18 +111,39 @@ func Boundary(pieces []geom.Segment, tol float64) ([]geom.Loop, error) {
 	return loops, nil
 }
 
-// nextPiece returns the first unused piece that starts within tol of p, trying hint first (pieces
-// usually come in order), or -1.
-func nextPiece(pieces []geom.Segment, used []bool, p geom.Point, hint int, tol float64) int {
-	if hint < len(pieces) && !used[hint] && pieces[hint].Start().Dist(p) <= tol {
+// starts finds the unused piece that starts near a point, through the pieces sorted by the x of
+// their starts.
+type starts struct {
+	pieces []geom.Segment
+	used   []bool
+	byX    []int // piece indices by the x of their start
+	tol    float64
+}
+
+func newStarts(pieces []geom.Segment, tol float64) *starts {
+	c := &starts{pieces: pieces, used: make([]bool, len(pieces)), byX: make([]int, len(pieces)), tol: tol}
+	for i := range c.byX {
+		c.byX[i] = i
+	}
+	slices.SortFunc(c.byX, func(a, b int) int { return cmp.Compare(pieces[a].Start().X, pieces[b].Start().X) })
+	return c
+}
+
+// next returns the first unused piece (in index order) that starts within tol of p, trying hint
+// first (pieces usually come in order), or -1.
+func (c *starts) next(p geom.Point, hint int) int {
+	if hint < len(c.pieces) && !c.used[hint] && c.pieces[hint].Start().Dist(p) <= c.tol {
 		return hint
 	}
-	for k, s := range pieces {
-		if !used[k] && s.Start().Dist(p) <= tol {
-			return k
+	startX := func(i int) float64 { return c.pieces[i].Start().X }
+	k, _ := slices.BinarySearchFunc(c.byX, p.X-c.tol, func(i int, x float64) int { return cmp.Compare(startX(i), x) })
+	best := -1
+	for ; k < len(c.byX) && startX(c.byX[k]) <= p.X+c.tol; k++ {
+		if i := c.byX[k]; !c.used[i] && c.pieces[i].Start().Dist(p) <= c.tol && (best < 0 || i < best) {
+			best = i
 		}
 	}
-	return -1
+	return best
 }
 
 // Chain is a run of open pieces joined end to end: its segments, the indices of the pieces it was
@@ -137,7 +160,7 @@ type Chain struct {
 // with the nearest end until it closes or no end is near. It returns the closed chains and the open
 // ones, each in the order its first piece comes.
 func Join(pieces [][]geom.Segment, join float64) (closed, open []Chain) {
-	ends := endIndex{cell: join, m: map[[2]int64][]int{}}
+	ends := endIndex{cell: join, m: map[[2]int64]*endCell{}}
 	for i, p := range pieces {
 		ends.add(start(p), i)
 		ends.add(end(p), i)
@@ -188,7 +211,13 @@ func Reverse(segs []geom.Segment) []geom.Segment {
 // the pieces with an end in each cell, so a point's neighbours lie in the 3 × 3 cells around it.
 type endIndex struct {
 	cell float64
-	m    map[[2]int64][]int
+	m    map[[2]int64]*endCell
+}
+
+// endCell lists the pieces with an end in one cell; those before head are all used.
+type endCell struct {
+	ids  []int
+	head int
 }
 
 func (x endIndex) key(p geom.Point) [2]int64 {
@@ -197,17 +226,35 @@ func (x endIndex) key(p geom.Point) [2]int64 {
 
 func (x endIndex) add(p geom.Point, i int) {
 	k := x.key(p)
-	x.m[k] = append(x.m[k], i)
+	c := x.m[k]
+	if c == nil {
+		c = &endCell{}
+		x.m[k] = c
+	}
+	c.ids = append(c.ids, i)
 }
 
+// maxCandidates bounds the ends nearest looks at in one cell past its used ones. Drawings have a few
+// ends per cell; a hostile file could pile up a million there, and trying them all for every join would
+// take a million squared steps.
+const maxCandidates = 64
+
 // nearest returns the unused piece with an end nearest to p, within the cell size, and whether it
-// must be turned around (its end, not its start, is at p); -1 when there is none.
+// must be turned around (its end, not its start, is at p); -1 when there is none. An end exactly at p
+// is taken at once.
 func (x endIndex) nearest(p geom.Point, pieces [][]geom.Segment, used []bool) (int, bool) {
 	best, reversed, bestDist := -1, false, x.cell
 	k := x.key(p)
 	for dx := int64(-1); dx <= 1; dx++ {
 		for dy := int64(-1); dy <= 1; dy++ {
-			for _, i := range x.m[[2]int64{k[0] + dx, k[1] + dy}] {
+			c := x.m[[2]int64{k[0] + dx, k[1] + dy}]
+			if c == nil {
+				continue
+			}
+			for c.head < len(c.ids) && used[c.ids[c.head]] {
+				c.head++
+			}
+			for _, i := range c.ids[c.head:min(len(c.ids), c.head+maxCandidates)] {
 				if used[i] {
 					continue
 				}
@@ -217,6 +264,9 @@ func (x endIndex) nearest(p geom.Point, pieces [][]geom.Segment, used []bool) (i
 				if d := end(pieces[i]).Dist(p); d < bestDist {
 					best, reversed, bestDist = i, true, d
 				}
+			}
+			if bestDist == 0 {
+				return best, reversed
 			}
 		}
 	}

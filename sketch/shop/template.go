@@ -1,6 +1,7 @@
 package shop
 
 import (
+	"cmp"
 	"fmt"
 	"io"
 	"math"
@@ -30,6 +31,50 @@ const (
 type TemplateOptions struct {
 	Paper   Paper   // the sheet; the zero Paper is A4
 	Overlap float64 // mm shared by neighbouring pages; 0 means DefaultOverlap
+	// MaxPages is the most pages the template may take; a part that needs more is refused with a
+	// *PageLimitError before any page is drawn. 0 means DefaultMaxPages.
+	MaxPages int
+}
+
+// DefaultMaxPages is the page limit of a template unless asked otherwise: a 3 × 2 m sign on A4 takes
+// about 150 pages, and a part drawn in metres but meant in millimetres would ask for millions.
+const DefaultMaxPages = 200
+
+// PageLimitError reports a template that would need more pages than TemplateOptions.MaxPages.
+type PageLimitError struct {
+	Pages float64 // the pages the template would take
+	Max   int
+}
+
+func (e *PageLimitError) Error() string {
+	n := fmt.Sprintf("%.0f", e.Pages)
+	if e.Pages >= 1e6 {
+		n = fmt.Sprintf("%.3g", e.Pages)
+	}
+	return fmt.Sprintf("the template would take %s pages, more than the limit of %d (check the part's length unit)", n, e.Max)
+}
+
+// pageCount returns the pages Plan lays extent over on paper, upright or turned, counted without
+// laying them out (and without overflowing for a huge extent).
+func pageCount(extent geom.Rect, paper Paper, overlap float64) float64 {
+	count := func(p Paper) float64 {
+		ww, wh := windowSize(p)
+		size := extent.Size()
+		n := tiles(size.X, ww, overlap) * tiles(size.Y, wh, overlap)
+		if n > 1 {
+			n++ // the cover with the map of the pages
+		}
+		return n
+	}
+	return math.Min(count(paper), count(paper.landscape()))
+}
+
+// tiles is tileCount in floating point.
+func tiles(size, win, overlap float64) float64 {
+	if size <= win {
+		return 1
+	}
+	return math.Ceil((size - overlap) / (win - overlap))
 }
 
 // Layout places a template on pages: a grid of Cols × Rows tiles, each showing one window of the drawing.
@@ -146,10 +191,7 @@ func gridStart(lo, hi float64, n int, step, overlap float64, keep [][2]float64) 
 
 // tileCount is the number of windows of size win, overlapping by overlap, needed to cover size.
 func tileCount(size, win, overlap float64) int {
-	if size <= win {
-		return 1
-	}
-	return int(math.Ceil((size - overlap) / (win - overlap)))
+	return int(tiles(size, win, overlap))
 }
 
 // Template writes a full-size drilling template of the part as PDF: the part at exactly 1:1 with its
@@ -177,6 +219,10 @@ func Template(w io.Writer, p Part, opt TemplateOptions) error {
 		return fmt.Errorf("overlap %g mm: must be between 0 and %g mm on %s", overlap, math.Min(ww, wh)/2, paper.Name)
 	}
 	d := newDrawing(p, f)
+	maxPages := cmp.Or(opt.MaxPages, DefaultMaxPages)
+	if n := pageCount(d.extent(), paper, overlap); !(n <= float64(maxPages)) {
+		return &PageLimitError{Pages: n, Max: maxPages}
+	}
 	lay := d.layout(paper, overlap)
 	s := newSheet(lay.Paper, f.name+" — drilling template")
 	if lay.Cover {

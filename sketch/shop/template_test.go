@@ -2,6 +2,7 @@ package shop
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"html"
 	"math"
@@ -361,9 +362,28 @@ func TestTemplateWithoutHole(t *testing.T) {
 	}
 }
 
+// TestTemplatePageLimit checks that a template over its page limit is refused before any page is
+// drawn, with the count, and that the limit can be raised.
+func TestTemplatePageLimit(t *testing.T) {
+	p := hungPart(t, bladeSign(), geom.Pt(300, 330), 10) // 9 pages on A4
+	var buf bytes.Buffer
+	err := Template(&buf, p, TemplateOptions{MaxPages: 8})
+	var pl *PageLimitError
+	if !errors.As(err, &pl) || pl.Pages != 9 || pl.Max != 8 || buf.Len() > 0 {
+		t.Fatalf("error %v, %d bytes written; want a page limit of 8 for 9 pages and nothing written", err, buf.Len())
+	}
+	if err := Template(&buf, p, TemplateOptions{MaxPages: 9}); err != nil {
+		t.Errorf("at the limit: %v", err)
+	}
+	// The same sign drawn in metres would take millions of pages: counted, not laid out.
+	if got := pageCount(geom.Rect{Max: geom.Pt(600e3, 400e3)}, Paper{W: 210, H: 297}, DefaultOverlap); got < 1e6 {
+		t.Errorf("%g pages for 600 × 400 m on A4", got)
+	}
+}
+
 func TestTemplateBadOverlap(t *testing.T) {
 	p := hungPart(t, bracket(), geom.Pt(60, 70), 8)
-	for _, ov := range []float64{-1, 100} {
+	for _, ov := range []float64{-1, 100, math.NaN()} {
 		if err := Template(&bytes.Buffer{}, p, TemplateOptions{Overlap: ov}); err == nil || !strings.Contains(err.Error(), "overlap") {
 			t.Errorf("overlap %g: error %v", ov, err)
 		}

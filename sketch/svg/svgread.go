@@ -115,12 +115,15 @@ func Read(data []byte, opt Options) (*sketch.Document, []string, error) {
 	}
 	r := &svgReader{ids: map[string]*element{}}
 	r.collect(root)
+	r.style = newStyleIndex(r.rules)
 	base, vp, err := r.rootTransform(root)
 	if err != nil {
 		return nil, nil, err
 	}
 	ctx := inherited{ctm: base, vp: vp}
-	ctx.paint, _ = r.paint(root, paint{fill: true})
+	if ctx.paint, _, err = r.paint(root, paint{fill: true}); err != nil {
+		return nil, nil, err
+	}
 	if err := r.children(root, ctx, 0); err != nil {
 		return nil, nil, err
 	}
@@ -169,6 +172,20 @@ type element struct {
 	kids  []*element
 	index int    // position in document order, from 1
 	text  string // character data, kept for style and title elements
+
+	classes []string // the distinct names of the class attribute, sorted, once classList has split it
+	split   bool
+}
+
+// classList returns the distinct class names of e, sorted, split from its class attribute on first use.
+func (e *element) classList() []string {
+	if !e.split {
+		e.classes = strings.Fields(e.attrs["class"])
+		slices.Sort(e.classes)
+		e.classes = slices.Compact(e.classes)
+		e.split = true
+	}
+	return e.classes
 }
 
 // String names e for messages: its name, its id and its position, as in "path#bracket (element 4)".
@@ -193,6 +210,7 @@ func parseXML(data []byte) (*element, error) {
 	var stack []*element
 	var root *element
 	count := 0
+	texts := map[*element]*strings.Builder{} // the text of style and title elements, gathered in one pass
 	for {
 		tok, err := dec.Token()
 		if errors.Is(err, io.EOF) {
@@ -222,10 +240,18 @@ func parseXML(data []byte) (*element, error) {
 			}
 			stack = append(stack, e)
 		case xml.EndElement:
+			if b, ok := texts[stack[len(stack)-1]]; ok {
+				stack[len(stack)-1].text = b.String()
+			}
 			stack = stack[:len(stack)-1]
 		case xml.CharData:
 			if top := len(stack) - 1; top >= 0 && (stack[top].name == "style" || stack[top].name == "title") {
-				stack[top].text += string(t)
+				b, ok := texts[stack[top]]
+				if !ok {
+					b = &strings.Builder{}
+					texts[stack[top]] = b
+				}
+				b.Write(t)
 			}
 		}
 	}
@@ -300,6 +326,7 @@ type svgReader struct {
 	rules    []cssRule
 	shapes   []shape
 	warnings []string
+	style    *styleIndex
 	visits   int // elements read, repeats through use references included
 	repeats  int // of those, the ones read through a use reference
 }
@@ -482,9 +509,9 @@ func (r *svgReader) visit(e *element, ctx inherited, uses int) error {
 		return &Error{Element: e.String(), Msg: fmt.Sprintf("the drawing expands to more than %d elements "+
 			"through use references", maxSVGVisits)}
 	}
-	p, shown := r.paint(e, ctx.paint)
-	if !shown {
-		return nil
+	p, shown, err := r.paint(e, ctx.paint)
+	if err != nil || !shown {
+		return err
 	}
 	if e.attrs["data-plumb"] == "marks" {
 		r.warn("%s: Plumb's own marks (doublers, holes, balance point, labels) are not read back", e)
@@ -833,12 +860,41 @@ func (r *svgReader) filled(tol float64) (geom.Region, int, error) {
 	case 1:
 		return regions[0], 1, nil
 	}
-	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, regions...)
+	union := geom.Combine(func(in []bool) bool { return slices.Contains(in, true) }, mergeSimple(regions)...)
 	loops, err := contour.Boundary(union.Pieces, tol)
 	if err != nil {
 		return geom.Region{}, 0, &Error{Msg: "the union of the filled shapes does not close into loops"}
 	}
 	return geom.Region{Loops: loops}, len(regions), nil
+}
+
+// mergeSimple returns regions with every region of one loop that does not cross itself merged into
+// one nonzero region, each such loop turned counter-clockwise and repeats left out
+// (sketch.WithoutRepeats): the union of the regions is unchanged, since such a loop's winding number
+// is 0 or 1, and Combine then weighs a point against a few regions rather than thousands.
+func mergeSimple(regions []geom.Region) []geom.Region {
+	merged := geom.Region{Rule: geom.NonZero}
+	var rest []geom.Region
+	for _, reg := range regions {
+		if len(reg.Loops) != 1 {
+			rest = append(rest, reg)
+			continue
+		}
+		if w, err := reg.Check(); err != nil || len(w) > 0 {
+			rest = append(rest, reg)
+			continue
+		}
+		l := reg.Loops[0]
+		if (geom.Boundary{Pieces: l}).IntegratePoly(geom.ConstPoly(1)).M < 0 {
+			l = l.Reverse()
+		}
+		merged.Loops = append(merged.Loops, l)
+	}
+	if len(merged.Loops) == 0 {
+		return rest
+	}
+	merged, _ = sketch.WithoutRepeats(merged)
+	return append(rest, merged)
 }
 
 // fillable reports whether a loop can enclose area: not a single segment and its way back.
@@ -891,17 +947,20 @@ func loopError(e *element, err error) error {
 
 // paint computes e's paint properties from its parent's p: presentation attributes, then matching
 // style sheet rules, then the style attribute, each overriding the one before (CSS cascade as SVG 2,
-// section 6.4 describes it). shown is false for display: none.
-func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
+// section 6.4 describes it). shown is false for display: none. A style sheet too costly to apply is
+// an error.
+func (r *svgReader) paint(e *element, p paint) (out paint, shown bool, err error) {
 	props := map[string]string{}
 	for _, name := range paintProperties {
 		if v, ok := e.attrs[name]; ok {
 			props[name] = v
 		}
 	}
-	for _, rule := range r.matching(e) {
-		maps.Copy(props, rule.decls)
+	sheet, err := r.style.cascade(e)
+	if err != nil {
+		return p, false, err
 	}
+	maps.Copy(props, sheet)
 	maps.Copy(props, parseDeclarations(e.attrs["style"]))
 	for name, v := range props {
 		v = strings.ToLower(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(v), "!important")))
@@ -917,10 +976,10 @@ func (r *svgReader) paint(e *element, p paint) (out paint, shown bool) {
 		case name == "visibility":
 			p.hidden = v == "hidden" || v == "collapse"
 		case name == "display" && v == "none":
-			return p, false
+			return p, false, nil
 		}
 	}
-	return p, true
+	return p, true, nil
 }
 
 // whites are the usual ways of writing a white fill.

@@ -2,6 +2,7 @@ package svg
 
 import (
 	"cmp"
+	"fmt"
 	"regexp"
 	"slices"
 	"strings"
@@ -60,9 +61,9 @@ func (s selector) matches(e *element) bool {
 			return false
 		}
 	}
-	classes := strings.Fields(e.attrs["class"])
+	classes := e.classList()
 	for _, c := range s.classes {
-		if !slices.Contains(classes, c) {
+		if _, found := slices.BinarySearch(classes, c); !found {
 			return false
 		}
 	}
@@ -139,16 +140,125 @@ func parseDeclarations(s string) map[string]string {
 	return decls
 }
 
-// matching returns the style sheet rules that apply to e, weakest first.
-func (r *svgReader) matching(e *element) []cssRule {
-	var out []cssRule
-	for _, rule := range r.rules {
-		if rule.sel.matches(e) {
-			out = append(out, rule)
+// maxStyleTests bounds the tests of a style sheet rule against an element in one drawing. The index
+// (styleIndex) offers each element only the rules that name its id, one of its classes or its element
+// name, so real drawings make a few per element; a sheet built to match everything everywhere is
+// refused once it passes this, a second or so of work.
+const maxStyleTests = 1 << 24
+
+// styleIndex holds a drawing's style sheet rules merged by selector and indexed by what they name,
+// so that an element is tested against the few rules that can match it rather than against every rule.
+type styleIndex struct {
+	universal []*indexedRule            // * and no ids or classes
+	byTag     map[string][]*indexedRule // an element name and no ids or classes
+	byID      map[string][]*indexedRule // by the selector's first id
+	byClass   map[string][]*indexedRule // by the selector's class that the fewest selectors name
+	tests     int                       // rule tests made so far
+}
+
+// indexedRule is every rule with one selector, merged: for each paint property, the value of its last
+// declaration and that declaration's place in the sheets.
+type indexedRule struct {
+	sel   selector
+	spec  int
+	decls map[string]declared
+}
+
+type declared struct {
+	value string
+	order int
+}
+
+// newStyleIndex merges the rules (in source order) by selector, keeps only the paint properties, and
+// indexes them.
+func newStyleIndex(rules []cssRule) *styleIndex {
+	x := &styleIndex{byTag: map[string][]*indexedRule{}, byID: map[string][]*indexedRule{}, byClass: map[string][]*indexedRule{}}
+	merged := map[string]*indexedRule{}
+	var order []*indexedRule
+	for _, rule := range rules {
+		key := rule.sel.key()
+		m, ok := merged[key]
+		if !ok {
+			m = &indexedRule{sel: rule.sel, spec: rule.sel.specificity(), decls: map[string]declared{}}
+			merged[key] = m
+			order = append(order, m)
+		}
+		for name, v := range rule.decls {
+			if slices.Contains(paintProperties, name) {
+				m.decls[name] = declared{v, rule.order}
+			}
 		}
 	}
-	slices.SortFunc(out, func(a, b cssRule) int {
-		return cmp.Or(cmp.Compare(a.sel.specificity(), b.sel.specificity()), cmp.Compare(a.order, b.order))
-	})
-	return out
+	named := map[string]int{} // how many selectors name each class
+	for _, m := range order {
+		for _, c := range m.sel.classes {
+			named[c]++
+		}
+	}
+	for _, m := range order {
+		switch sel := m.sel; {
+		case len(m.decls) == 0:
+		case len(sel.ids) > 0:
+			x.byID[sel.ids[0]] = append(x.byID[sel.ids[0]], m)
+		case len(sel.classes) > 0:
+			rarest := slices.MinFunc(sel.classes, func(a, b string) int { return cmp.Compare(named[a], named[b]) })
+			x.byClass[rarest] = append(x.byClass[rarest], m)
+		case sel.tag != "" && sel.tag != "*":
+			x.byTag[sel.tag] = append(x.byTag[sel.tag], m)
+		default:
+			x.universal = append(x.universal, m)
+		}
+	}
+	return x
+}
+
+// key names the selector up to the order of its ids and classes.
+func (s selector) key() string {
+	ids, classes := slices.Sorted(slices.Values(s.ids)), slices.Sorted(slices.Values(s.classes))
+	tag := s.tag
+	if tag == "*" {
+		tag = ""
+	}
+	return tag + "#" + strings.Join(ids, "#") + "." + strings.Join(classes, ".")
+}
+
+// cascade returns the paint properties the style sheets give e: for each, the declaration of the
+// matching rule with the highest specificity, the last in source order among equals (Selectors
+// Level 3, section 9; CSS Cascading, "cascade sorting order"). It reports a sheet that has taken
+// more than maxStyleTests rule tests.
+func (x *styleIndex) cascade(e *element) (map[string]string, error) {
+	type winner struct {
+		declared
+		spec int
+	}
+	best := map[string]winner{}
+	consider := func(rules []*indexedRule) {
+		x.tests += len(rules)
+		for _, m := range rules {
+			if !m.sel.matches(e) {
+				continue
+			}
+			for name, d := range m.decls {
+				if w, ok := best[name]; !ok || m.spec > w.spec || m.spec == w.spec && d.order > w.order {
+					best[name] = winner{d, m.spec}
+				}
+			}
+		}
+	}
+	consider(x.universal)
+	consider(x.byTag[e.name])
+	if id := e.attrs["id"]; id != "" {
+		consider(x.byID[id])
+	}
+	for _, c := range e.classList() {
+		consider(x.byClass[c])
+	}
+	if x.tests > maxStyleTests {
+		return nil, &Error{Element: e.String(), Msg: fmt.Sprintf("the style sheet takes more than %d rule tests to apply; simplify it", maxStyleTests)}
+	}
+	out := make(map[string]string, len(best))
+	for name, w := range best {
+		out[name] = w.value
+	}
+	return out, nil
 }

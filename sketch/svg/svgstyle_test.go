@@ -1,7 +1,9 @@
 package svg
 
 import (
+	"fmt"
 	"reflect"
+	"strings"
 	"testing"
 )
 
@@ -55,16 +57,55 @@ func TestParseStyleSheet(t *testing.T) {
 	}
 }
 
-func TestMatchingOrder(t *testing.T) {
-	r := &svgReader{}
-	r.rules = parseStyleSheet(`#p { fill: red } .a { fill: green } path { fill: blue } .a { fill: black }`, 0, r)
-	e := &element{name: "path", attrs: map[string]string{"id": "p", "class": "b a"}}
-	var fills []string
-	for _, rule := range r.matching(e) {
-		fills = append(fills, rule.decls["fill"])
+func TestCascade(t *testing.T) {
+	tests := []struct {
+		name, css string
+		attrs     map[string]string
+		want      map[string]string
+	}{
+		// Weakest first: the element name, then the classes in source order, then the id.
+		{"id over classes over name", `#p { fill: red } .a { fill: green } path { fill: blue } .a { fill: black }`,
+			map[string]string{"id": "p", "class": "b a"}, map[string]string{"fill": "red"}},
+		{"last class rule wins", `.a { fill: green } path { fill: blue } .b { fill: black }`,
+			map[string]string{"class": "b a"}, map[string]string{"fill": "black"}},
+		// Two rules with one selector merge per property: .a's stroke is later than .b's, its fill is not.
+		{"merged rules keep each declaration's place", `.a { fill: red } .b { fill: blue; stroke: none } .a { stroke: #000 }`,
+			map[string]string{"class": "a b"}, map[string]string{"fill": "blue", "stroke": "#000"}},
+		{"compound selector indexed by its rarest class", `.a.c1 { fill: red } .a.c2 { fill: blue } .a { stroke: none }`,
+			map[string]string{"class": "c2 a"}, map[string]string{"fill": "blue", "stroke": "none"}},
+		{"universal and tag", `* { fill: red } path { stroke: none } rect { fill: blue }`,
+			map[string]string{}, map[string]string{"fill": "red", "stroke": "none"}},
+		{"other properties are dropped", `path { color: red; fill-rule: evenodd }`,
+			map[string]string{}, map[string]string{"fill-rule": "evenodd"}},
+		{"no match", `.z { fill: red } #q { fill: blue } rect { fill: green }`, map[string]string{"id": "p"}, map[string]string{}},
 	}
-	// Weakest first: the element name, then the classes in source order, then the id.
-	if want := []string{"blue", "green", "black", "red"}; !reflect.DeepEqual(fills, want) {
-		t.Errorf("matching order %v, want %v", fills, want)
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			r := &svgReader{}
+			x := newStyleIndex(parseStyleSheet(tt.css, 0, r))
+			got, err := x.cascade(&element{name: "path", attrs: tt.attrs})
+			if err != nil || !reflect.DeepEqual(got, tt.want) {
+				t.Errorf("cascade = %v, %v; want %v", got, err, tt.want)
+			}
+		})
+	}
+}
+
+// TestStyleSheetWorkLimit reads a sheet whose rules all name the one id that every element has: the
+// index cannot narrow them, so the reader stops at its budget of rule tests with a message.
+func TestStyleSheetWorkLimit(t *testing.T) {
+	var b strings.Builder
+	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm"><style>`)
+	for i := range 20000 {
+		fmt.Fprintf(&b, "#a.c%d{fill:red}", i)
+	}
+	b.WriteString("</style>")
+	for range 1000 {
+		b.WriteString(`<rect id="a" width="1" height="1"/>`)
+	}
+	b.WriteString("</svg>")
+	_, _, err := Read([]byte(b.String()), Options{})
+	if err == nil || !strings.Contains(err.Error(), "the style sheet takes more than 16777216 rule tests to apply; simplify it") {
+		t.Errorf("error %v", err)
 	}
 }
