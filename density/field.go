@@ -123,9 +123,12 @@ func (s Spec) materialField(doc Length) (*Field, error) {
 	if q.gauge != nil {
 		thickness = q.gauge.String()
 	}
-	if g := q.gauge; g != nil && g.LbFt2 > 0 && mat.GaugeWeight {
+	switch g := q.gauge; {
+	case g != nil && g.LbFt2 > 0 && mat.GaugeWeight:
 		perUnit = g.KgM2() / v // the gauge's defining weight, spread over its thickness
 		thickness += fmt.Sprintf(", %s lb/ft² by the gauge's weight basis", formatValue(g.LbFt2))
+	case g != nil && g.LbFt2 > 0:
+		thickness += ", the steel gauge's thickness" // a weight-based table used for its thickness only
 	}
 	f := newField(q.prog, perUnit*perDocUnit2(doc), "thickness", q.unit.Name, doc)
 	switch {

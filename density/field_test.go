@@ -37,7 +37,7 @@ func TestFieldConstant(t *testing.T) {
 		// Stainless steel uses the steel gauge's thickness with its own density:
 		// 0.0598 in = 1.51892 mm × 7930 kg/m³.
 		{"stainless gauge", Spec{Material: "304", Thickness: "16 ga"}, docMM, 1.51892 * 7.93, 1.51892,
-			"stainless steel 304, 16 ga (1.52 mm, 0.0598 in): 12.05 kg/m²"},
+			"stainless steel 304, 16 ga (1.52 mm, 0.0598 in), the steel gauge's thickness: 12.05 kg/m²"},
 		// A thickness in mm is thickness × 7850 kg/m³ even for steel.
 		{"steel in mm", Spec{Material: "steel", Thickness: "1.5 mm"}, docMM, 1.5 * 7.85, 1.5,
 			"carbon steel, 1.5 mm: 11.77 kg/m²"},

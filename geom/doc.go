@@ -65,5 +65,7 @@
 // (Moments.CentroidFrom) and central second moments equal those at the origin to 1e-13 of themselves,
 // and the centroid to 2 units in the last place. Combine's coincidence tolerance still grows with the
 // distance from the origin (by 1e-13 of it: 5e-4 at 5e9), and features thinner than the reach of its
-// side probes, 64 tolerances, may be taken for hairlines there.
+// side probes, 64 tolerances, may be taken for hairlines there. Callers that do their own work in such
+// a frame take it from Boundary.Local and place the moments they sum there with Moments.At, which keeps
+// the local values (Moments.Translate would round the reference point to the far origin's magnitude).
 package geom

@@ -21,3 +21,10 @@ func (b Boundary) Local() (o Point, pieces []Segment) {
 	}
 	return o, out
 }
+
+// At returns the moments of the same body moved so that the origin of the frame m was computed in
+// lands on o: m's integrals about that origin are kept as the local values about o, and the
+// origin-based fields follow by the parallel-axis terms. Unlike Translate, which moves m's own
+// reference point and rounds it to o's magnitude, At loses nothing to a far o: a body integrated in
+// coordinates about a nearby exact point (Local) keeps its central quantities.
+func (m Moments) At(o Point) Moments { return momentsAbout(o, m.about(Point{})) }

@@ -1,6 +1,9 @@
 package geom
 
-import "testing"
+import (
+	"math"
+	"testing"
+)
 
 // TestLocal checks that the local pieces, moved back by the origin, are the boundary's own pieces,
 // for a literal boundary and for one Combine made far from the origin; there the local points of
@@ -27,6 +30,21 @@ func TestLocal(t *testing.T) {
 		}
 		if b.Pieces[0].Start().X >= 5e9 && box.Max.X+o.X-far.X != 1 {
 			t.Errorf("local box %v about %v; want the cut at x = 5e9 + 1 exactly", box, o)
+		}
+	}
+}
+
+// TestMomentsAt checks that moments computed in a local frame and placed far away keep their
+// central values: a 2 × 3 rectangle with unit density has ixx = 2·3³/12 = 4.5 and iyy = 3·2³/12 = 2
+// about its centroid (the "List of second moments of area" tables), wherever it is placed.
+func TestMomentsAt(t *testing.T) {
+	local := Boundary{Pieces: RectLoop(Pt(0.25, 0.5), Pt(2.25, 3.5))}.IntegratePoly(ConstPoly(1))
+	for _, o := range []Point{{}, {1e6, -1e6}, {5e9, 5e9}} {
+		m := local.At(o)
+		ixx, iyy, ixy := m.Central()
+		c := m.CentroidFrom(o)
+		if math.Abs(ixx-4.5) > 1e-13 || math.Abs(iyy-2) > 1e-13 || math.Abs(ixy) > 1e-13 || c.Dist(Pt(1.25, 2)) > 1e-13 {
+			t.Errorf("at %v: central %v %v %v, centroid from o %v", o, ixx, iyy, ixy, c)
 		}
 	}
 }

@@ -6,6 +6,7 @@
 package sketch
 
 import (
+	"fmt"
 	"syscall"
 	"testing"
 	"time"
@@ -129,5 +130,23 @@ func BenchmarkRecomputeLettering(b *testing.B) {
 	}{{"components/flower", flowerDocument(1000, flowerDensities[0].spec)}, {"components/cutout", bakeryPanel(letter.Bridges{})}} {
 		body := c.d.Body()
 		b.Run(c.name, func(b *testing.B) { measure(b, func() { body.Components() }) })
+	}
+}
+
+// BenchmarkRepeatedLoops analyses an outline that repeats one square 2,000 times (a drawing the
+// probe of hostile input found taking a minute and gigabytes), against its peer, the square alone.
+func BenchmarkRepeatedLoops(b *testing.B) {
+	for _, n := range []int{1, 2000} {
+		d := plate(100, 100, "8")
+		for range n - 1 {
+			d.Outline.Loops = append(d.Outline.Loops, d.Outline.Loops[0])
+		}
+		b.Run(fmt.Sprintf("%d squares", n), func(b *testing.B) {
+			measure(b, func() {
+				if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
+					b.Fatal(err)
+				}
+			})
+		})
 	}
 }

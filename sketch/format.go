@@ -63,8 +63,7 @@ import (
 // files leave them out.
 //
 // A text is one line of lettering kept as text: "text" (printable characters), "font" (one of
-// go-regular, go-medium, go-bold, go-italic, go-bold-italic, go-mono, go-mono-bold, go-smallcaps;
-// go-regular when absent),
+// go-regular, go-bold, go-italic, go-mono; go-regular when absent),
 // "height" (the height of the font's capital H, in the document unit), "at" (the left end of the
 // baseline), "angle_deg" (the baseline's direction, counter-clockwise; 0 when absent), "spacing" (extra
 // space after each letter, negative to tighten; 0 when absent) and "role": "cutout" (the default: cut
@@ -561,7 +560,30 @@ func loadLoop(n node) (geom.Loop, error) {
 	if err == nil && len(l) == 0 {
 		err = sn.fail("loop has no segments")
 	}
+	snapArcEnds(l)
 	return l, err
+}
+
+// snapArcEnds moves the ends of the loop's arcs onto the end points of the lines and Béziers they
+// meet, where the two lie within arcEndTol of the arc's reach. An arc given by its centre has ends
+// rounded by about its reach times the rounding unit (some 1e-6 for a part 5e9 away, 1e-10 for an arc
+// of radius 1e6), while the neighbours' points are the ones written down; a loop whose pieces meet
+// exactly is integrated exactly, one with such gaps is off by about gap × size.
+func snapArcEnds(l geom.Loop) {
+	for i := range l {
+		a, next := &l[i], l[(i+1)%len(l)]
+		if a.Kind != geom.KindArc {
+			continue
+		}
+		tol := arcEndTol * (a.C.Norm() + max(a.RX, a.RY))
+		prev := l[(i+len(l)-1)%len(l)]
+		if prev.Kind != geom.KindArc && prev.End().Dist(a.P[0]) <= tol {
+			a.P[0] = prev.End()
+		}
+		if next.Kind != geom.KindArc && next.Start().Dist(a.P[1]) <= tol {
+			a.P[1] = next.Start()
+		}
+	}
 }
 
 func loadSegment(n node) (geom.Segment, error) {

@@ -331,6 +331,44 @@ func TestLoadHandWritten(t *testing.T) {
 	}
 }
 
+// TestLoadSnapsArcEnds loads a 100 mm square whose right edge is an arc of radius 1.2·10⁶ given by its
+// centre (to ten decimals, as a drawing would give it), at the origin and 5·10⁹ away: the arc's ends
+// become the lines' vertices exactly, so the far copy is the same shape, with the area and central
+// moments of the near one to 1e-13. From the centre form the ends would be up to 10⁻¹⁰ (near) or 10⁻⁶
+// (far) off: gaps in the outline.
+func TestLoadSnapsArcEnds(t *testing.T) {
+	const r = 1234567.891
+	alpha := math.Asin(50 / r)
+	cx := 100 - r*math.Cos(alpha)
+	var near geom.Moments
+	for _, d := range []float64{0, 5e9} {
+		data := fmt.Sprintf(`{"format": "plumb-part", "version": 1, "outline": {"loops": [{"segments": [
+			{"line": [[%[1]v, %[1]v], [%[2]v, %[1]v]]},
+			{"arc": {"center": [%.10[3]f, %[4]v], "radius": %[5]v, "start_rad": %.17[6]g, "sweep_rad": %.17[7]g}},
+			{"line": [[%[2]v, %[2]v], [%[1]v, %[2]v]]},
+			{"line": [[%[1]v, %[2]v], [%[1]v, %[1]v]]}
+		]}]}}`, d, d+100, d+cx, d+50, r, -alpha, 2*alpha)
+		doc, err := Load([]byte(data))
+		if err != nil {
+			t.Fatal(err)
+		}
+		l := doc.Outline.Loops[0]
+		if l[1].Start() != l[0].End() || l[1].End() != l[2].Start() {
+			t.Errorf("at %g: arc from %v to %v, want %v to %v", d, l[1].Start(), l[1].End(), l[0].End(), l[2].Start())
+		}
+		m := geom.Boundary{Pieces: l}.IntegratePoly(geom.ConstPoly(1))
+		if d == 0 {
+			near = m
+			continue
+		}
+		gx, gy, _ := m.Central()
+		wx, wy, _ := near.Central()
+		if math.Abs(m.M-near.M) > 1e-13*near.M || math.Abs(gx-wx) > 1e-13*wx || math.Abs(gy-wy) > 1e-13*wy {
+			t.Errorf("at %g: area %v, central %v %v; at the origin %v, %v %v", d, m.M, gx, gy, near.M, wx, wy)
+		}
+	}
+}
+
 // TestLoadTestdata loads every part file in the repository's testdata directory.
 func TestLoadTestdata(t *testing.T) {
 	files, err := filepath.Glob("../testdata/*.json")

@@ -77,13 +77,14 @@ const focusTries = 2
 // the part (moved by −o). When the mass falls outside the interval check's guaranteed bounds, the
 // cubature has missed a narrow feature (a spike): the material is cut again, into the square around
 // the check's hot boxes (three times their extent) and the rest, so that the square's edges bring
-// the cubature's nodes to the feature, up to focusTries times. It returns the cells integrated last.
+// the cubature's nodes to the feature, up to focusTries times, unless the cubature stopped at its
+// work limit (its result then says so). It returns the cells integrated last.
 func integrateAround(m materialPart, cells []densityCell, f *density.Field, check checkResult, o geom.Point, opt AnalyzeOptions) (geom.Result, []densityCell, error) {
 	parts := []materialPart{m}
 	hot := geom.Rect{Min: check.hot.Min.Sub(o), Max: check.hot.Max.Sub(o)}
 	for try := 0; ; try++ {
 		r, err := integrateCells(cells, f, o, opt)
-		if err != nil || try == focusTries || check.encloses(r.M) || check.hot.IsEmpty() {
+		if err != nil || r.LimitHit || try == focusTries || check.encloses(r.M) || check.hot.IsEmpty() {
 			return r, cells, err
 		}
 		parts, cells = focus(parts, hot), nil
@@ -128,7 +129,8 @@ const minCellEvals = 1 << 14
 
 // integrateCells integrates each cell's density, the cells given about the point o: exactly where
 // the density is a polynomial, by cubature elsewhere. The cells share the work limit
-// opt.MaxEvals (each gets at least minCellEvals). The result is moved back by o. The error
+// opt.MaxEvals (each gets at least minCellEvals). The moments are summed in the cells' frame and
+// placed at o at the end (Moments.At), so that a far o costs no digits. The error
 // estimates add, each relative to its cell's mass. A point where the density fails is reported
 // with f's domain error, in document coordinates.
 func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt AnalyzeOptions) (r geom.Result, err error) {
@@ -140,7 +142,7 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 	for _, c := range cells {
 		g := c.r.Field
 		if p, ok := g.PolynomialAbout(o.X, o.Y); ok {
-			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)).Translate(o))
+			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)))
 			continue
 		}
 		sf := &shiftedField{f: g, o: o}
@@ -158,7 +160,7 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 				return r, f.DomainError(o.X+p.X, o.Y+p.Y, sf.value(p))
 			}
 		}
-		r.Moments = r.Moments.Add(q.Moments.Translate(o))
+		r.Moments = r.Moments.Add(q.Moments)
 		absErr += q.RelErr * math.Abs(q.M)
 		r.LimitHit = r.LimitHit || q.LimitHit
 		r.Evals += q.Evals
@@ -166,6 +168,7 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 	if r.M != 0 {
 		r.RelErr = absErr / math.Abs(r.M)
 	}
+	r.Moments = r.Moments.At(o)
 	return r, nil
 }
 

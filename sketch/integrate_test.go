@@ -39,7 +39,7 @@ func TestAnalyzeKinkedDensities(t *testing.T) {
 			4.901266666666666, 172.83921163236715, 111.3385655408806, 13470.678117674795, 28434.51508804708, 261.99887888391663},
 	}
 	for _, tt := range tests {
-		for _, o := range []float64{0, 1e6} {
+		for _, o := range []float64{0, 1e6, 5e9} {
 			d := rectFormula(o, o, o+300, o+200, tt.formula)
 			d.Material.Params = map[string]float64{}
 			if o != 0 { // the same density written about the far corner
@@ -170,5 +170,31 @@ func TestAnalyzeNegativeOutsidePart(t *testing.T) {
 	}
 	if _, err := Analyze(rectFormula(-100, -100, 100, 100, d.Material.Formula), AnalyzeOptions{}); err == nil || !strings.Contains(err.Error(), "density is −") {
 		t.Errorf("box: error %v, want the negative density named", err)
+	}
+}
+
+// TestAnalyzeKinkedFarFromOrigin checks that a disk with a square cut-out and a density with kinks
+// and steps, all written about a far point o, gives at o = 1e6 and 5e9 the mass and central moments
+// it gives at o = 0 (translation invariance of the moments about the centroid).
+func TestAnalyzeKinkedFarFromOrigin(t *testing.T) {
+	analyze := func(o float64) *Analysis {
+		d := NewDocument()
+		d.Outline = diskRegion(geom.Pt(o+3, o+7), 50)
+		d.Cutouts = []geom.Region{rectRegion(o-10, o-10, o+20, o+20)}
+		d.Material = density.Spec{Formula: "1 + abs(x-o-3)/50 + floor((y-o)/7)/10 + blend(-20, 20, x-o)", Unit: "kg/m2",
+			Params: map[string]float64{"o": o}}
+		return mustAnalyze(t, d)
+	}
+	want := analyze(0)
+	scale := want.Ixx + want.Iyy
+	for _, o := range []float64{1e6, 5e9} {
+		got := analyze(o)
+		checkNear(t, "mass", got.Mass, want.Mass, 1e-13, 0)
+		checkNear(t, "ixx", got.Ixx, want.Ixx, 1e-13, scale)
+		checkNear(t, "iyy", got.Iyy, want.Iyy, 1e-13, scale)
+		checkNear(t, "ixy", got.Ixy, want.Ixy, 1e-13, scale)
+		if got.RelErr != 0 || len(got.Warnings) != 0 {
+			t.Errorf("at %g: error estimate %g, warnings %q", o, got.RelErr, got.Warnings)
+		}
 	}
 }

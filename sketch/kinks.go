@@ -40,7 +40,6 @@ func splitAtKinks(m materialPart, f *density.Field, o geom.Point) (cells []densi
 	pad := box.Size().Mul(0.1).Add(geom.Pt(1, 1))
 	lo, hi := box.Min.Sub(pad), box.Max.Add(pad)
 	queue := []pending{{within: []geom.Point{lo, geom.Pt(hi.X, lo.Y), hi, geom.Pt(lo.X, hi.Y)}, body: m.body}}
-	keep := keepWithin(m.keep, len(m.regions))
 	complete = true
 	for len(queue) > 0 {
 		p := queue[0]
@@ -51,22 +50,15 @@ func splitAtKinks(m materialPart, f *density.Field, o geom.Point) (cells []densi
 			cells = append(cells, densityCell{body: p.body, r: r})
 			continue
 		}
-		// Cut the cell itself when its pieces chain into loops (few pieces each time), else the
-		// material within the cell's convex polygon.
-		loops, chained := chainLoops(p.body.Pieces, 1e-9*math.Max(box.Size().X, box.Size().Y))
+		// Cut the cell itself, its pieces chained into loops: few pieces each time.
+		cell := geom.Region{Loops: p.body.Loops()}
 		for _, side := range [2]float64{1, -1} {
 			within := clipConvex(p.within, r.Cut, side)
 			if len(within) < 3 {
 				continue
 			}
 			region := geom.Region{Loops: []geom.Loop{geom.Polygon(within...)}}
-			var b geom.Boundary
-			if chained {
-				b = geom.Combine(bothIn, geom.Region{Loops: loops}, region)
-			} else {
-				b = geom.Combine(keep, append(slices.Clone(m.regions), region)...)
-			}
-			if !b.IsEmpty() {
+			if b := geom.Combine(bothIn, cell, region); !b.IsEmpty() {
 				queue = append(queue, pending{within: within, body: b})
 			}
 		}
@@ -76,49 +68,6 @@ func splitAtKinks(m materialPart, f *density.Field, o geom.Point) (cells []densi
 
 // bothIn keeps what lies in both of two regions.
 func bothIn(in []bool) bool { return in[0] && in[1] }
-
-// chainLoops orders boundary pieces into closed loops, each piece followed by one that starts
-// within tol of its end; ok is false when some piece has no such follower or a loop does not close.
-func chainLoops(pieces []geom.Segment, tol float64) (loops []geom.Loop, ok bool) {
-	used := make([]bool, len(pieces))
-	byX := make([]int, len(pieces))
-	for i := range byX {
-		byX[i] = i
-	}
-	slices.SortFunc(byX, func(a, b int) int { return cmpFloat(pieces[a].Start().X, pieces[b].Start().X) })
-	next := func(p geom.Point) int {
-		k, _ := slices.BinarySearchFunc(byX, p.X-tol, func(i int, x float64) int { return cmpFloat(pieces[i].Start().X, x) })
-		for ; k < len(byX) && pieces[byX[k]].Start().X <= p.X+tol; k++ {
-			if i := byX[k]; !used[i] && pieces[i].Start().Dist(p) <= tol {
-				return i
-			}
-		}
-		return -1
-	}
-	for first := range pieces {
-		if used[first] {
-			continue
-		}
-		loop := geom.Loop{pieces[first]}
-		used[first] = true
-		for pieces[first].Start().Dist(loop[len(loop)-1].End()) > tol {
-			i := next(loop[len(loop)-1].End())
-			if i < 0 {
-				return nil, false
-			}
-			used[i] = true
-			loop = append(loop, pieces[i])
-		}
-		loops = append(loops, loop)
-	}
-	return loops, true
-}
-
-// keepWithin returns the rule that keeps what keep keeps of the first n regions and lies in the
-// region after them.
-func keepWithin(keep func([]bool) bool, n int) func([]bool) bool {
-	return func(in []bool) bool { return in[n] && keep(in[:n]) }
-}
 
 // clipConvex returns the part of the convex polygon pts where side·(A·x + B·y + C) ≥ 0: its corners
 // on that side and the points where the line crosses its edges (Sutherland–Hodgman clipping by one

@@ -49,6 +49,9 @@ func (d *Document) withoutRepeats() (*Document, []string) {
 //
 // Loops are compared by their multisets of oriented segments, which fix their winding numbers.
 func WithoutRepeats(r geom.Region) (geom.Region, int) {
+	if len(r.Loops) == 1 || !mayRepeat(r.Loops) {
+		return withoutSpursOnly(r)
+	}
 	dropped := 0
 	type group struct {
 		loop  geom.Loop
@@ -96,6 +99,69 @@ func WithoutRepeats(r geom.Region) (geom.Region, int) {
 	return out, dropped + loops - len(out.Loops)
 }
 
+// withoutSpursOnly removes the spurs of r's loops (withoutSpurs), for a region none of whose loops
+// repeats another.
+func withoutSpursOnly(r geom.Region) (geom.Region, int) {
+	out, dropped := r, 0
+	for i, l := range r.Loops {
+		trimmed := withoutSpurs(l)
+		if len(trimmed) == len(l) {
+			continue
+		}
+		if dropped == 0 {
+			out.Loops = slices.Clone(r.Loops)
+		}
+		out.Loops[i], dropped = trimmed, dropped+len(l)-len(trimmed)
+	}
+	if dropped > 0 {
+		out.Loops = slices.DeleteFunc(out.Loops, func(l geom.Loop) bool { return len(l) == 0 })
+	}
+	return out, dropped
+}
+
+// mayRepeat reports whether two loops might hold the same oriented segments, in the same or the
+// opposite direction, by a hash of each loop's multiset of segments (a sum, so the order does not
+// matter); only loops whose hashes agree need the exact comparison.
+func mayRepeat(loops []geom.Loop) bool {
+	seen := make(map[uint64]bool, 2*len(loops))
+	for _, l := range loops {
+		var fwd, rev uint64
+		for _, s := range l {
+			fwd += segmentHash(s)
+			rev += segmentHash(reversed(s))
+		}
+		if seen[fwd] || seen[rev] {
+			return true
+		}
+		seen[fwd] = true
+	}
+	return false
+}
+
+// segmentHash mixes the values segmentKey encodes into 64 bits (the finalizer of MurmurHash3).
+func segmentHash(s geom.Segment) uint64 {
+	h := uint64(s.Kind) + 0x9e3779b97f4a7c15
+	mix := func(v float64) {
+		h ^= math.Float64bits(v)
+		h ^= h >> 33
+		h *= 0xff51afd7ed558ccd
+		h ^= h >> 33
+		h *= 0xc4ceb9fe1a85ec53
+		h ^= h >> 33
+	}
+	if s.Kind == geom.KindArc {
+		for _, v := range [...]float64{s.C.X, s.C.Y, s.RX, s.RY, s.Rot, s.P[0].X, s.P[0].Y, s.P[1].X, s.P[1].Y, s.Sweep} {
+			mix(v)
+		}
+		return h
+	}
+	for k := 0; k <= s.Degree(); k++ {
+		mix(s.P[k].X)
+		mix(s.P[k].Y)
+	}
+	return h
+}
+
 func abs(n int) int {
 	if n < 0 {
 		return -n
@@ -123,6 +189,9 @@ func sameTurnNoCrossing(loops []geom.Loop) bool {
 // withoutSpurs removes every segment that is followed at once by its own reverse, around the loop
 // (the last segment is followed by the first), until none is: what is left is still a closed loop.
 func withoutSpurs(l geom.Loop) geom.Loop {
+	if !hasSpur(l) {
+		return l
+	}
 	var kept geom.Loop
 	for _, s := range l {
 		if n := len(kept); n > 0 && isReverse(kept[n-1], s) {
@@ -138,6 +207,16 @@ func withoutSpurs(l geom.Loop) geom.Loop {
 		return l
 	}
 	return kept
+}
+
+// hasSpur reports whether some segment of l is followed at once by its own reverse.
+func hasSpur(l geom.Loop) bool {
+	for i, s := range l {
+		if isReverse(s, l[(i+1)%len(l)]) {
+			return true
+		}
+	}
+	return false
 }
 
 // isReverse reports whether b is exactly a traversed backwards.

@@ -64,3 +64,47 @@ func TestAnalyzeIgnoresRepeats(t *testing.T) {
 		t.Errorf("warnings %q", got.Warnings)
 	}
 }
+
+// FuzzWithoutRepeats builds a region from up to eight rectangles on a small grid, each maybe
+// reversed, repeated or retraced, under either fill rule, and checks that WithoutRepeats keeps exactly
+// the points it holds, at the centres and corners of the grid's cells.
+func FuzzWithoutRepeats(f *testing.F) {
+	f.Add([]byte{0, 0, 3, 3, 0, 0, 0, 3, 3, 0}, false)
+	f.Add([]byte{0, 0, 3, 3, 1, 1, 1, 2, 2, 2, 0, 0, 3, 3, 0}, false)
+	f.Add([]byte{1, 1, 4, 4, 3, 1, 1, 4, 4, 0}, true)
+	f.Fuzz(func(t *testing.T, spec []byte, evenOdd bool) {
+		r := geom.Region{Rule: geom.NonZero}
+		if evenOdd {
+			r.Rule = geom.EvenOdd
+		}
+		for i := 0; i+4 < len(spec) && len(r.Loops) < 8; i += 5 {
+			x0, y0, x1, y1 := float64(spec[i]%6), float64(spec[i+1]%6), float64(spec[i+2]%6), float64(spec[i+3]%6)
+			if x0 == x1 || y0 == y1 {
+				continue
+			}
+			l := geom.RectLoop(geom.Pt(min(x0, x1), min(y0, y1)), geom.Pt(max(x0, x1), max(y0, y1)))
+			switch spec[i+4] % 4 {
+			case 1:
+				l = l.Reverse()
+			case 2:
+				r.Loops = append(r.Loops, l) // a repeat
+			case 3:
+				s := geom.Line(l[0].Start(), geom.Pt(7.123, 7.377)) // off every sample point
+				l = append(geom.Loop{s, s.Reverse()}, l...)         // a spur
+			}
+			r.Loops = append(r.Loops, l)
+		}
+		if len(r.Loops) == 0 {
+			return
+		}
+		out, _ := WithoutRepeats(r)
+		for i := range 13 {
+			for j := range 13 {
+				p := geom.Pt(float64(i)/2+0.01, float64(j)/2+0.02) // off every edge
+				if r.Contains(p) != (len(out.Loops) > 0 && out.Contains(p)) {
+					t.Fatalf("at %v: %v before, %v after (%d loops → %d)", p, r.Contains(p), out.Contains(p), len(r.Loops), len(out.Loops))
+				}
+			}
+		}
+	})
+}

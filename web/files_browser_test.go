@@ -75,7 +75,9 @@ func TestOpenDrawingsWithoutMaterial(t *testing.T) {
 	checkAreaCentroid(t, "plate.svg by load", b.state(), svgArea, svgX, svgY)
 
 	// With a material in the panel, a dropped or opened drawing takes it, and the panel says so.
+	eval[any](b, `document.getElementById("material").select()`)
 	b.typeInto("material", "aluminium 5052")
+	eval[any](b, `document.getElementById("thickness").select()`)
 	b.typeInto("thickness", "3 mm")
 	b.waitFor(`plumb.state().material !== undefined && plumb.state().mass > 0`)
 	b.drop(svgText, "dropped-plate.svg")

@@ -51,6 +51,17 @@ func TestLetteringTool(t *testing.T) {
 		t.Errorf("%d pieces in the browser, %d natively (the counters of A, B and R fall out)", len(pieces.Pieces), len(want.Pieces))
 	}
 
+	// The panel's role menu makes the selected word welded-on letters of the same sheet: the plate is
+	// whole again and heavier by the letters.
+	eval[any](b, `(document.getElementById("text-role").value = "added", null)`)
+	eval[any](b, `(document.getElementById("text-role").dispatchEvent(new Event("change")), null)`)
+	b.waitFor(`plumb.state().lettering.role === "added"`)
+	if s := b.state(); s.Area != before.Area || !(s.Mass > before.Mass) {
+		t.Errorf("added letters: area %.12g (plate %.12g), mass %.12g (plate %.12g)", s.Area, before.Area, s.Mass, before.Mass)
+	}
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="undo"]`)))
+	b.frames(2)
+
 	// One undo takes the whole word back.
 	b.do(chromedp.Click(chromedp.CSS(`[data-action="undo"]`)))
 	b.frames(2)

@@ -17,6 +17,7 @@ import (
 
 	"github.com/chromedp/cdproto/input"
 	"github.com/chromedp/chromedp"
+	"github.com/chromedp/chromedp/kb"
 
 	"plumb/density"
 	"plumb/geom"
@@ -215,6 +216,11 @@ func TestScreenshots(t *testing.T) {
 	shot("demo")
 	b.do(chromedp.Click(chromedp.CSS(`[data-action="dismiss-guide"]`)))
 	shot("demo-no-guide")
+	b.do(chromedp.Click(chromedp.CSS(`[data-action="help"]`)))
+	b.waitFor(`!document.getElementById("help").hidden`)
+	shot("help")
+	b.do(chromedp.KeyEvent(kb.Escape))
+	b.waitFor(`document.getElementById("help").hidden`)
 	pdf, err := base64.StdEncoding.DecodeString(eval[string](b, `(() => {
 		const r = plumb.templatePDF("A4");
 		let s = "";
@@ -240,6 +246,11 @@ func TestScreenshots(t *testing.T) {
 	b.load(partJSON(t, uPart()), "u.json")
 	b.waitFor(`plumb.state().level_pending === false`)
 	shot("u")
+	eval[any](b, `(document.getElementById("material").select(), null)`)
+	b.typeInto("material", "unobtainium")
+	b.waitFor(`document.getElementById("answers").classList.contains("stale")`)
+	eval[any](b, `(document.getElementById("answers").scrollIntoView(), null)`)
+	shot("stale")
 }
 
 // checkStaleFiguresGreyed checks that while the material field holds an error the figures are greyed

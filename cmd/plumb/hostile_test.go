@@ -258,7 +258,7 @@ var flagValues = []string{"-1", "0", "NaN", "Inf", "1e308", "text"}
 // numericFlags take numbers only (for --at and --param, inside "X,Y" and "name=value"): NaN, Inf and
 // text must be usage errors.
 var numericFlags = map[string]bool{"tol": true, "hole": true, "angle": true, "edge": true, "tilt": true,
-	"drill-tol": true, "overlap": true, "at": true, "param": true, "port": true}
+	"drill-tol": true, "overlap": true, "at": true, "param": true, "port": true, "stencil": true}
 
 // boolFlags are given as --flag=value.
 var boolFlags = map[string]bool{"level": true, "force": true, "gauges": true}

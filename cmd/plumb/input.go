@@ -14,13 +14,16 @@ import (
 	"plumb/density"
 	"plumb/sketch"
 	"plumb/sketch/dxf"
+	"plumb/sketch/letter"
 	"plumb/sketch/svg"
 )
 
-// materialFlags override a part's base material from the command line.
+// materialFlags override a part's base material, and the stencil bridges of its lettering, from the
+// command line.
 type materialFlags struct {
 	formula, unit, material, thickness string
 	params                             paramFlag
+	stencil                            stencilFlag
 }
 
 func (m *materialFlags) register(fs *flag.FlagSet) {
@@ -30,6 +33,7 @@ func (m *materialFlags) register(fs *flag.FlagSet) {
 	fs.StringVar(&m.thickness, "thickness", "", "sheet `thickness`: '3 mm', '1/8 in', '16 ga', or a formula in x and y with a unit")
 	m.params = paramFlag{}
 	fs.Var(m.params, "param", "formula parameter `name=value` (repeatable), e.g. --param k=2e-6")
+	fs.Var(&m.stencil, "stencil", "stencil bridges `width[,count]` (document units; 1 to 4 per counter, default 1) for all lettering cut out of the part")
 }
 
 // check reports contradictory material flags, an unknown --unit and a --density formula that does
@@ -66,6 +70,7 @@ func (m *materialFlags) apply(d *sketch.Document) {
 	case m.thickness != "":
 		d.Material.Thickness = m.thickness
 	}
+	m.stencil.apply(d)
 	if len(m.params) == 0 {
 		return
 	}
@@ -110,6 +115,49 @@ func (p paramFlag) merge(file map[string]float64) map[string]float64 {
 		out[k] = v
 	}
 	return out
+}
+
+// stencilFlag is --stencil width[,count]: bridges across the counters of lettering cut out.
+type stencilFlag struct {
+	b   letter.Bridges
+	set bool
+}
+
+func (s *stencilFlag) String() string {
+	if !s.set {
+		return ""
+	}
+	return fmt.Sprintf("%g,%d", s.b.Width, s.b.Count)
+}
+
+func (s *stencilFlag) Set(v string) error {
+	w, n, hasCount := strings.Cut(v, ",")
+	width, ok := finite(w)
+	if !ok || width <= 0 {
+		return fmt.Errorf("bridge width %q: want a positive number", w)
+	}
+	count := 1
+	if hasCount {
+		c, err := strconv.Atoi(strings.TrimSpace(n))
+		if err != nil || c < 1 || c > letter.MaxBridges {
+			return fmt.Errorf("bridges per counter %q: want a whole number from 1 to %d", n, letter.MaxBridges)
+		}
+		count = c
+	}
+	s.b, s.set = letter.Bridges{Width: width, Count: count}, true
+	return nil
+}
+
+// apply gives every line of lettering cut out of d the bridges, when the flag was given.
+func (s *stencilFlag) apply(d *sketch.Document) {
+	if !s.set {
+		return
+	}
+	for i, t := range d.Texts {
+		if t.Role == "" || t.Role == sketch.RoleCutout {
+			d.Texts[i].Stencil = s.b
+		}
+	}
 }
 
 // readingFlag selects how drawings are read: SVG by --reading, DXF by the layer choice.

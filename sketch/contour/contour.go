@@ -160,7 +160,7 @@ type Chain struct {
 // with the nearest end until it closes or no end is near. It returns the closed chains and the open
 // ones, each in the order its first piece comes.
 func Join(pieces [][]geom.Segment, join float64) (closed, open []Chain) {
-	ends := endIndex{cell: join, m: map[[2]int64][]int{}}
+	ends := endIndex{cell: join, m: map[[2]int64]*endCell{}}
 	for i, p := range pieces {
 		ends.add(start(p), i)
 		ends.add(end(p), i)
@@ -211,7 +211,13 @@ func Reverse(segs []geom.Segment) []geom.Segment {
 // the pieces with an end in each cell, so a point's neighbours lie in the 3 × 3 cells around it.
 type endIndex struct {
 	cell float64
-	m    map[[2]int64][]int
+	m    map[[2]int64]*endCell
+}
+
+// endCell lists the pieces with an end in one cell; those before head are all used.
+type endCell struct {
+	ids  []int
+	head int
 }
 
 func (x endIndex) key(p geom.Point) [2]int64 {
@@ -220,17 +226,35 @@ func (x endIndex) key(p geom.Point) [2]int64 {
 
 func (x endIndex) add(p geom.Point, i int) {
 	k := x.key(p)
-	x.m[k] = append(x.m[k], i)
+	c := x.m[k]
+	if c == nil {
+		c = &endCell{}
+		x.m[k] = c
+	}
+	c.ids = append(c.ids, i)
 }
 
+// maxCandidates bounds the ends nearest looks at in one cell past its used ones. Drawings have a few
+// ends per cell; a hostile file could pile up a million there, and trying them all for every join would
+// take a million squared steps.
+const maxCandidates = 64
+
 // nearest returns the unused piece with an end nearest to p, within the cell size, and whether it
-// must be turned around (its end, not its start, is at p); -1 when there is none.
+// must be turned around (its end, not its start, is at p); -1 when there is none. An end exactly at p
+// is taken at once.
 func (x endIndex) nearest(p geom.Point, pieces [][]geom.Segment, used []bool) (int, bool) {
 	best, reversed, bestDist := -1, false, x.cell
 	k := x.key(p)
 	for dx := int64(-1); dx <= 1; dx++ {
 		for dy := int64(-1); dy <= 1; dy++ {
-			for _, i := range x.m[[2]int64{k[0] + dx, k[1] + dy}] {
+			c := x.m[[2]int64{k[0] + dx, k[1] + dy}]
+			if c == nil {
+				continue
+			}
+			for c.head < len(c.ids) && used[c.ids[c.head]] {
+				c.head++
+			}
+			for _, i := range c.ids[c.head:min(len(c.ids), c.head+maxCandidates)] {
 				if used[i] {
 					continue
 				}
@@ -240,6 +264,9 @@ func (x endIndex) nearest(p geom.Point, pieces [][]geom.Segment, used []bool) (i
 				if d := end(pieces[i]).Dist(p); d < bestDist {
 					best, reversed, bestDist = i, true, d
 				}
+			}
+			if bestDist == 0 {
+				return best, reversed
 			}
 		}
 	}

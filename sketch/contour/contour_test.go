@@ -54,3 +54,28 @@ func TestBoundary(t *testing.T) {
 		t.Error("no error for an empty boundary")
 	}
 }
+
+// TestJoinPile joins a pile of pieces whose ends all meet at two points, far more than a cell holds
+// candidates for: every piece ends up in exactly one chain.
+func TestJoinPile(t *testing.T) {
+	var pieces [][]geom.Segment
+	for i := range 5000 {
+		y := float64(i%7) * 1e-4
+		pieces = append(pieces, []geom.Segment{geom.Quad(geom.Pt(0, 0), geom.Pt(5, 3+y), geom.Pt(10, 0))})
+	}
+	closed, open := Join(pieces, 0.01)
+	seen := make([]bool, len(pieces))
+	for _, c := range append(closed, open...) {
+		for _, i := range c.Pieces {
+			if seen[i] {
+				t.Fatalf("piece %d in two chains", i)
+			}
+			seen[i] = true
+		}
+	}
+	for i, s := range seen {
+		if !s {
+			t.Fatalf("piece %d in no chain", i)
+		}
+	}
+}

@@ -318,5 +318,9 @@ func bulgeSegment(a, b geom.Point, bulge float64) geom.Segment {
 	r := c * (1 + bulge*bulge) / (4 * math.Abs(bulge))
 	centre := a.Add(b).Mul(0.5).Add(right.Mul(s - math.Copysign(r, bulge)))
 	start := math.Atan2(a.Y-centre.Y, a.X-centre.X)
-	return geom.Arc(centre, r, start, 4*math.Atan(bulge))
+	// The ends are the vertices themselves: from the centre form they would be off by a rounding of
+	// the radius, which a tiny bulge makes huge beside the sagitta.
+	arc := geom.Arc(centre, r, start, 4*math.Atan(bulge))
+	arc.P[0], arc.P[1] = a, b
+	return arc
 }

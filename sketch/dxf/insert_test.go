@@ -34,6 +34,18 @@ func TestBulgeSegment(t *testing.T) {
 	if s := bulgeSegment(geom.Pt(0, 0), geom.Pt(2, 0), 1); s.At(0.5).Dist(geom.Pt(1, -1)) > 1e-15 {
 		t.Errorf("bulge 1 from (0,0) to (2,0): middle %v, want (1, −1) (half circle, counter-clockwise)", s.At(0.5))
 	}
+	// A tiny bulge: the ends are the vertices exactly, and the segment between chord and arc has the
+	// circular segment's area r²(2α − sin 2α)/2 ≈ (2/3)·c·s(1 + O(α²)) for half-angle α = 2·atan(bulge),
+	// chord c and sagitta s = bulge·c/2 ("List of centroids"; the α² term is below 1e-20 here).
+	const tiny = 1e-8
+	s := bulgeSegment(geom.Pt(-50, 0), geom.Pt(50, 0), tiny)
+	if s.Start() != geom.Pt(-50, 0) || s.End() != geom.Pt(50, 0) {
+		t.Errorf("bulge %g: ends %v, %v, want the vertices", tiny, s.Start(), s.End())
+	}
+	area := geom.Boundary{Pieces: []geom.Segment{s, geom.Line(geom.Pt(50, 0), geom.Pt(-50, 0))}}.IntegratePoly(geom.ConstPoly(1)).M
+	if want := 2.0 / 3 * 100 * tiny * 100 / 2; math.Abs(area-want) > 1e-13*want {
+		t.Errorf("bulge %g: segment area %.17g, want %.17g", tiny, area, want)
+	}
 }
 
 // TestInsertBlocks places a block of two holes, itself inserting a one-hole block, into a plate:

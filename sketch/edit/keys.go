@@ -2,6 +2,7 @@ package edit
 
 import (
 	"strings"
+	"unicode/utf8"
 
 	"plumb/geom"
 )
@@ -77,7 +78,8 @@ func (e *Editor) Key(key string, m Mods) bool {
 	}
 	switch {
 	case key == "Backspace" && e.typed != "":
-		e.typed = e.typed[:len(e.typed)-1]
+		_, n := utf8.DecodeLastRuneInString(e.typed) // "−" and "∠" take more than a byte
+		e.typed = e.typed[:len(e.typed)-n]
 		return true
 	case key == "Backspace" && len(e.draw.verts) > 0:
 		e.draw.verts = e.draw.verts[:len(e.draw.verts)-1]

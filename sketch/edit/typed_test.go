@@ -79,3 +79,14 @@ func FuzzParseTyped(f *testing.F) {
 		}
 	})
 }
+
+func TestBackspaceRemovesWholeCharacters(t *testing.T) {
+	e := newTestEditor()
+	e.SetTool(ToolOutline)
+	for _, k := range []string{"1", "0", "∠", "Backspace", "−"} {
+		e.Key(k, 0)
+	}
+	if got := e.Typed(); got != "10−" {
+		t.Errorf("typed %q, want 10−", got)
+	}
+}

@@ -7,33 +7,25 @@ import (
 
 	"github.com/golang/freetype/truetype"
 	"golang.org/x/image/font/gofont/gobold"
-	"golang.org/x/image/font/gofont/gobolditalic"
 	"golang.org/x/image/font/gofont/goitalic"
-	"golang.org/x/image/font/gofont/gomedium"
 	"golang.org/x/image/font/gofont/gomono"
-	"golang.org/x/image/font/gofont/gomonobold"
 	"golang.org/x/image/font/gofont/goregular"
-	"golang.org/x/image/font/gofont/gosmallcaps"
 )
 
 // DefaultFont is the font of lettering that names none.
 const DefaultFont = "go-regular"
 
 // fontFiles lists the fonts Plumb ships, by the names part files use, in the order menus show them:
-// eight of the twelve Go fonts (the mono and small-capital italics and medium italic are left out to
-// keep the offline page near its 5 MB goal).
+// four of the twelve Go fonts. Regular, bold and italic are in the page already (the canvas labels and
+// the PDF template use them); mono is the one more that fits the page's 4.5 MB goal.
 var fontFiles = []struct {
 	name string
 	ttf  []byte
 }{
 	{"go-regular", goregular.TTF},
-	{"go-medium", gomedium.TTF},
 	{"go-bold", gobold.TTF},
 	{"go-italic", goitalic.TTF},
-	{"go-bold-italic", gobolditalic.TTF},
 	{"go-mono", gomono.TTF},
-	{"go-mono-bold", gomonobold.TTF},
-	{"go-smallcaps", gosmallcaps.TTF},
 }
 
 // Fonts returns the names of the fonts lettering may use.

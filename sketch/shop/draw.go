@@ -47,7 +47,7 @@ func (p Part) facts() (facts, error) {
 	if err != nil {
 		return facts{}, fmt.Errorf("units: %w", err)
 	}
-	f := facts{name: p.Doc.Name, unit: u, thick: p.Doc.Material.Thickness, cautions: p.Analysis.Cautions}
+	f := facts{name: sketch.Printable(p.Doc.Name), unit: u, thick: sketch.Printable(p.Doc.Material.Thickness), cautions: p.Analysis.Cautions}
 	if f.name == "" {
 		f.name = "Untitled part"
 	}

@@ -189,3 +189,14 @@ func BenchmarkReport(b *testing.B) {
 		}
 	}
 }
+
+// TestReportDropsControlCharacters checks that a part name carrying a terminal escape sequence reaches
+// the Markdown report without its control characters.
+func TestReportDropsControlCharacters(t *testing.T) {
+	d := bladeSign()
+	d.Name = "sign \x1b]0;title\x07\x1b[2J"
+	md := markdown(t, hungPart(t, d, geom.Pt(300, 330), 10))
+	if strings.ContainsAny(md, "\x1b\x07") || !strings.Contains(md, "# sign ]0;title[2J") {
+		t.Errorf("report starts %q", md[:min(len(md), 80)])
+	}
+}

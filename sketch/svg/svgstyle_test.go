@@ -1,7 +1,9 @@
 package svg
 
 import (
+	"fmt"
 	"reflect"
+	"strings"
 	"testing"
 )
 
@@ -86,5 +88,24 @@ func TestCascade(t *testing.T) {
 				t.Errorf("cascade = %v, %v; want %v", got, err, tt.want)
 			}
 		})
+	}
+}
+
+// TestStyleSheetWorkLimit reads a sheet whose rules all name the one id that every element has: the
+// index cannot narrow them, so the reader stops at its budget of rule tests with a message.
+func TestStyleSheetWorkLimit(t *testing.T) {
+	var b strings.Builder
+	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm"><style>`)
+	for i := range 20000 {
+		fmt.Fprintf(&b, "#a.c%d{fill:red}", i)
+	}
+	b.WriteString("</style>")
+	for range 1000 {
+		b.WriteString(`<rect id="a" width="1" height="1"/>`)
+	}
+	b.WriteString("</svg>")
+	_, _, err := Read([]byte(b.String()), Options{})
+	if err == nil || !strings.Contains(err.Error(), "the style sheet takes more than 16777216 rule tests to apply; simplify it") {
+		t.Errorf("error %v", err)
 	}
 }

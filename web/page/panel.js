@@ -325,6 +325,7 @@
 
   function loadText(text, name, quiet) {
     if (!app) { toast("Still loading; try again in a moment."); return false; }
+    const panel = panelMaterial(); // before loading: showing a part without a material empties the fields
     const r = app.load(text, name);
     if (!r.ok) {
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
@@ -333,19 +334,28 @@
     $("units-note").hidden = true;
     refresh();
     const warnings = r.warnings || [];
-    const adopted = !quiet && r.has_material === false && adoptPanelMaterial();
+    const adopted = !quiet && r.has_material === false && adoptPanelMaterial(panel);
     if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
     else if (warnings.length) toast(name + ":\n" + warnings.slice(0, 6).join("\n") + (warnings.length > 6 ? "\n…" : ""));
     else if (!quiet) toast("Opened " + name);
     return true;
   }
 
-  // adoptPanelMaterial gives a part opened without a material the material in the panel's fields, when
-  // they hold one; it returns what was given, or "" when the fields are empty (the part then stays
-  // without a material and the panel says so).
-  function adoptPanelMaterial() {
-    const filled = mode === "sheet" ? $("material").value.trim() : $("formula").value.trim();
+  // panelMaterial returns what the material fields hold: the mode and the field values.
+  function panelMaterial() {
+    const ids = ["material", "thickness", "formula", "density-unit", "params"];
+    return { mode, values: Object.fromEntries(ids.map((id) => [id, $(id).value])) };
+  }
+
+  // adoptPanelMaterial gives a part opened without a material the material the panel's fields held
+  // before it was opened (panel, from panelMaterial), when they held one; it returns what was given,
+  // or "" when they were empty (the part then stays without a material and the panel says so).
+  function adoptPanelMaterial(panel) {
+    const v = panel.values;
+    const filled = (panel.mode === "sheet" ? v.material : v.formula).trim();
     if (filled === "") return "";
+    for (const [id, value] of Object.entries(v)) $(id).value = value;
+    setMode(panel.mode);
     sendMaterial();
     return $("material-error").textContent === "" ? filled : "";
   }
@@ -706,13 +716,14 @@
     return "tilts " + fmtDeg(Math.abs(deg)) + (deg > 0 ? " counter-clockwise" : " clockwise");
   }
 
-  // renderEdge shows the edge distance in effect: the one typed, or the rule's as the placeholder.
+  // renderEdge shows the edge distance in effect: the one typed, or "auto" and the rule's in the hint.
   function renderEdge(u) {
     const e = state.edge;
     if (!e) { $("edge-hint").textContent = ""; return; }
     if (document.activeElement !== $("edge")) $("edge").value = e.asked ? fmtField(e.min) : "";
-    $("edge").placeholder = fmtField(e.min);
-    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")";
+    $("edge").placeholder = "auto";
+    $("edge-hint").textContent = "Edge distance " + fmtLen(e.min) + " " + u + " (" + e.source + ")" +
+      (e.asked ? "; clear the field for the common-practice rule" : "");
   }
 
   // tiltPerError says how far the part tilts for a hole drilled a little off the line: per millimetre,
@@ -764,7 +775,8 @@
       const row = document.createElement("div");
       const a = document.createElement("span");
       const b = document.createElement("span");
-      for (const part of String(k.key).split(" ")) {
+      // "Ctrl O" is two keys; a typed form such as "250 at 30" is one thing to type.
+      for (const part of /\d/.test(k.key) ? [String(k.key)] : String(k.key).split(" ")) {
         const kbd = document.createElement("kbd");
         kbd.textContent = part;
         a.append(kbd, " ");
