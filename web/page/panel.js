@@ -905,7 +905,8 @@
       if (app) ACTIONS[e.key === "o" ? "open" : "save"]();
       return;
     }
-    if (!typing && e.key === "?") {
+    // While the Lettering tool writes, "?" is a character of the lettering.
+    if (!typing && e.key === "?" && !(app && app.writing())) {
       e.preventDefault();
       if ($("help").hidden) showHelp(); else closeOverlays();
     }
