@@ -40,13 +40,22 @@ func (b Boundary) Components() []Boundary {
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	edges := make([]Boundary, len(outers))
+	boxes := make([]Rect, len(outers))
 	for i, o := range outers {
-		edges[i] = o.b
+		edges[i] = o.b.Indexed()
+		boxes[i] = edges[i].Bounds()
 	}
+	around := newBoxTree(boxes)
+	inside := make([][]Segment, len(outers)) // the holes' pieces by outer edge, joined once below
 	for _, h := range holes {
-		i := innermost(edges, h.b)
-		outers[i].b.Pieces = append(slices.Clip(outers[i].b.Pieces), h.b.Pieces...)
+		i := innermost(edges, around, h.b)
+		inside[i] = append(inside[i], h.b.Pieces...)
 		outers[i].area += h.area
+	}
+	for i, ps := range inside {
+		if len(ps) > 0 {
+			outers[i].b.Pieces = append(slices.Clip(outers[i].b.Pieces), ps...)
+		}
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	comps := make([]Boundary, len(outers))
@@ -59,11 +68,17 @@ func (b Boundary) Components() []Boundary {
 // innermost returns the index of the last of outers (outer edges sorted largest first) that winds
 // around the middle of hole's first piece: the smallest outer edge around the hole. A hole around
 // which none winds (which a valid boundary never has) goes with the first, so that no material is lost.
-func innermost(outers []Boundary, hole Boundary) int {
+// Only the outer edges whose box (in the tree around, over the outers' bounds) holds that point can
+// wind around it, so only those are asked, last first: a plate with thousands of cut-outs and islands
+// costs a few queries per hole, not one per outer edge.
+func innermost(outers []Boundary, around *boxTree, hole Boundary) int {
 	p := hole.Pieces[0].At(0.5)
-	for i := len(outers) - 1; i >= 0; i-- {
-		if outers[i].Contains(p) {
-			return i
+	var near []int
+	around.overlapping(Rect{p, p}, func(i int) bool { near = append(near, i); return true })
+	slices.Sort(near)
+	for k := len(near) - 1; k >= 0; k-- {
+		if outers[near[k]].Contains(p) {
+			return near[k]
 		}
 	}
 	return 0
