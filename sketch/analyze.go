@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"reflect"
 	"slices"
 	"strings"
 
@@ -578,4 +579,26 @@ func (a *Analysis) checkFinite() error {
 		}
 	}
 	return nil
+}
+
+// Reanalyze returns the analysis of d given the analysis prev of the document before, as an editor
+// has it after each change: prev itself when d differs from before only in its name, notes and hang
+// holes (the holes are checked as Analyze checks them), since nothing else Analyze reads has
+// changed; otherwise Analyze(d, opt). Dragging a hole then costs only the hang.
+func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analysis, error) {
+	if prev == nil || before == nil || !d.sameMaterial(before) {
+		return Analyze(d, opt)
+	}
+	if err := d.CheckExtent(); err != nil {
+		return nil, err
+	}
+	return prev, nil
+}
+
+// sameMaterial reports whether d and e agree in everything but their names, notes and holes.
+func (d *Document) sameMaterial(e *Document) bool {
+	a, b := *d, *e
+	a.Name, a.Notes, a.Holes = "", "", nil
+	b.Name, b.Notes, b.Holes = "", "", nil
+	return reflect.DeepEqual(a, b)
 }
