@@ -69,6 +69,35 @@ func BenchmarkRecomputeFlower(b *testing.B) {
 	}
 }
 
+// BenchmarkHoleDragFlower is the browser's work per step of dragging the hang hole: the document
+// differs from the one before only in its hole, so Reanalyze keeps the analysis, and the part is hung
+// from the moved hole.
+func BenchmarkHoleDragFlower(b *testing.B) {
+	for _, tc := range flowerDensities {
+		if tc.fails {
+			continue
+		}
+		b.Run(tc.name, func(b *testing.B) {
+			before := flowerDocument(1000, tc.spec)
+			prev, err := Analyze(before, AnalyzeOptions{})
+			if err != nil {
+				b.Fatal(err)
+			}
+			d := *before
+			d.Holes = []Hole{{At: geom.Pt(0, 80), Diameter: 6}}
+			measure(b, func() {
+				a, err := Reanalyze(&d, before, prev, AnalyzeOptions{})
+				if err != nil || a != prev {
+					b.Fatal(err)
+				}
+				if _, err := HangFrom(&d, geom.Pt(0, 80), 6, HangOptions{Whole: a}); err != nil {
+					b.Fatal(err)
+				}
+			})
+		})
+	}
+}
+
 func BenchmarkHangFromFlower(b *testing.B) {
 	for _, tc := range flowerDensities {
 		if tc.fails {
