@@ -471,7 +471,8 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 // withoutDisk returns the analysis of the part with the round hole h removed, when one density that
 // is not a polynomial covers the material, in one piece, and was integrated numerically within its
 // work limit, with no shape error from the reader: the hole's disk is integrated alone (cut at its
-// kinks, as any material) and its moments are subtracted, the two error estimates add, and the
+// kinks, as any material; its interval check is derived from the part's, holeCheck) and its moments
+// are subtracted, the two error estimates add, and the
 // interval check of the material stands in for that of the part with the hole (holeCheck: the sign
 // proof holds on the smaller material; the mass bounds lose the disk's). ok is false when this does
 // not apply; the caller then analyses the part afresh.
@@ -486,7 +487,7 @@ func (a *Analysis) withoutDisk(h Hole, opt AnalyzeOptions) (part *Analysis, ok b
 		return nil, false, nil
 	}
 	circle := geom.Circle(h.At, h.Diameter/2)
-	disk, err := integrateField(pieceOf(geom.Boundary{Pieces: circle}), nil, l.f, opt, nil)
+	disk, err := integrateField(pieceOf(geom.Boundary{Pieces: circle}), nil, l.f, opt, &holeCheck{whole: *l.check, hole: h, disk: true})
 	if err != nil {
 		return nil, true, &PathError{Path: "material", Msg: err.Error()}
 	}

@@ -80,10 +80,12 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 }
 
 // holeCheck is the interval check of a material made before the round hole was cut in it, the hole
-// lying inside the material: the material with the hole is the material less the hole's disk.
+// lying inside the material: the material with the hole is the material less the hole's disk. With
+// disk set it stands for the check of the disk alone.
 type holeCheck struct {
 	whole checkResult
 	hole  Hole
+	disk  bool
 }
 
 // from returns k with the check of the material without the hole, or nil when there is none.
@@ -95,22 +97,32 @@ func (k *holeCheck) from(whole *checkResult) *holeCheck {
 	return k
 }
 
-// check returns the interval check of the material with the hole for the density f, derived from
-// the check without it, and whether it could: when that check proved f at least zero (so it is on
-// the smaller material too) and enclosed the mass when enclose asks for it. The mass then lies
-// within the enclosure without the hole less the disk's mass, which lies between the area of the
-// disk times the lower and the upper interval bound of f over the disk's bounding box. The places
-// where the density varies most (hot, widest) stay those of the whole material.
+// check returns the interval check of the material with the hole (or of the disk) for the density
+// f, derived from the check without it, and whether it could: when that check proved f at least
+// zero (so it is on any part of the material) and, for the material with the hole, enclosed the
+// mass when enclose asks for it. The disk's mass lies between its area times the lower and the
+// upper interval bound of f over its bounding box; the mass with the hole within the enclosure
+// without it less those. The places where the density varies most (hot, widest) stay those of the
+// whole material; the disk has none.
 func (k *holeCheck) check(f *density.Field, enclose bool) (checkResult, bool) {
-	if k == nil || !k.whole.proved || k.whole.enclosed != enclose {
+	if k == nil || !k.whole.proved {
+		return checkResult{}, false
+	}
+	r := k.hole.Diameter / 2
+	box := geom.Rect{Min: k.hole.At.Sub(geom.Pt(r, r)), Max: k.hole.At.Add(geom.Pt(r, r))}
+	b := f.Bounds(box.Min.X, box.Max.X, box.Min.Y, box.Max.Y)
+	area := geom.Boundary{Pieces: geom.Circle(k.hole.At, r)}.IntegratePoly(geom.ConstPoly(1)).M
+	lo, hi := b.Lo*area, b.Hi*area
+	if k.disk {
+		return checkResult{proved: true, lo: lo, hi: hi, enclosed: true, widest: box, hot: geom.EmptyRect(),
+			scale: k.whole.scale, boxesIn: 1}, true
+	}
+	if k.whole.enclosed != enclose {
 		return checkResult{}, false
 	}
 	c := k.whole
 	if enclose {
-		r := k.hole.Diameter / 2
-		box := f.Bounds(k.hole.At.X-r, k.hole.At.X+r, k.hole.At.Y-r, k.hole.At.Y+r)
-		area := geom.Boundary{Pieces: geom.Circle(k.hole.At, r)}.IntegratePoly(geom.ConstPoly(1)).M
-		c.lo, c.hi = c.lo-box.Hi*area, c.hi-box.Lo*area
+		c.lo, c.hi = c.lo-hi, c.hi-lo
 	}
 	return c, true
 }
