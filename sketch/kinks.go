@@ -52,6 +52,7 @@ func splitAtKinks(m materialPart, f *density.Field, o geom.Point) (cells []densi
 		}
 		// Cut the cell itself, its pieces chained into loops: few pieces each time.
 		cell := geom.Region{Loops: p.body.Loops()}
+		var sides []pending
 		for _, side := range [2]float64{1, -1} {
 			within := clipConvex(p.within, r.Cut, side)
 			if len(within) < 3 {
@@ -59,9 +60,17 @@ func splitAtKinks(m materialPart, f *density.Field, o geom.Point) (cells []densi
 			}
 			region := geom.Region{Loops: []geom.Loop{geom.Polygon(within...)}}
 			if b := geom.Combine(bothIn, cell, region); !b.IsEmpty() {
-				queue = append(queue, pending{within: within, body: b})
+				sides = append(sides, pending{within: within, body: b})
 			}
 		}
+		if len(sides) < 2 {
+			// The line runs along the cell's edge, within its tolerance, without dividing it: cutting
+			// again would give the same cell forever. Keep it uncut and say so.
+			complete = false
+			cells = append(cells, densityCell{body: p.body, r: r})
+			continue
+		}
+		queue = append(queue, sides...)
 	}
 	return cells, complete
 }
