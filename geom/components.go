@@ -40,13 +40,22 @@ func (b Boundary) Components() []Boundary {
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	edges := make([]Boundary, len(outers))
+	boxes := make([]Rect, len(outers))
 	for i, o := range outers {
-		edges[i] = o.b
+		edges[i], boxes[i] = o.b, o.b.Bounds()
 	}
+	// Each outer edge's holes are gathered first and joined to it once: appending them one at a time
+	// to a copy made each time cost the square of the holes.
+	inside := make([][]Segment, len(outers))
 	for _, h := range holes {
-		i := innermost(edges, h.b)
-		outers[i].b.Pieces = append(slices.Clip(outers[i].b.Pieces), h.b.Pieces...)
+		i := innermost(edges, boxes, h.b)
+		inside[i] = append(inside[i], h.b.Pieces...)
 		outers[i].area += h.area
+	}
+	for i, segs := range inside {
+		if len(segs) > 0 {
+			outers[i].b.Pieces = slices.Concat(outers[i].b.Pieces, segs)
+		}
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	comps := make([]Boundary, len(outers))
@@ -57,12 +66,13 @@ func (b Boundary) Components() []Boundary {
 }
 
 // innermost returns the index of the last of outers (outer edges sorted largest first) that winds
-// around the middle of hole's first piece: the smallest outer edge around the hole. A hole around
-// which none winds (which a valid boundary never has) goes with the first, so that no material is lost.
-func innermost(outers []Boundary, hole Boundary) int {
+// around the middle of hole's first piece: the smallest outer edge around the hole. Their bounds,
+// boxes, rule most of them out at once. A hole around which none winds (which a valid boundary never
+// has) goes with the first, so that no material is lost.
+func innermost(outers []Boundary, boxes []Rect, hole Boundary) int {
 	p := hole.Pieces[0].At(0.5)
 	for i := len(outers) - 1; i >= 0; i-- {
-		if outers[i].Contains(p) {
+		if boxes[i].Contains(p) && outers[i].Contains(p) {
 			return i
 		}
 	}
@@ -171,11 +181,24 @@ func (b Boundary) Loops() []Loop {
 	n := len(b.Pieces)
 	d := sideTolerance * tolerance(b.Bounds())
 	used := make([]bool, n)
+	// The pieces by the x of their starts: a start within d of p lies within d of p.X, so only that
+	// window is searched (2d wide each way, against rounding); among the nearest, the last piece wins.
+	order := make([]int32, n)
+	for i := range order {
+		order[i] = int32(i)
+	}
+	startX := func(k int32) float64 { return b.Pieces[k].Start().X }
+	slices.SortFunc(order, func(i, j int32) int { return cmp.Or(cmp.Compare(startX(i), startX(j)), cmp.Compare(i, j)) })
 	next := func(p Point) int {
 		best, bestDist := -1, d
-		for i, s := range b.Pieces {
-			if dist := s.Start().Dist(p); !used[i] && dist <= bestDist {
-				best, bestDist = i, dist
+		from, _ := slices.BinarySearchFunc(order, p.X-2*d, func(k int32, x float64) int { return cmp.Compare(startX(k), x) })
+		for _, k := range order[from:] {
+			s := b.Pieces[k]
+			if s.Start().X > p.X+2*d {
+				break
+			}
+			if dist := s.Start().Dist(p); !used[k] && (dist < bestDist || dist == bestDist && int(k) > best) {
+				best, bestDist = int(k), dist
 			}
 		}
 		return best
