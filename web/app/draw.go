@@ -53,6 +53,8 @@ const (
 	rulerBottom = 22
 	flatten     = 0.25 // how far a drawn curve may stray from the true one, in device pixels
 	levelAngle  = 0.05 // degrees: a part hanging within this is drawn as level
+	// maxPieceLabels is the most loose pieces numbered on the canvas.
+	maxPieceLabels = 200
 )
 
 // frame is one Draw call's context.
@@ -303,9 +305,19 @@ func (fr *frame) loosePieces() {
 	if a == nil || fr.res.doc != fr.doc || len(a.Pieces) < 2 {
 		return
 	}
+	var loops []geom.Loop
+	var edges []geom.Segment
+	for _, p := range a.Pieces[1:] {
+		loops = append(loops, p.Body.Loops()...)
+		edges = append(edges, p.Body.Pieces...)
+	}
+	fr.p.fillLoops(loops, fr.v.Affine(), fr.tol(), colLoose)
+	fr.dashedSegs(edges, 1.2, 4, 3, colLooseEdge)
 	for i, p := range a.Pieces[1:] {
-		fr.fillBoundary(p.Body, colLoose)
-		fr.dashedSegs(p.Body.Pieces, 1.2, 4, 3, colLooseEdge)
+		// Numbers where a number fits, and not thousands of them (a sign's letter counters).
+		if size := p.Body.Bounds().Size(); i >= maxPieceLabels || math.Max(size.X, size.Y)*fr.v.Scale < 14*fr.u {
+			continue
+		}
 		c := fr.screen(p.Centroid)
 		drawText(fr.p.dst, strconv.Itoa(i+1), fr.f.small, c.X, c.Y, alignCentreMiddle, colLooseEdge)
 	}
