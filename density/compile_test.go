@@ -89,6 +89,40 @@ func closeTo(got, want, rel float64) bool {
 	return got == want || math.Abs(got-want) <= rel*math.Max(math.Abs(want), 1e-300)
 }
 
+// TestEvalRowsMatchPointByPoint evaluates points in rows of equal y (as product cubature rules
+// give them), with signed zeros and NaN among the arguments, and wants each value bit for bit as
+// when the point is evaluated alone: a function evaluated once per run of equal arguments must
+// not carry a value to an argument that differs, even in the sign of a zero.
+func TestEvalRowsMatchPointByPoint(t *testing.T) {
+	nan := math.NaN()
+	var xs, ys []float64
+	for _, y := range []float64{0, math.Copysign(0, -1), 0, 50, 50.000000000000007, nan, nan, -3} {
+		for _, x := range []float64{-2, math.Copysign(0, -1), 0, 0, 7.5} {
+			xs, ys = append(xs, x), append(ys, y)
+		}
+	}
+	for _, src := range []string{
+		"exp(x/200)*(2 + sin(y/50))",
+		"1/sin(y) + 1/sin(x)",
+		"sin(sin(sin(y))) + cos(cos(y)) + sqrt(abs(y)) + floor(y) + tan(y)",
+		"exp(y) * ln(abs(x) + 1)",
+	} {
+		p, err := Compile(src, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		out := make([]float64, len(xs))
+		p.Eval(xs, ys, out)
+		one := []float64{0}
+		for i := range xs {
+			p.Eval(xs[i:i+1], ys[i:i+1], one)
+			if math.Float64bits(out[i]) != math.Float64bits(one[0]) && !(math.IsNaN(out[i]) && math.IsNaN(one[0])) {
+				t.Errorf("%s at (%g, %g): %g in a row, %g alone", src, xs[i], ys[i], out[i], one[0])
+			}
+		}
+	}
+}
+
 func TestEvalOutMayBeInput(t *testing.T) {
 	p, err := Compile("x*x + 2*y", nil)
 	if err != nil {

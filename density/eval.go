@@ -344,11 +344,20 @@ func (in *instr) run(regs [][]float64) {
 	}
 }
 
-// runFunc executes an instruction through its scalar function.
+// runFunc executes an instruction through its scalar function. A one-argument function is called
+// once for each run of arguments with the same bits (so −0 and +0 stay apart): the functions are
+// pure, so such an argument has the value of the one before it. Product cubature rules evaluate
+// the density along horizontal rows (Gauss–Green cubature, geom.Boundary.Integrate), where every
+// y-only part of a formula, such as sin(y/50), repeats its argument across the row.
 func (in *instr) runFunc(d, a []float64, regs [][]float64) {
 	if f := in.unaryFunc; f != nil {
-		for i := range d {
-			d[i] = f(a[i])
+		var prev uint64 // the bits of the argument before; d may be a itself, so kept aside
+		for i, x := range a {
+			if bits := math.Float64bits(x); i == 0 || bits != prev {
+				prev, d[i] = bits, f(x)
+				continue
+			}
+			d[i] = d[i-1]
 		}
 		return
 	}

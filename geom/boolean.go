@@ -175,10 +175,10 @@ type snapper struct {
 func (sn *snapper) onto(k, from, step int, target func(int) bool) bool {
 	radius := contactRadius * sn.tol
 	for l := from; l >= 0 && l < len(sn.order) && math.Abs(sn.pts[sn.order[l]].X-sn.pts[k].X) <= radius; l += step {
-		if !target(sn.order[l]) {
-			continue
-		}
 		p := sn.pts[sn.order[l]]
+		if math.Abs(p.Y-sn.pts[k].Y) > radius || !target(sn.order[l]) {
+			continue // beyond radius (a cheap test first: hits on one vertical line share their x)
+		}
 		d := p.Dist(sn.pts[k])
 		if d <= sn.tol {
 			return true
@@ -530,7 +530,11 @@ func dedupe(ps []keptPiece, tol float64) []Segment {
 	for i := range order {
 		order[i] = i
 	}
-	startX := func(i int) float64 { return ps[i].s.Start().X }
+	xs := make([]float64, len(ps)) // the starts' x, read once rather than at every comparison
+	for i := range ps {
+		xs[i] = ps[i].s.Start().X
+	}
+	startX := func(i int) float64 { return xs[i] }
 	slices.SortFunc(order, func(i, j int) int { return cmp.Compare(startX(i), startX(j)) })
 	dup := make([]bool, len(ps))
 	for k, i := range order {

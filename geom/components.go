@@ -42,19 +42,19 @@ func (b Boundary) Components() []Boundary {
 	edges := make([]Boundary, len(outers))
 	boxes := make([]Rect, len(outers))
 	for i, o := range outers {
-		edges[i], boxes[i] = o.b, o.b.Bounds()
+		edges[i] = o.b.Indexed()
+		boxes[i] = edges[i].Bounds()
 	}
-	// Each outer edge's holes are gathered first and joined to it once: appending them one at a time
-	// to a copy made each time cost the square of the holes.
-	inside := make([][]Segment, len(outers))
+	around := newBoxTree(boxes)
+	inside := make([][]Segment, len(outers)) // the holes' pieces by outer edge, joined once below
 	for _, h := range holes {
-		i := innermost(edges, boxes, h.b)
+		i := innermost(edges, around, h.b)
 		inside[i] = append(inside[i], h.b.Pieces...)
 		outers[i].area += h.area
 	}
-	for i, segs := range inside {
-		if len(segs) > 0 {
-			outers[i].b.Pieces = slices.Concat(outers[i].b.Pieces, segs)
+	for i, ps := range inside {
+		if len(ps) > 0 {
+			outers[i].b.Pieces = append(slices.Clip(outers[i].b.Pieces), ps...)
 		}
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
@@ -66,14 +66,19 @@ func (b Boundary) Components() []Boundary {
 }
 
 // innermost returns the index of the last of outers (outer edges sorted largest first) that winds
-// around the middle of hole's first piece: the smallest outer edge around the hole. Their bounds,
-// boxes, rule most of them out at once. A hole around which none winds (which a valid boundary never
-// has) goes with the first, so that no material is lost.
-func innermost(outers []Boundary, boxes []Rect, hole Boundary) int {
+// around the middle of hole's first piece: the smallest outer edge around the hole. A hole around
+// which none winds (which a valid boundary never has) goes with the first, so that no material is lost.
+// Only the outer edges whose box (in the tree around, over the outers' bounds) holds that point can
+// wind around it, so only those are asked, last first: a plate with thousands of cut-outs and islands
+// costs a few queries per hole, not one per outer edge.
+func innermost(outers []Boundary, around *boxTree, hole Boundary) int {
 	p := hole.Pieces[0].At(0.5)
-	for i := len(outers) - 1; i >= 0; i-- {
-		if boxes[i].Contains(p) && outers[i].Contains(p) {
-			return i
+	var near []int
+	around.overlapping(Rect{p, p}, func(i int) bool { near = append(near, i); return true })
+	slices.Sort(near)
+	for k := len(near) - 1; k >= 0; k-- {
+		if outers[near[k]].Contains(p) {
+			return near[k]
 		}
 	}
 	return 0

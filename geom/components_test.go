@@ -66,3 +66,21 @@ func TestComponents(t *testing.T) {
 
 // outsideCuts keeps the points of the first region outside the second.
 func outsideCuts(in []bool) bool { return in[0] && !in[1] }
+
+// TestComponentsManyHoles splits a plate with 300 glyph cut-outs, every third with a counter that
+// stays material: the plate with its 300 holes, and 100 islands; the areas add up to the whole.
+func TestComponentsManyHoles(t *testing.T) {
+	plate, glyphs := glyphPlate(300)
+	b := Difference(plate, glyphs...)
+	comps := b.Components()
+	if len(comps) != 101 {
+		t.Fatalf("%d components, want 101", len(comps))
+	}
+	total := 0.0
+	for _, c := range comps {
+		total += unitMoments(c).M
+	}
+	if whole := unitMoments(b).M; math.Abs(total-whole) > 1e-12*whole {
+		t.Errorf("components' areas add to %v, want %v", total, whole)
+	}
+}

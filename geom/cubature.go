@@ -353,18 +353,21 @@ func (c *cubature) queue(s Segment, no, ni, np int, dst *rawMoments) {
 	n := no * ni * np
 	c.xs, c.ys, c.us = slices.Grow(c.xs, n)[:i+n], slices.Grow(c.ys, n)[:i+n], slices.Grow(c.us, n)[:i+n]
 	c.vs, c.ws = slices.Grow(c.vs, no)[:k0+no], slices.Grow(c.ws, no)[:k0+no]
-	xs, ys, us := c.xs[i:], c.ys[i:], c.us[i:]
+	xs, ys, us := c.xs[i:i+n], c.ys[i:i+n], c.us[i:i+n]
+	vs, ws := c.vs[k0:k0+no], c.ws[k0:k0+no]
 	e := s.evaluator()
+	base, ox, oy, cx, cy := c.base, c.o.X, c.o.Y, c.c.X, c.c.Y // locals: the stores below cannot change them
 	i = 0
 	for k, t := range outer.t {
 		x, y, dy := e.at(t)
-		span := (x - c.base) / float64(np)
-		c.vs[k0+k], c.ws[k0+k] = y, outer.w[k]*dy*span
+		span := (x - base) / float64(np)
+		vs[k], ws[k] = y, outer.w[k]*dy*span
+		row := oy + (cy + y)
 		for panel := range np {
-			left := c.base + span*float64(panel)
+			left := base + span*float64(panel)
 			for _, tau := range inner.t {
 				u := left + span*tau
-				us[i], xs[i], ys[i] = u, c.o.X+(c.c.X+u), c.o.Y+(c.c.Y+y)
+				us[i], xs[i], ys[i] = u, ox+(cx+u), row
 				i++
 			}
 		}
@@ -397,12 +400,14 @@ func (c *cubature) flush() error {
 func (c *cubature) sumJob(j gridJob, out []float64) rawMoments {
 	inner := gaussLegendre(j.ni)
 	var r rawMoments
-	i := j.node
+	n := j.no * j.ni * j.np
+	us, out := c.us[j.node:j.node+n], out[j.node:j.node+n]
+	i := 0
 	for k := range j.no {
 		var m, su, suu float64
 		for range j.np {
 			for _, w := range inner.w {
-				u, f := c.us[i], w*out[i]
+				u, f := us[i], w*out[i]
 				m, su, suu = m+f, su+f*u, suu+f*u*u
 				i++
 			}

@@ -23,9 +23,9 @@
 // For a monomial f = x^i y^j this is ∬ x^i y^j dA = ∮ x^(i+1)/(i+1) · y^j dy. On a segment P(t), t ∈ [0, 1],
 // the line integral is ∫₀¹ x(t)^(i+1)/(i+1) · y(t)^j · y'(t) dt. For lines and Béziers of degree k the
 // integrand is a polynomial of degree k(i+j+2) − 1 in t, so Gauss–Legendre with ⌈k(i+j+2)/2⌉ nodes
-// integrates it exactly (Boundary.IntegratePoly;
-// Boundary.IntegratePolyAbout takes the polynomial in coordinates about a point near the part, so
-// that a density written about a far point is never expanded into terms that cancel). An arc is cut into pieces of at most 90°, and each
+// integrates it exactly (Boundary.IntegratePoly; Boundary.IntegratePolyAbout takes the polynomial in
+// coordinates about a point near the part, so that a density written about a far point is never
+// expanded into terms that cancel). An arc is cut into pieces of at most 90°, and each
 // piece contributes its chord (a line) plus the area integral over the segment between chord and arc,
 // computed in the chord's frame from the end points and the sweep (product Gauss–Legendre with the
 // order chosen for the rounding level), so that a nearly flat arc keeps its small segment exactly: the
@@ -45,8 +45,10 @@
 // Boundary.Local gives the pieces about a nearby exact origin, for callers that work in a local frame.
 //
 // For a constant density the straight edges use the closed-form moments of the triangles they form with
-// the local origin (Steger, below), and curved pieces are converted to the same triangle-fan form by
-// adding the line integrals along the two radii from the local origin to their ends.
+// the local origin (Steger, below), the arcs their chords' triangles plus their segments, and Béziers
+// are converted to the same triangle-fan form by adding the line integrals along the two radii from
+// the local origin to their ends. Where fused multiply-adds are single instructions (amd64.v3, arm64)
+// the triangle terms use them.
 //
 // # Moments
 //

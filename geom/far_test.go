@@ -65,8 +65,8 @@ func farCases() []farCase {
 
 // farAgree checks the moments got of a shape translated by d against want of the shape at the origin:
 // mass, centroid offset and central second moments to rel of themselves (the quantities that are 0 by
-// symmetry to 1e-15 of the part's scale: its size, or iyy + ixx), the absolute centroid to 2 units in
-// the last place.
+// symmetry to 1e-15 of the part's scale: its size, or mass × size²), the absolute centroid to 2 units
+// in the last place.
 func farAgree(t *testing.T, name string, got, want Moments, d Point, size, rel float64) {
 	t.Helper()
 	gxx, gyy, gxy := got.Central()
@@ -78,7 +78,7 @@ func farAgree(t *testing.T, name string, got, want Moments, d Point, size, rel f
 		zeroScale float64
 	}{
 		{"mass", got.M, want.M, 0}, {"x̄ − d.x", off.X, wc.X, size}, {"ȳ − d.y", off.Y, wc.Y, size},
-		{"ixx", gxx, wxx, 0}, {"iyy", gyy, wyy, 0}, {"ixy", gxy, wxy, wxx + wyy},
+		{"ixx", gxx, wxx, 0}, {"iyy", gyy, wyy, 0}, {"ixy", gxy, wxy, math.Abs(want.M) * size * size},
 	} {
 		if tol := math.Max(rel*math.Abs(q.want), 1e-15*q.zeroScale); !(math.Abs(q.got-q.want) <= tol) {
 			t.Errorf("%s at %v: %s = %.17g, want %.17g (error %.2g of itself)", name, d, q.what, q.got,

@@ -183,7 +183,9 @@ func (ms monos) sweepTree(order []edge, tol float64, visit func(j, i int) bool) 
 	for r, e := range order {
 		bi := boxes[e.i]
 		near = near[:0]
-		q := Rect{bi.Min.Sub(Pt(tol, tol)), bi.Max.Add(Pt(tol, tol))}
+		// A box of lower rank starts no further right than bi, and meets it only if it reaches bi's
+		// left edge: it meets the strip along that edge.
+		q := Rect{bi.Min.Sub(Pt(tol, tol)), Pt(bi.Min.X, bi.Max.Y+tol)}
 		tree.overlapping(q, func(j int) bool {
 			if int(rank[j]) < r && boxesMeet(boxes[j], bi, tol) {
 				near = append(near, rank[j])

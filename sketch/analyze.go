@@ -69,6 +69,9 @@ type Piece struct {
 type layer struct {
 	b geom.Boundary
 	f *density.Field
+	// check is the interval check of f over b, when one was made for a density integrated
+	// numerically; a hole inside the material reuses it (withHole).
+	check *checkResult
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -116,7 +119,11 @@ func (d *Document) lengthUnit() (density.Length, error) {
 // the error estimate reported in RelErr and a warning that the estimate is not a guaranteed bound
 // (with the interval check's guaranteed bounds of the mass). A density that is negative, infinite or
 // NaN on the part is an error naming the point in document units (see integrateField).
-func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
+func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) { return analyze(d, opt, nil) }
+
+// analyze is Analyze; known, when not nil, is what the interval check found on the material
+// before a hole inside it was cut (see holeCheck), for the base material.
+func analyze(d *Document, opt AnalyzeOptions, known *holeCheck) (*Analysis, error) {
 	unit, err := d.lengthUnit()
 	if err != nil {
 		return nil, err
@@ -145,7 +152,7 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 		return a.shapeOnly(d, shape, unit)
 	}
 	whole := materialPart{regions: p.regions, keep: p.keep, body: a.Body}
-	total, poly, err := a.addDensity(whole, &shape, d.Material, "material", unit, opt)
+	total, poly, err := a.addDensity(whole, &shape, d.Material, "material", unit, opt, known)
 	if err != nil {
 		return nil, err
 	}
@@ -161,7 +168,7 @@ func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) {
 			continue
 		}
 		part := materialPart{regions: on, keep: p.onOverlay, body: b}
-		m, _, err := a.addDensity(part, nil, ov.Material, path+".material", unit, opt)
+		m, _, err := a.addDensity(part, nil, ov.Material, path+".material", unit, opt, nil)
 		if err != nil {
 			return nil, err
 		}
@@ -205,7 +212,7 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 			if li > 0 {
 				k = holdingPiece(comps, part)
 			}
-			r, err := integrateField(pieceOf(part), nil, l.f, opt)
+			r, err := integrateField(pieceOf(part), nil, l.f, opt, nil)
 			if err != nil {
 				return err
 			}
@@ -389,7 +396,7 @@ func overlayName(ov Overlay, i int) string {
 // addDensity integrates the density spec over the material m and records its description, error
 // estimate and warnings. shape, when not nil, holds m's area moments; the density's polynomial is
 // returned when it is one.
-func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions) (geom.Moments, *localPoly, error) {
+func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.Spec, path string, unit density.Length, opt AnalyzeOptions, known *holeCheck) (geom.Moments, *localPoly, error) {
 	if spec.Material == "" && spec.Formula == "" {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: "no material or density given (a material and thickness, or an areal-density formula)"}
 	}
@@ -406,11 +413,11 @@ func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
 	a.Materials = append(a.Materials, f.Describe())
-	a.layers = append(a.layers, layer{m.body, f})
-	r, err := integrateField(m, shape, f, opt)
+	r, err := integrateField(m, shape, f, opt, known)
 	if err != nil {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
+	a.layers = append(a.layers, layer{b: m.body, f: f, check: r.check})
 	for _, w := range r.warnings {
 		a.Warnings = append(a.Warnings, path+": "+w)
 	}
@@ -426,10 +433,15 @@ func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.
 // the material (as checkHole makes sure) and one polynomial density covers all of it, the hole removes
 // exactly the moments of its disk (IntegratePoly over the disk's circle) and its circle, turned
 // clockwise, joins the boundary. Otherwise (other densities, or a part in several pieces) the part is
-// analysed afresh with the hole as a cut-out.
+// analysed afresh with the hole as a cut-out, reusing the interval check of the base material
+// (holeCheck).
 func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis, error) {
 	if a.poly == nil || len(a.Pieces) > 1 {
-		return Analyze(d.withHoles(h), opt)
+		var known *holeCheck
+		if len(a.layers) > 0 && a.layers[0].check != nil && h.Diameter > 0 {
+			known = &holeCheck{whole: *a.layers[0].check, hole: h}
+		}
+		return analyze(d.withHoles(h), opt, known)
 	}
 	part := *a
 	part.Materials, part.Warnings, part.Cautions = slices.Clone(a.Materials), slices.Clone(a.Warnings), slices.Clone(a.Cautions)

@@ -69,13 +69,14 @@ type densityCheck struct {
 
 // checkResult is what the interval check found.
 type checkResult struct {
-	proved  bool       // the density is at least zero on the part
-	doubt   geom.Point // where the proof failed, when not proved
-	lo, hi  float64    // ∬ρ dA over the part lies in [lo, hi] (when asked for)
-	widest  geom.Rect  // the box that adds most to the enclosure's width
-	hot     geom.Rect  // the box around every box where the density varies by hotShare of its range
-	scale   float64    // the largest density value met
-	boxesIn int
+	proved   bool       // the density is at least zero on the part
+	doubt    geom.Point // where the proof failed, when not proved
+	lo, hi   float64    // ∬ρ dA over the part lies in [lo, hi] (when enclosed)
+	enclosed bool       // the check was asked to enclose the mass
+	widest   geom.Rect  // the box that adds most to the enclosure's width
+	hot      geom.Rect  // the box around every box where the density varies by hotShare of its range
+	scale    float64    // the largest density value met
+	boxesIn  int
 }
 
 // hotShare is the share of the density's whole range (over the part) by which it must vary within a
@@ -321,6 +322,7 @@ func (c *densityCheck) result() checkResult {
 	}
 	if c.enclose {
 		r.lo, r.hi = c.enclosure()
+		r.enclosed = true
 	}
 	return r
 }

@@ -1,6 +1,7 @@
 package sketch
 
 import (
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -420,4 +421,51 @@ func TestTwoChainsTooFlat(t *testing.T) {
 	if err == nil || !strings.Contains(err.Error(), "so flat that the chain tension is beyond any number") {
 		t.Errorf("error %v", err)
 	}
+}
+
+// TestHangFromReusesIntervalCheck hangs the flower part with a formula density that is not a
+// polynomial from a 6 mm hole: the part with the hole reuses the interval check of the part without
+// it (less the hole's disk), and must agree with the part analysed afresh with the hole as a cut-out
+// to the error estimates, carry the same kinds of warning, and its mass must lie within the
+// guaranteed bounds it states, as the fresh analysis's does.
+func TestHangFromReusesIntervalCheck(t *testing.T) {
+	d := flowerDocument(1000, areal("exp(x/200)*(2 + sin(y/50))"))
+	at := geom.Pt(0, 80)
+	h, err := HangFrom(d, at, 6, HangOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	fresh, err := Analyze(d.withHoles(Hole{At: at, Diameter: 6}), AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := h.Part
+	if tol := 4 * (got.RelErr + fresh.RelErr + 1e-13); math.Abs(got.Mass-fresh.Mass) > tol*fresh.Mass ||
+		got.Centroid.Dist(fresh.Centroid) > tol*100 {
+		t.Errorf("reused check: mass %.15g at %v, fresh %.15g at %v", got.Mass, got.Centroid, fresh.Mass, fresh.Centroid)
+	}
+	if len(got.Warnings) != len(fresh.Warnings) {
+		t.Fatalf("warnings %q, fresh %q", got.Warnings, fresh.Warnings)
+	}
+	for _, a := range []*Analysis{got, fresh} {
+		lo, hi := massBounds(t, a.Warnings)
+		if !(lo <= a.Mass && a.Mass <= hi) {
+			t.Errorf("mass %.15g, bounds [%.15g, %.15g] in %q", a.Mass, lo, hi, a.Warnings)
+		}
+	}
+}
+
+// massBounds reads the guaranteed bounds of the mass from the warning that states them.
+func massBounds(t *testing.T, warnings []string) (lo, hi float64) {
+	t.Helper()
+	for _, w := range warnings {
+		if _, rest, ok := strings.Cut(w, "puts the mass between "); ok {
+			if _, err := fmt.Sscanf(rest, "%g and %g kg", &lo, &hi); err != nil {
+				t.Fatal(err)
+			}
+			return lo, hi
+		}
+	}
+	t.Fatalf("no bounds of the mass in %q", warnings)
+	return 0, 0
 }

@@ -15,7 +15,8 @@ import (
 // densityResult is the outcome of integrating one density over its part of the material.
 type densityResult struct {
 	geom.Result
-	poly     *localPoly // the density about a point of the part, when it is a polynomial
+	poly     *localPoly   // the density about a point of the part, when it is a polynomial
+	check    *checkResult // the interval check, for a density integrated numerically
 	warnings []string
 }
 
@@ -25,8 +26,9 @@ type densityResult struct {
 // part. Any other density is cut along the lines where it has kinks or steps (splitAtKinks); the
 // cells where it is a polynomial are integrated exactly, the others by adaptive cubature, and the
 // interval check's guaranteed bounds of the mass go with the result, in a warning that says the
-// cubature's estimate is not a guaranteed bound.
-func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt AnalyzeOptions) (densityResult, error) {
+// cubature's estimate is not a guaranteed bound. known, when not nil, is the check of the material
+// before a hole was cut in it, which stands in for the check of m when it can (holeCheck.check).
+func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt AnalyzeOptions, known *holeCheck) (densityResult, error) {
 	at, pieces := m.body.Local()
 	if c, ok := f.Constant(); ok {
 		if err := f.CheckDomain([]float64{at.X}, []float64{at.Y}); err != nil {
@@ -55,11 +57,14 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 	local := m.translated(at.Mul(-1), pieces)
 	cells, complete := splitAtKinks(local, f, at)
 	numeric := slices.ContainsFunc(cells, func(c densityCell) bool { _, ok := c.r.Field.Polynomial(); return !ok })
-	check, err := checkDensity(m.body, area, f, numeric)
-	if err != nil {
-		return densityResult{}, err
+	var err error
+	check, ok := known.check(f, numeric)
+	if !ok {
+		if check, err = checkDensity(m.body, area, f, numeric); err != nil {
+			return densityResult{}, err
+		}
 	}
-	res := densityResult{warnings: check.signWarnings(f)}
+	res := densityResult{check: &check, warnings: check.signWarnings(f)}
 	res.Result, cells, err = integrateAround(local, cells, f, check, at, opt)
 	if err != nil {
 		return densityResult{}, err
@@ -68,6 +73,33 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 		res.warnings = append(res.warnings, check.boundWarning(f, &res.Result, cells, complete))
 	}
 	return res, nil
+}
+
+// holeCheck is the interval check of a material made before the round hole was cut in it, the hole
+// lying inside the material: the material with the hole is the material less the hole's disk.
+type holeCheck struct {
+	whole checkResult
+	hole  Hole
+}
+
+// check returns the interval check of the material with the hole for the density f, derived from
+// the check without it, and whether it could: when that check proved f at least zero (so it is on
+// the smaller material too) and enclosed the mass when enclose asks for it. The mass then lies
+// within the enclosure without the hole less the disk's mass, which lies between the area of the
+// disk times the lower and the upper interval bound of f over the disk's bounding box. The places
+// where the density varies most (hot, widest) stay those of the whole material.
+func (k *holeCheck) check(f *density.Field, enclose bool) (checkResult, bool) {
+	if k == nil || !k.whole.proved || k.whole.enclosed != enclose {
+		return checkResult{}, false
+	}
+	c := k.whole
+	if enclose {
+		r := k.hole.Diameter / 2
+		box := f.Bounds(k.hole.At.X-r, k.hole.At.X+r, k.hole.At.Y-r, k.hole.At.Y+r)
+		area := geom.Boundary{Pieces: geom.Circle(k.hole.At, r)}.IntegratePoly(geom.ConstPoly(1)).M
+		c.lo, c.hi = c.lo-box.Hi*area, c.hi-box.Lo*area
+	}
+	return c, true
 }
 
 // focusTries is how many times integrateAround cuts out the place where the density varies most.

@@ -23,14 +23,17 @@ func TestLetteringTool(t *testing.T) {
 	before := b.state()
 	// Fit shows the whole plate; this point, left of the panel and below the tool bar, is on it.
 	b.click(150, 330)
-	b.typeKeys("BAKERY")
-	b.waitFor(`plumb.state().lettering.text === "BAKERY"`)
+	b.typeKeys("BAKERY?") // "?" is a character while the tool writes, not the help overlay's key
+	b.waitFor(`plumb.state().lettering.text === "BAKERY?"`)
+	if eval[bool](b, `!document.getElementById("help").hidden`) {
+		t.Errorf("typing ? into lettering opened the help overlay")
+	}
 	after := b.state()
 	if after.Centroid == before.Centroid || !(after.Area < before.Area) {
 		t.Fatalf("balance point %v → %v, area %g → %g: the lettering changed nothing", before.Centroid, after.Centroid, before.Area, after.Area)
 	}
 	d := b.savedPart()
-	if len(d.Texts) != 1 || d.Texts[0].Text != "BAKERY" || d.Texts[0].Font != "go-bold" || d.Texts[0].Height != 50 {
+	if len(d.Texts) != 1 || d.Texts[0].Text != "BAKERY?" || d.Texts[0].Font != "go-bold" || d.Texts[0].Height != 50 {
 		t.Fatalf("saved lettering %+v", d.Texts)
 	}
 	want, err := sketch.Analyze(d, sketch.AnalyzeOptions{})

@@ -91,7 +91,7 @@ func pageHandler(html []byte) http.Handler {
 			return
 		}
 		h := w.Header()
-		h.Set("Content-Type", "text/html; charset=utf-8")
+		h.Set("Content-Type", "text/html; charset="+page.Charset)
 		h.Set("Content-Security-Policy", page.CSP)
 		h.Set("Cache-Control", "no-store")
 		h.Set("X-Content-Type-Options", "nosniff")

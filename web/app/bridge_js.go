@@ -45,6 +45,7 @@ import (
 //	  the Lettering tool's style, given also to the selected lettering
 //	fonts() → [name]        the fonts lettering may use
 //	fontLicence() → string  the Go fonts' licence notice, for the about box
+//	writing() → bool        keys type into lettering (the page leaves "?" to it)
 //
 // After every change it calls window.plumbUI.onChange(state); the page autosaves through saveJSON when
 // the edits pause.
@@ -184,6 +185,7 @@ func installBridge(g *Game) {
 		return out
 	})
 	fn("fontLicence", func([]js.Value) any { return letter.Licence })
+	fn("writing", func([]js.Value) any { return read(g, g.ed.Writing) })
 	fn("shortcuts", func([]js.Value) any {
 		var out []any
 		for _, s := range edit.Shortcuts() {

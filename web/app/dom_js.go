@@ -65,6 +65,13 @@ func tellChange(state []byte) {
 	callPage("onChange", parseJSON(state))
 }
 
+// markTime records performance.now() as window.plumbUI.timing[name], for the page's start-up figures.
+func markTime(name string) {
+	if ui := js.Global().Get("plumbUI"); ui.Truthy() && ui.Get("timing").Truthy() {
+		ui.Get("timing").Set(name, nowMS())
+	}
+}
+
 // nowMS returns the page's clock, performance.now(), in milliseconds.
 func nowMS() float64 {
 	return js.Global().Get("performance").Call("now").Float()

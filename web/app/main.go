@@ -11,6 +11,7 @@ import (
 )
 
 func main() {
+	markTime("mainMs") // the Go runtime and every package are initialised
 	g := newGame()
 	installBridge(g)
 	ebiten.SetWindowTitle("Plumb")

@@ -39,7 +39,7 @@ func TestBuildHello(t *testing.T) {
 		t.Fatal("page has no module")
 	}
 	n, _ := strconv.Atoi(string(m[1]))
-	packed, err := page.Unpack7(string(m[2]), n)
+	packed, err := page.UnpackBytes(string(m[2]), n)
 	if err != nil {
 		t.Fatalf("module does not unpack: %v", err)
 	}

@@ -1,86 +1,102 @@
 package page
 
-import "fmt"
+import (
+	"fmt"
+	"strings"
+	"unicode/utf16"
+)
 
-// The module is packed as text seven bits to a character, which costs 8/7 of its size where base64
-// costs 4/3. The bytes are read as one big-endian bit stream in groups of seven bits (the last group
-// padded with zero bits), and each group g becomes the character U+00gg: plain ASCII, one byte in
-// UTF-8. Three values cannot stand for themselves inside a script element: NUL (which the HTML parser
-// replaces), CR (which it turns into LF) and "<" (which could end the element). Such a group is written
-// together with the group after it (zero past the end) as one character U+0100 + 128·i + next, where i
-// is its index in unsafeGroups; that character takes two bytes in UTF-8 for fourteen bits, the same
-// rate. The decoder needs the byte count to drop the padding bits.
-var unsafeGroups = [3]byte{0x00, 0x0d, '<'}
+// The page is written in windows-1252, the WHATWG encoding that also answers to the labels latin1 and
+// iso-8859-1: one byte a character, so that the compressed module can be stored as its own bytes where
+// base64 would cost a third more. A script element's text can hold every byte but three: NUL (the HTML
+// parser replaces it), CR (it becomes LF) and "<" (it could end the element). Those, and the escape
+// byte itself, are written as escapeByte followed by the byte plus 0x40, which costs 4/256 of the
+// module on average. Everything else on the page is kept to ASCII (see asciiHTML, asciiJS, asciiCSS),
+// so the encoding changes nothing else.
 
-// Pack7 returns data packed as text seven bits to a character.
-func Pack7(data []byte) string {
-	groups := make([]byte, 0, (len(data)*8+6)/7)
-	acc, bits := 0, 0
-	for _, b := range data {
-		acc, bits = acc<<8|int(b), bits+8
-		for bits >= 7 {
-			bits -= 7
-			groups = append(groups, byte(acc>>bits)&0x7f)
+// Charset is the page's character encoding, for its meta element and a server's Content-Type.
+const Charset = "windows-1252"
+
+const escapeByte = 0x01
+
+// PackBytes returns data as the text of a script element on the page.
+func PackBytes(data []byte) string {
+	var b strings.Builder
+	b.Grow(len(data) + len(data)/50)
+	for _, c := range data {
+		switch c {
+		case 0x00, '\r', '<', escapeByte:
+			b.WriteByte(escapeByte)
+			c += 0x40
 		}
-		acc &= 1<<bits - 1
+		b.WriteByte(c)
 	}
-	if bits > 0 {
-		groups = append(groups, byte(acc<<(7-bits))&0x7f)
-	}
-	out := make([]rune, 0, len(groups))
-	for i := 0; i < len(groups); i++ {
-		u := unsafeIndex(groups[i])
-		if u < 0 {
-			out = append(out, rune(groups[i]))
-			continue
-		}
-		next := byte(0)
-		if i+1 < len(groups) {
-			i++
-			next = groups[i]
-		}
-		out = append(out, rune(0x100+128*u+int(next)))
-	}
-	return string(out)
+	return b.String()
 }
 
-func unsafeIndex(g byte) int {
-	for i, u := range unsafeGroups {
-		if g == u {
-			return i
-		}
-	}
-	return -1
-}
-
-// Unpack7 reverses Pack7 for n bytes of data.
-func Unpack7(text string, n int) ([]byte, error) {
+// UnpackBytes reverses PackBytes for n bytes of data, from the page's bytes.
+func UnpackBytes(text string, n int) ([]byte, error) {
 	out := make([]byte, 0, n)
-	acc, bits := 0, 0
-	put := func(g int) {
-		acc, bits = acc<<7|g, bits+7
-		if bits >= 8 {
-			bits -= 8
-			if len(out) < n {
-				out = append(out, byte(acc>>bits))
-			}
-			acc &= 1<<bits - 1
-		}
-	}
-	for i, r := range []rune(text) {
+	for i := 0; i < len(text); i++ {
+		c := text[i]
 		switch {
-		case r < 0x80:
-			put(int(r))
-		case r >= 0x100 && int(r) < 0x100+128*len(unsafeGroups):
-			x := int(r) - 0x100
-			put(int(unsafeGroups[x/128]))
-			put(x % 128)
-		default:
-			return nil, fmt.Errorf("page: packed module: character %d is %U, not one Pack7 writes", i, r)
+		case c == 0x00 || c == '\r' || c == '<':
+			return nil, fmt.Errorf("page: packed module: byte %d is %#x, which PackBytes escapes", i, c)
+		case c == escapeByte:
+			if i++; i == len(text) {
+				return nil, fmt.Errorf("page: packed module ends in an escape")
+			}
+			c = text[i] - 0x40
 		}
+		out = append(out, c)
 	}
 	if len(out) != n {
 		return nil, fmt.Errorf("page: packed module holds %d bytes, want %d", len(out), n)
 	}
 	return out, nil
+}
+
+// cp1252High is what windows-1252 decodes the bytes 0x80 to 0x9F to (WHATWG Encoding Standard, index
+// windows-1252; bytes 0xA0 to 0xFF decode to U+00A0 to U+00FF). The page script maps these characters
+// back to their bytes.
+var cp1252High = [32]rune{
+	0x20AC, 0x0081, 0x201A, 0x0192, 0x201E, 0x2026, 0x2020, 0x2021, 0x02C6, 0x2030, 0x0160, 0x2039, 0x0152, 0x008D, 0x017D, 0x008F,
+	0x0090, 0x2018, 0x2019, 0x201C, 0x201D, 0x2022, 0x2013, 0x2014, 0x02DC, 0x2122, 0x0161, 0x203A, 0x0153, 0x009D, 0x017E, 0x0178,
+}
+
+// asciiOnly replaces every character of s outside ASCII by esc(r).
+func asciiOnly(s string, esc func(r rune) string) string {
+	var b strings.Builder
+	for _, r := range s {
+		if r < 0x80 {
+			b.WriteRune(r)
+		} else {
+			b.WriteString(esc(r))
+		}
+	}
+	return b.String()
+}
+
+// asciiHTML writes HTML text and attribute values in ASCII: character references (HTML §13.1.4).
+func asciiHTML(s string) string {
+	return asciiOnly(s, func(r rune) string { return fmt.Sprintf("&#x%X;", r) })
+}
+
+// asciiJS writes JavaScript in ASCII: \uXXXX escapes, as UTF-16 surrogate pairs above U+FFFF (ECMA-262,
+// §12.9.4). They mean the character in strings, templates and regular expressions, where the page's
+// scripts have their non-ASCII text; in comments they are only text.
+func asciiJS(s string) string {
+	return asciiOnly(s, func(r rune) string {
+		var b strings.Builder
+		for _, u := range utf16.Encode([]rune{r}) {
+			fmt.Fprintf(&b, `\u%04X`, u)
+		}
+		return b.String()
+	})
+}
+
+// asciiCSS writes a style sheet in ASCII: escapes of six hex digits, which need no space after them
+// (CSS Syntax Level 3, §4.3.7).
+func asciiCSS(s string) string {
+	return asciiOnly(s, func(r rune) string { return fmt.Sprintf(`\%06X`, r) })
 }

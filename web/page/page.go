@@ -28,7 +28,8 @@ var (
 	//go:embed panel.js
 	panelJS string
 
-	pageTemplate = template.Must(template.New("page.html").Parse(pageHTML))
+	// The template's own text is kept to ASCII, like everything the page carries (see pack.go).
+	pageTemplate = template.Must(template.New("page.html").Parse(asciiHTML(pageHTML)))
 )
 
 // Assets are what Render packs into the page.
@@ -69,9 +70,9 @@ type Gauge struct {
 	In     float64 `json:"in"`
 }
 
-// Render returns the complete page. The module is stored as its gzip form packed seven bits to a
-// character (Pack7, an eighth smaller than base64) and unpacked in the browser with DecompressionStream; the demo part and presets become JavaScript values
-// (window.PLUMB_DEMO, a string, and window.PLUMB_PRESETS).
+// Render returns the complete page, in windows-1252 (Charset). The module is stored as its gzip form's
+// own bytes (PackBytes) and unpacked in the browser with DecompressionStream; the demo part and presets
+// become JavaScript values (window.PLUMB_DEMO, a string, and window.PLUMB_PRESETS).
 func Render(a Assets) ([]byte, error) {
 	if bytes.Contains(bytes.ToLower(a.WasmExec), []byte("</script")) {
 		return nil, fmt.Errorf("page: wasm_exec.js contains </script and cannot be inlined")
@@ -87,16 +88,22 @@ func Render(a Assets) ([]byte, error) {
 	if err != nil {
 		return nil, err
 	}
+	cp1252JSON, err := json.Marshal(cp1252High)
+	if err != nil {
+		return nil, err
+	}
 	var out bytes.Buffer
 	err = pageTemplate.Execute(&out, map[string]string{
 		"CSP":       CSP,
-		"CSS":       panelCSS,
-		"JS":        panelJS,
-		"WasmExec":  string(a.WasmExec),
-		"Module":    Pack7(a.Module),
+		"Charset":   Charset,
+		"CSS":       asciiCSS(panelCSS),
+		"JS":        asciiJS(panelJS),
+		"WasmExec":  asciiJS(string(a.WasmExec)),
+		"Module":    PackBytes(a.Module),
 		"ModuleLen": strconv.Itoa(len(a.Module)),
-		"Demo":      string(demo),
-		"Presets":   string(presets),
+		"CP1252":    string(cp1252JSON),
+		"Demo":      asciiJS(string(demo)),
+		"Presets":   asciiJS(string(presets)),
 	})
 	if err != nil {
 		return nil, err

@@ -18,10 +18,15 @@ func TestRenderKeepsDemoInsideItsScript(t *testing.T) {
 	if !bytes.Contains(html, []byte(`window.PLUMB_DEMO = "{\"name\": \"\u003c/script\u003e`)) {
 		t.Errorf("demo part not embedded as an escaped string")
 	}
-	// 01 02 03 in seven-bit groups: 0000000 1000000 1000000 0110000 (padded): NUL, then @ @ 0; the NUL
-	// cannot stand alone and goes with the group after it, U+0100 + 0x40 = U+0140.
-	if !bytes.Contains(html, []byte("id=\"plumb-module\" data-bytes=\"3\">\u0140@0</script>")) {
-		t.Errorf("module not embedded packed seven bits a character")
+	// 01 02 03 as its own bytes, the escape byte 01 escaped as 01 41.
+	if !bytes.Contains(html, []byte("id=\"plumb-module\" data-bytes=\"3\">\x01\x41\x02\x03</script>")) {
+		t.Errorf("module not embedded as its own bytes")
+	}
+	if i := bytes.IndexFunc(bytes.ReplaceAll(html, []byte("\x01\x41\x02\x03"), nil), func(r rune) bool { return r >= 0x80 }); i >= 0 {
+		t.Errorf("page has a character outside ASCII at byte %d, besides the module", i)
+	}
+	if !bytes.Contains(html, []byte(`<meta charset="windows-1252">`)) {
+		t.Errorf("page does not declare windows-1252")
 	}
 }
 

@@ -95,26 +95,18 @@
     $("loading-msg").textContent = msg;
   }
 
-  // unpack7 reverses the Go side's Pack7 (web/page/pack.go): seven bits a character; characters from
-  // U+0100 carry one of the three values that cannot stand in a script element and the seven bits after it.
-  const UNSAFE_GROUPS = [0x00, 0x0d, 0x3c];
-  function unpack7(text, n) {
+  // unpackBytes reverses the Go side's PackBytes (web/page/pack.go) on the module's text as the page's
+  // windows-1252 decoding gives it: characters up to U+00FF are their bytes, except those that bytes
+  // 0x80-0x9F decode to, listed in PLUMB_CP1252; byte 0x01 escapes the next byte, 0x40 more than meant.
+  function unpackBytes(text, n) {
+    const high = new Map(window.PLUMB_CP1252.map((c, i) => [c, 0x80 + i]));
     const out = new Uint8Array(n);
-    let acc = 0, bits = 0, o = 0;
-    const put = (g) => {
-      acc = (acc << 7) | g;
-      bits += 7;
-      if (bits >= 8) {
-        bits -= 8;
-        if (o < n) out[o++] = (acc >> bits) & 0xff;
-        acc &= (1 << bits) - 1;
-      }
-    };
-    for (let i = 0; i < text.length; i++) {
-      const c = text.charCodeAt(i);
-      if (c < 0x80) { put(c); continue; }
-      put(UNSAFE_GROUPS[(c - 0x100) >> 7]);
-      put((c - 0x100) & 0x7f);
+    let o = 0;
+    let escaped = false;
+    for (let i = 0; i < text.length && o < n; i++) {
+      let c = text.charCodeAt(i);
+      if (c >= 0x80 && (c < 0xa0 || c > 0xff)) c = high.get(c);
+      if (escaped) { out[o++] = c - 0x40; escaped = false; } else if (c === 0x01) escaped = true; else out[o++] = c;
     }
     if (o !== n) throw new Error("the packed app holds " + o + " bytes, not " + n);
     return out;
@@ -124,7 +116,7 @@
   // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
   async function startApp() {
     const holder = $("plumb-module");
-    const packed = unpack7(holder.textContent, Number(holder.dataset.bytes));
+    const packed = unpackBytes(holder.textContent, Number(holder.dataset.bytes));
     holder.remove();
     timing.unpackedMs = performance.now();
     const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
@@ -913,7 +905,8 @@
       if (app) ACTIONS[e.key === "o" ? "open" : "save"]();
       return;
     }
-    if (!typing && e.key === "?") {
+    // While the Lettering tool writes, "?" is a character of the lettering.
+    if (!typing && e.key === "?" && !(app && app.writing())) {
       e.preventDefault();
       if ($("help").hidden) showHelp(); else closeOverlays();
     }
