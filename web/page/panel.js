@@ -226,25 +226,50 @@
     const s = state;
     const text = app.saveJSON();
     if (text === lastSaved.text) return;
+    const before = lastSaved.text;
     saving = true;
     try {
       const stored = await packText(text);
-      // An edit that empties the part keeps the part it emptied one click away.
-      if (s.empty && !lastSaved.empty && lastSaved.stored !== null) offerPrevious(lastSaved.stored, "Your last part was emptied.");
-      // The last sound part stays when the part stops analysing (an outline half redrawn, say).
-      if (s.error && !s.empty && readStore(SOUND) === "=" && lastSaved.stored !== null) writeStore(SOUND, lastSaved.stored);
-      if (!writeStore(AUTOSAVE, stored)) {
-        toast("This browser's storage is full: save the part to a file.", true);
-        return;
-      }
-      if (!s.error) writeStore(SOUND, "=");
-      lastSaved = { text, stored, empty: Boolean(s.empty) };
+      // A flush while packing wrote a newer part: this one is older, and a later autosave follows.
+      if (lastSaved.text !== before) { autosaveSoon(); return; }
+      keep(s, text, stored);
     } catch (e) {
       toast("The part could not be autosaved: " + e.message + ". Save it to a file.", true);
     } finally {
       saving = false;
     }
   }
+
+  // keep writes the part file text, stored as stored, as the autosave, with what goes beside it.
+  function keep(s, text, stored) {
+    // An edit that empties the part keeps the part it emptied one click away.
+    if (s.empty && !lastSaved.empty && lastSaved.stored !== null) offerPrevious(lastSaved.stored, "Your last part was emptied.");
+    // The last sound part stays when the part stops analysing (an outline half redrawn, say).
+    if (s.error && !s.empty && readStore(SOUND) === "=" && lastSaved.stored !== null) writeStore(SOUND, lastSaved.stored);
+    if (!writeStore(AUTOSAVE, stored)) {
+      toast("This browser's storage is full: save the part to a file.", true);
+      return;
+    }
+    if (!s.error) writeStore(SOUND, "=");
+    lastSaved = { text, stored, empty: Boolean(s.empty) };
+  }
+
+  // flushAutosave writes the part at once when the page is hidden, reloaded or closed: the delayed,
+  // idle-time autosave would never run then, and the last edits would be lost. There is no time to
+  // gzip, so the part file is stored as it is (unpackText takes both forms).
+  function flushAutosave() {
+    if (!app || !restored || !state) return;
+    const text = app.saveJSON();
+    if (text === lastSaved.text) return;
+    clearTimeout(autosaveTimer);
+    try {
+      keep(state, text, text);
+    } catch { /* the page is going away: nothing more can be done */ }
+  }
+  addEventListener("pagehide", flushAutosave);
+  document.addEventListener("visibilitychange", () => {
+    if (document.visibilityState === "hidden") flushAutosave();
+  });
 
   // packText returns text as stored: as it is, or gzipped after "gzip:" in base64 when it is long.
   async function packText(text) {
