@@ -186,11 +186,24 @@ func (b Boundary) Loops() []Loop {
 	n := len(b.Pieces)
 	d := sideTolerance * tolerance(b.Bounds())
 	used := make([]bool, n)
+	// The pieces by the x of their starts: a start within d of p lies within d of p.X, so only that
+	// window is searched (2d wide each way, against rounding); among the nearest, the last piece wins.
+	order := make([]int32, n)
+	for i := range order {
+		order[i] = int32(i)
+	}
+	startX := func(k int32) float64 { return b.Pieces[k].Start().X }
+	slices.SortFunc(order, func(i, j int32) int { return cmp.Or(cmp.Compare(startX(i), startX(j)), cmp.Compare(i, j)) })
 	next := func(p Point) int {
 		best, bestDist := -1, d
-		for i, s := range b.Pieces {
-			if dist := s.Start().Dist(p); !used[i] && dist <= bestDist {
-				best, bestDist = i, dist
+		from, _ := slices.BinarySearchFunc(order, p.X-2*d, func(k int32, x float64) int { return cmp.Compare(startX(k), x) })
+		for _, k := range order[from:] {
+			s := b.Pieces[k]
+			if s.Start().X > p.X+2*d {
+				break
+			}
+			if dist := s.Start().Dist(p); !used[k] && (dist < bestDist || dist == bestDist && int(k) > best) {
+				best, bestDist = int(k), dist
 			}
 		}
 		return best

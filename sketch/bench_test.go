@@ -181,6 +181,42 @@ func BenchmarkRepeatedLoops(b *testing.B) {
 	}
 }
 
+// letteringSign is a 780 × 1000 mm aluminium plate with 60 rows of 80 cut-out capitals and figures,
+// 10 mm high: 4,800 glyphs, about 50,000 Béziers (the browser's sign-scale test opens the same part).
+func letteringSign() *Document {
+	const rows, perRow, text = 60, 80, "SOCGB8O6S9AEHKTRD"
+	d := plate(780, 1000, "8")
+	d.Material = density.Spec{Material: "aluminium 5052", Thickness: "3 mm"}
+	for r := range rows {
+		line := make([]byte, perRow)
+		for i := range line {
+			line[i] = text[(r*perRow+i)%len(text)]
+		}
+		d.Texts = append(d.Texts, Text{Text: string(line), Height: 10, At: geom.Pt(12, 1000-15-16*float64(r)), Spacing: -0.5})
+	}
+	return d
+}
+
+// BenchmarkLetteringSign analyses the 50,000-Bézier lettering sign and looks for its level hole (goal:
+// the search within 3× the analysis).
+func BenchmarkLetteringSign(b *testing.B) {
+	d := letteringSign()
+	b.Run("analyse", func(b *testing.B) {
+		measure(b, func() {
+			if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
+				b.Fatal(err)
+			}
+		})
+	})
+	b.Run("level-hole", func(b *testing.B) {
+		measure(b, func() {
+			if _, err := LevelHole(d, 6, HangOptions{}); err != nil {
+				b.Fatal(err)
+			}
+		})
+	})
+}
+
 // BenchmarkFormulaOutline integrates the exp-sin formula density over the flower part's outline
 // (1,000 segments) to geom's default 1e-10 with the typed formula (density.Field, compiled) and, as
 // the peer in the same run, with the same formula written as a plain Go loop: the same cubature, so

@@ -74,7 +74,7 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result) *result 
 func (r *result) findLevel(dia, edge float64) {
 	start := time.Now()
 	r.levelDia, r.levelEdge, r.levelDone = dia, edge, true
-	r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{Edge: edge})
+	r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{Whole: r.a, Edge: edge})
 	r.levelMS = float64(time.Since(start).Microseconds()) / 1000
 }
 

@@ -53,6 +53,8 @@ const (
 	rulerBottom = 22
 	flatten     = 0.25 // how far a drawn curve may stray from the true one, in device pixels
 	levelAngle  = 0.05 // degrees: a part hanging within this is drawn as level
+	// maxPieceLabels is the most loose pieces numbered on the canvas.
+	maxPieceLabels = 200
 )
 
 // frame is one Draw call's context.
@@ -102,8 +104,9 @@ func (g *Game) Draw(screen *ebiten.Image) {
 // one part, analysis and view, so that frames that change only the marks over it (the pointer, a
 // hover, a typed value) do not flatten and fill every curve again.
 type partLayer struct {
-	img *ebiten.Image
-	key layerKey
+	img     *ebiten.Image
+	scratch *ebiten.Image // fillLoops' layer
+	key     layerKey
 }
 
 // layerKey is what the part layer shows: it is painted again when any of it changes.
@@ -120,16 +123,18 @@ func (fr *frame) base(screen *ebiten.Image) {
 	l := &fr.g.layer
 	if l.img != nil && l.img.Bounds().Size() != screen.Bounds().Size() {
 		l.img.Deallocate()
+		l.scratch.Deallocate()
 		l.img = nil
 	}
 	if l.img == nil {
 		l.img = ebiten.NewImageWithOptions(screen.Bounds(), nil)
+		l.scratch = ebiten.NewImageWithOptions(screen.Bounds(), nil)
 		l.key = layerKey{}
 	}
 	key := layerKey{fr.res, fr.doc, fr.v, fr.g.w, fr.g.h, fr.u}
 	if key != l.key {
 		l.key = key
-		fr.p.dst = l.img
+		fr.p.dst, fr.p.scratch = l.img, l.scratch
 		l.img.Fill(colBackground)
 		fr.grid()
 		fr.origin()
@@ -153,12 +158,10 @@ func (fr *frame) segPath(segs []geom.Segment, closeLoops bool) *vector.Path {
 
 // fillBoundary fills the material inside a boundary.
 func (fr *frame) fillBoundary(b geom.Boundary, clr color.Color) {
-	var path vector.Path
-	appendBoundary(&path, b.Pieces, fr.v.Affine(), fr.tol())
-	fr.p.fill(&path, clr, ebiten.FillRuleNonZero)
+	fr.p.fillLoops(b.Loops(), fr.v.Affine(), fr.tol(), clr)
 }
 
-// regionPath returns all loops of a region as one path.
+// regionPath returns all loops of a region as one path, for filling by the region's rule.
 func (fr *frame) regionPath(r geom.Region) *vector.Path {
 	var path vector.Path
 	for _, l := range r.Loops {
@@ -167,9 +170,18 @@ func (fr *frame) regionPath(r geom.Region) *vector.Path {
 	return &path
 }
 
+// strokeRegion draws the edges of every loop of a region, in as many calls as their points need.
+func (fr *frame) strokeRegion(r geom.Region, width float64, clr color.Color) {
+	set := pathSet{max: maxStrokePoints}
+	for _, l := range r.Loops {
+		appendSegments(&set, l, fr.v.Affine(), fr.tol(), true)
+	}
+	fr.p.strokeSet(&set, width, clr)
+}
+
 // dashedSegs draws segments dashed.
 func (fr *frame) dashedSegs(segs []geom.Segment, width, on, off float64, clr color.Color) {
-	var path vector.Path
+	path := pathSet{max: maxStrokePoints}
 	var buf []geom.Point
 	m := fr.v.Affine()
 	for _, s := range segs {
@@ -180,7 +192,7 @@ func (fr *frame) dashedSegs(segs []geom.Segment, width, on, off float64, clr col
 		}
 		dashPath(&path, pts, on*fr.u, off*fr.u)
 	}
-	fr.p.stroke(&path, width*fr.u, clr)
+	fr.p.strokeSet(&path, width*fr.u, clr)
 }
 
 // grid draws the minor and major grid lines and the axes through the origin.
@@ -239,9 +251,7 @@ func (fr *frame) ghost() {
 	h := fr.res.hang
 	// The drawn pieces, turned on the way to the screen: they join end to start exactly, as the
 	// turned copies in h.Hanging need not, so the fill has no seams between runs.
-	var path vector.Path
-	appendBoundary(&path, h.Part.Body.Pieces, h.Pose.Then(fr.v.Affine()), fr.tol())
-	fr.p.fill(&path, colGhost, ebiten.FillRuleNonZero)
+	fr.p.fillLoops(h.Part.Body.Loops(), h.Pose.Then(fr.v.Affine()), fr.tol(), colGhost)
 	fr.dashedSegs(h.Hanging.Pieces, 1.2, 5, 4, colGhostEdge)
 }
 
@@ -276,11 +286,11 @@ func (fr *frame) part() {
 		}
 	}
 	for _, r := range append([]geom.Region{d.Outline}, d.Cutouts...) {
-		fr.p.stroke(fr.regionPath(r), 1.5*fr.u, colEdge)
+		fr.strokeRegion(r, 1.5*fr.u, colEdge)
 	}
 	for i, t := range d.Texts {
 		if sh, err := t.Shape(""); err == nil && t.Role != sketch.RoleAdded {
-			fr.p.stroke(fr.regionPath(sh.Region), 1.2*fr.u, colEdge)
+			fr.strokeRegion(sh.Region, 1.2*fr.u, colEdge)
 		} else if err != nil {
 			fr.textError(i)
 		}
@@ -295,9 +305,19 @@ func (fr *frame) loosePieces() {
 	if a == nil || fr.res.doc != fr.doc || len(a.Pieces) < 2 {
 		return
 	}
+	var loops []geom.Loop
+	var edges []geom.Segment
+	for _, p := range a.Pieces[1:] {
+		loops = append(loops, p.Body.Loops()...)
+		edges = append(edges, p.Body.Pieces...)
+	}
+	fr.p.fillLoops(loops, fr.v.Affine(), fr.tol(), colLoose)
+	fr.dashedSegs(edges, 1.2, 4, 3, colLooseEdge)
 	for i, p := range a.Pieces[1:] {
-		fr.fillBoundary(p.Body, colLoose)
-		fr.dashedSegs(p.Body.Pieces, 1.2, 4, 3, colLooseEdge)
+		// Numbers where a number fits, and not thousands of them (a sign's letter counters).
+		if size := p.Body.Bounds().Size(); i >= maxPieceLabels || math.Max(size.X, size.Y)*fr.v.Scale < 14*fr.u {
+			continue
+		}
 		c := fr.screen(p.Centroid)
 		drawText(fr.p.dst, strconv.Itoa(i+1), fr.f.small, c.X, c.Y, alignCentreMiddle, colLooseEdge)
 	}

@@ -22,12 +22,14 @@ var whitePixel = func() *ebiten.Image {
 
 // painter draws vector shapes onto one image, reusing its vertex buffers between calls.
 type painter struct {
-	dst *ebiten.Image
-	vs  []ebiten.Vertex
-	is  []uint16
+	dst     *ebiten.Image
+	scratch *ebiten.Image // as large as dst, for fillLoops
+	vs      []ebiten.Vertex
+	is      []uint16
 }
 
-func (p *painter) triangles(clr color.Color, rule ebiten.FillRule) {
+// draw draws the triangles in p.vs and p.is in one colour by the rule and blend.
+func (p *painter) draw(clr color.Color, rule ebiten.FillRule, blend ebiten.Blend) {
 	r, g, b, a := clr.RGBA()
 	for i := range p.vs {
 		p.vs[i].SrcX, p.vs[i].SrcY = 1, 1
@@ -37,21 +39,21 @@ func (p *painter) triangles(clr color.Color, rule ebiten.FillRule) {
 		p.vs[i].ColorA = float32(a) / 0xffff
 	}
 	p.dst.DrawTriangles(p.vs, p.is, whitePixel, &ebiten.DrawTrianglesOptions{
-		AntiAlias: true, FillRule: rule, ColorScaleMode: ebiten.ColorScaleModePremultipliedAlpha,
+		AntiAlias: true, FillRule: rule, Blend: blend, ColorScaleMode: ebiten.ColorScaleModePremultipliedAlpha,
 	})
 }
 
 // fill fills the path by the rule.
 func (p *painter) fill(path *vector.Path, clr color.Color, rule ebiten.FillRule) {
 	p.vs, p.is = path.AppendVerticesAndIndicesForFilling(p.vs[:0], p.is[:0])
-	p.triangles(clr, rule)
+	p.draw(clr, rule, ebiten.BlendSourceOver)
 }
 
 // stroke draws the path's lines width device pixels wide.
 func (p *painter) stroke(path *vector.Path, width float64, clr color.Color) {
 	op := &vector.StrokeOptions{Width: float32(width), LineJoin: vector.LineJoinRound, LineCap: vector.LineCapRound}
 	p.vs, p.is = path.AppendVerticesAndIndicesForStroke(p.vs[:0], p.is[:0], op)
-	p.triangles(clr, ebiten.FillRuleFillAll)
+	p.draw(clr, ebiten.FillRuleFillAll, ebiten.BlendSourceOver)
 }
 
 // line draws a straight line between screen points.
@@ -76,7 +78,7 @@ const maxDashSteps = 1 << 14
 // dashPath appends the dashes of the polyline pts to path; on and off must be positive. At most
 // maxDashSteps dashes and gaps are laid, and a step too small to move along a segment (a segment far
 // longer than the screen) ends it, so the work never depends on the coordinates.
-func dashPath(path *vector.Path, pts []geom.Point, on, off float64) {
+func dashPath(path pen, pts []geom.Point, on, off float64) {
 	lengths := [2]float64{on, off}
 	state, left := 0, on // state 0 draws a dash, 1 skips a gap; left is what remains of it
 	budget := maxDashSteps
@@ -132,9 +134,16 @@ func (p *painter) roundRect(x, y, w, h, r float64, clr color.Color) {
 	p.fill(&path, clr, ebiten.FillRuleNonZero)
 }
 
+// pen is what appendSegments draws on: a vector.Path or a pathSet.
+type pen interface {
+	MoveTo(x, y float32)
+	LineTo(x, y float32)
+	Close()
+}
+
 // appendSegments adds the segments to path in screen space, flattened to within tol document units;
 // a segment that does not start where the last one ended starts a new subpath.
-func appendSegments(path *vector.Path, segs []geom.Segment, m geom.Affine, tol float64, closeLoops bool) {
+func appendSegments(path pen, segs []geom.Segment, m geom.Affine, tol float64, closeLoops bool) {
 	var pen geom.Point
 	open := false
 	var buf []geom.Point
@@ -157,38 +166,6 @@ func appendSegments(path *vector.Path, segs []geom.Segment, m geom.Affine, tol f
 	if open && closeLoops {
 		path.Close()
 	}
-}
-
-// appendBoundary adds the pieces of a boundary to path for filling under the non-zero rule. The
-// pieces may come in any order: each run of pieces that join end to start becomes a subpath from the
-// anchor (the first piece's start) along the run and back to the anchor. The runs join up into the
-// boundary's closed loops, so the lines to and from the anchor cancel in pairs and every point is
-// wound as often as by the loops alone. (Closing each run on itself instead would fill the chord
-// across every run that is not a whole loop: a hole made of four arcs would show a filled square.)
-func appendBoundary(path *vector.Path, pieces []geom.Segment, m geom.Affine, tol float64) {
-	if len(pieces) == 0 {
-		return
-	}
-	anchor := m.Apply(pieces[0].Start())
-	var pen geom.Point
-	var buf []geom.Point
-	for i, s := range pieces {
-		if i == 0 || s.Start() != pen {
-			if i > 0 {
-				path.Close()
-			}
-			q := m.Apply(s.Start())
-			path.MoveTo(float32(anchor.X), float32(anchor.Y))
-			path.LineTo(float32(q.X), float32(q.Y))
-		}
-		buf = s.Flatten(tol, buf[:0])
-		for _, pt := range buf {
-			q := m.Apply(pt)
-			path.LineTo(float32(q.X), float32(q.Y))
-		}
-		pen = s.End()
-	}
-	path.Close()
 }
 
 // rgba is a colour from 0xRRGGBB and an opacity in [0, 1], premultiplied as Ebiten wants.
