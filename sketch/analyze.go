@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"reflect"
 	"slices"
 	"strings"
 
@@ -47,6 +48,8 @@ type Analysis struct {
 	// polynomial or overlays add their own: with it, a hole inside the material removes exactly the
 	// moments of its disk (withHole).
 	poly *localPoly
+	// shapeRel is the reader's shape error relative to the area, a part of RelErr.
+	shapeRel float64
 }
 
 // localPoly is a polynomial density given about a point near the part: ρ(x, y) = p(x − at.X, y − at.Y).
@@ -70,8 +73,10 @@ type layer struct {
 	b geom.Boundary
 	f *density.Field
 	// check is the interval check of f over b, when one was made for a density integrated
-	// numerically; a hole inside the material reuses it (withHole).
-	check *checkResult
+	// numerically; a hole inside the material reuses it (withHole). why and bound are the reason
+	// and the warning (without its path) that the error estimate is not a guaranteed bound.
+	check      *checkResult
+	why, bound string
 }
 
 // Weight conversions: standard acceleration of gravity g0 = 9.80665 m/s² (3rd CGPM, 1901) and the
@@ -274,6 +279,7 @@ func (a *Analysis) addShapeError(d *Document, unit density.Length) {
 	}
 	rel := d.ShapeError / a.Area
 	a.RelErr += rel
+	a.shapeRel = rel
 	a.Warnings = append(a.Warnings, fmt.Sprintf("some curves of the drawing were approximated by lines (within %.2g %s² of area, %.1e relative)",
 		d.ShapeError, unit.Name, rel))
 }
@@ -417,7 +423,7 @@ func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.
 	if err != nil {
 		return geom.Moments{}, nil, &PathError{Path: path, Msg: err.Error()}
 	}
-	a.layers = append(a.layers, layer{b: m.body, f: f, check: r.check})
+	a.layers = append(a.layers, layer{b: m.body, f: f, check: r.check, why: r.why, bound: r.bound})
 	for _, w := range r.warnings {
 		a.Warnings = append(a.Warnings, path+": "+w)
 	}
@@ -436,10 +442,13 @@ func (a *Analysis) addDensity(m materialPart, shape *geom.Moments, spec density.
 // analysed afresh with the hole as a cut-out, reusing the interval check of the base material
 // (holeCheck).
 func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis, error) {
+	if part, ok, err := a.withoutDisk(h, opt); ok || err != nil {
+		return part, err
+	}
 	if a.poly == nil || len(a.Pieces) > 1 {
 		var known *holeCheck
-		if len(a.layers) > 0 && a.layers[0].check != nil && h.Diameter > 0 {
-			known = &holeCheck{whole: *a.layers[0].check, hole: h}
+		if len(a.layers) > 0 && h.Diameter > 0 {
+			known = (&holeCheck{hole: h}).from(a.layers[0].check)
 		}
 		return analyze(d.withHoles(h), opt, known)
 	}
@@ -457,6 +466,49 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 	}
 	part.Pieces = part.whole()
 	return &part, nil
+}
+
+// withoutDisk returns the analysis of the part with the round hole h removed, when one density that
+// is not a polynomial covers the material, in one piece, and was integrated numerically within its
+// work limit, with no shape error from the reader: the hole's disk is integrated alone (cut at its
+// kinks, as any material; its interval check is derived from the part's, holeCheck) and its moments
+// are subtracted, the two error estimates add, and the
+// interval check of the material stands in for that of the part with the hole (holeCheck: the sign
+// proof holds on the smaller material; the mass bounds lose the disk's). ok is false when this does
+// not apply; the caller then analyses the part afresh.
+func (a *Analysis) withoutDisk(h Hole, opt AnalyzeOptions) (part *Analysis, ok bool, err error) {
+	if len(a.layers) != 1 || len(a.Pieces) != 1 || a.LimitHit || a.shapeRel > 0 || h.Diameter == 0 {
+		return nil, false, nil
+	}
+	l := a.layers[0]
+	i := slices.Index(a.Warnings, "material: "+l.bound)
+	check, ok := (&holeCheck{hole: h}).from(l.check).check(l.f, true)
+	if l.bound == "" || i < 0 || !ok {
+		return nil, false, nil
+	}
+	circle := geom.Circle(h.At, h.Diameter/2)
+	disk, err := integrateField(pieceOf(geom.Boundary{Pieces: circle}), nil, l.f, opt, &holeCheck{whole: *l.check, hole: h, disk: true})
+	if err != nil {
+		return nil, true, &PathError{Path: "material", Msg: err.Error()}
+	}
+	if disk.LimitHit {
+		return nil, false, nil
+	}
+	r := geom.Result{Moments: a.Origin.Sub(disk.Moments)}
+	r.RelErr = (a.RelErr*math.Abs(a.Mass) + disk.RelErr*math.Abs(disk.M)) / math.Abs(r.M)
+	w := check.boundWarning(l.f, &r, l.why)
+	p := *a
+	p.Materials, p.Warnings, p.Cautions = slices.Clone(a.Materials), slices.Clone(a.Warnings), slices.Clone(a.Cautions)
+	p.Warnings[i] = "material: " + w
+	p.Area -= geom.Boundary{Pieces: circle}.IntegratePoly(geom.ConstPoly(1)).M
+	p.Body = geom.Boundary{Pieces: append(slices.Clone(a.Body.Pieces), circle.Reverse()...)}.Indexed()
+	p.layers = []layer{{b: p.Body, f: l.f, check: &check, why: l.why, bound: w}}
+	p.RelErr = r.RelErr
+	if err := p.setMoments(r.Moments); err != nil {
+		return nil, true, err
+	}
+	p.Pieces = p.whole()
+	return &p, true, nil
 }
 
 // toGeomPoly converts density's term list to geom's coefficient layout.
@@ -528,4 +580,26 @@ func (a *Analysis) checkFinite() error {
 		}
 	}
 	return nil
+}
+
+// Reanalyze returns the analysis of d given the analysis prev of the document before, as an editor
+// has it after each change: prev itself when d differs from before only in its name, notes and hang
+// holes (the holes are checked as Analyze checks them), since nothing else Analyze reads has
+// changed; otherwise Analyze(d, opt). Dragging a hole then costs only the hang.
+func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analysis, error) {
+	if prev == nil || before == nil || !d.sameMaterial(before) {
+		return Analyze(d, opt)
+	}
+	if err := d.CheckExtent(); err != nil {
+		return nil, err
+	}
+	return prev, nil
+}
+
+// sameMaterial reports whether d and e agree in everything but their names, notes and holes.
+func (d *Document) sameMaterial(e *Document) bool {
+	a, b := *d, *e
+	a.Name, a.Notes, a.Holes = "", "", nil
+	b.Name, b.Notes, b.Holes = "", "", nil
+	return reflect.DeepEqual(a, b)
 }

@@ -381,3 +381,40 @@ func TestAnalyzeNoMaterial(t *testing.T) {
 		}
 	}
 }
+
+// TestReanalyze: a document that differs from the one before only in its holes, name or notes
+// keeps the analysis before; any other change, and a hole beyond the range Plumb computes in, is
+// analysed afresh, as Analyze would.
+func TestReanalyze(t *testing.T) {
+	before := flowerDocument(40, areal("exp(x/200)*(2 + sin(y/50))"))
+	before.Holes = []Hole{{At: geom.Pt(0, 80), Diameter: 6}}
+	prev, err := Analyze(before, AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tests := []struct {
+		name   string
+		change func(d *Document)
+		reused bool
+		fails  bool
+	}{
+		{"hole moved", func(d *Document) { d.Holes = []Hole{{At: geom.Pt(10, 70), Diameter: 8}} }, true, false},
+		{"renamed, noted, holes gone", func(d *Document) { d.Name, d.Notes, d.Holes = "gate panel", "left leaf", nil }, true, false},
+		{"hole beyond reach", func(d *Document) { d.Holes = []Hole{{At: geom.Pt(1e13, 0), Diameter: 6}} }, false, true},
+		{"formula", func(d *Document) { d.Material = areal("exp(x/300)*(2 + sin(y/50))") }, false, false},
+		{"units", func(d *Document) { d.Units = "cm" }, false, false},
+		{"cut-out", func(d *Document) { d.Cutouts = []geom.Region{rectRegion(-10, -10, 10, 10)} }, false, false},
+	}
+	for _, tt := range tests {
+		d := *before
+		tt.change(&d)
+		got, err := Reanalyze(&d, before, prev, AnalyzeOptions{})
+		if (err != nil) != tt.fails || (got == prev) != tt.reused {
+			t.Errorf("%s: reused %v, error %v", tt.name, got == prev, err)
+			continue
+		}
+		if want, _ := Analyze(&d, AnalyzeOptions{}); !tt.fails && !tt.reused && (got.Mass != want.Mass || got.Centroid != want.Centroid) {
+			t.Errorf("%s: mass %v at %v, Analyze gives %v at %v", tt.name, got.Mass, got.Centroid, want.Mass, want.Centroid)
+		}
+	}
+}

@@ -69,6 +69,35 @@ func BenchmarkRecomputeFlower(b *testing.B) {
 	}
 }
 
+// BenchmarkHoleDragFlower is the browser's work per step of dragging the hang hole: the document
+// differs from the one before only in its hole, so Reanalyze keeps the analysis, and the part is hung
+// from the moved hole.
+func BenchmarkHoleDragFlower(b *testing.B) {
+	for _, tc := range flowerDensities {
+		if tc.fails {
+			continue
+		}
+		b.Run(tc.name, func(b *testing.B) {
+			before := flowerDocument(1000, tc.spec)
+			prev, err := Analyze(before, AnalyzeOptions{})
+			if err != nil {
+				b.Fatal(err)
+			}
+			d := *before
+			d.Holes = []Hole{{At: geom.Pt(0, 80), Diameter: 6}}
+			measure(b, func() {
+				a, err := Reanalyze(&d, before, prev, AnalyzeOptions{})
+				if err != nil || a != prev {
+					b.Fatal(err)
+				}
+				if _, err := HangFrom(&d, geom.Pt(0, 80), 6, HangOptions{Whole: a}); err != nil {
+					b.Fatal(err)
+				}
+			})
+		})
+	}
+}
+
 func BenchmarkHangFromFlower(b *testing.B) {
 	for _, tc := range flowerDensities {
 		if tc.fails {
@@ -191,5 +220,29 @@ type expSinPeer struct{}
 func (expSinPeer) Eval(xs, ys, out []float64) {
 	for i := range out {
 		out[i] = 1e-6 * math.Exp(xs[i]/200) * (2 + math.Sin(ys[i]/50))
+	}
+}
+
+// BenchmarkAnalyzeThousandSides is the native counterpart of the browser's recompute timing
+// (web/browser_test.go TestRecomputeTime): a 1,000-sided polygon around r(θ) = 200 + 20·sin 7θ mm
+// with a formula density, analysed (the page's part has no hole).
+func BenchmarkAnalyzeThousandSides(b *testing.B) {
+	pts := make([]geom.Point, 1000)
+	for i := range pts {
+		a := 2 * math.Pi * float64(i) / float64(len(pts))
+		r := 200 + 20*math.Sin(7*a)
+		pts[i] = geom.Pt(r*math.Cos(a), r*math.Sin(a))
+	}
+	d := NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.Polygon(pts...)}}
+	for _, f := range []string{"8 + k*x*y", "8 + 2*sin(k*x)*cos(k*y)"} {
+		d.Material = density.Spec{Formula: f, Unit: "kg/m2", Params: map[string]float64{"k": 5e-5}}
+		b.Run(f, func(b *testing.B) {
+			measure(b, func() {
+				if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
+					b.Fatal(err)
+				}
+			})
+		})
 	}
 }

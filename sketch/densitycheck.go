@@ -56,7 +56,7 @@ type densityCheck struct {
 	body      geom.Boundary
 	f         *density.Field
 	bounds    []geom.Rect    // of body's pieces
-	ray       []geom.Segment // reused by contains and crossing
+	ray       []geom.Segment // reused by crossing
 	minSide   float64
 	edgeSide  float64
 	scale     float64 // the largest density value met so far
@@ -136,19 +136,9 @@ func (c *densityCheck) push(r geom.Rect, straddle bool, pieces []int) error {
 	return nil
 }
 
-// contains reports whether p lies in the part: Boundary.Contains on the pieces whose boxes (widened
-// by rounding) reach the ray from p towards +x, the only ones whose winding about p can count.
-func (c *densityCheck) contains(p geom.Point) bool {
-	ray := geom.Boundary{Pieces: c.ray[:0]}
-	for i, s := range c.bounds {
-		pad := 1e-12 * (math.Abs(s.Min.Y) + math.Abs(s.Max.Y) + math.Abs(s.Max.X) + 1)
-		if s.Min.Y-pad <= p.Y && p.Y <= s.Max.Y+pad && p.X <= s.Max.X+pad {
-			ray.Pieces = append(ray.Pieces, c.body.Pieces[i])
-		}
-	}
-	c.ray = ray.Pieces
-	return ray.Contains(p)
-}
+// contains reports whether p lies in the part: Boundary.Contains, through the body's box tree when
+// it has one (Analyze's material and Combine's boundaries do).
+func (c *densityCheck) contains(p geom.Point) bool { return c.body.Contains(p) }
 
 // crossing returns the pieces among from whose boxes meet r, or none when none of them comes
 // within r's half-diagonal of its centre (so none meets r).

@@ -17,6 +17,8 @@ func FuzzExtremePart(f *testing.F) {
 	f.Add(0.0, 0.0, 1e155, 0.0, 0.0, 1e155, 1e154, 1e154, 1e150, "1e307", 1e154, 1e154, 1e150)
 	f.Add(5e9, 5e9, 5e9+300, 5e9, 5e9, 5e9+200, 5e9+50, 5e9+50, 10.0, "k*x^2*y", 5e9+10, 5e9+150, 2.0)
 	f.Add(0.0, 0.0, 1e-300, 0.0, 0.0, 1e-300, 1e-301, 1e-301, 1e-302, "1e308", 1e-301, 1e-301, 0.0)
+	f.Add(0.0, 0.0, 600.0, 0.0, 300.0, 400.0, 300.0, 150.0, 50.0, "exp(x/500)*(2 + sin(y/50))", 300.0, 300.0, 8.0)
+	f.Add(5e9, 5e9, 5e9+300, 5e9, 5e9, 5e9+200, 5e9+50, 5e9+50, 10.0, "2 + sin(x/40) + abs(y - 5e9 - 100)/100", 5e9+10, 5e9+150, 2.0)
 	f.Fuzz(func(t *testing.T, x0, y0, x1, y1, x2, y2, cx, cy, r float64, rho string, hx, hy, hd float64) {
 		num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 		for _, v := range []float64{x0, y0, x1, y1, x2, y2, cx, cy, r, hx, hy, hd} {

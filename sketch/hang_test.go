@@ -423,34 +423,55 @@ func TestTwoChainsTooFlat(t *testing.T) {
 	}
 }
 
-// TestHangFromReusesIntervalCheck hangs the flower part with a formula density that is not a
-// polynomial from a 6 mm hole: the part with the hole reuses the interval check of the part without
-// it (less the hole's disk), and must agree with the part analysed afresh with the hole as a cut-out
-// to the error estimates, carry the same kinds of warning, and its mass must lie within the
-// guaranteed bounds it states, as the fresh analysis's does.
-func TestHangFromReusesIntervalCheck(t *testing.T) {
-	d := flowerDocument(1000, areal("exp(x/200)*(2 + sin(y/50))"))
+// TestHangFromSubtractsDisk hangs the flower part from a 6 mm hole at (0, 80) with densities that
+// are not polynomials, one with a kink across the hole (|x| at x = 0) and one with a step across it (y = 81):
+// the part with the hole is the part without it less the hole's disk, integrated alone, with the
+// interval check of the whole part less the disk's bounds (withoutDisk). It must agree with the part
+// analysed afresh with the hole as a cut-out (as is a part with an overlay, reusing the interval
+// check of its base material only) to within the two error estimates, carry the same
+// warnings apart from the numbers of the bounds, and its mass must lie within the bounds it states,
+// as the fresh analysis's does.
+func TestHangFromSubtractsDisk(t *testing.T) {
 	at := geom.Pt(0, 80)
-	h, err := HangFrom(d, at, 6, HangOptions{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	fresh, err := Analyze(d.withHoles(Hole{At: at, Diameter: 6}), AnalyzeOptions{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	got := h.Part
-	if tol := 4 * (got.RelErr + fresh.RelErr + 1e-13); math.Abs(got.Mass-fresh.Mass) > tol*fresh.Mass ||
-		got.Centroid.Dist(fresh.Centroid) > tol*100 {
-		t.Errorf("reused check: mass %.15g at %v, fresh %.15g at %v", got.Mass, got.Centroid, fresh.Mass, fresh.Centroid)
-	}
-	if len(got.Warnings) != len(fresh.Warnings) {
-		t.Fatalf("warnings %q, fresh %q", got.Warnings, fresh.Warnings)
-	}
-	for _, a := range []*Analysis{got, fresh} {
-		lo, hi := massBounds(t, a.Warnings)
-		if !(lo <= a.Mass && a.Mass <= hi) {
-			t.Errorf("mass %.15g, bounds [%.15g, %.15g] in %q", a.Mass, lo, hi, a.Warnings)
+	for _, tt := range []struct {
+		formula string
+		overlay bool // a doubler plate elsewhere on the part: analysed afresh, the check reused
+	}{
+		{"exp(x/200)*(2 + sin(y/50))", false},
+		{"exp(x/200)*(2 + sin(y/50)) + abs(x)/20", false},
+		{"exp(x/200)*(2 + sin(y/50)) + floor(y/81 + 2)", false},
+		{"exp(x/200)*(2 + sin(y/50))", true},
+	} {
+		formula := tt.formula
+		d := flowerDocument(1000, areal(formula))
+		if tt.overlay {
+			d.Overlays = []Overlay{{Name: "doubler", Region: rectRegion(-20, -60, 20, -20), Material: areal("8")}}
+		}
+		h, err := HangFrom(d, at, 6, HangOptions{})
+		if err != nil {
+			t.Fatal(formula, err)
+		}
+		fresh, err := Analyze(d.withHoles(Hole{At: at, Diameter: 6}), AnalyzeOptions{})
+		if err != nil {
+			t.Fatal(formula, err)
+		}
+		got := h.Part
+		if tol := got.RelErr + fresh.RelErr + 1e-13; math.Abs(got.Mass-fresh.Mass) > tol*fresh.Mass ||
+			got.Centroid.Dist(fresh.Centroid) > tol*100 || got.RelErr > 1e-9 {
+			t.Errorf("%s: mass %.15g at %v (error %.1e), fresh %.15g at %v (error %.1e)", formula,
+				got.Mass, got.Centroid, got.RelErr, fresh.Mass, fresh.Centroid, fresh.RelErr)
+		}
+		if len(got.Warnings) != len(fresh.Warnings) || math.Abs(got.Area-fresh.Area) > 1e-12*fresh.Area {
+			t.Fatalf("%s: area %v, fresh %v; warnings %q, fresh %q", formula, got.Area, fresh.Area, got.Warnings, fresh.Warnings)
+		}
+		base := 0.0 // the bounds are of the base material's mass: less the doubler's, 40 × 40 mm at 8 kg/m²
+		if tt.overlay {
+			base = 40 * 40 * 8e-6
+		}
+		for _, a := range []*Analysis{got, fresh} {
+			if lo, hi := massBounds(t, a.Warnings); !(lo <= a.Mass-base && a.Mass-base <= hi) {
+				t.Errorf("%s: mass %.15g less %g, bounds [%.15g, %.15g]", formula, a.Mass, base, lo, hi)
+			}
 		}
 	}
 }

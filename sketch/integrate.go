@@ -17,6 +17,8 @@ type densityResult struct {
 	geom.Result
 	poly     *localPoly   // the density about a point of the part, when it is a polynomial
 	check    *checkResult // the interval check, for a density integrated numerically
+	why      string       // why the error estimate is not a guaranteed bound, when numerically integrated
+	bound    string       // the warning that says so (boundWarning), one of warnings
 	warnings []string
 }
 
@@ -70,34 +72,57 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 		return densityResult{}, err
 	}
 	if numeric {
-		res.warnings = append(res.warnings, check.boundWarning(f, &res.Result, cells, complete))
+		res.why = boundReason(cells, complete)
+		res.bound = check.boundWarning(f, &res.Result, res.why)
+		res.warnings = append(res.warnings, res.bound)
 	}
 	return res, nil
 }
 
 // holeCheck is the interval check of a material made before the round hole was cut in it, the hole
-// lying inside the material: the material with the hole is the material less the hole's disk.
+// lying inside the material: the material with the hole is the material less the hole's disk. With
+// disk set it stands for the check of the disk alone.
 type holeCheck struct {
 	whole checkResult
 	hole  Hole
+	disk  bool
 }
 
-// check returns the interval check of the material with the hole for the density f, derived from
-// the check without it, and whether it could: when that check proved f at least zero (so it is on
-// the smaller material too) and enclosed the mass when enclose asks for it. The mass then lies
-// within the enclosure without the hole less the disk's mass, which lies between the area of the
-// disk times the lower and the upper interval bound of f over the disk's bounding box. The places
-// where the density varies most (hot, widest) stay those of the whole material.
+// from returns k with the check of the material without the hole, or nil when there is none.
+func (k *holeCheck) from(whole *checkResult) *holeCheck {
+	if whole == nil {
+		return nil
+	}
+	k.whole = *whole
+	return k
+}
+
+// check returns the interval check of the material with the hole (or of the disk) for the density
+// f, derived from the check without it, and whether it could: when that check proved f at least
+// zero (so it is on any part of the material) and, for the material with the hole, enclosed the
+// mass when enclose asks for it. The disk's mass lies between its area times the lower and the
+// upper interval bound of f over its bounding box; the mass with the hole within the enclosure
+// without it less those. The places where the density varies most (hot, widest) stay those of the
+// whole material; the disk has none.
 func (k *holeCheck) check(f *density.Field, enclose bool) (checkResult, bool) {
-	if k == nil || !k.whole.proved || k.whole.enclosed != enclose {
+	if k == nil || !k.whole.proved {
+		return checkResult{}, false
+	}
+	r := k.hole.Diameter / 2
+	box := geom.Rect{Min: k.hole.At.Sub(geom.Pt(r, r)), Max: k.hole.At.Add(geom.Pt(r, r))}
+	b := f.Bounds(box.Min.X, box.Max.X, box.Min.Y, box.Max.Y)
+	area := geom.Boundary{Pieces: geom.Circle(k.hole.At, r)}.IntegratePoly(geom.ConstPoly(1)).M
+	lo, hi := b.Lo*area, b.Hi*area
+	if k.disk {
+		return checkResult{proved: true, lo: lo, hi: hi, enclosed: true, widest: box, hot: geom.EmptyRect(),
+			scale: k.whole.scale, boxesIn: 1}, true
+	}
+	if k.whole.enclosed != enclose {
 		return checkResult{}, false
 	}
 	c := k.whole
 	if enclose {
-		r := k.hole.Diameter / 2
-		box := f.Bounds(k.hole.At.X-r, k.hole.At.X+r, k.hole.At.Y-r, k.hole.At.Y+r)
-		area := geom.Boundary{Pieces: geom.Circle(k.hole.At, r)}.IntegratePoly(geom.ConstPoly(1)).M
-		c.lo, c.hi = c.lo-box.Hi*area, c.hi-box.Lo*area
+		c.lo, c.hi = c.lo-hi, c.hi-lo
 	}
 	return c, true
 }
@@ -213,10 +238,9 @@ func (c checkResult) signWarnings(f *density.Field) []string {
 		"(%d boxes): near %s it may be negative, though every value evaluated is zero or more", c.boxesIn, f.Where(c.doubt.X, c.doubt.Y))}
 }
 
-// boundWarning says that r's error estimate is not a guaranteed bound, why, and what the interval
-// check guarantees. When the cubature's mass lies outside the guaranteed bounds, r's estimate is
-// raised to the distance to the farther bound, which is one.
-func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []densityCell, complete bool) string {
+// boundReason says why the error estimate of a density integrated over the cells is not a
+// guaranteed bound: kinks along curves, more kinks than maxCells, or only that it is not a polynomial.
+func boundReason(cells []densityCell, complete bool) string {
 	var rough []string
 	for _, cell := range cells {
 		for _, n := range cell.r.Rough {
@@ -225,15 +249,19 @@ func (c checkResult) boundWarning(f *density.Field, r *geom.Result, cells []dens
 			}
 		}
 	}
-	var why string
 	switch {
 	case len(rough) > 0:
-		why = strings.Join(rough, ", ") + " of an argument that is not linear in x and y has kinks or steps along curves, which the integration does not follow"
+		return strings.Join(rough, ", ") + " of an argument that is not linear in x and y has kinks or steps along curves, which the integration does not follow"
 	case !complete:
-		why = fmt.Sprintf("it has more kinks or steps across the part than it is cut at (%d pieces)", maxCells)
-	default:
-		why = "it is not a polynomial on the part, so it was integrated numerically"
+		return fmt.Sprintf("it has more kinks or steps across the part than it is cut at (%d pieces)", maxCells)
 	}
+	return "it is not a polynomial on the part, so it was integrated numerically"
+}
+
+// boundWarning says that r's error estimate is not a guaranteed bound, why, and what the interval
+// check guarantees. When the cubature's mass lies outside the guaranteed bounds, r's estimate is
+// raised to the distance to the farther bound, which is one.
+func (c checkResult) boundWarning(f *density.Field, r *geom.Result, why string) string {
 	w := "the error estimate is not a guaranteed bound for this density: " + why
 	if math.IsInf(c.lo, 0) || math.IsInf(c.hi, 0) || math.IsNaN(c.lo+c.hi) {
 		return w + "; interval arithmetic gives no bounds on the mass (the formula may be undefined or unbounded near the part)"

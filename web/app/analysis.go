@@ -36,11 +36,17 @@ type result struct {
 }
 
 // analyse runs the analysis and the hang from the first hole on doc, keeping edge distance edge (0: the
-// default rule), and measures how long they took.
-func analyse(doc *sketch.Document, rev int, edge float64) *result {
+// default rule), and measures how long they took. prev, the result before (or nil), lends its
+// analysis when only the holes, name or notes changed (sketch.Reanalyze).
+func analyse(doc *sketch.Document, rev int, edge float64, prev *result) *result {
 	start := time.Now()
 	r := &result{rev: rev, doc: doc, edge: edge}
-	r.a, r.err = sketch.Analyze(doc, sketch.AnalyzeOptions{})
+	var before *sketch.Document
+	var known *sketch.Analysis
+	if prev != nil && prev.a != nil {
+		before, known = prev.doc, prev.a
+	}
+	r.a, r.err = sketch.Reanalyze(doc, before, known, sketch.AnalyzeOptions{})
 	// An analysis that succeeded has checked the geometry already.
 	sound := r.a != nil || geometrySound(doc)
 	switch {

@@ -71,7 +71,7 @@ type uiState struct {
 
 func newGame() *Game {
 	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true, dirty: true}
-	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0)
+	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0, nil)
 	// The empty starting part is nothing to tell: the page loads the autosaved or demo part when it
 	// is ready, and that load is the first change it hears of.
 	g.toldState = g.uiState()
@@ -81,7 +81,7 @@ func newGame() *Game {
 // refresh reanalyses the part if it changed since the last analysis.
 func (g *Game) refresh() {
 	if g.res.rev != g.ed.Rev() || g.res.edge != g.ed.EdgeDistance() {
-		g.res = analyse(g.ed.Document(), g.ed.Rev(), g.ed.EdgeDistance())
+		g.res = analyse(g.ed.Document(), g.ed.Rev(), g.ed.EdgeDistance(), g.res)
 		g.ed.SetGuides(g.guides())
 	}
 }
