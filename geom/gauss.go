@@ -1,6 +1,9 @@
 package geom
 
-import "math"
+import (
+	"math"
+	"sync"
+)
 
 // glRule is an n-point Gauss–Legendre rule on [0, 1]: ∫₀¹ f(t) dt ≈ Σ w[k]·f(t[k]), exact for
 // polynomials of degree ≤ 2n−1.
@@ -9,13 +12,14 @@ type glRule struct{ t, w []float64 }
 // maxGLOrder is the largest Gauss–Legendre order geom uses.
 const maxGLOrder = 64
 
-// glRules[n] is the n-point rule, computed once at start-up.
+// glRules[n] returns the n-point rule, computed when it is first asked for: computing all of them takes
+// tens of milliseconds, which would hold up the browser app's start, and a part uses only a few orders.
 var glRules = makeGLRules()
 
-func makeGLRules() [maxGLOrder + 1]glRule {
-	var rules [maxGLOrder + 1]glRule
+func makeGLRules() [maxGLOrder + 1]func() glRule {
+	var rules [maxGLOrder + 1]func() glRule
 	for n := 1; n <= maxGLOrder; n++ {
-		rules[n] = newGLRule(n)
+		rules[n] = sync.OnceValue(func() glRule { return newGLRule(n) })
 	}
 	return rules
 }
@@ -61,5 +65,5 @@ func gaussLegendre(n int) glRule {
 	if n < 1 || n > maxGLOrder {
 		panic("geom: Gauss–Legendre order out of range")
 	}
-	return glRules[n]
+	return glRules[n]()
 }
