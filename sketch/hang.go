@@ -161,7 +161,9 @@ func onPiece(d *Document, whole *Analysis, i int, which string, unit density.Len
 			c.Texts = append(c.Texts, t)
 		}
 	}
-	a, err := Analyze(&c, opt.Analyze)
+	// The piece's material is whole's piece as it is: it is not combined again.
+	body := whole.Pieces[i].Body
+	a, err := analyze(&c, opt.Analyze, nil, &shapeFacts{body: body, moments: body.IntegratePoly(geom.ConstPoly(1)), comps: []geom.Boundary{body}})
 	if err != nil {
 		return nil, nil, "", err
 	}
@@ -405,6 +407,9 @@ func LevelHole(d *Document, dia float64, opt HangOptions) (*Level, error) {
 	}
 	x, floor := whole.Centroid.X, whole.Centroid.Y
 	for lv.Iterations = 1; ; lv.Iterations++ {
+		if err := opt.Analyze.pace(); err != nil {
+			return nil, err
+		}
 		y, found, material := s.highest(x, floor)
 		if !found {
 			return s.noLevel(lv, x, material)
@@ -531,6 +536,9 @@ func (s *holeSearch) leastTilt() ([]*Hang, error) {
 	var best [2]*candidate // left and right of the centroid
 	column := box.Size().X / tiltColumns
 	for i := range tiltColumns {
+		if err := s.opt.Analyze.pace(); err != nil {
+			return nil, err
+		}
 		s.consider(&best, box.Min.X+(float64(i)+0.5)*column)
 	}
 	var hangs []*Hang
@@ -541,6 +549,9 @@ func (s *holeSearch) leastTilt() ([]*Hang, error) {
 		for step := column / 8; step > column/1000; step /= 8 { // refine around the best column
 			x0 := best[side].at.X
 			for k := -8; k <= 8; k++ {
+				if err := s.opt.Analyze.pace(); err != nil {
+					return nil, err
+				}
 				s.consider(&best, x0+float64(k)*step)
 			}
 		}
