@@ -292,9 +292,10 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 	return nil
 }
 
-// pieceOf describes the material b bounds for integrateField: one region, its loops chained from b.
+// pieceOf describes the material b bounds for integrateField: one region, whose loops are chained
+// from b only when a density with kinks or one integrated numerically needs them (translated).
 func pieceOf(b geom.Boundary) materialPart {
-	return materialPart{regions: []geom.Region{{Loops: b.Loops()}}, keep: func(in []bool) bool { return in[0] }, body: b}
+	return materialPart{keep: func(in []bool) bool { return in[0] }, body: b}
 }
 
 // whole returns the part as its one piece.
@@ -651,7 +652,7 @@ func (a *Analysis) checkFinite() error {
 // Analyze(d, opt). Dragging a hole then costs only the hang.
 func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analysis, error) {
 	switch {
-	case prev == nil || before == nil || prev.shape == nil || !d.sameShape(before):
+	case prev == nil || before == nil || prev.shape == nil || !d.SameShape(before):
 		return Analyze(d, opt)
 	case !reflect.DeepEqual(d.Material, before.Material):
 		return analyze(d, opt, nil, prev.shape)
@@ -662,9 +663,9 @@ func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analys
 	return prev, nil
 }
 
-// sameShape reports whether d and e agree in everything but their names, notes, holes and base
-// materials.
-func (d *Document) sameShape(e *Document) bool {
+// SameShape reports whether d and e agree in everything but their names, notes, holes and base
+// materials: whether an analysis of one lends its shape to the other (Reanalyze).
+func (d *Document) SameShape(e *Document) bool {
 	a, b := *d, *e
 	a.Name, a.Notes, a.Holes, a.Material = "", "", nil, density.Spec{}
 	b.Name, b.Notes, b.Holes, b.Material = "", "", nil, density.Spec{}

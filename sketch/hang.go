@@ -199,7 +199,7 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 	}
 	h.Pose = geom.RotateAbout(at, h.AngleDeg*math.Pi/180)
 	h.Hanging = part.Body.Transform(h.Pose)
-	if w := piecesWarning(part.Body, "it hangs from the hole as shown"); w != "" {
+	if w := piecesWarning(len(part.Pieces), "it hangs from the hole as shown"); w != "" {
 		h.Warnings = append(h.Warnings, w)
 	}
 	if opt.MaxTiltDeg > 0 && opt.DrillTol > 0 {
@@ -466,11 +466,14 @@ func (s *holeSearch) highest(x, floor float64) (y float64, found, material bool)
 		if hi <= s.minRaise {
 			break
 		}
-		if hi-lo <= 0 || !s.body.Contains(geom.Pt(x, floor+(lo+hi)/2)) {
+		// A stretch shorter than the hole with its clearance holds no hole: once material is found,
+		// it is not asked whether it is material (a sign's rows of letters cross the vertical many times).
+		top, bottom := hi-s.clear, math.Max(lo, s.minRaise)
+		if hi-lo <= 0 || (top < bottom && material) || !s.body.Contains(geom.Pt(x, floor+(lo+hi)/2)) {
 			continue
 		}
 		material = true
-		if t, ok := s.descend(x, floor, hi-s.clear, math.Max(lo, s.minRaise)); ok {
+		if t, ok := s.descend(x, floor, top, bottom); ok {
 			return floor + t, true, true
 		}
 	}
@@ -653,7 +656,7 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 		}
 	}
 	lift.warn(unit)
-	if w := piecesWarning(part.Body, "the chain loads hold"); w != "" {
+	if w := piecesWarning(len(part.Pieces), "the chain loads hold"); w != "" {
 		lift.Warnings = append(lift.Warnings, w)
 	}
 	return lift, nil
