@@ -287,8 +287,8 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 		p := &a.Pieces[i]
 		p.Mass, p.Centroid = p.Origin.M, p.Origin.Centroid()
 	}
-	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s %s fall out unless bridged",
-		len(a.Pieces), pieceList(a.Pieces[1:]), unit.Name))
+	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s fall out unless bridged",
+		len(a.Pieces), pieceList(a.Pieces[1:], unit.Name)))
 	return nil
 }
 
@@ -316,17 +316,26 @@ func holdingPiece(comps []geom.Boundary, part geom.Boundary) int {
 	return 0
 }
 
-// pieceList lists the centroids of pieces as "(x, y), (x, y)".
-func pieceList(pieces []Piece) string {
+// pieceList lists the centroids of pieces in the unit named, as "(x, y), (x, y) mm", the first
+// maxListedPieces of them, then how many more there are.
+func pieceList(pieces []Piece, unit string) string {
 	var b strings.Builder
-	for i, p := range pieces {
+	for i, p := range pieces[:min(len(pieces), maxListedPieces)] {
 		if i > 0 {
 			b.WriteString(", ")
 		}
 		fmt.Fprintf(&b, "(%s, %s)", formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y))
 	}
+	fmt.Fprintf(&b, " %s", unit)
+	if more := len(pieces) - maxListedPieces; more > 0 {
+		fmt.Fprintf(&b, " and %d more", more)
+	}
 	return b.String()
 }
+
+// maxListedPieces is how many pieces a warning lists by their centroids: a sign's thousands of letter
+// counters are counted beyond these, and listed in the JSON's pieces.
+const maxListedPieces = 12
 
 // addShapeError adds the reader's bound on approximated curves to the error estimate: an area δA
 // between drawn and held curves changes each moment ∬f by at most δA·max|f|, and max|f| ≤ R^k for a
