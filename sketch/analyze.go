@@ -3,6 +3,7 @@ package sketch
 import (
 	"errors"
 	"fmt"
+	"maps"
 	"math"
 	"reflect"
 	"slices"
@@ -663,7 +664,7 @@ func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analys
 	switch {
 	case prev == nil || before == nil || prev.shape == nil || !d.SameShape(before):
 		return Analyze(d, opt)
-	case !reflect.DeepEqual(d.Material, before.Material):
+	case !sameSpec(d.Material, before.Material):
 		return analyze(d, opt, nil, prev.shape)
 	}
 	if err := d.CheckExtent(); err != nil {
@@ -673,10 +674,28 @@ func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analys
 }
 
 // SameShape reports whether d and e agree in everything but their names, notes, holes and base
-// materials: whether an analysis of one lends its shape to the other (Reanalyze).
+// materials: whether an analysis of one lends its shape to the other (Reanalyze). Lists that are
+// empty agree whether or not they are nil.
 func (d *Document) SameShape(e *Document) bool {
-	a, b := *d, *e
-	a.Name, a.Notes, a.Holes, a.Material = "", "", nil, density.Spec{}
-	b.Name, b.Notes, b.Holes, b.Material = "", "", nil, density.Spec{}
-	return reflect.DeepEqual(a, b)
+	sameOverlay := func(a, b Overlay) bool {
+		return a.Name == b.Name && sameRegion(a.Region, b.Region) && sameSpec(a.Material, b.Material)
+	}
+	return d.Units == e.Units && d.ShapeError == e.ShapeError && sameRegion(d.Outline, e.Outline) &&
+		slices.EqualFunc(d.Cutouts, e.Cutouts, sameRegion) && slices.EqualFunc(d.Overlays, e.Overlays, sameOverlay) &&
+		slices.EqualFunc(d.Texts, e.Texts, sameText)
+}
+
+func sameRegion(a, b geom.Region) bool {
+	return a.Rule == b.Rule && slices.EqualFunc(a.Loops, b.Loops, func(x, y geom.Loop) bool { return slices.Equal(x, y) })
+}
+
+func sameText(a, b Text) bool {
+	return a.Text == b.Text && a.Font == b.Font && a.Height == b.Height && a.At == b.At && a.AngleDeg == b.AngleDeg &&
+		a.Spacing == b.Spacing && a.role() == b.role() && a.Stencil == b.Stencil && sameSpec(a.Material, b.Material)
+}
+
+// sameSpec reports whether two material specs say the same, empty lists and maps agreeing with nil.
+func sameSpec(a, b density.Spec) bool {
+	return a.Material == b.Material && a.Thickness == b.Thickness && a.Formula == b.Formula && a.Unit == b.Unit &&
+		maps.Equal(a.Params, b.Params) && (len(a.Custom) == 0 && len(b.Custom) == 0 || reflect.DeepEqual(a.Custom, b.Custom))
 }
