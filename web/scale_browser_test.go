@@ -106,6 +106,19 @@ func TestLetteringSignScale(t *testing.T) {
 		len(d.Texts), curves, open, result, level)
 	b.checkAllRowsDrawn()
 	mass := b.state().Mass
+	// An edit hands the page the figures of the part before it, marked pending and greyed, until the
+	// background analysis is in: the same script that edits sees that, before the analysis can run.
+	seen := eval[[]any](b, `(plumb.setMaterial({material: "aluminium 5052", thickness: "5 mm"}),
+		[plumb.state().pending, plumb.state().mass, document.getElementById("answers").classList.contains("stale"),
+		 document.getElementById("stale-note").textContent])`)
+	if seen[0] != true || seen[1] != mass || seen[2] != true || !strings.Contains(seen[3].(string), "Working out") {
+		t.Errorf("right after an edit: pending %v, mass %v (before: %v), greyed %v, note %q; want the figures before, pending and greyed",
+			seen[0], seen[1], mass, seen[2], seen[3])
+	}
+	b.waitFor(`!plumb.state().pending`)
+	if got := b.state().Mass; !near(got, mass*5/3, 1e-12, 0) {
+		t.Errorf("at 5 mm the mass is %v, want 5/3 of %v", got, mass)
+	}
 	edits := []struct{ what, call string }{
 		{"thickness", `plumb.setMaterial({material: "aluminium 5052", thickness: "2 mm"})`},
 		{"thickness", `plumb.setMaterial({material: "aluminium 5052", thickness: "4 mm"})`},
