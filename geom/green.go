@@ -36,7 +36,7 @@ func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
 	if o != c {
 		p = p.Shift(o.Sub(c))
 	}
-	acc := newGreenSums(p.Deg + 2)
+	acc := newGreenSums(p)
 	var fan fanSums
 	for i := 0; i < len(pieces); i++ {
 		s := &pieces[i]
@@ -58,7 +58,7 @@ func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
 		}
 	}
 	fan.addTo(acc)
-	return momentsAbout(o, acc.moments(p))
+	return momentsAbout(o, acc.moments())
 }
 
 // PolygonMoments returns the moments of the uniform unit density over the polygon through pts (closed
@@ -151,20 +151,25 @@ func (s Segment) translated(d Point) Segment {
 	return s
 }
 
-// greenSums accumulates, for every monomial u^a·v^b with a+b ≤ deg, the line integral
-// ∮ u^(a+1)·v^b dv, which is (a+1)·∬ u^a·v^b dA once the boundary closes.
+// greenSums accumulates the moments of the density q (in local coordinates u, v) in two parts: along
+// the boundary, for every monomial u^a·v^b with a+b ≤ deg = q.Deg + 2, the line integral
+// ∮ u^(a+1)·v^b dv, which is (a+1)·∬ u^a·v^b dA once the boundary closes; over areas (the segments
+// between arcs and their chords), the moments of q themselves, weighted at each node.
 type greenSums struct {
 	deg    int
+	q      Poly
 	sums   []float64 // by PolyIndex(a, b)
+	area   rawMoments
 	up, vp []float64 // powers of one point's coordinates (fanCorrection)
 	// Per-node buffers of rule and arcSegment, made by nodes.
 	nodeU, nodeV, row, term []float64
 }
 
-// newGreenSums returns empty sums of degree deg. The per-node buffers are made on first use (nodes),
-// so that a polygon, which needs none, allocates little.
-func newGreenSums(deg int) *greenSums {
-	return &greenSums{deg: deg, sums: make([]float64, PolyLen(deg)),
+// newGreenSums returns empty sums for the density q. The per-node buffers are made on first use
+// (nodes), so that a polygon, which needs none, allocates little.
+func newGreenSums(q Poly) *greenSums {
+	deg := q.Deg + 2
+	return &greenSums{deg: deg, q: q, sums: make([]float64, PolyLen(deg)),
 		up: make([]float64, deg+2), vp: make([]float64, deg+1)}
 }
 
@@ -182,13 +187,13 @@ func (g *greenSums) rule(e *evaluator, r glRule) {
 		u, v, dv := e.at(t)
 		us[k], vs[k], row[k] = u, v, r.w[k]*dv*u
 	}
-	g.accumulate(us, vs, row, 0)
+	g.accumulate(us, vs, row)
 }
 
-// accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, (a+1)^p·Σ_k row[k]·u_k^a·v_k^b to its
-// sum (p is 0 or 1), and overwrites row. It walks the monomials row by row (v^b), multiplying a per-node
+// accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, Σ_k row[k]·u_k^a·v_k^b to its sum, and
+// overwrites row. It walks the monomials row by row (v^b), multiplying a per-node
 // term by u for each step along a row, so that every sum is formed in a register and stored once.
-func (g *greenSums) accumulate(us, vs, row []float64, p int) {
+func (g *greenSums) accumulate(us, vs, row []float64) {
 	term := g.term[:len(row)]
 	for b := 0; b <= g.deg; b++ {
 		copy(term, row)
@@ -197,9 +202,6 @@ func (g *greenSums) accumulate(us, vs, row []float64, p int) {
 			for k, x := range term {
 				sum += x
 				term[k] = x * us[k]
-			}
-			if p == 1 {
-				sum *= float64(a + 1)
 			}
 			g.sums[PolyIndex(a, b)] += sum
 		}
@@ -226,8 +228,8 @@ func (g *greenSums) arc(s Segment, fan *fanSums) {
 	}
 }
 
-// arcSegment adds sign(Sweep)·(a+1)·∬ u^a·v^b dA over the segment D between the arc p (|Sweep| ≤ π/2)
-// and its chord.
+// arcSegment adds sign(Sweep)·∬ q·(1, u, v, u², uv, v²) dA over the segment D between the arc p
+// (|Sweep| ≤ π/2) and its chord to the area moments.
 //
 // The segment is computed in the chord's frame (Segment.chordFrame), from the end points and the
 // sweep, so that it is as exact relative to itself as to the whole part, however flat: with
@@ -270,7 +272,24 @@ func (g *greenSums) arcSegment(p Segment) {
 			i++
 		}
 	}
-	g.accumulate(us, vs, row, 1)
+	g.areaNodes(us, vs, row)
+}
+
+// areaNodes adds Σ_k row[k]·q(u_k, v_k)·(1, u_k, v_k, u_k², u_k·v_k, v_k²) to the area moments and
+// overwrites row. Weighting each node by q once costs fewer operations than summing every monomial of
+// degree deg and applying q at the end, and keeps the six sums in registers.
+func (g *greenSums) areaNodes(us, vs, row []float64) {
+	rho := g.term[:len(row)]
+	g.q.Eval(us, vs, rho)
+	r := g.area
+	for k, w := range row {
+		u, v := us[k], vs[k]
+		w *= rho[k]
+		wu, wv := w*u, w*v
+		r.m, r.sx, r.sy = r.m+w, r.sx+wu, r.sy+wv
+		r.sxx, r.sxy, r.syy = r.sxx+wu*u, r.sxy+wu*v, r.syy+wv*v
+	}
+	g.area = r
 }
 
 // nodes returns the per-node buffers, at least n long.
@@ -318,10 +337,9 @@ func (g *greenSums) fanCorrection(start, end Point) {
 // monomial returns ∬ u^a·v^b dA.
 func (g *greenSums) monomial(a, b int) float64 { return g.sums[PolyIndex(a, b)] / float64(a+1) }
 
-// moments returns the integrals of the density q, given in the same local coordinates, times 1, u, v,
-// u², uv and v². q.Deg must be g.deg − 2.
-func (g *greenSums) moments(q Poly) rawMoments {
-	var r rawMoments
+// moments returns the integrals of the density q times 1, u, v, u², uv and v².
+func (g *greenSums) moments() rawMoments {
+	q, r := g.q, g.area
 	for i := 0; i <= q.Deg; i++ {
 		for j := 0; i+j <= q.Deg; j++ {
 			c := q.C[PolyIndex(i, j)]
