@@ -191,22 +191,26 @@ func (g *greenSums) rule(e *evaluator, r glRule) {
 }
 
 // accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, Σ_k row[k]·u_k^a·v_k^b to its sum, and
-// overwrites row. It walks the monomials row by row (v^b), multiplying a per-node
-// term by u for each step along a row, so that every sum is formed in a register and stored once.
+// overwrites row. It walks the monomials row by row (v^b), multiplying a per-node term by u for each
+// step along a row, so that every sum is formed in a register and stored once; the first step of a
+// row also moves row on to the next power of v.
 func (g *greenSums) accumulate(us, vs, row []float64) {
 	term := g.term[:len(row)]
+	us, vs = us[:len(row)], vs[:len(row)]
 	for b := 0; b <= g.deg; b++ {
-		copy(term, row)
-		for a := 0; a+b <= g.deg; a++ {
+		sum := 0.0
+		for k, x := range row {
+			sum += x
+			term[k], row[k] = x*us[k], x*vs[k]
+		}
+		g.sums[PolyIndex(0, b)] += sum
+		for a := 1; a+b <= g.deg; a++ {
 			sum := 0.0
 			for k, x := range term {
 				sum += x
 				term[k] = x * us[k]
 			}
 			g.sums[PolyIndex(a, b)] += sum
-		}
-		for k, v := range vs {
-			row[k] *= v
 		}
 	}
 }
