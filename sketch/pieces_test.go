@@ -121,7 +121,7 @@ func TestSeparatePieces(t *testing.T) {
 			d := plate(1, 1, "1")
 			d.Outline = geom.Region{Loops: tt.outline, Rule: geom.NonZero}
 			d.Cutouts = tt.cutouts
-			if got := separatePieces(d.Body()); got != tt.want {
+			if got := len(d.Body().Components()); got != tt.want {
 				t.Errorf("%d pieces, want %d", got, tt.want)
 			}
 		})
