@@ -1,14 +1,16 @@
 #include "textflag.h"
 
-// func fanChainSSE2(ch *fanChain, pts []Point, c Point)
+// func fanChainSSE2(ch *fanChain, p *Point, n, stride int, c Point)
 //
-// The loop of fanChain.addGeneric with x and y in the two lanes of one register: per point, Q = q − c,
+// The loop of fanChain.addGeneric over the n points p, p + stride bytes, …, with x and y in the two
+// lanes of one register: per point, Q = q − c,
 // k = px·qy − py·qx, K = kp + k, (pK, pL) = P·K, (u, v) = (pK, pL) + Q·k, and the sums
 // (x, y) += (pK, pL), (xx, yy) += P·(u, v), (xy₁, xy₂) += P·(v, u), a += k.
 TEXT ·fanChainSSE2(SB), NOSPLIT, $0-48
 	MOVQ ch+0(FP), DI
-	MOVQ pts_base+8(FP), SI
-	MOVQ pts_len+16(FP), CX
+	MOVQ p+8(FP), SI
+	MOVQ n+16(FP), CX
+	MOVQ stride+24(FP), DX
 	MOVSD c_X+32(FP), X0
 	MOVHPD c_Y+40(FP), X0      // X0 = (cx, cy)
 	MOVUPD 0(DI), X2           // (x, y)
@@ -44,7 +46,7 @@ loop:
 	MULPD X1, X5               // (px·v, py·u)
 	ADDPD X5, X12              // (xy₁, xy₂) += …
 	MOVAPD X4, X1              // P = Q
-	ADDQ $16, SI
+	ADDQ DX, SI
 	DECQ CX
 	JNZ loop
 

@@ -75,3 +75,24 @@ func TestFanChainKernelMatchesGeneric(t *testing.T) {
 		}
 	}
 }
+
+// TestFanChainEndsMatchPoints checks that the chain reads lines' end points in place (addEnds) as it
+// reads the same points from a slice.
+func TestFanChainEndsMatchPoints(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 8))
+	c := Pt(3e4, -2e4)
+	for _, n := range []int{1, 2, 9, 300} {
+		pts := randomPolyline(rng, n+1, c, 50)
+		lines := make([]Segment, n)
+		for i := range lines {
+			lines[i] = Line(pts[i], pts[i+1])
+		}
+		var got, want fanChain
+		got.add(pts[:1], c)
+		got.addEnds(lines, c)
+		want.add(pts, c)
+		if got != want {
+			t.Errorf("n %d: %+v, want %+v", n, got, want)
+		}
+	}
+}

@@ -77,38 +77,30 @@ func PolygonMoments(pts []Point) Moments {
 	return momentsAbout(c, rawMoments{f.a / 2, f.x / 6, f.y / 6, f.xx / 12, f.xy / 24, f.yy / 12})
 }
 
-// lineBatch is how many points lines gathers before it hands them to the chain: 2 kB on the stack.
+// lineBatch is how many lines lines hands to the chain at a time: 16 kB of segments, which the chain
+// reads while they are still in the processor's nearest cache.
 const lineBatch = 128
 
 // lines adds the edges of the leading run of lines among pieces, each moved by −d, and returns how
-// many there were. It gathers their end points (and a start where a line does not begin at the
-// previous end, with the origin between, see fanChain) into a batch for the chain, so that the chain
-// reads 16 bytes a point instead of a 128-byte Segment.
+// many there were. The chain reads the lines' end points in place (fanChain.addEnds) for each stretch
+// in which every line starts where the one before ends; between stretches it goes through the origin
+// to the next start, which adds nothing (see fanChain).
 func (f *fanSums) lines(pieces []Segment, d Point) int {
 	var ch fanChain
-	var buf [lineBatch]Point
 	end := Point{math.NaN(), 0}
-	m, n := 0, 0
-	for i := range pieces {
-		s := &pieces[i]
-		if s.Kind != KindLine {
-			break
+	n := 0
+	for n < len(pieces) && pieces[n].Kind == KindLine {
+		if pieces[n].P[0] != end {
+			ch.add([]Point{d, pieces[n].P[0]}, d)
 		}
-		if m > lineBatch-3 {
-			ch.add(buf[:m], d)
-			m = 0
+		m := n + 1
+		for m < len(pieces) && m-n < lineBatch && pieces[m].Kind == KindLine && pieces[m].P[0] == pieces[m-1].P[1] {
+			m++
 		}
-		if s.P[0] != end {
-			buf[m], buf[m+1] = d, s.P[0] // close the chain so far at the origin, then start anew
-			m += 2
-		}
-		end = s.P[1]
-		buf[m] = end
-		m++
-		n++
+		ch.addEnds(pieces[n:m], d)
+		end, n = pieces[m-1].P[1], m
 	}
-	buf[m] = d
-	ch.add(buf[:m+1], d)
+	ch.add([]Point{d}, d)
 	ch.addTo(f)
 	return n
 }
