@@ -3,6 +3,7 @@ package sketch
 import (
 	"errors"
 	"fmt"
+	"maps"
 	"math"
 	"reflect"
 	"slices"
@@ -287,8 +288,8 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 		p := &a.Pieces[i]
 		p.Mass, p.Centroid = p.Origin.M, p.Origin.Centroid()
 	}
-	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s %s fall out unless bridged",
-		len(a.Pieces), pieceList(a.Pieces[1:]), unit.Name))
+	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s fall out unless bridged",
+		len(a.Pieces), pieceList(a.Pieces[1:], unit.Name)))
 	return nil
 }
 
@@ -316,17 +317,26 @@ func holdingPiece(comps []geom.Boundary, part geom.Boundary) int {
 	return 0
 }
 
-// pieceList lists the centroids of pieces as "(x, y), (x, y)".
-func pieceList(pieces []Piece) string {
+// pieceList lists the centroids of pieces in the unit named, as "(x, y), (x, y) mm", the first
+// maxListedPieces of them, then how many more there are.
+func pieceList(pieces []Piece, unit string) string {
 	var b strings.Builder
-	for i, p := range pieces {
+	for i, p := range pieces[:min(len(pieces), maxListedPieces)] {
 		if i > 0 {
 			b.WriteString(", ")
 		}
 		fmt.Fprintf(&b, "(%s, %s)", formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y))
 	}
+	fmt.Fprintf(&b, " %s", unit)
+	if more := len(pieces) - maxListedPieces; more > 0 {
+		fmt.Fprintf(&b, " and %d more", more)
+	}
 	return b.String()
 }
+
+// maxListedPieces is how many pieces a warning lists by their centroids: a sign's thousands of letter
+// counters are counted beyond these, and listed in the JSON's pieces.
+const maxListedPieces = 12
 
 // addShapeError adds the reader's bound on approximated curves to the error estimate: an area δA
 // between drawn and held curves changes each moment ∬f by at most δA·max|f|, and max|f| ≤ R^k for a
@@ -654,7 +664,7 @@ func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analys
 	switch {
 	case prev == nil || before == nil || prev.shape == nil || !d.SameShape(before):
 		return Analyze(d, opt)
-	case !reflect.DeepEqual(d.Material, before.Material):
+	case !sameSpec(d.Material, before.Material):
 		return analyze(d, opt, nil, prev.shape)
 	}
 	if err := d.CheckExtent(); err != nil {
@@ -664,10 +674,28 @@ func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analys
 }
 
 // SameShape reports whether d and e agree in everything but their names, notes, holes and base
-// materials: whether an analysis of one lends its shape to the other (Reanalyze).
+// materials: whether an analysis of one lends its shape to the other (Reanalyze). Lists that are
+// empty agree whether or not they are nil.
 func (d *Document) SameShape(e *Document) bool {
-	a, b := *d, *e
-	a.Name, a.Notes, a.Holes, a.Material = "", "", nil, density.Spec{}
-	b.Name, b.Notes, b.Holes, b.Material = "", "", nil, density.Spec{}
-	return reflect.DeepEqual(a, b)
+	sameOverlay := func(a, b Overlay) bool {
+		return a.Name == b.Name && sameRegion(a.Region, b.Region) && sameSpec(a.Material, b.Material)
+	}
+	return d.Units == e.Units && d.ShapeError == e.ShapeError && sameRegion(d.Outline, e.Outline) &&
+		slices.EqualFunc(d.Cutouts, e.Cutouts, sameRegion) && slices.EqualFunc(d.Overlays, e.Overlays, sameOverlay) &&
+		slices.EqualFunc(d.Texts, e.Texts, sameText)
+}
+
+func sameRegion(a, b geom.Region) bool {
+	return a.Rule == b.Rule && slices.EqualFunc(a.Loops, b.Loops, func(x, y geom.Loop) bool { return slices.Equal(x, y) })
+}
+
+func sameText(a, b Text) bool {
+	return a.Text == b.Text && a.Font == b.Font && a.Height == b.Height && a.At == b.At && a.AngleDeg == b.AngleDeg &&
+		a.Spacing == b.Spacing && a.role() == b.role() && a.Stencil == b.Stencil && sameSpec(a.Material, b.Material)
+}
+
+// sameSpec reports whether two material specs say the same, empty lists and maps agreeing with nil.
+func sameSpec(a, b density.Spec) bool {
+	return a.Material == b.Material && a.Thickness == b.Thickness && a.Formula == b.Formula && a.Unit == b.Unit &&
+		maps.Equal(a.Params, b.Params) && (len(a.Custom) == 0 && len(b.Custom) == 0 || reflect.DeepEqual(a.Custom, b.Custom))
 }

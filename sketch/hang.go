@@ -168,8 +168,8 @@ func onPiece(d *Document, whole *Analysis, i int, which string, unit density.Len
 		return nil, nil, "", err
 	}
 	loose := slices.Delete(slices.Clone(whole.Pieces), i, i+1)
-	msg := fmt.Sprintf("the part comes apart in %d pieces: the hang uses %s (%s kg of %s kg); the piece(s) at %s %s drop out",
-		len(whole.Pieces), which, formatNumber(a.Mass), formatNumber(whole.Mass), pieceList(loose), unit.Name)
+	msg := fmt.Sprintf("the part comes apart in %d pieces: the hang uses %s (%s kg of %s kg); the piece(s) at %s drop out",
+		len(whole.Pieces), which, formatNumber(a.Mass), formatNumber(whole.Mass), pieceList(loose, unit.Name))
 	return &c, a, msg, nil
 }
 
