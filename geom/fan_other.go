@@ -6,15 +6,16 @@ package geom
 // absolute coordinates).
 func (ch *fanChain) add(pts []Point, c Point) { ch.addGeneric(pts, c) }
 
-// addEnds is add on the end points of pieces (lines), gathered a batch at a time.
-func (ch *fanChain) addEnds(pieces []Segment, c Point) {
+// addLines adds the end point of pieces[0] (a line that starts at the open vertex) and of each
+// following line that starts where the one before ends, gathered into a batch of at most lineBatch,
+// and returns how many it took (at least 1).
+func (ch *fanChain) addLines(pieces []Segment, c Point) int {
 	var buf [lineBatch]Point
-	for len(pieces) > 0 {
-		n := min(len(pieces), lineBatch)
-		for i := range n {
-			buf[i] = pieces[i].P[1]
-		}
-		ch.addGeneric(buf[:n], c)
-		pieces = pieces[n:]
+	n := 0
+	for n < len(pieces) && n < lineBatch && (n == 0 || pieces[n].Kind == KindLine && pieces[n].P[0] == pieces[n-1].P[1]) {
+		buf[n] = pieces[n].P[1]
+		n++
 	}
+	ch.addGeneric(buf[:n], c)
+	return n
 }

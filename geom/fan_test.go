@@ -76,23 +76,35 @@ func TestFanChainKernelMatchesGeneric(t *testing.T) {
 	}
 }
 
-// TestFanChainEndsMatchPoints checks that the chain reads lines' end points in place (addEnds) as it
-// reads the same points from a slice.
-func TestFanChainEndsMatchPoints(t *testing.T) {
+// TestFanChainLinesMatchPoints checks that the chain takes a stretch of joined lines in place
+// (addLines) as it takes their points from a slice, and stops where a line does not start at the end
+// before or a piece is not a line.
+func TestFanChainLinesMatchPoints(t *testing.T) {
 	rng := rand.New(rand.NewPCG(7, 8))
 	c := Pt(3e4, -2e4)
 	for _, n := range []int{1, 2, 9, 300} {
 		pts := randomPolyline(rng, n+1, c, 50)
-		lines := make([]Segment, n)
-		for i := range lines {
-			lines[i] = Line(pts[i], pts[i+1])
+		pieces := make([]Segment, n, n+2)
+		for i := range pieces {
+			pieces[i] = Line(pts[i], pts[i+1])
 		}
-		var got, want fanChain
-		got.add(pts[:1], c)
-		got.addEnds(lines, c)
-		want.add(pts, c)
-		if got != want {
-			t.Errorf("n %d: %+v, want %+v", n, got, want)
+		far := pts[n].Add(Pt(1, 1))
+		for _, tail := range []Segment{Line(far, pts[0]), Cubic(pts[n], far, far, pts[0])} {
+			var got, want fanChain
+			all, took := append(pieces, tail), 0
+			for took < n { // in batches where the target takes them so, through the origin between
+				got.add([]Point{c, all[took].P[0]}, c)
+				took += got.addLines(all[took:], c)
+			}
+			got.add([]Point{c}, c)
+			want.add(pts, c)
+			want.add([]Point{c}, c)
+			var g, w fanSums
+			got.addTo(&g)
+			want.addTo(&w)
+			if took != n || !fanSumsNear(g, w, 1e-14, 50*50*float64(n), 50) {
+				t.Errorf("n %d, then %v: took %d, %+v; want %d, %+v", n, tail.Kind, took, g, n, w)
+			}
 		}
 	}
 }

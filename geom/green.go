@@ -77,28 +77,19 @@ func PolygonMoments(pts []Point) Moments {
 	return momentsAbout(c, rawMoments{f.a / 2, f.x / 6, f.y / 6, f.xx / 12, f.xy / 24, f.yy / 12})
 }
 
-// lineBatch is how many lines lines hands to the chain at a time: 16 kB of segments, which the chain
-// reads while they are still in the processor's nearest cache.
+// lineBatch is how many lines the Go version of fanChain.addLines gathers at a time: 2 kB of points.
 const lineBatch = 128
 
 // lines adds the edges of the leading run of lines among pieces, each moved by −d, and returns how
-// many there were. The chain reads the lines' end points in place (fanChain.addEnds) for each stretch
-// in which every line starts where the one before ends; between stretches it goes through the origin
-// to the next start, which adds nothing (see fanChain).
+// many there were. The chain takes the lines in stretches in which every line starts where the one
+// before ends (fanChain.addLines), and goes through the origin to the start of each stretch, which
+// adds nothing (see fanChain).
 func (f *fanSums) lines(pieces []Segment, d Point) int {
 	var ch fanChain
-	end := Point{math.NaN(), 0}
 	n := 0
 	for n < len(pieces) && pieces[n].Kind == KindLine {
-		if pieces[n].P[0] != end {
-			ch.add([]Point{d, pieces[n].P[0]}, d)
-		}
-		m := n + 1
-		for m < len(pieces) && m-n < lineBatch && pieces[m].Kind == KindLine && pieces[m].P[0] == pieces[m-1].P[1] {
-			m++
-		}
-		ch.addEnds(pieces[n:m], d)
-		end, n = pieces[m-1].P[1], m
+		ch.add([]Point{d, pieces[n].P[0]}, d)
+		n += ch.addLines(pieces[n:], d)
 	}
 	ch.add([]Point{d}, d)
 	ch.addTo(f)
