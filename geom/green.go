@@ -176,7 +176,8 @@ func (g *greenSums) rule(e *evaluator, r glRule) {
 // accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, Σ_k row[k]·u_k^a·v_k^b to its sum, and
 // overwrites row. It walks the monomials row by row (v^b), multiplying a per-node term by u for each
 // step along a row, so that every sum is formed in a register and stored once; the first step of a
-// row also moves row on to the next power of v.
+// row also moves row on to the next power of v, and the others take two monomials a pass, whose sums
+// do not wait on each other.
 func (g *greenSums) accumulate(us, vs, row []float64) {
 	term := g.term[:len(row)]
 	us, vs = us[:len(row)], vs[:len(row)]
@@ -187,13 +188,23 @@ func (g *greenSums) accumulate(us, vs, row []float64) {
 			term[k], row[k] = x*us[k], x*vs[k]
 		}
 		g.sums[PolyIndex(0, b)] += sum
-		for a := 1; a+b <= g.deg; a++ {
-			sum := 0.0
-			for k, x := range term {
-				sum += x
-				term[k] = x * us[k]
+		for a := 1; a+b <= g.deg; a += 2 {
+			if a+b == g.deg { // the row's last monomial
+				sum := 0.0
+				for _, x := range term {
+					sum += x
+				}
+				g.sums[PolyIndex(a, b)] += sum
+				break
 			}
-			g.sums[PolyIndex(a, b)] += sum
+			s0, s1 := 0.0, 0.0
+			for k, x := range term {
+				y := x * us[k]
+				s0, s1 = s0+x, s1+y
+				term[k] = y * us[k]
+			}
+			g.sums[PolyIndex(a, b)] += s0
+			g.sums[PolyIndex(a+1, b)] += s1
 		}
 	}
 }
