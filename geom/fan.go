@@ -10,8 +10,8 @@ package geom
 //	Σk(y₀²+y₀y₁+y₁²)     = Σ yᵢvᵢ,           vᵢ = yᵢKᵢ + yᵢ₊₁kᵢ,
 //	Σk(2x₀y₀+x₀y₁+x₁y₀+2x₁y₁) = Σ (yᵢuᵢ + xᵢvᵢ),
 //
-// (the cross terms xᵢxᵢ₊₁kᵢ go to the edge's first vertex): 21 floating-point operations per edge
-// against 28 for the edge form, with no sum carried in memory. A vertex is summed when the edge leaving
+// (the cross terms xᵢxᵢ₊₁kᵢ go to the edge's first vertex): 25 floating-point operations per edge,
+// the translation by c included, against 29 for the edge form. A vertex is summed when the edge leaving
 // it is known, so the chain holds the open vertex p and the k of the edge into it. A chain starts at O
 // (the zero value) and must end there: the edges O→p₀ and pₙ→O have k = 0, so adding O's own point
 // last sums pₙ, and O between two runs joins them without adding anything.
