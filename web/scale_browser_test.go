@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"image"
 	"image/png"
+	"os"
+	"path/filepath"
 	"slices"
 	"strings"
 	"testing"
@@ -104,7 +106,12 @@ func TestLetteringSignScale(t *testing.T) {
 	level := float64(time.Since(start).Milliseconds())
 	t.Logf("lettering sign, %d glyph rows, %d Béziers: open to first drawn frame %.0f ms, to full result %.0f ms (goal ≤ 5000 ms), to level hole %.0f ms",
 		len(d.Texts), curves, open, result, level)
-	b.checkAllRowsDrawn()
+	shot := b.checkAllRowsDrawn()
+	if dir := os.Getenv("PLUMB_SHOTS"); dir != "" {
+		if err := os.WriteFile(filepath.Join(dir, "lettering-sign.png"), shot, 0o644); err != nil {
+			t.Error(err)
+		}
+	}
 	mass := b.state().Mass
 	// An edit hands the page the figures of the part before it, marked pending and greyed, until the
 	// background analysis is in: the same script that edits sees that, before the analysis can run.
@@ -157,10 +164,10 @@ func (b *browser) logStalls() {
 	b.t.Logf("work that held the page 100 ms or more: %q", slow)
 }
 
-// checkAllRowsDrawn takes a screenshot and splits the plate (the pixels of the material's tint) into
+// checkAllRowsDrawn takes a screenshot (which it returns, as PNG) and splits the plate (the pixels of the material's tint) into
 // eight bands from top to bottom: each must show letters, pixels other than the tint (edges, holes,
 // loose counters), in at least a third of the proportion of the band that shows most.
-func (b *browser) checkAllRowsDrawn() {
+func (b *browser) checkAllRowsDrawn() []byte {
 	b.t.Helper()
 	shot, err := chromedp.Run(b.ctx, chromedp.CaptureScreenshot())
 	if err != nil {
@@ -210,4 +217,5 @@ func (b *browser) checkAllRowsDrawn() {
 				k+1, bands, 100*f, 100*most)
 		}
 	}
+	return shot
 }
