@@ -27,6 +27,8 @@ var (
 	panelCSS string
 	//go:embed panel.js
 	panelJS string
+	//go:embed loader.js
+	loaderJS string
 
 	// The template's own text is kept to ASCII, like everything the page carries (see pack.go).
 	pageTemplate = template.Must(template.New("page.html").Parse(asciiHTML(pageHTML)))
@@ -70,8 +72,15 @@ type Gauge struct {
 	In     float64 `json:"in"`
 }
 
+// modulePiece is the size of the pieces the module is stored in, in bytes of its gzip form: the browser
+// compiles each piece as soon as it has read it, while it reads the rest of the page (loader.js). A
+// piece costs a few dozen bytes of markup and a call of the loader; at 64 KiB the compiler trails the
+// reading of the page by a few milliseconds.
+const modulePiece = 64 << 10
+
 // Render returns the complete page, in windows-1252 (Charset). The module is stored as its gzip form's
-// own bytes (PackBytes) and unpacked in the browser with DecompressionStream; the demo part and presets
+// own bytes (PackBytes), in pieces of modulePiece bytes near the top of the page, which the browser
+// inflates (DecompressionStream) and compiles as it reads them (loader.js); the demo part and presets
 // become JavaScript values (window.PLUMB_DEMO, a string, and window.PLUMB_PRESETS).
 func Render(a Assets) ([]byte, error) {
 	if bytes.Contains(bytes.ToLower(a.WasmExec), []byte("</script")) {
@@ -92,14 +101,21 @@ func Render(a Assets) ([]byte, error) {
 	if err != nil {
 		return nil, err
 	}
+	var pieces []string
+	for rest := a.Module; len(rest) > 0; {
+		n := min(len(rest), modulePiece)
+		pieces = append(pieces, PackBytes(rest[:n]))
+		rest = rest[n:]
+	}
 	var out bytes.Buffer
-	err = pageTemplate.Execute(&out, map[string]string{
+	err = pageTemplate.Execute(&out, map[string]any{
 		"CSP":       CSP,
 		"Charset":   Charset,
 		"CSS":       asciiCSS(panelCSS),
 		"JS":        asciiJS(panelJS),
 		"WasmExec":  asciiJS(string(a.WasmExec)),
-		"Module":    PackBytes(a.Module),
+		"Module":    pieces,
+		"Loader":    asciiJS(loaderJS),
 		"ModuleLen": strconv.Itoa(len(a.Module)),
 		"CP1252":    string(cp1252JSON),
 		"Demo":      asciiJS(string(demo)),

@@ -24,9 +24,12 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  // Milliseconds since navigation: unpackedMs (the module's text decoded), compiledMs, readyMs (the app's
-  // first frame), restoredMs (the part is on screen).
-  const timing = { scriptMs: performance.now() };
+  // Milliseconds since navigation, begun by the loader (loaderMs, fedMs: the module's last piece read,
+  // compiledMs): scriptMs (this script runs), instantiatedMs, mainMs (Go's main starts), readyMs (the
+  // app's first frame), loadedMs (the part is loaded), restoredMs (the part is on screen).
+  const start = window.plumbStart || { timing: {}, module: Promise.reject(new Error("the module loader did not run")) };
+  const timing = start.timing;
+  timing.scriptMs = performance.now();
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
@@ -95,37 +98,14 @@
     $("loading-msg").textContent = msg;
   }
 
-  // unpackBytes reverses the Go side's PackBytes (web/page/pack.go) on the module's text as the page's
-  // windows-1252 decoding gives it: characters up to U+00FF are their bytes, except those that bytes
-  // 0x80-0x9F decode to, listed in PLUMB_CP1252; byte 0x01 escapes the next byte, 0x40 more than meant.
-  function unpackBytes(text, n) {
-    const high = new Map(window.PLUMB_CP1252.map((c, i) => [c, 0x80 + i]));
-    const out = new Uint8Array(n);
-    let o = 0;
-    let escaped = false;
-    for (let i = 0; i < text.length && o < n; i++) {
-      let c = text.charCodeAt(i);
-      if (c >= 0x80 && (c < 0xa0 || c > 0xff)) c = high.get(c);
-      if (escaped) { out[o++] = c - 0x40; escaped = false; } else if (c === 0x01) escaped = true; else out[o++] = c;
-    }
-    if (o !== n) throw new Error("the packed app holds " + o + " bytes, not " + n);
-    return out;
-  }
-
-  // startApp unpacks the module and compiles it while it is still being inflated (a Response typed
-  // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
+  // startApp instantiates the module, which the loader (loader.js) has been compiling while the page was
+  // read, reads the saved part meanwhile, and runs the app.
   async function startApp() {
-    const holder = $("plumb-module");
-    const packed = unpackBytes(holder.textContent, Number(holder.dataset.bytes));
-    holder.remove();
-    timing.unpackedMs = performance.now();
-    const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
     const go = new Go();
-    const compiled = WebAssembly.instantiateStreaming(
-      new Response(stream, { headers: { "Content-Type": "application/wasm" } }), go.importObject);
-    startup = await readStartup();
-    const { instance } = await compiled;
-    timing.compiledMs = performance.now();
+    const [module, saved] = await Promise.all([start.module, readStartup()]);
+    startup = saved;
+    const instance = await WebAssembly.instantiate(module, go.importObject);
+    timing.instantiatedMs = performance.now();
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
   }
 
