@@ -28,14 +28,16 @@
   // unpack reverses the Go side's PackBytes on one piece: byte 0x01 escapes the next byte, written 0x40
   // more than meant.
   function unpack(text) {
-    const out = new Uint8Array(text.length);
+    const table = decode;
+    const n = text.length;
+    const out = new Uint8Array(n);
     let o = 0;
-    for (let i = 0; i < text.length; i++) {
+    for (let i = 0; i < n; i++) {
       const u = text.charCodeAt(i);
-      let c = u < decode.length ? decode[u] : -1;
+      let c = u < table.length ? table[u] : -1;
       if (c === 0x01) {
-        const v = ++i < text.length ? text.charCodeAt(i) : 0;
-        c = v < decode.length ? decode[v] - 0x40 : -1;
+        const v = ++i < n ? text.charCodeAt(i) : 0;
+        c = v < table.length ? table[v] - 0x40 : -1;
       }
       if (c < 0) throw new Error("the page is damaged: the app's module holds the character U+" + u.toString(16).toUpperCase());
       out[o++] = c;

@@ -82,11 +82,22 @@
   function fmtField(v) {
     return String(Number(v.toFixed(FIELD_DECIMALS[unitName()] ?? 4)));
   }
+  // fmtSig writes v to digits significant figures: plain with commas between thousands from 1e-3 to
+  // 1e7, in exponent form outside.
   function fmtSig(v, digits = 4) {
     if (!Number.isFinite(v)) return "—";
     const a = Math.abs(v);
     if (a !== 0 && (a < 1e-3 || a >= 1e7)) return minus(v.toExponential(digits - 1)).replace("e-", "e\u2212");
-    return minus(Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 }));
+    return minus(groupThousands(String(Number(v.toPrecision(digits)))));
+  }
+  // groupThousands puts commas between the thousands of a number written plainly ("-1234.5"), as
+  // toLocaleString("en") does; that call's first use costs the start-up tens of milliseconds.
+  function groupThousands(text) {
+    const sign = text.startsWith("-") ? "-" : "";
+    const dot = text.indexOf(".");
+    let whole = text.slice(sign.length, dot < 0 ? text.length : dot);
+    for (let i = whole.length - 3; i > 0; i -= 3) whole = whole.slice(0, i) + "," + whole.slice(i);
+    return sign + whole + (dot < 0 ? "" : text.slice(dot));
   }
   function fmtDeg(v) { return Number.isFinite(v) ? minus(v.toFixed(1)) + "°" : "—"; }
 
@@ -990,6 +1001,10 @@
   setMode("sheet");
   setEnabled(false);
   wire();
+  // Lay the page out now, while nothing else runs: once the app starts, the browser compiles its
+  // hot functions on every core, and the first layout, forced by the canvas taking the focus, took
+  // several times as long then.
+  document.body.getBoundingClientRect();
   startApp().catch((e) => failed("Plumb could not start in this browser: " + e.message +
     ". It needs WebAssembly, WebGL 2 and a browser from 2023 or later."));
 })();
