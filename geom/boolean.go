@@ -42,6 +42,14 @@ const sideTolerance = 64
 // scale; the result keeps that copy for the integrators besides Pieces in absolute coordinates. The
 // coincidence tolerance still follows the absolute coordinates, whose rounding the input carries.
 func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
+	b, _ := CombinePaced(nil, keep, regions...)
+	return b
+}
+
+// CombinePaced is Combine that calls pace (when it is not nil) every few hundred steps of its work,
+// a few milliseconds apart: a page can draw frames and take input between them. When pace returns an
+// error, CombinePaced stops and returns it.
+func CombinePaced(pace func() error, keep func(in []bool) bool, regions ...Region) (Boundary, error) {
 	if keep == nil {
 		panic("geom: Combine needs a keep function")
 	}
@@ -54,24 +62,32 @@ func Combine(keep func(in []bool) bool, regions ...Region) Boundary {
 	}
 	ms, starts := regionMonos(regions)
 	if len(ms) == 0 {
-		return Boundary{}
+		return Boundary{}, nil
 	}
 	box := EmptyRect()
 	for i := range ms {
 		box = box.Union(ms[i].box)
 	}
 	tol := tolerance(Rect{box.Min.Add(o), box.Max.Add(o)})
+	p := &pacer{pace: pace}
+	hits := findHitsPaced(ms, tol, p)
+	if p.err != nil {
+		return Boundary{}, p.err
+	}
 	c := newClassifier(ms, starts, regions, keep, tol)
-	kept := c.classify(cutList(ms, findHits(ms, tol, nil), tol))
+	kept := c.classify(cutList(ms, hits, tol), p)
+	if p.err != nil {
+		return Boundary{}, p.err
+	}
 	pieces := closeUp(dedupe(kept, c.side), c.side)
 	if o == (Point{}) {
-		return Boundary{Pieces: pieces}.Indexed()
+		return Boundary{Pieces: pieces}.Indexed(), nil
 	}
 	abs := make([]Segment, len(pieces))
 	for i, s := range pieces {
 		abs[i] = s.translated(o)
 	}
-	return Boundary{Pieces: abs, local: pieces, origin: o}.Indexed()
+	return Boundary{Pieces: abs, local: pieces, origin: o}.Indexed(), nil
 }
 
 // regionMonos returns the monotone pieces of all the regions' loops, tagged with the region index, and
@@ -292,11 +308,15 @@ func (ms monos) closedChain(lo, hi int) bool {
 	return true
 }
 
-// classify cuts every piece at its cuts (ordered by piece) and returns the parts that bound the set.
-func (c *classifier) classify(cuts []cut) []keptPiece {
+// classify cuts every piece at its cuts (ordered by piece) and returns the parts that bound the set;
+// it stops early when p says so.
+func (c *classifier) classify(cuts []cut, p *pacer) []keptPiece {
 	kept := make([]keptPiece, 0, len(c.ms))
 	var here []float64
 	for i := range c.ms {
+		if !p.step() {
+			return nil
+		}
 		here = here[:0]
 		for len(cuts) > 0 && cuts[0].mono == i {
 			here = append(here, cuts[0].t)

@@ -15,19 +15,30 @@ import (
 // b must be a Boundary as Combine returns it: oriented, closed, not crossing itself. An empty b has
 // no pieces.
 func (b Boundary) Components() []Boundary {
+	comps, _ := b.ComponentsPaced(nil)
+	return comps
+}
+
+// ComponentsPaced is Components that calls pace (when it is not nil) every few hundred steps of its
+// work, as CombinePaced does; when pace returns an error, it stops and returns it.
+func (b Boundary) ComponentsPaced(pace func() error) ([]Boundary, error) {
 	groups := b.closedGroups()
 	if len(groups) <= 1 {
 		if b.IsEmpty() {
-			return nil
+			return nil, nil
 		}
-		return []Boundary{b}
+		return []Boundary{b}, nil
 	}
+	p := &pacer{pace: pace}
 	type comp struct {
 		b    Boundary
 		area float64
 	}
 	var outers, holes []comp
 	for _, g := range groups {
+		if !p.step() {
+			return nil, p.err
+		}
 		c := comp{g, g.IntegratePoly(ConstPoly(1)).M}
 		if c.area > 0 {
 			outers = append(outers, c)
@@ -36,7 +47,7 @@ func (b Boundary) Components() []Boundary {
 		}
 	}
 	if len(outers) == 0 { // no group bounds positive area (a degenerate boundary): keep it whole
-		return []Boundary{b}
+		return []Boundary{b}, nil
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	edges := make([]Boundary, len(outers))
@@ -48,6 +59,9 @@ func (b Boundary) Components() []Boundary {
 	around := newBoxTree(boxes)
 	inside := make([][]Segment, len(outers)) // the holes' pieces by outer edge, joined once below
 	for _, h := range holes {
+		if !p.step() {
+			return nil, p.err
+		}
 		i := innermost(edges, around, h.b)
 		inside[i] = append(inside[i], h.b.Pieces...)
 		outers[i].area += h.area
@@ -60,9 +74,9 @@ func (b Boundary) Components() []Boundary {
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	comps := make([]Boundary, len(outers))
 	for i, o := range outers {
-		comps[i] = o.b
+		comps[i] = o.b.Indexed() // the holes joined the outer edge's pieces: index them all
 	}
-	return comps
+	return comps, nil
 }
 
 // innermost returns the index of the last of outers (outer edges sorted largest first) that winds

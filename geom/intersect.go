@@ -118,6 +118,16 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 	return dst
 }
 
+// findHitsPaced is findHits into a new list, stopping early when p says so.
+func findHitsPaced(ms monos, tol float64, p *pacer) []hit {
+	var dst []hit
+	ms.sweep(tol, func(j, i int) bool {
+		dst = ms.intersect(j, i, tol, dst)
+		return p.step()
+	})
+	return dst
+}
+
 // sweep calls visit(j, i) for every pair of pieces whose boxes come within tol of each other, until
 // visit returns false: the boxes are swept in order of their left edges, keeping the list of those
 // still open (j among them, i the box being added).

@@ -3,6 +3,7 @@ package sketch
 import (
 	"errors"
 	"fmt"
+	"maps"
 	"math"
 	"reflect"
 	"slices"
@@ -12,10 +13,23 @@ import (
 	"plumb/geom"
 )
 
-// AnalyzeOptions tune the integration of densities that are not polynomials.
+// AnalyzeOptions tune the integration of densities that are not polynomials, and pace long work.
 type AnalyzeOptions struct {
 	Tol      float64 // requested relative accuracy; 0 means geom's default (1e-10)
 	MaxEvals int     // work limit in density evaluations per region; 0 means geom's default
+	// Pace, when not nil, is called every few milliseconds of work on a large part (between steps
+	// of combining the regions, splitting the pieces, searching hole positions), so that a program
+	// with one thread can draw and take input meanwhile. When it returns an error, the analysis
+	// stops and returns that error.
+	Pace func() error
+}
+
+// pace calls opt.Pace, if any.
+func (opt AnalyzeOptions) pace() error {
+	if opt.Pace == nil {
+		return nil
+	}
+	return opt.Pace()
 }
 
 // Analysis holds the mass properties of a part. Lengths are in the document unit, masses in kg.
@@ -50,6 +64,18 @@ type Analysis struct {
 	poly *localPoly
 	// shapeRel is the reader's shape error relative to the area, a part of RelErr.
 	shapeRel float64
+	// shape is what the analysis found of the part's shape alone: an analysis of the same shape in
+	// another material takes it instead of finding it again (Reanalyze).
+	shape *shapeFacts
+}
+
+// shapeFacts are the results of an analysis that depend on the part's shape only, not on its
+// material. They are not changed once the analysis that found them has returned.
+type shapeFacts struct {
+	warnings []string        // about the regions and repeated loops, in the order Analyze gives them
+	body     geom.Boundary   // the material: the outline minus cut-outs and cut-out lettering
+	moments  geom.Moments    // the body's area moments (density 1)
+	comps    []geom.Boundary // the body's connected pieces, largest first
 }
 
 // localPoly is a polynomial density given about a point near the part: ρ(x, y) = p(x − at.X, y − at.Y).
@@ -124,11 +150,13 @@ func (d *Document) lengthUnit() (density.Length, error) {
 // the error estimate reported in RelErr and a warning that the estimate is not a guaranteed bound
 // (with the interval check's guaranteed bounds of the mass). A density that is negative, infinite or
 // NaN on the part is an error naming the point in document units (see integrateField).
-func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) { return analyze(d, opt, nil) }
+func Analyze(d *Document, opt AnalyzeOptions) (*Analysis, error) { return analyze(d, opt, nil, nil) }
 
 // analyze is Analyze; known, when not nil, is what the interval check found on the material
-// before a hole inside it was cut (see holeCheck), for the base material.
-func analyze(d *Document, opt AnalyzeOptions, known *holeCheck) (*Analysis, error) {
+// before a hole inside it was cut (see holeCheck), for the base material; same, when not nil, is the
+// shape of an analysis of a part that differs from d only in its materials, names, notes and holes
+// (sameShape), which it takes instead of finding it again.
+func analyze(d *Document, opt AnalyzeOptions, known *holeCheck, same *shapeFacts) (*Analysis, error) {
 	unit, err := d.lengthUnit()
 	if err != nil {
 		return nil, err
@@ -137,19 +165,12 @@ func analyze(d *Document, opt AnalyzeOptions, known *holeCheck) (*Analysis, erro
 		return nil, err
 	}
 	a := &Analysis{Cautions: Cautions()}
-	crossed, err := a.checkRegions(d)
+	d, p, err := a.findShape(d, opt, same)
 	if err != nil {
 		return nil, err
 	}
-	d, notes := d.withoutRepeats()
-	a.Warnings = append(a.Warnings, notes...)
-	p, err := d.plan()
-	if err != nil {
-		return nil, err
-	}
-	var shape geom.Moments
-	a.Body, shape = d.material(p, crossed)
-	a.Area = shape.M
+	shape := a.shape.moments
+	a.Body, a.Area = a.shape.body, shape.M
 	if err := checkArea(a.Body, a.Area, len(d.Cutouts)); err != nil {
 		return nil, err
 	}
@@ -167,7 +188,10 @@ func analyze(d *Document, opt AnalyzeOptions, known *holeCheck) (*Analysis, erro
 	for i, ov := range p.overlays {
 		path := p.paths[i]
 		on := append(slices.Clone(p.regions), ov.Region)
-		b := geom.Combine(p.onOverlay, on...)
+		b, err := geom.CombinePaced(opt.Pace, p.onOverlay, on...)
+		if err != nil {
+			return nil, err
+		}
 		if b.IsEmpty() {
 			a.Warnings = append(a.Warnings, fmt.Sprintf("%s (%s) does not lie on the part's material", path, overlayName(ov, i)))
 			continue
@@ -189,12 +213,44 @@ func analyze(d *Document, opt AnalyzeOptions, known *holeCheck) (*Analysis, erro
 	return a, nil
 }
 
+// findShape sets a.shape and a.Warnings to same (when not nil), else to what it finds: it checks the
+// regions, leaves out repeated loops, lays out the lettering and combines the regions into the
+// material, and splits it into its pieces. It returns d without its repeated loops and its plan.
+func (a *Analysis) findShape(d *Document, opt AnalyzeOptions, same *shapeFacts) (*Document, plan, error) {
+	if same != nil {
+		a.shape, a.Warnings = same, slices.Clone(same.warnings)
+		d, _ = d.withoutRepeats()
+		p, err := d.plan()
+		return d, p, err
+	}
+	crossed, err := a.checkRegions(d)
+	if err != nil {
+		return nil, plan{}, err
+	}
+	d, notes := d.withoutRepeats()
+	a.Warnings = append(a.Warnings, notes...)
+	p, err := d.plan()
+	if err != nil {
+		return nil, plan{}, err
+	}
+	body, moments, err := d.material(p, crossed, opt)
+	if err != nil {
+		return nil, plan{}, err
+	}
+	comps, err := body.ComponentsPaced(opt.Pace)
+	if err != nil {
+		return nil, plan{}, err
+	}
+	a.shape = &shapeFacts{warnings: slices.Clone(a.Warnings), body: body, moments: moments, comps: comps}
+	return d, p, nil
+}
+
 // splitPieces fills in Pieces: the connected pieces of the body, each with the mass of every layer on
 // it (or its area, for a part without material), and a warning naming the islands when there is more
 // than one. A piece of an overlay's material
 // lies on one piece of the body, the one its boundary runs in or along.
 func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
-	comps := a.Body.Components()
+	comps := a.shape.comps
 	if len(comps) <= 1 {
 		a.Pieces = a.whole()
 		return nil
@@ -214,6 +270,9 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 			parts = l.b.Components()
 		}
 		for k, part := range parts {
+			if err := opt.pace(); err != nil {
+				return err
+			}
 			if li > 0 {
 				k = holdingPiece(comps, part)
 			}
@@ -229,14 +288,15 @@ func (a *Analysis) splitPieces(unit density.Length, opt AnalyzeOptions) error {
 		p := &a.Pieces[i]
 		p.Mass, p.Centroid = p.Origin.M, p.Origin.Centroid()
 	}
-	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s %s fall out unless bridged",
-		len(a.Pieces), pieceList(a.Pieces[1:]), unit.Name))
+	a.Warnings = append(a.Warnings, fmt.Sprintf("%d pieces: after cutting, the island(s) at %s fall out unless bridged",
+		len(a.Pieces), pieceList(a.Pieces[1:], unit.Name)))
 	return nil
 }
 
-// pieceOf describes the material b bounds for integrateField: one region, its loops chained from b.
+// pieceOf describes the material b bounds for integrateField: one region, whose loops are chained
+// from b only when a density with kinks or one integrated numerically needs them (translated).
 func pieceOf(b geom.Boundary) materialPart {
-	return materialPart{regions: []geom.Region{{Loops: b.Loops()}}, keep: func(in []bool) bool { return in[0] }, body: b}
+	return materialPart{keep: func(in []bool) bool { return in[0] }, body: b}
 }
 
 // whole returns the part as its one piece.
@@ -257,17 +317,26 @@ func holdingPiece(comps []geom.Boundary, part geom.Boundary) int {
 	return 0
 }
 
-// pieceList lists the centroids of pieces as "(x, y), (x, y)".
-func pieceList(pieces []Piece) string {
+// pieceList lists the centroids of pieces in the unit named, as "(x, y), (x, y) mm", the first
+// maxListedPieces of them, then how many more there are.
+func pieceList(pieces []Piece, unit string) string {
 	var b strings.Builder
-	for i, p := range pieces {
+	for i, p := range pieces[:min(len(pieces), maxListedPieces)] {
 		if i > 0 {
 			b.WriteString(", ")
 		}
 		fmt.Fprintf(&b, "(%s, %s)", formatNumber(p.Centroid.X), formatNumber(p.Centroid.Y))
 	}
+	fmt.Fprintf(&b, " %s", unit)
+	if more := len(pieces) - maxListedPieces; more > 0 {
+		fmt.Fprintf(&b, " and %d more", more)
+	}
 	return b.String()
 }
+
+// maxListedPieces is how many pieces a warning lists by their centroids: a sign's thousands of letter
+// counters are counted beyond these, and listed in the JSON's pieces.
+const maxListedPieces = 12
 
 // addShapeError adds the reader's bound on approximated curves to the error estimate: an area δA
 // between drawn and held curves changes each moment ∬f by at most δA·max|f|, and max|f| ≤ R^k for a
@@ -319,10 +388,10 @@ func (a *Analysis) shapeOnly(d *Document, shape geom.Moments, unit density.Lengt
 // lettering, bounds its inside
 // under either fill rule: the boundary is the loop itself, turned counter-clockwise, and there are no
 // intersections to look for. Anything else goes through Combine.
-func (d *Document) material(p plan, crossed bool) (geom.Boundary, geom.Moments) {
+func (d *Document) material(p plan, crossed bool, opt AnalyzeOptions) (geom.Boundary, geom.Moments, error) {
 	if crossed || len(p.regions) > 1 || len(d.Outline.Loops) != 1 {
-		b := geom.Combine(p.keep, p.regions...)
-		return b, b.IntegratePoly(geom.ConstPoly(1))
+		b, err := geom.CombinePaced(opt.Pace, p.keep, p.regions...)
+		return b, b.IntegratePoly(geom.ConstPoly(1)), err
 	}
 	loop := d.Outline.Loops[0]
 	b := geom.Boundary{Pieces: slices.Clone(loop)}
@@ -330,7 +399,7 @@ func (d *Document) material(p plan, crossed bool) (geom.Boundary, geom.Moments) 
 	if m.M < 0 {
 		b, m = geom.Boundary{Pieces: loop.Reverse()}, m.Scale(-1)
 	}
-	return b.Indexed(), m
+	return b.Indexed(), m, nil
 }
 
 // checkRegions validates the outline, cut-outs and overlay regions, keeping their warnings; crossed
@@ -450,9 +519,10 @@ func (a *Analysis) withHole(d *Document, h Hole, opt AnalyzeOptions) (*Analysis,
 		if len(a.layers) > 0 && h.Diameter > 0 {
 			known = (&holeCheck{hole: h}).from(a.layers[0].check)
 		}
-		return analyze(d.withHoles(h), opt, known)
+		return analyze(d.withHoles(h), opt, known, nil)
 	}
 	part := *a
+	part.shape = nil // the hole changes the shape
 	part.Materials, part.Warnings, part.Cautions = slices.Clone(a.Materials), slices.Clone(a.Warnings), slices.Clone(a.Cautions)
 	if h.Diameter == 0 {
 		return &part, nil
@@ -498,6 +568,7 @@ func (a *Analysis) withoutDisk(h Hole, opt AnalyzeOptions) (part *Analysis, ok b
 	r.RelErr = (a.RelErr*math.Abs(a.Mass) + disk.RelErr*math.Abs(disk.M)) / math.Abs(r.M)
 	w := check.boundWarning(l.f, &r, l.why)
 	p := *a
+	p.shape = nil // the hole changes the shape
 	p.Materials, p.Warnings, p.Cautions = slices.Clone(a.Materials), slices.Clone(a.Warnings), slices.Clone(a.Cautions)
 	p.Warnings[i] = "material: " + w
 	p.Area -= geom.Boundary{Pieces: circle}.IntegratePoly(geom.ConstPoly(1)).M
@@ -585,10 +656,16 @@ func (a *Analysis) checkFinite() error {
 // Reanalyze returns the analysis of d given the analysis prev of the document before, as an editor
 // has it after each change: prev itself when d differs from before only in its name, notes and hang
 // holes (the holes are checked as Analyze checks them), since nothing else Analyze reads has
-// changed; otherwise Analyze(d, opt). Dragging a hole then costs only the hang.
+// changed. When d differs from before also in its base material, prev's shape is taken as it is
+// (the material boundary, its area moments and pieces, the warnings about the regions) and only the
+// densities are integrated again: a new thickness costs no Combine. Otherwise Reanalyze is
+// Analyze(d, opt). Dragging a hole then costs only the hang.
 func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analysis, error) {
-	if prev == nil || before == nil || !d.sameMaterial(before) {
+	switch {
+	case prev == nil || before == nil || prev.shape == nil || !d.SameShape(before):
 		return Analyze(d, opt)
+	case !sameSpec(d.Material, before.Material):
+		return analyze(d, opt, nil, prev.shape)
 	}
 	if err := d.CheckExtent(); err != nil {
 		return nil, err
@@ -596,10 +673,29 @@ func Reanalyze(d, before *Document, prev *Analysis, opt AnalyzeOptions) (*Analys
 	return prev, nil
 }
 
-// sameMaterial reports whether d and e agree in everything but their names, notes and holes.
-func (d *Document) sameMaterial(e *Document) bool {
-	a, b := *d, *e
-	a.Name, a.Notes, a.Holes = "", "", nil
-	b.Name, b.Notes, b.Holes = "", "", nil
-	return reflect.DeepEqual(a, b)
+// SameShape reports whether d and e agree in everything but their names, notes, holes and base
+// materials: whether an analysis of one lends its shape to the other (Reanalyze). Lists that are
+// empty agree whether or not they are nil.
+func (d *Document) SameShape(e *Document) bool {
+	sameOverlay := func(a, b Overlay) bool {
+		return a.Name == b.Name && sameRegion(a.Region, b.Region) && sameSpec(a.Material, b.Material)
+	}
+	return d.Units == e.Units && d.ShapeError == e.ShapeError && sameRegion(d.Outline, e.Outline) &&
+		slices.EqualFunc(d.Cutouts, e.Cutouts, sameRegion) && slices.EqualFunc(d.Overlays, e.Overlays, sameOverlay) &&
+		slices.EqualFunc(d.Texts, e.Texts, sameText)
+}
+
+func sameRegion(a, b geom.Region) bool {
+	return a.Rule == b.Rule && slices.EqualFunc(a.Loops, b.Loops, func(x, y geom.Loop) bool { return slices.Equal(x, y) })
+}
+
+func sameText(a, b Text) bool {
+	return a.Text == b.Text && a.Font == b.Font && a.Height == b.Height && a.At == b.At && a.AngleDeg == b.AngleDeg &&
+		a.Spacing == b.Spacing && a.role() == b.role() && a.Stencil == b.Stencil && sameSpec(a.Material, b.Material)
+}
+
+// sameSpec reports whether two material specs say the same, empty lists and maps agreeing with nil.
+func sameSpec(a, b density.Spec) bool {
+	return a.Material == b.Material && a.Thickness == b.Thickness && a.Formula == b.Formula && a.Unit == b.Unit &&
+		maps.Equal(a.Params, b.Params) && (len(a.Custom) == 0 && len(b.Custom) == 0 || reflect.DeepEqual(a.Custom, b.Custom))
 }

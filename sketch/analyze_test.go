@@ -3,6 +3,8 @@ package sketch
 import (
 	"fmt"
 	"math"
+	"os"
+	"slices"
 	"strings"
 	"testing"
 
@@ -415,6 +417,61 @@ func TestReanalyze(t *testing.T) {
 		}
 		if want, _ := Analyze(&d, AnalyzeOptions{}); !tt.fails && !tt.reused && (got.Mass != want.Mass || got.Centroid != want.Centroid) {
 			t.Errorf("%s: mass %v at %v, Analyze gives %v at %v", tt.name, got.Mass, got.Centroid, want.Mass, want.Centroid)
+		}
+	}
+}
+
+// TestReanalyzeNewMaterial: a document that differs from the one before in its base material (and
+// holes) gets the analysis Analyze gives it, every result and warning the same, with the material's
+// boundary and pieces taken from the analysis before rather than combined again. The panel is the
+// bakery's lettered panel without its stencil bridges, so that the counters fall out as loose pieces,
+// with its bonded-on slogan (an overlay).
+func TestReanalyzeNewMaterial(t *testing.T) {
+	data, err := os.ReadFile("../testdata/bakery-lettering-panel.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	before, err := Load(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	before.Texts[0].Stencil.Count = 0
+	prev, err := Analyze(before, AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(prev.Pieces) < 2 {
+		t.Fatalf("the panel has %d pieces, want loose counters", len(prev.Pieces))
+	}
+	for _, m := range []density.Spec{
+		{Material: "steel", Thickness: "1.5 mm"},
+		areal("8 + 0.001*x"),
+		areal("exp(x/900)*(2 + sin(y/80))"),
+		{}, // no material: the shape alone
+	} {
+		d := *before
+		d.Material, d.Holes = m, []Hole{{At: geom.Pt(10, 10), Diameter: 6}}
+		got, err := Reanalyze(&d, before, prev, AnalyzeOptions{})
+		if err != nil {
+			t.Fatalf("%+v: %v", m, err)
+		}
+		want, err := Analyze(&d, AnalyzeOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if &got.Body.Pieces[0] != &prev.Body.Pieces[0] {
+			t.Errorf("%+v: the material boundary was found again", m)
+		}
+		if got.Mass != want.Mass || got.Origin != want.Origin || got.RelErr != want.RelErr ||
+			!slices.Equal(got.Warnings, want.Warnings) || len(got.Pieces) != len(want.Pieces) {
+			t.Errorf("%+v: mass %v, moments %+v, error %v, warnings %q, %d pieces; Analyze gives %v, %+v, %v, %q, %d",
+				m, got.Mass, got.Origin, got.RelErr, got.Warnings, len(got.Pieces), want.Mass, want.Origin, want.RelErr, want.Warnings, len(want.Pieces))
+			continue
+		}
+		for i := range got.Pieces {
+			if got.Pieces[i].Origin != want.Pieces[i].Origin {
+				t.Errorf("%+v: piece %d moments %+v, Analyze gives %+v", m, i, got.Pieces[i].Origin, want.Pieces[i].Origin)
+			}
 		}
 	}
 }

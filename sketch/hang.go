@@ -161,13 +161,15 @@ func onPiece(d *Document, whole *Analysis, i int, which string, unit density.Len
 			c.Texts = append(c.Texts, t)
 		}
 	}
-	a, err := Analyze(&c, opt.Analyze)
+	// The piece's material is whole's piece as it is: it is not combined again.
+	body := whole.Pieces[i].Body
+	a, err := analyze(&c, opt.Analyze, nil, &shapeFacts{body: body, moments: body.IntegratePoly(geom.ConstPoly(1)), comps: []geom.Boundary{body}})
 	if err != nil {
 		return nil, nil, "", err
 	}
 	loose := slices.Delete(slices.Clone(whole.Pieces), i, i+1)
-	msg := fmt.Sprintf("the part comes apart in %d pieces: the hang uses %s (%s kg of %s kg); the piece(s) at %s %s drop out",
-		len(whole.Pieces), which, formatNumber(a.Mass), formatNumber(whole.Mass), pieceList(loose), unit.Name)
+	msg := fmt.Sprintf("the part comes apart in %d pieces: the hang uses %s (%s kg of %s kg); the piece(s) at %s drop out",
+		len(whole.Pieces), which, formatNumber(a.Mass), formatNumber(whole.Mass), pieceList(loose, unit.Name))
 	return &c, a, msg, nil
 }
 
@@ -197,7 +199,7 @@ func newHang(part *Analysis, at geom.Point, dia float64, unit density.Length, op
 	}
 	h.Pose = geom.RotateAbout(at, h.AngleDeg*math.Pi/180)
 	h.Hanging = part.Body.Transform(h.Pose)
-	if w := piecesWarning(part.Body, "it hangs from the hole as shown"); w != "" {
+	if w := piecesWarning(len(part.Pieces), "it hangs from the hole as shown"); w != "" {
 		h.Warnings = append(h.Warnings, w)
 	}
 	if opt.MaxTiltDeg > 0 && opt.DrillTol > 0 {
@@ -405,6 +407,9 @@ func LevelHole(d *Document, dia float64, opt HangOptions) (*Level, error) {
 	}
 	x, floor := whole.Centroid.X, whole.Centroid.Y
 	for lv.Iterations = 1; ; lv.Iterations++ {
+		if err := opt.Analyze.pace(); err != nil {
+			return nil, err
+		}
 		y, found, material := s.highest(x, floor)
 		if !found {
 			return s.noLevel(lv, x, material)
@@ -461,11 +466,14 @@ func (s *holeSearch) highest(x, floor float64) (y float64, found, material bool)
 		if hi <= s.minRaise {
 			break
 		}
-		if hi-lo <= 0 || !s.body.Contains(geom.Pt(x, floor+(lo+hi)/2)) {
+		// A stretch shorter than the hole with its clearance holds no hole: once material is found,
+		// it is not asked whether it is material (a sign's rows of letters cross the vertical many times).
+		top, bottom := hi-s.clear, math.Max(lo, s.minRaise)
+		if hi-lo <= 0 || (top < bottom && material) || !s.body.Contains(geom.Pt(x, floor+(lo+hi)/2)) {
 			continue
 		}
 		material = true
-		if t, ok := s.descend(x, floor, hi-s.clear, math.Max(lo, s.minRaise)); ok {
+		if t, ok := s.descend(x, floor, top, bottom); ok {
 			return floor + t, true, true
 		}
 	}
@@ -531,6 +539,9 @@ func (s *holeSearch) leastTilt() ([]*Hang, error) {
 	var best [2]*candidate // left and right of the centroid
 	column := box.Size().X / tiltColumns
 	for i := range tiltColumns {
+		if err := s.opt.Analyze.pace(); err != nil {
+			return nil, err
+		}
 		s.consider(&best, box.Min.X+(float64(i)+0.5)*column)
 	}
 	var hangs []*Hang
@@ -541,6 +552,9 @@ func (s *holeSearch) leastTilt() ([]*Hang, error) {
 		for step := column / 8; step > column/1000; step /= 8 { // refine around the best column
 			x0 := best[side].at.X
 			for k := -8; k <= 8; k++ {
+				if err := s.opt.Analyze.pace(); err != nil {
+					return nil, err
+				}
 				s.consider(&best, x0+float64(k)*step)
 			}
 		}
@@ -642,7 +656,7 @@ func TwoChains(d *Document, a, b geom.Point, dia, legDeg float64, opt HangOption
 		}
 	}
 	lift.warn(unit)
-	if w := piecesWarning(part.Body, "the chain loads hold"); w != "" {
+	if w := piecesWarning(len(part.Pieces), "the chain loads hold"); w != "" {
 		lift.Warnings = append(lift.Warnings, w)
 	}
 	return lift, nil

@@ -132,8 +132,12 @@ func lineCrossing(l density.Line, p, q geom.Point, t float64) geom.Point {
 // translated returns the material moved by d (translatedSegments), with body, its boundary
 // already moved (geom.Boundary.Local gives it exactly).
 func (m materialPart) translated(d geom.Point, body []geom.Segment) materialPart {
-	regions := make([]geom.Region, len(m.regions))
-	for i, r := range m.regions {
+	given := m.regions
+	if given == nil { // a piece given by its boundary alone (pieceOf): its loops, chained only now
+		given = []geom.Region{{Loops: m.body.Loops()}}
+	}
+	regions := make([]geom.Region, len(given))
+	for i, r := range given {
 		regions[i] = geom.Region{Rule: r.Rule, Loops: make([]geom.Loop, len(r.Loops))}
 		for j, l := range r.Loops {
 			regions[i].Loops[j] = translatedSegments(l, d)

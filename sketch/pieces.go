@@ -1,19 +1,11 @@
 package sketch
 
-import (
-	"fmt"
+import "fmt"
 
-	"plumb/geom"
-)
-
-// separatePieces counts the separate pieces of material that the boundary b bounds (geom's
-// Components: an outer edge with its holes each; pieces touching at a point count as one).
-func separatePieces(b geom.Boundary) int { return len(b.Components()) }
-
-// piecesWarning returns the warning for a part hung as one whose material is several separate
-// pieces, or "" for one piece; what says how it is hung.
-func piecesWarning(b geom.Boundary, what string) string {
-	n := separatePieces(b)
+// piecesWarning returns the warning for a part hung as one whose material is n separate pieces (an
+// analysis's Pieces: geom's Components, an outer edge with its holes each; pieces touching at a point
+// count as one), or "" for one piece; what says how it is hung.
+func piecesWarning(n int, what string) string {
 	if n <= 1 {
 		return ""
 	}

@@ -121,7 +121,7 @@ func TestSeparatePieces(t *testing.T) {
 			d := plate(1, 1, "1")
 			d.Outline = geom.Region{Loops: tt.outline, Rule: geom.NonZero}
 			d.Cutouts = tt.cutouts
-			if got := separatePieces(d.Body()); got != tt.want {
+			if got := len(d.Body().Components()); got != tt.want {
 				t.Errorf("%d pieces, want %d", got, tt.want)
 			}
 		})
@@ -151,5 +151,27 @@ func TestHangTwoPiecesWarns(t *testing.T) {
 	h, err = HangFrom(one, geom.Pt(50, 40), 4, HangOptions{})
 	if err != nil || strings.Contains(strings.Join(h.Warnings, "\n"), "separate") {
 		t.Errorf("one plate: %v, warnings %q", err, h.Warnings)
+	}
+}
+
+// TestManyPiecesWarningStaysShort: a plate with 20 ring-shaped cut-outs has 20 islands; the warning
+// lists the first 12 by their centroids and counts the rest, while the summary keeps all 21 pieces.
+func TestManyPiecesWarningStaysShort(t *testing.T) {
+	d := plate(300, 40, "1")
+	for i := range 20 {
+		c := geom.Pt(7.5+15*float64(i), 20)
+		d.Cutouts = append(d.Cutouts, geom.Region{Rule: geom.EvenOdd, Loops: []geom.Loop{geom.Circle(c, 6), geom.Circle(c, 3)}})
+	}
+	a := mustAnalyze(t, d)
+	if len(a.Pieces) != 21 {
+		t.Fatalf("%d pieces, want 21", len(a.Pieces))
+	}
+	w := a.Warnings[len(a.Warnings)-1]
+	if !strings.HasPrefix(w, "21 pieces: after cutting, the island(s) at (") || !strings.Contains(w, ") mm and 8 more fall out") ||
+		strings.Count(w, ", 20)") != 12 {
+		t.Errorf("warning %q: want 12 centroids listed and 8 more counted", w)
+	}
+	if s := Summarize("rings.json", d, a); len(s.Pieces) != 21 {
+		t.Errorf("summary lists %d pieces, want 21", len(s.Pieces))
 	}
 }

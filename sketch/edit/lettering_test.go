@@ -166,3 +166,31 @@ func TestLetteringKeepsSizeAcrossUnits(t *testing.T) {
 		t.Errorf("new lettering height %g in", h)
 	}
 }
+
+// TestCloneKeepsTheShape: a copy of a lettered part with doublers has the same shape as the part
+// (so an analysis of one lends its shape to the other), and a new thickness keeps it, while a moved
+// letter, a turned loop or another unit does not.
+func TestCloneKeepsTheShape(t *testing.T) {
+	d := sketch.NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(400, 200))}}
+	d.Texts = []sketch.Text{{Text: "OPEN", Height: 40, At: geom.Pt(40, 80)}}
+	d.Overlays = []sketch.Overlay{{Region: geom.Region{Loops: []geom.Loop{geom.RectLoop(geom.Pt(0, 0), geom.Pt(50, 50))}}}}
+	c := Clone(d)
+	c.Material.Thickness = "5 mm"
+	c.Holes = []sketch.Hole{{At: geom.Pt(200, 180), Diameter: 8}}
+	if !c.SameShape(d) || !d.SameShape(c) {
+		t.Error("a copy with another thickness and a hole does not have the part's shape")
+	}
+	for name, change := range map[string]func(*sketch.Document){
+		"letter moved": func(x *sketch.Document) { x.Texts[0].At.X++ },
+		"loop turned":  func(x *sketch.Document) { x.Outline.Loops[0] = x.Outline.Loops[0].Reverse() },
+		"units":        func(x *sketch.Document) { x.Units = "in" },
+		"cut-out":      func(x *sketch.Document) { x.Cutouts = append(x.Cutouts, x.Overlays[0].Region) },
+	} {
+		x := Clone(d)
+		change(x)
+		if x.SameShape(d) {
+			t.Errorf("%s: still the same shape", name)
+		}
+	}
+}
