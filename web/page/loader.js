@@ -9,10 +9,10 @@
 (() => {
   // Milliseconds since navigation, for the start-up figures the panel keeps (plumbUI.timing).
   const timing = { loaderMs: performance.now() };
-  let controller = null; // the stream of the module's gzipped bytes
   let fed = 0; // bytes fed so far
   let failure = null; // the first error, kept for the panel's message
   let decode = null; // character code -> byte, or -1
+  let compiledIn = "worker";
 
   // decodeTable maps what the page's windows-1252 decoding makes of each byte back to the byte:
   // characters up to U+00FF are their bytes, except those that bytes 0x80-0x9F decode to (cp1252, from
@@ -45,9 +45,81 @@
     return out.subarray(0, o);
   }
 
+  // compileStream starts compiling the gzipped module from a stream of its pieces: send(bytes) each,
+  // then close(). It runs in a worker, and in the page when there is no worker.
+  function compileStream() {
+    let controller;
+    const gzipped = new ReadableStream({ start(c) { controller = c; } });
+    const module = WebAssembly.compileStreaming(new Response(gzipped.pipeThrough(new DecompressionStream("gzip")),
+      { headers: { "Content-Type": "application/wasm" } }));
+    return { module, send: (bytes) => controller.enqueue(bytes), close: () => controller.close() };
+  }
+
+  // workerMain runs in the worker: it compiles the pieces the page posts (null after the last) and posts
+  // back the module, or the error's message.
+  function workerMain() {
+    const c = compileStream();
+    onmessage = (ev) => { if (ev.data === null) c.close(); else c.send(ev.data); };
+    c.module.then((module) => postMessage({ module }), (e) => postMessage({ error: String((e && e.message) || e) }));
+  }
+
+  // compiler compiles the module in a worker, so that inflating and compiling take nothing from the
+  // page's own thread, which reads the page meanwhile. It keeps the pieces until the module is back:
+  // should the worker fail to start (a browser without workers, or one that refuses them to a page
+  // opened from a file), the page compiles them itself.
+  function compiler() {
+    const pieces = [];
+    let closed = false;
+    let local = null;
+    let settle;
+    const module = new Promise((resolve, reject) => { settle = { resolve, reject }; });
+    const inPage = () => {
+      if (local !== null) return;
+      compiledIn = "page";
+      local = compileStream();
+      for (const p of pieces) local.send(p);
+      if (closed) local.close();
+      local.module.then(settle.resolve, settle.reject);
+    };
+    let worker = null;
+    try {
+      const url = URL.createObjectURL(new Blob([compileStream.toString() + "\n(" + workerMain.toString() + ")();"],
+        { type: "text/javascript" }));
+      worker = new Worker(url);
+      worker.onmessage = (ev) => {
+        worker.terminate();
+        URL.revokeObjectURL(url);
+        pieces.length = 0;
+        if (ev.data.error) settle.reject(new Error(ev.data.error));
+        else settle.resolve(ev.data.module);
+      };
+      worker.onerror = (ev) => {
+        ev.preventDefault();
+        worker.terminate();
+        inPage();
+      };
+    } catch {
+      inPage();
+    }
+    return {
+      module,
+      send(bytes) {
+        pieces.push(bytes);
+        if (local !== null) local.send(bytes);
+        else worker.postMessage(bytes);
+      },
+      close() {
+        closed = true;
+        if (local !== null) local.close();
+        else worker.postMessage(null);
+      },
+      abort: (e) => { if (worker !== null) worker.terminate(); settle.reject(e); },
+    };
+  }
+
   function fail(e) {
     if (failure === null) failure = e;
-    try { controller.error(e); } catch { /* already closed or errored */ }
+    if (stream !== null) stream.abort(e);
   }
 
   // feed unpacks the piece in the script element before the calling script and sends it to the compiler.
@@ -58,7 +130,7 @@
       const bytes = unpack(holder.textContent);
       holder.remove();
       fed += bytes.length;
-      controller.enqueue(bytes);
+      stream.send(bytes);
     } catch (e) {
       fail(e);
     }
@@ -69,15 +141,15 @@
     timing.fedMs = performance.now();
     if (failure !== null) return;
     if (fed !== n) fail(new Error("the page is damaged: the app's module holds " + fed + " bytes, not " + n));
-    else controller.close();
+    else stream.close();
   }
 
+  let stream = null;
   let module;
   try {
     decode = decodeTable(window.PLUMB_CP1252);
-    const gzipped = new ReadableStream({ start(c) { controller = c; } });
-    module = WebAssembly.compileStreaming(new Response(gzipped.pipeThrough(new DecompressionStream("gzip")),
-      { headers: { "Content-Type": "application/wasm" } }));
+    stream = compiler();
+    module = stream.module;
   } catch (e) {
     failure = e;
     module = Promise.reject(e);
@@ -85,6 +157,7 @@
   module.then(() => { timing.compiledMs = performance.now(); }, () => {});
   window.plumbStart = {
     timing, feed, end,
+    get compiledIn() { return compiledIn; }, // "worker", or "page" where the worker could not run
     // module resolves to the compiled WebAssembly.Module; a damaged piece rejects it with that error.
     module: module.catch((e) => { throw failure || e; }),
   };

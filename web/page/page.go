@@ -3,8 +3,9 @@
 // offline HTML file.
 //
 // The page needs nothing from the network. Its Content-Security-Policy (CSP) allows only the inline
-// scripts and styles it carries, WebAssembly compilation, and data: and blob: images; connect-src is
-// 'none', so neither the page nor the app can open a connection.
+// scripts and styles it carries, WebAssembly compilation, data: and blob: images, and a worker from a
+// blob: URL (the loader's, which compiles the module); connect-src is 'none', so neither the page, its
+// worker nor the app can open a connection.
 package page
 
 import (
@@ -18,7 +19,7 @@ import (
 
 // CSP is the page's Content-Security-Policy.
 const CSP = "default-src 'none'; script-src 'unsafe-inline' 'wasm-unsafe-eval'; style-src 'unsafe-inline'; " +
-	"img-src data: blob:; connect-src 'none'; base-uri 'none'; form-action 'none'"
+	"img-src data: blob:; worker-src blob:; connect-src 'none'; base-uri 'none'; form-action 'none'"
 
 var (
 	//go:embed page.html
