@@ -144,7 +144,9 @@
     }
     restored = true;
     $("text-font").replaceChildren(...app.fonts().map((f) => new Option(f, f)));
-    refresh();
+    // The app told the restored part as it loaded it; ask for its state only if it did not.
+    if (state === null) refresh();
+    else render();
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
@@ -342,13 +344,14 @@
   function loadText(text, name, quiet) {
     if (!app) { toast("Still loading; try again in a moment."); return false; }
     const panel = panelMaterial(); // before loading: showing a part without a material empties the fields
+    const told = state;
     const r = app.load(text, name);
     if (!r.ok) {
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
       return false;
     }
     $("units-note").hidden = true;
-    refresh();
+    if (state === told) refresh(); // the app tells the new part as it loads it (onChange); ask if it did not
     const warnings = r.warnings || [];
     const adopted = !quiet && r.has_material === false && adoptPanelMaterial(panel);
     if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
