@@ -4,7 +4,10 @@ package main
 
 import (
 	"encoding/json"
+	"errors"
+	"maps"
 	"regexp"
+	"slices"
 	"strconv"
 	"time"
 
@@ -33,12 +36,19 @@ type result struct {
 	levelEdge float64       // edge distance it was found for (0: the default rule)
 	levelDone bool
 	levelMS   float64
+
+	// summary is the analysis's keys of the state object, made once: a sign's thousands of pieces
+	// take longer to write out than an edit.
+	summary     map[string]any
+	summaryFile string
 }
 
 // analyse runs the analysis and the hang from the first hole on doc, keeping edge distance edge (0: the
 // default rule), and measures how long they took. prev, the result before (or nil), lends its
-// analysis when only the holes, name or notes changed (sketch.Reanalyze).
-func analyse(doc *sketch.Document, rev int, edge float64, prev *result) *result {
+// analysis when only the holes, name or notes changed, and its shape when only the material did
+// (sketch.Reanalyze). pace, when not nil, is called every few milliseconds of the work
+// (sketch.AnalyzeOptions.Pace); when it returns an error, the result holds that error.
+func analyse(doc *sketch.Document, rev int, edge float64, prev *result, pace func() error) *result {
 	start := time.Now()
 	r := &result{rev: rev, doc: doc, edge: edge}
 	var before *sketch.Document
@@ -46,7 +56,8 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result) *result 
 	if prev != nil && prev.a != nil {
 		before, known = prev.doc, prev.a
 	}
-	r.a, r.err = sketch.Reanalyze(doc, before, known, sketch.AnalyzeOptions{})
+	opt := sketch.AnalyzeOptions{Pace: pace}
+	r.a, r.err = sketch.Reanalyze(doc, before, known, opt)
 	// An analysis that succeeded has checked the geometry already.
 	sound := r.a != nil || geometrySound(doc)
 	switch {
@@ -55,7 +66,11 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result) *result 
 	case sound:
 		r.body = doc.Body()
 	}
-	if sound {
+	switch {
+	case sound && prev != nil && prev.doc != nil && r.a != nil && prev.a != nil && prev.a.Body.Pieces != nil &&
+		&prev.a.Body.Pieces[0] == &r.a.Body.Pieces[0]:
+		r.onPart = prev.onPart // the same shape: the doublers lie where they did
+	case sound:
 		for _, o := range doc.Overlaid() {
 			r.onPart = append(r.onPart, doc.OnMaterial(o.Region))
 		}
@@ -63,19 +78,35 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result) *result 
 	r.flagged = flaggedSegments(doc, r)
 	if r.err == nil && len(doc.Holes) > 0 {
 		h := doc.Holes[0]
-		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{Whole: r.a, Edge: edge})
+		r.hang, r.hangErr = sketch.HangFrom(doc, h.At, h.Diameter, sketch.HangOptions{Whole: r.a, Edge: edge, Analyze: opt})
+		if errors.Is(r.hangErr, errSuperseded) {
+			r.err = r.hangErr
+		}
 	}
 	r.ms = float64(time.Since(start).Microseconds()) / 1000
 	return r
 }
 
-// findLevel searches for the hole of diameter dia, edge distance edge, that hangs the part level. The
-// part must have been analysed without error.
-func (r *result) findLevel(dia, edge float64) {
+// levelFound is what a level-hole search found, for result.setLevel.
+type levelFound struct {
+	dia, edge float64
+	level     *sketch.Level
+	err       error
+	ms        float64
+}
+
+// findLevel searches for the hole of diameter dia, edge distance edge, that hangs the part level,
+// calling pace (when not nil) as analyse does. The part must have been analysed without error.
+func (r *result) findLevel(dia, edge float64, pace func() error) levelFound {
 	start := time.Now()
-	r.levelDia, r.levelEdge, r.levelDone = dia, edge, true
-	r.level, _ = sketch.LevelHole(r.doc, dia, sketch.HangOptions{Whole: r.a, Edge: edge})
-	r.levelMS = float64(time.Since(start).Microseconds()) / 1000
+	lv, err := sketch.LevelHole(r.doc, dia, sketch.HangOptions{Whole: r.a, Edge: edge, Analyze: sketch.AnalyzeOptions{Pace: pace}})
+	return levelFound{dia: dia, edge: edge, level: lv, err: err, ms: float64(time.Since(start).Microseconds()) / 1000}
+}
+
+// setLevel completes r with a level-hole search's findings.
+func (r *result) setLevel(f levelFound) {
+	r.levelDia, r.levelEdge, r.levelDone = f.dia, f.edge, true
+	r.level, r.levelMS = f.level, f.ms
 }
 
 // suggested returns where the page's one click puts the hang hole: the level-hang hole, else the
@@ -209,13 +240,18 @@ func letteringStateOf(ed *edit.Editor) letteringState {
 // stateJSON returns the object window.plumb.state() gives: the keys of `plumb analyze --format json`
 // for the part, plus the hang, the level hole, timings, the material (no_material when the part has
 // none, and mass and weights are then null), weights, cautions, an error
-// when the part cannot be analysed, and the editor's tool, target and undo state.
-func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
+// when the part cannot be analysed, and the editor's tool, target and undo state. pending says that
+// r is of the part before the latest edits, whose analysis is under way.
+func (r *result) stateJSON(file string, ed *edit.Editor, pending bool) []byte {
 	m := map[string]any{}
 	if r.err == nil {
-		rep := sketch.Report{File: file, Doc: r.doc, Analysis: r.a, Hang: r.hang}
-		b, _ := json.Marshal(rep.Summary())
-		_ = json.Unmarshal(b, &m)
+		if r.summary == nil || r.summaryFile != file {
+			rep := sketch.Report{File: file, Doc: r.doc, Analysis: r.a, Hang: r.hang}
+			b, _ := json.Marshal(rep.Summary())
+			r.summary, r.summaryFile = map[string]any{}, file
+			_ = json.Unmarshal(b, &r.summary)
+		}
+		maps.Copy(m, r.summary)
 		m["weight_n"], m["weight_lbf"] = r.a.WeightN, r.a.WeightLbf
 		if r.a.NoMaterial {
 			m["weight_n"], m["weight_lbf"] = nil, nil
@@ -233,11 +269,13 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 		m["warnings"] = []string{}
 	}
 	m["hang"], m["level"], m["least_tilt"] = nil, nil, []tiltState{}
-	m["level_pending"] = r.err == nil && !r.levelDone
+	m["level_pending"] = pending || (r.err == nil && !r.levelDone)
+	m["pending"] = pending
 	if h := r.hang; h != nil {
 		m["hang"] = hangState{xy{h.At.X, h.At.Y}, h.Diameter, h.AngleDeg, h.TiltPerMM, h.PeriodS, h.Arm}
 	}
 	warnings, _ := m["warnings"].([]any)
+	warnings = slices.Clip(warnings) // appends below must not write into the cached summary
 	if r.hangErr != nil {
 		warnings = append(warnings, "hang hole: "+r.hangErr.Error())
 	}
@@ -269,7 +307,7 @@ func (r *result) stateJSON(file string, ed *edit.Editor) []byte {
 	if min, source, err := r.doc.EdgeRule(ed.HoleDiameter(), sketch.HangOptions{Edge: ed.EdgeDistance()}); err == nil {
 		m["edge"] = edgeState{min, source, ed.EdgeDistance() > 0}
 	}
-	m["part"], m["empty"] = partFacts(r.doc), isEmpty(r.doc)
+	m["part"], m["empty"] = partFacts(ed.Document()), isEmpty(ed.Document()) // as they are now, analysed or not
 	b, err := json.Marshal(m)
 	if err != nil { // a number that is not finite: say so rather than hand the page nothing
 		b, _ = json.Marshal(map[string]any{"file": file, "error": "the results cannot be shown: a result is not a finite number",

@@ -12,6 +12,7 @@ import (
 	"path"
 	"strings"
 	"syscall/js"
+	"time"
 
 	"plumb/density"
 	"plumb/sketch"
@@ -26,8 +27,11 @@ import (
 //
 //	load(text, filename) → {ok, error, warnings, has_material}   a part file (JSON), SVG or DXF drawing
 //	restore(text, filename) → like load, for saved work: the part is the bottom of the undo history
-//	frames() → {drawn, last_ms}   frames painted so far, and performance.now() at the last one
-//	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …
+//	frames() → {drawn, last_ms, slow}   frames painted so far, performance.now() at the last one, and
+//	  the last pieces of work that held the page 100 ms or more
+//	state() → object        the `plumb analyze --format json` keys plus hang, level, recompute_ms, …;
+//	  pending: a large part's analysis of the latest edits is under way, and the figures are of the part
+//	  before them (a new state follows when it is in); the downloads below wait for it
 //	exportSVG() → string    the part 1:1 in millimetres
 //	saveJSON() → string     the part file
 //	report() → string       the plain-text report with the cautions
@@ -63,12 +67,12 @@ func installBridge(g *Game) {
 	fn("frames", func([]js.Value) any {
 		g.mu.Lock()
 		defer g.mu.Unlock()
-		return map[string]any{"drawn": g.frames.drawn, "last_ms": g.frames.lastMS}
+		return map[string]any{"drawn": g.frames.drawn, "last_ms": g.frames.lastMS, "slow": g.slow.list()}
 	})
 	fn("state", func([]js.Value) any {
 		g.mu.Lock()
 		g.refresh()
-		b := g.res.stateJSON(g.file, g.ed)
+		b := g.res.stateJSON(g.file, g.ed, g.stale())
 		g.mu.Unlock()
 		return parseJSON(b)
 	})
@@ -167,6 +171,9 @@ func installBridge(g *Game) {
 			g.refresh()
 			g.refreshLevel()
 			at, ok := g.res.suggested()
+			if !ok && (g.stale() || !g.res.levelDone) {
+				return outcome(errors.New("the hole position is still being worked out: try again when the figures are in"))
+			}
 			if !ok {
 				return outcome(errors.New("no hole position found yet: the part must be sound and have material above its balance point or beside it"))
 			}
@@ -199,6 +206,7 @@ func installBridge(g *Game) {
 // change runs f on the editor, reanalyses and tells the page, and returns f's result. The canvas is
 // painted on the next frame.
 func (g *Game) change(f func() any) any {
+	defer g.slow.note("edit from the page", time.Now())
 	g.mu.Lock()
 	v := f()
 	g.dirty = true
@@ -211,11 +219,12 @@ func (g *Game) change(f func() any) any {
 	return v
 }
 
-// read runs f on the current part without changing it.
+// read runs f on the current part without changing it, analysing it at once if its background
+// analysis is still under way.
 func read[T any](g *Game, f func() T) T {
 	g.mu.Lock()
 	defer g.mu.Unlock()
-	g.refresh()
+	g.settle()
 	return f()
 }
 

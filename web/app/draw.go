@@ -8,6 +8,7 @@ import (
 	"math"
 	"strconv"
 	"strings"
+	"time"
 
 	"github.com/hajimehoshi/ebiten/v2"
 	"github.com/hajimehoshi/ebiten/v2/vector"
@@ -67,6 +68,9 @@ type frame struct {
 	f    *fonts
 	res  *result
 	doc  *sketch.Document
+	// shows is whether res is of doc, or of a part of the same shape whose new material is being
+	// analysed: its material boundary, pieces and marks are then drawn.
+	shows bool
 }
 
 // Draw paints the canvas when something on it changed since the last painted frame, and otherwise
@@ -78,8 +82,10 @@ func (g *Game) Draw(screen *ebiten.Image) {
 		return
 	}
 	g.dirty = false
+	defer g.slow.note("frame", time.Now())
+	doc := g.ed.Document()
 	fr := &frame{g: g, p: painter{dst: screen}, v: g.ed.View, u: g.dpr, w: float64(g.w), h: float64(g.h),
-		f: g.fonts.facesFor(g.dpr), res: g.res, doc: g.ed.Document()}
+		f: g.fonts.facesFor(g.dpr), res: g.res, doc: doc, shows: g.shapes.same(g.res.doc, doc)}
 	fr.base(screen)
 	fr.holes()
 	fr.level()
@@ -106,16 +112,63 @@ func (g *Game) Draw(screen *ebiten.Image) {
 type partLayer struct {
 	img     *ebiten.Image
 	scratch *ebiten.Image // fillLoops' layer
+	raster  rasterFill    // the CPU fill of a large part's material
 	key     layerKey
 }
 
-// layerKey is what the part layer shows: it is painted again when any of it changes.
+// layerKey is what the part layer shows: it is painted again when any of it changes. A new material
+// changes none of it, unless it turns the part on its hang.
 type layerKey struct {
-	res  *result
-	doc  *sketch.Document
-	view edit.View
-	w, h int
-	u    float64
+	shape  *sketch.Document // a part of the shape drawn (its material may be another)
+	body   *geom.Segment    // the first piece of the material boundary drawn (nil: the outline alone)
+	pieces *geom.Segment    // the first curve of the analysis's first loose piece
+	onPart *geom.Boundary   // the first doubler's material
+	ghost  geom.Affine      // the hang's pose, when the part is drawn turned behind itself
+	view   edit.View
+	w, h   int
+	u      float64
+}
+
+// layerKey returns what the part layer of this frame shows.
+func (fr *frame) layerKey() layerKey {
+	g := fr.g
+	if !g.shapes.same(g.layerShape, fr.doc) {
+		g.layerShape = fr.doc
+	}
+	k := layerKey{shape: g.layerShape, view: fr.v, w: g.w, h: g.h, u: fr.u}
+	if fr.shows && len(fr.res.body.Pieces) > 0 {
+		k.body = &fr.res.body.Pieces[0]
+	}
+	if a := fr.res.a; fr.shows && a != nil && len(a.Pieces) > 1 && len(a.Pieces[1].Body.Pieces) > 0 {
+		k.pieces = &a.Pieces[1].Body.Pieces[0] // kept by an analysis of the same shape
+	}
+	if fr.shows && len(fr.res.onPart) > 0 {
+		k.onPart = &fr.res.onPart[0]
+	}
+	if fr.tilted() {
+		k.ghost = fr.res.hang.Pose
+	}
+	return k
+}
+
+// shapeCheck remembers whether two documents have the same shape (sketch.Document.SameShape), for the
+// pair asked last: every frame asks, and the answer changes only with an edit.
+type shapeCheck struct {
+	a, b *sketch.Document
+	ok   bool
+}
+
+// same reports whether a and b are one document or have the same shape.
+func (c *shapeCheck) same(a, b *sketch.Document) bool {
+	switch {
+	case a == b:
+		return true
+	case a == nil || b == nil:
+		return false
+	case c.a != a || c.b != b:
+		c.a, c.b, c.ok = a, b, a.SameShape(b)
+	}
+	return c.ok
 }
 
 // base draws the part layer onto the screen, painting it first if it is out of date.
@@ -131,10 +184,13 @@ func (fr *frame) base(screen *ebiten.Image) {
 		l.scratch = ebiten.NewImageWithOptions(screen.Bounds(), nil)
 		l.key = layerKey{}
 	}
-	key := layerKey{fr.res, fr.doc, fr.v, fr.g.w, fr.g.h, fr.u}
+	key := fr.layerKey()
 	if key != l.key {
+		defer fr.g.slow.note("part layer", time.Now())
 		l.key = key
 		fr.p.dst, fr.p.scratch = l.img, l.scratch
+		fr.p.coarse, fr.p.raster = partSize(fr.doc) >= bigPart, &l.raster
+		defer func() { fr.p.coarse = false }()
 		l.img.Fill(colBackground)
 		fr.grid()
 		fr.origin()
@@ -267,8 +323,11 @@ func tiltText(deg float64) string {
 // part draws the material, the doublers and every edge.
 func (fr *frame) part() {
 	d := fr.doc
+	bodyShown := fr.shows && !fr.res.body.IsEmpty()
 	switch {
-	case !fr.res.body.IsEmpty() && fr.res.doc == d:
+	case fr.p.coarse:
+		fr.rasterMaterial(bodyShown)
+	case bodyShown:
 		fr.fillBoundary(fr.res.body, colMaterial)
 	case len(d.Outline.Loops) > 0:
 		fr.p.fill(fr.regionPath(d.Outline), colMaterial, fillRule(d.Outline.Rule))
@@ -276,7 +335,7 @@ func (fr *frame) part() {
 	fr.loosePieces()
 	for i, o := range d.Overlaid() {
 		// The tint shows where the doubler adds weight: on the material only. Its edge shows all of it.
-		if fr.res.doc == d && i < len(fr.res.onPart) {
+		if fr.shows && i < len(fr.res.onPart) {
 			fr.fillBoundary(fr.res.onPart[i], colOverlay)
 		} else {
 			fr.p.fill(fr.regionPath(o.Region), colOverlay, fillRule(o.Region.Rule))
@@ -285,11 +344,17 @@ func (fr *frame) part() {
 			fr.dashedSegs(l, 1.4, 7, 4, colOverlayEdge)
 		}
 	}
-	for _, r := range append([]geom.Region{d.Outline}, d.Cutouts...) {
+	// On a part of tens of thousands of curves, the cut-outs and letters show as holes in the
+	// material: their edges are not drawn again.
+	edged := []geom.Region{d.Outline}
+	if !fr.p.coarse {
+		edged = append(edged, d.Cutouts...)
+	}
+	for _, r := range edged {
 		fr.strokeRegion(r, 1.5*fr.u, colEdge)
 	}
 	for i, t := range d.Texts {
-		if sh, err := t.Shape(""); err == nil && t.Role != sketch.RoleAdded {
+		if sh, err := t.Shape(""); err == nil && t.Role != sketch.RoleAdded && !fr.p.coarse {
 			fr.strokeRegion(sh.Region, 1.2*fr.u, colEdge)
 		} else if err != nil {
 			fr.textError(i)
@@ -297,22 +362,65 @@ func (fr *frame) part() {
 	}
 }
 
+// rasterMaterial fills a large part's material on the CPU: the analysis's material boundary when it is
+// shown, else the outline less the cut-outs and cut-out lettering as drawn (the material before the
+// analysis is in: where cut-outs overlap one another or leave the outline, this picture is rough).
+func (fr *frame) rasterMaterial(bodyShown bool) {
+	r, d := fr.p.raster, fr.doc
+	r.begin(fr.g.w, fr.g.h, fr.v.Affine(), fr.tol())
+	if bodyShown {
+		r.add(fr.res.body.Pieces, false)
+		r.draw(fr.p.dst, colMaterial)
+		return
+	}
+	if len(d.Outline.Loops) == 0 {
+		return
+	}
+	for _, l := range d.Outline.Loops {
+		r.add(l, false)
+	}
+	for _, c := range d.Cutouts {
+		for _, l := range c.Loops {
+			r.add(l, true)
+		}
+	}
+	for _, t := range d.Texts {
+		sh, err := t.Shape("")
+		if err != nil || t.Role == sketch.RoleAdded {
+			continue
+		}
+		for _, l := range sh.Region.Loops {
+			r.add(l, t.Role != sketch.RoleSeparate) // cut out, or material of its own
+		}
+	}
+	r.draw(fr.p.dst, colMaterial)
+}
+
 // loosePieces shades the pieces of material that come apart from the largest after cutting (the
 // counters of cut-out letters, islands inside cut-outs), numbers each where it lies, and says below
 // the part what the shading means.
 func (fr *frame) loosePieces() {
 	a := fr.res.a
-	if a == nil || fr.res.doc != fr.doc || len(a.Pieces) < 2 {
+	if a == nil || !fr.shows || len(a.Pieces) < 2 {
 		return
 	}
-	var loops []geom.Loop
 	var edges []geom.Segment
 	for _, p := range a.Pieces[1:] {
-		loops = append(loops, p.Body.Loops()...)
 		edges = append(edges, p.Body.Pieces...)
 	}
-	fr.p.fillLoops(loops, fr.v.Affine(), fr.tol(), colLoose)
-	fr.dashedSegs(edges, 1.2, 4, 3, colLooseEdge)
+	if fr.p.coarse { // thousands of counters: filled on the CPU, their dashed edges left out
+		r := fr.p.raster
+		r.begin(fr.g.w, fr.g.h, fr.v.Affine(), fr.tol())
+		r.add(edges, false)
+		r.draw(fr.p.dst, colLoose)
+	} else {
+		var loops []geom.Loop
+		for _, p := range a.Pieces[1:] {
+			loops = append(loops, p.Body.Loops()...)
+		}
+		fr.p.fillLoops(loops, fr.v.Affine(), fr.tol(), colLoose)
+		fr.dashedSegs(edges, 1.2, 4, 3, colLooseEdge)
+	}
 	for i, p := range a.Pieces[1:] {
 		// Numbers where a number fits, and not thousands of them (a sign's letter counters).
 		if size := p.Body.Bounds().Size(); i >= maxPieceLabels || math.Max(size.X, size.Y)*fr.v.Scale < 14*fr.u {
@@ -368,7 +476,7 @@ func (fr *frame) holes() {
 // hangs the part level, it draws the least-tilt positions instead, each with its tilt.
 func (fr *frame) level() {
 	lv := fr.res.level
-	if lv == nil || fr.res.doc != fr.doc {
+	if lv == nil || !fr.shows {
 		return
 	}
 	if lv.Hang != nil {
@@ -451,7 +559,7 @@ func (fr *frame) plumbLine() {
 // shows where it hangs.
 func (fr *frame) balancePoint() {
 	a := fr.res.a
-	if a == nil || fr.res.doc != fr.doc {
+	if a == nil || !fr.shows {
 		return
 	}
 	if fr.tilted() {
@@ -488,7 +596,7 @@ func (fr *frame) quartered(c geom.Point, r, opacity float64) {
 
 // flagged glows along the segments that a warning or the error names.
 func (fr *frame) flagged() {
-	if fr.res.doc != fr.doc || len(fr.res.flagged) == 0 {
+	if !fr.shows || len(fr.res.flagged) == 0 {
 		return
 	}
 	path := fr.segPath(fr.res.flagged, false)

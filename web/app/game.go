@@ -5,11 +5,13 @@ package main
 import (
 	"math"
 	"sync"
+	"time"
 
 	"github.com/hajimehoshi/ebiten/v2"
 
 	"plumb/density"
 	"plumb/geom"
+	"plumb/sketch"
 	"plumb/sketch/edit"
 )
 
@@ -20,7 +22,8 @@ type Game struct {
 	mu      sync.Mutex
 	ed      *edit.Editor
 	file    string  // the name the part was loaded under
-	res     *result // analysis of the current revision
+	res     *result // the analysis on hand: of the current revision unless work is under way
+	work    *job    // the background analysis or level-hole search under way, if any
 	dpr     float64 // device pixels per CSS pixel
 	w, h    int     // canvas size in device pixels
 	in      inputState
@@ -36,10 +39,13 @@ type Game struct {
 
 	// The canvas is painted only when something it shows changed: Draw leaves the last frame on
 	// screen otherwise (the screen is not cleared between frames), so an idle page does no drawing.
-	dirty    bool
-	drawnRes *result // the analysis the last painted frame showed
-	layer    partLayer
-	frames   frameStats
+	dirty      bool
+	drawnRes   *result // the analysis the last painted frame showed
+	layer      partLayer
+	layerShape *sketch.Document // a part of the shape the part layer shows
+	shapes     shapeCheck
+	slow       slowLog
+	frames     frameStats
 }
 
 // frameStats counts the painted frames, for the page's measurements (plumb.frames()).
@@ -67,37 +73,16 @@ type uiState struct {
 	edge       float64
 	radius     float64
 	level      bool // the level-hole search has run
+	pending    bool // the analysis of the part as it is now is under way
 }
 
 func newGame() *Game {
 	g := &Game{ed: edit.New(), file: "part.json", dpr: 1, needFit: true, dirty: true}
-	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0, nil)
+	g.res = analyse(g.ed.Document(), g.ed.Rev(), 0, nil, nil)
 	// The empty starting part is nothing to tell: the page loads the autosaved or demo part when it
 	// is ready, and that load is the first change it hears of.
 	g.toldState = g.uiState()
 	return g
-}
-
-// refresh reanalyses the part if it changed since the last analysis.
-func (g *Game) refresh() {
-	if g.res.rev != g.ed.Rev() || g.res.edge != g.ed.EdgeDistance() {
-		g.res = analyse(g.ed.Document(), g.ed.Rev(), g.ed.EdgeDistance(), g.res)
-		g.ed.SetGuides(g.guides())
-	}
-}
-
-// refreshLevel looks for the level hole, once nothing is being dragged, of a part that can be
-// analysed, and reports whether it did. It takes several analyses, so Update runs it only once a frame
-// has shown the new analysis, never inside a call from the page (typing in the panel's fields stays
-// quick, and an edit reaches the screen before the search).
-func (g *Game) refreshLevel() bool {
-	stale := !g.res.levelDone || g.res.levelDia != g.ed.HoleDiameter() || g.res.levelEdge != g.ed.EdgeDistance()
-	if g.res.err != nil || !stale || g.ed.Dragging() || g.drawnRes != g.res {
-		return false
-	}
-	g.res.findLevel(g.ed.HoleDiameter(), g.ed.EdgeDistance())
-	g.ed.SetGuides(g.guides())
-	return true
 }
 
 // guides are the analysis points the pointer snaps to: the balance point and the level hole.
@@ -115,7 +100,7 @@ func (g *Game) guides() []geom.Point {
 // uiState returns what the page shows of the editor and the analysis now.
 func (g *Game) uiState() uiState {
 	return uiState{g.res.rev, g.ed.Tool(), g.ed.Target(), g.ed.ArcMode(), g.ed.CanUndo(), g.ed.CanRedo(),
-		g.ed.HoleDiameter(), g.ed.EdgeDistance(), g.ed.CornerRadius(), g.res.levelDone}
+		g.ed.HoleDiameter(), g.ed.EdgeDistance(), g.ed.CornerRadius(), g.res.levelDone, g.stale()}
 }
 
 // pending returns the state the page must be told of after this change, if anything: a reanalysis or
@@ -128,11 +113,12 @@ func (g *Game) pending() (state []byte, tell bool) {
 	}
 	g.toldState = now
 	g.dirty = true
-	return g.res.stateJSON(g.file, g.ed), true
+	return g.res.stateJSON(g.file, g.ed, g.stale()), true
 }
 
 // Update handles input and reanalyses the part after changes.
 func (g *Game) Update() error {
+	defer g.slow.note("update", time.Now())
 	if !g.ready {
 		// The page loads the autosaved or demo part while it is told, before this frame goes on.
 		g.ready = true

@@ -26,6 +26,11 @@ type painter struct {
 	scratch *ebiten.Image // as large as dst, for fillLoops
 	vs      []ebiten.Vertex
 	is      []uint16
+	// coarse draws without anti-aliasing and with bevelled joins, and fills material on the CPU
+	// (raster): for a part of tens of thousands of curves, where triangles cost seconds of drawing in
+	// a software renderer and smooth edges show little.
+	coarse bool
+	raster *rasterFill
 }
 
 // draw draws the triangles in p.vs and p.is in one colour by the rule and blend.
@@ -39,7 +44,7 @@ func (p *painter) draw(clr color.Color, rule ebiten.FillRule, blend ebiten.Blend
 		p.vs[i].ColorA = float32(a) / 0xffff
 	}
 	p.dst.DrawTriangles(p.vs, p.is, whitePixel, &ebiten.DrawTrianglesOptions{
-		AntiAlias: true, FillRule: rule, Blend: blend, ColorScaleMode: ebiten.ColorScaleModePremultipliedAlpha,
+		AntiAlias: !p.coarse, FillRule: rule, Blend: blend, ColorScaleMode: ebiten.ColorScaleModePremultipliedAlpha,
 	})
 }
 
@@ -52,6 +57,9 @@ func (p *painter) fill(path *vector.Path, clr color.Color, rule ebiten.FillRule)
 // stroke draws the path's lines width device pixels wide.
 func (p *painter) stroke(path *vector.Path, width float64, clr color.Color) {
 	op := &vector.StrokeOptions{Width: float32(width), LineJoin: vector.LineJoinRound, LineCap: vector.LineCapRound}
+	if p.coarse {
+		op.LineJoin, op.LineCap = vector.LineJoinBevel, vector.LineCapButt
+	}
 	p.vs, p.is = path.AppendVerticesAndIndicesForStroke(p.vs[:0], p.is[:0], op)
 	p.draw(clr, ebiten.FillRuleFillAll, ebiten.BlendSourceOver)
 }

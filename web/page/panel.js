@@ -540,12 +540,16 @@
   }
 
   // renderStale greys the figures while the material fields hold an error: they are still those of the
-  // last material that worked, which the note names.
+  // last material that worked, which the note names. They are greyed too while a large part's analysis
+  // of the last edits is under way (state.pending): they are then those of the part before them.
   function renderStale() {
-    const stale = $("material-error").textContent !== "" && state !== null && !state.error;
-    $("answers").classList.toggle("stale", stale);
-    $("stale-note").textContent = stale ? "Greyed: these figures are for " + (state.material || "the last material that worked") +
-      ", the last material that worked. Fix the field above to update them." : "";
+    const bad = $("material-error").textContent !== "" && state !== null && !state.error;
+    const pending = state !== null && Boolean(state.pending);
+    $("answers").classList.toggle("stale", bad || pending);
+    $("answers").classList.toggle("working", pending && !bad);
+    $("stale-note").textContent = bad ? "Greyed: these figures are for " + (state.material || "the last material that worked") +
+      ", the last material that worked. Fix the field above to update them."
+      : pending ? "Working out the figures for your last change… The greyed figures are from before it." : "";
   }
 
   // underline marks the character at 1-based column col of an input (past the end: the place after it);
