@@ -3,6 +3,7 @@ package page
 import (
 	"bytes"
 	"math/rand/v2"
+	"slices"
 	"strings"
 	"testing"
 )
@@ -52,6 +53,17 @@ func TestRenderModuleInPieces(t *testing.T) {
 	}
 	if !bytes.Equal(got, module) {
 		t.Errorf("the page's module differs from the one rendered (%d bytes, want %d)", len(got), len(module))
+	}
+	// A page that lost a piece, or its module, says so.
+	i := bytes.Index(html, []byte(`<script type="application/octet-stream">`))
+	j := bytes.Index(html, []byte("plumbStart.feed()</script>")) + len("plumbStart.feed()</script>")
+	for name, damaged := range map[string][]byte{
+		"piece lost":  slices.Concat(html[:i], html[j:]),
+		"module lost": bytes.ReplaceAll(html, []byte("plumbStart.end("), []byte("plumbStart.gone(")),
+	} {
+		if _, err := Module(damaged); err == nil {
+			t.Errorf("%s: Module found no fault", name)
+		}
 	}
 }
 
