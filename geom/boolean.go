@@ -70,13 +70,16 @@ func CombinePaced(pace func() error, keep func(in []bool) bool, regions ...Regio
 	}
 	tol := tolerance(Rect{box.Min.Add(o), box.Max.Add(o)})
 	p := &pacer{pace: pace}
+	if !p.check() {
+		return Boundary{}, p.err
+	}
 	hits := findHitsPaced(ms, tol, p)
-	if p.err != nil {
+	if !p.check() {
 		return Boundary{}, p.err
 	}
 	c := newClassifier(ms, starts, regions, keep, tol)
 	kept := c.classify(cutList(ms, hits, tol), p)
-	if p.err != nil {
+	if !p.check() {
 		return Boundary{}, p.err
 	}
 	pieces := closeUp(dedupe(kept, c.side), c.side)

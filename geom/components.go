@@ -57,19 +57,27 @@ func (b Boundary) ComponentsPaced(pace func() error) ([]Boundary, error) {
 		boxes[i] = edges[i].Bounds()
 	}
 	around := newBoxTree(boxes)
-	inside := make([][]Segment, len(outers)) // the holes' pieces by outer edge, joined once below
-	for _, h := range holes {
+	// Each hole goes with its outer edge; the pieces are then gathered once, into lists of the
+	// right size (a plate's thousands of holes would otherwise grow its list many times over).
+	owner := make([]int, len(holes))
+	size := make([]int, len(outers))
+	for k, h := range holes {
 		if !p.step() {
 			return nil, p.err
 		}
 		i := innermost(edges, around, h.b)
-		inside[i] = append(inside[i], h.b.Pieces...)
+		owner[k] = i
+		size[i] += len(h.b.Pieces)
 		outers[i].area += h.area
 	}
-	for i, ps := range inside {
-		if len(ps) > 0 {
-			outers[i].b.Pieces = append(slices.Clip(outers[i].b.Pieces), ps...)
+	for i := range outers {
+		if size[i] > 0 {
+			outers[i].b.Pieces = append(make([]Segment, 0, len(outers[i].b.Pieces)+size[i]), outers[i].b.Pieces...)
 		}
+	}
+	for k, h := range holes {
+		i := owner[k]
+		outers[i].b.Pieces = append(outers[i].b.Pieces, h.b.Pieces...)
 	}
 	slices.SortStableFunc(outers, func(x, y comp) int { return cmp.Compare(y.area, x.area) })
 	comps := make([]Boundary, len(outers))
@@ -138,16 +146,31 @@ func (b Boundary) closedGroups() []Boundary {
 	if groups == 1 {
 		return []Boundary{b}
 	}
+	// Number the groups in order of their first piece, count their pieces, and hand each its
+	// stretch of one list.
 	index := make(map[int]int, groups)
-	out := make([]Boundary, 0, groups)
-	for i, s := range b.Pieces {
+	group := make([]int, n)
+	var count []int
+	for i := range b.Pieces {
 		r := u.find(i)
 		g, ok := index[r]
 		if !ok {
-			g = len(out)
+			g = len(count)
 			index[r] = g
-			out = append(out, Boundary{})
+			count = append(count, 0)
 		}
+		group[i] = g
+		count[g]++
+	}
+	all := make([]Segment, n)
+	out := make([]Boundary, len(count))
+	at := 0
+	for g, c := range count {
+		out[g].Pieces = all[at : at : at+c]
+		at += c
+	}
+	for i, s := range b.Pieces {
+		g := group[i]
 		out[g].Pieces = append(out[g].Pieces, s)
 	}
 	return out

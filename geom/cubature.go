@@ -128,14 +128,15 @@ func outerOrder(s Segment) int {
 // cubature holds the state of one Integrate call: the density, the local frame and the reused buffers.
 type cubature struct {
 	f           Field
-	o           Point     // Combine's origin of the pieces (see Boundary), or (0, 0)
-	c           Point     // local origin (bounding-box centre, relative to o)
-	base        float64   // ξ − c.X: the base line in local coordinates
-	half        float64   // L: half the larger side of the bounding box
-	xs, ys, out []float64 // density nodes and values, for all queued jobs
-	us          []float64 // local abscissae of the nodes
-	vs, ws      []float64 // per outer node: local ordinate and weight W·y'·(panel length)
-	jobs        []gridJob // product rules queued for the next batch evaluation
+	o           Point                  // Combine's origin of the pieces (see Boundary), or (0, 0)
+	c           Point                  // local origin (bounding-box centre, relative to o)
+	base        float64                // ξ − c.X: the base line in local coordinates
+	half        float64                // L: half the larger side of the bounding box
+	xs, ys, out []float64              // density nodes and values, for all queued jobs
+	us          []float64              // local abscissae of the nodes
+	vs, ws      []float64              // per outer node: local ordinate and weight W·y'·(panel length)
+	jobs        []gridJob              // product rules queued for the next batch evaluation
+	rules       [maxGLOrder + 1]glRule // the Gauss–Legendre rules used so far, by order
 	evals       int
 	signChecked bool // Options.SignChecked
 }
@@ -152,6 +153,17 @@ type gridJob struct {
 // some hundreds let compiled density formulas run without per-call overhead while the buffers stay
 // in the processor's cache.
 const batchNodes = 512
+
+// rule returns the n-point Gauss–Legendre rule, from the call's own table after its first use.
+func (c *cubature) rule(n int) glRule {
+	if n < 1 || n > maxGLOrder {
+		panic("geom: Gauss–Legendre order out of range")
+	}
+	if c.rules[n].t == nil {
+		c.rules[n] = gaussLegendre(n)
+	}
+	return c.rules[n]
+}
 
 // cubPiece is part of a boundary segment (in local coordinates) with its orders, its estimates lo at
 // (no, ni) and hi at (no+outerStep, innerHigher(ni)), all over np inner panels, and its priority.
@@ -279,7 +291,8 @@ func (c *cubature) refine(p *cubPiece, scale rawMoments, maxEvals int) ([]*cubPi
 		return nil, nil
 	}
 	var mid rawMoments
-	c.queue(p.s, p.no, innerHigher(p.ni), p.np, &mid)
+	e := p.s.evaluator()
+	c.queue(&e, p.no, innerHigher(p.ni), p.np, &mid)
 	if err := c.flush(); err != nil {
 		return nil, err
 	}
@@ -346,23 +359,26 @@ func sumPieces(pieces []*cubPiece) (total, errSum rawMoments) {
 
 // queueEstimate queues p's two estimates.
 func (c *cubature) queueEstimate(p *cubPiece) {
-	c.queue(p.s, p.no, p.ni, p.np, &p.lo)
-	c.queue(p.s, p.no+outerStep, innerHigher(p.ni), p.np, &p.hi)
+	e := p.s.evaluator()
+	c.queue(&e, p.no, p.ni, p.np, &p.lo)
+	c.queue(&e, p.no+outerStep, innerHigher(p.ni), p.np, &p.hi)
 }
 
-// queue adds the nodes of the product rule on s to the batch: outer order no along s, inner order ni on
-// each of np equal panels of the horizontal from the base line to the outer node. flush stores the
-// result in dst.
-func (c *cubature) queue(s Segment, no, ni, np int, dst *rawMoments) {
-	outer, inner := gaussLegendre(no), gaussLegendre(ni)
+// queue adds the nodes of the product rule on the piece that e evaluates to the batch: outer order no
+// along it, inner order ni on each of np equal panels of the horizontal from the base line to the
+// outer node. flush stores the result in dst.
+func (c *cubature) queue(e *evaluator, no, ni, np int, dst *rawMoments) {
+	outer, inner := c.rule(no), c.rule(ni)
 	i, k0 := len(c.xs), len(c.vs)
 	c.jobs = append(c.jobs, gridJob{no: no, ni: ni, np: np, node: i, outer: k0, dst: dst})
 	n := no * ni * np
-	c.xs, c.ys, c.us = slices.Grow(c.xs, n)[:i+n], slices.Grow(c.ys, n)[:i+n], slices.Grow(c.us, n)[:i+n]
-	c.vs, c.ws = slices.Grow(c.vs, no)[:k0+no], slices.Grow(c.ws, no)[:k0+no]
+	if i+n > cap(c.xs) || k0+no > cap(c.vs) {
+		c.xs, c.ys, c.us = slices.Grow(c.xs, n), slices.Grow(c.ys, n), slices.Grow(c.us, n)
+		c.vs, c.ws = slices.Grow(c.vs, no), slices.Grow(c.ws, no)
+	}
+	c.xs, c.ys, c.us, c.vs, c.ws = c.xs[:i+n], c.ys[:i+n], c.us[:i+n], c.vs[:k0+no], c.ws[:k0+no]
 	xs, ys, us := c.xs[i:i+n], c.ys[i:i+n], c.us[i:i+n]
 	vs, ws := c.vs[k0:k0+no], c.ws[k0:k0+no]
-	e := s.evaluator()
 	base, ox, oy, cx, cy := c.base, c.o.X, c.o.Y, c.c.X, c.c.Y // locals: the stores below cannot change them
 	i = 0
 	for k, t := range outer.t {
@@ -405,7 +421,7 @@ func (c *cubature) flush() error {
 
 // sumJob forms one job's weighted sums from the density values.
 func (c *cubature) sumJob(j gridJob, out []float64) rawMoments {
-	inner := gaussLegendre(j.ni)
+	inner := c.rule(j.ni)
 	var r rawMoments
 	n := j.no * j.ni * j.np
 	us, out := c.us[j.node:j.node+n], out[j.node:j.node+n]

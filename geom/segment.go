@@ -464,20 +464,25 @@ func SVGArc(from Point, rx, ry, phiDeg float64, largeArc, sweep bool, to Point) 
 
 // evaluator gives a segment's point and y-derivative at many parameters cheaply, for the integrators:
 // lines and Béziers in power form x(t) = Σ cx[k]·t^k, arcs from their start point c as
-// P(θ) = c + 2 sin(d/2)·(−sin(θ₀+d/2)·ax + cos(θ₀+d/2)·ay), d = θ − θ₀ (see Segment.arcStep).
+// P(θ) = c + 2 sin(d/2)·(−sin(θ₀+d/2)·ax + cos(θ₀+d/2)·ay), d = θ − θ₀ (see Segment.arcStep). The sines
+// and cosines of θ₀ + d/2 and θ₀ + d come from those of θ₀ (once per arc) and d/2 by the angle-sum
+// formulas: one Sincos per point instead of five trigonometric functions, to the same few units in
+// the last place.
 type evaluator struct {
-	arc          bool
-	cx, cy       [4]float64
-	c, ax, ay    Point
-	theta, sweep float64
+	arc       bool
+	cx, cy    [4]float64
+	c, ax, ay Point
+	sweep     float64
+	st, ct    float64 // sin θ₀, cos θ₀
 }
 
 // evaluator returns the evaluator of s.
 func (s Segment) evaluator() evaluator {
 	if s.Kind == KindArc {
 		sp, cp := math.Sincos(s.Rot)
+		st, ct := math.Sincos(s.Theta)
 		return evaluator{arc: true, c: s.P[0], ax: Pt(s.RX*cp, s.RX*sp), ay: Pt(-s.RY*sp, s.RY*cp),
-			theta: s.Theta, sweep: s.Sweep}
+			sweep: s.Sweep, st: st, ct: ct}
 	}
 	var e evaluator
 	p := s.P
@@ -500,10 +505,10 @@ func (s Segment) evaluator() evaluator {
 // at returns x(t), y(t) and y'(t).
 func (e *evaluator) at(t float64) (x, y, dy float64) {
 	if e.arc {
-		d := t * e.sweep
-		sh, ch := math.Sincos(e.theta + d/2)
-		k := 2 * math.Sin(d/2)
-		sn, cs := math.Sincos(e.theta + d)
+		s2, c2 := math.Sincos(t * e.sweep / 2)
+		sh, ch := e.st*c2+e.ct*s2, e.ct*c2-e.st*s2 // θ₀ + d/2
+		sn, cs := sh*c2+ch*s2, ch*c2-sh*s2         // θ₀ + d
+		k := 2 * s2
 		return e.c.X + k*(e.ay.X*ch-e.ax.X*sh), e.c.Y + k*(e.ay.Y*ch-e.ax.Y*sh), e.sweep * (e.ay.Y*cs - e.ax.Y*sn)
 	}
 	x = e.cx[0] + t*(e.cx[1]+t*(e.cx[2]+t*e.cx[3]))

@@ -224,12 +224,18 @@ func (a *Analysis) findShape(d *Document, opt AnalyzeOptions, same *shapeFacts) 
 		return d, p, err
 	}
 	crossed, err := a.checkRegions(d)
+	if err == nil {
+		err = opt.pace()
+	}
 	if err != nil {
 		return nil, plan{}, err
 	}
 	d, notes := d.withoutRepeats()
 	a.Warnings = append(a.Warnings, notes...)
 	p, err := d.plan()
+	if err == nil {
+		err = opt.pace()
+	}
 	if err != nil {
 		return nil, plan{}, err
 	}

@@ -1,37 +1,30 @@
-//go:build unix
-
-// The benchmarks report process CPU time per operation (getrusage) beside wall time: on a machine
-// shared with other work, wall time varies with the load far more than CPU time does.
+// The benchmarks report process CPU time per operation (getrusage) beside wall time where the system
+// gives it (cputime_unix_test.go): on a machine shared with other work, wall time varies with the load
+// far more than CPU time does. Under WebAssembly they report wall time only.
 
 package sketch
 
 import (
 	"fmt"
 	"math"
-	"syscall"
 	"testing"
-	"time"
 
 	"plumb/density"
 	"plumb/geom"
 	"plumb/sketch/letter"
 )
 
-// measure runs op in the benchmark loop, reporting allocations and the CPU time per op.
+// measure runs op in the benchmark loop, reporting allocations and, where the system gives it, the CPU
+// time per op.
 func measure(b *testing.B, op func()) {
-	cpu := func() time.Duration {
-		var ru syscall.Rusage
-		if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
-			b.Fatal(err)
-		}
-		return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
-	}
 	b.ReportAllocs()
-	start := cpu()
+	start, ok := cpuTime()
 	for b.Loop() {
 		op()
 	}
-	b.ReportMetric(float64(cpu()-start)/float64(b.N), "cpu-ns/op")
+	if end, _ := cpuTime(); ok {
+		b.ReportMetric(float64(end-start)/float64(b.N), "cpu-ns/op")
+	}
 }
 
 func BenchmarkAnalyzeFlower(b *testing.B) {

@@ -70,7 +70,9 @@ func (t Text) Shape(path string) (letter.Shape, error) {
 		return letter.Shape{}, &PathError{Path: path + ".stencil", Msg: "stencil bridges are for lettering cut out of the part"}
 	}
 	sh, err := t.Lettering().Shape()
-	if err == nil && !finiteBox(sh.Region.Bounds()) {
+	// The layout box holds the glyphs' points, so its corners are finite when theirs are (checked on
+	// the corners: a sign's thousands of curves would cost this on every call).
+	if err == nil && !finiteBox(geom.RectFromPoints(sh.Frame[:]...)) {
 		return sh, &PathError{Path: path + ".height", Msg: "the lettering reaches beyond the range of numbers"}
 	}
 	var fe *letter.FieldError

@@ -1,6 +1,7 @@
 package sketch
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -108,5 +109,15 @@ func TestTextHang(t *testing.T) {
 	}
 	if math.Abs(h.Centroid.X-a.Pieces[0].Centroid.X) > 1e-9 {
 		t.Errorf("hung centroid %v, the panel's %v", h.Centroid, a.Pieces[0].Centroid)
+	}
+}
+
+// TestTextBeyondNumbers: lettering so tall that its points overflow float64 is an error at its
+// height, not a shape with infinite points.
+func TestTextBeyondNumbers(t *testing.T) {
+	_, err := Text{Text: "WIDE SIGN", Height: 1e308}.Shape("texts[0]")
+	var pe *PathError
+	if !errors.As(err, &pe) || pe.Path != "texts[0].height" {
+		t.Errorf("error %v, want one at texts[0].height", err)
 	}
 }

@@ -78,7 +78,7 @@ func installBridge(g *Game) {
 	})
 	fn("exportSVG", func([]js.Value) any { return read(g, g.exportSVG) })
 	fn("saveJSON", func([]js.Value) any {
-		return read(g, func() string { b, _ := g.ed.Document().Save(); return string(b) })
+		return peek(g, func() string { b, _ := g.ed.Document().Save(); return string(b) })
 	})
 	fn("report", func([]js.Value) any { return read(g, g.report) })
 	fn("templatePDF", func(a []js.Value) any {
@@ -192,7 +192,7 @@ func installBridge(g *Game) {
 		return out
 	})
 	fn("fontLicence", func([]js.Value) any { return letter.Licence })
-	fn("writing", func([]js.Value) any { return read(g, g.ed.Writing) })
+	fn("writing", func([]js.Value) any { return peek(g, g.ed.Writing) })
 	fn("shortcuts", func([]js.Value) any {
 		var out []any
 		for _, s := range edit.Shortcuts() {
@@ -220,11 +220,19 @@ func (g *Game) change(f func() any) any {
 }
 
 // read runs f on the current part without changing it, analysing it at once if its background
-// analysis is still under way.
+// analysis is still under way: for what is made from the analysis (a report, a cut file).
 func read[T any](g *Game, f func() T) T {
 	g.mu.Lock()
 	defer g.mu.Unlock()
 	g.settle()
+	return f()
+}
+
+// peek runs f on the editor without changing it or waiting for any analysis: for the part file, which
+// the autosave asks for while a large part's analysis may still be under way.
+func peek[T any](g *Game, f func() T) T {
+	g.mu.Lock()
+	defer g.mu.Unlock()
 	return f()
 }
 

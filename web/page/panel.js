@@ -825,6 +825,16 @@
     return closed;
   }
 
+  // whenFiguresIn runs a download made from the figures once they are of the part as it is: while a
+  // large part's analysis is under way (state.pending) it waits for it, so that the page stays usable
+  // meanwhile instead of the app finishing the analysis within the click.
+  function whenFiguresIn(run) {
+    if (!state || !state.pending) { run(); return; }
+    toast("Finishing the figures for your last change; the download follows.");
+    const wait = () => { if (state && state.pending) setTimeout(wait, 200); else run(); };
+    setTimeout(wait, 200);
+  }
+
   // ---- wiring ----
 
   const ACTIONS = {
@@ -834,19 +844,19 @@
     new: () => app.newPart(),
     open: () => $("file").click(),
     save: () => download(app.saveJSON(), baseName() + ".json", "application/json"),
-    svg: () => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml"),
-    report: () => download(app.report(), baseName() + "-report.txt", "text/plain"),
-    cutfile: () => {
+    svg: () => whenFiguresIn(() => download(app.exportSVG(), baseName() + ".svg", "image/svg+xml")),
+    report: () => whenFiguresIn(() => download(app.report(), baseName() + "-report.txt", "text/plain")),
+    cutfile: () => whenFiguresIn(() => {
       const format = $("cut-format").value;
       const text = app.cutFile(format);
       if (typeof text === "string") download(text, baseName() + "-cut." + format, format === "svg" ? "image/svg+xml" : "application/dxf");
       else toast("Cut file: " + text.error, true);
-    },
-    template: () => {
+    }),
+    template: () => whenFiguresIn(() => {
       const pdf = app.templatePDF($("paper").value);
       if (pdf instanceof Uint8Array) download(pdf, baseName() + "-template.pdf", "application/pdf");
       else toast("Drilling template: " + pdf.error, true);
-    },
+    }),
     copy: () => copyText(resultsText()),
     "place-hole": () => {
       const r = app.placeSuggestedHole();
