@@ -395,6 +395,9 @@ func TestPageLoadsOfflineFromFile(t *testing.T) {
 	timing := eval[map[string]float64](b, `plumbUI.timing`)
 	t.Logf("page size: %d bytes (%.2f MB; goal ≤ %.1f MB, checked by TestPageSizeAndFirstFrame)", built.size, float64(built.size)/1e6, maxPageBytes/1e6)
 	t.Logf("navigation to first interactive frame: %.0f ms (app ready at %.0f ms)", timing["restoredMs"], timing["readyMs"])
+	if where := eval[string](b, `plumbStart.compiledIn`); where != "worker" {
+		t.Errorf("the module was compiled in the %s, not in the loader's worker", where)
+	}
 	b.frames(3)
 	b.mu.Lock()
 	requests := append([]string(nil), b.requests...)

@@ -3,7 +3,6 @@ package web
 import (
 	"fmt"
 	"math/rand/v2"
-	"os"
 	"slices"
 	"strings"
 	"testing"
@@ -40,34 +39,71 @@ func (b *browser) reload() {
 	b.waitStarted()
 }
 
+// TestPageSizeAndFirstFrame checks the page's weight and its time to the first interactive frame: the
+// median of five cold loads, each in a fresh browser context. Software WebGL shares the machine's cores
+// with whatever else runs, so a median over the goal is measured once more, and fails the test only
+// when the second median is over as well; both are logged, load by load and step by step.
 func TestPageSizeAndFirstFrame(t *testing.T) {
-	var first, ready []float64
-	for range firstFrameRuns {
-		b := newBrowser(t) // a fresh browser context each time: nothing cached, nothing stored
-		b.open()
-		tm := eval[map[string]float64](b, `plumbUI.timing`)
-		t.Logf("load: script %.0f ms, module decoded %.0f ms, compiled %.0f ms, Go main %.0f ms, app's first frame %.0f ms, part loaded %.0f ms, on screen %.0f ms",
-			tm["scriptMs"], tm["unpackedMs"], tm["compiledMs"], tm["mainMs"], tm["readyMs"], tm["loadedMs"], tm["restoredMs"])
-		first, ready = append(first, tm["restoredMs"]), append(ready, tm["readyMs"])
-	}
 	t.Logf("page size: %d bytes (%.2f MB; goal ≤ %.1f MB)", built.size, float64(built.size)/1e6, maxPageBytes/1e6)
 	if built.size > maxPageBytes {
 		t.Errorf("page is %d bytes, over the %d-byte goal", built.size, maxPageBytes)
 	}
+	med := firstFrameMedian(t)
+	if med > maxFirstFrame {
+		t.Logf("median %v over the %v goal: measuring again", med, maxFirstFrame)
+		med = firstFrameMedian(t)
+	}
+	if med > maxFirstFrame {
+		t.Errorf("first interactive frame after a median %v, twice over the %v goal", med, maxFirstFrame)
+	}
+}
+
+// loadSteps are the page's start-up marks (plumbUI.timing, milliseconds since navigation), in order.
+var loadSteps = []struct{ key, what string }{
+	{"loaderMs", "loader runs"},
+	{"fedMs", "module read"},
+	{"compiledMs", "compiled"},
+	{"scriptMs", "panel script"},
+	{"instantiatedMs", "instantiated"},
+	{"mainMs", "Go main"},
+	{"readyMs", "app's first frame"},
+	{"loadedMs", "part (demo) loaded"},
+	{"restoredMs", "on screen"},
+}
+
+// firstFrameMedian loads the page firstFrameRuns times, cold, logs the steps of each load, and returns
+// the median time from navigation to the first interactive frame (the part on screen).
+func firstFrameMedian(t *testing.T) time.Duration {
+	t.Helper()
+	var first, ready []float64
+	for i := range firstFrameRuns {
+		// Each load in a subtest of its own, so that its tab closes before the next load: a page left
+		// open goes on compiling its hot functions for a second or more, on the cores the next load needs.
+		var tm map[string]float64
+		t.Run(fmt.Sprintf("load%d", i+1), func(t *testing.T) {
+			b := newBrowser(t) // a fresh browser context each time: nothing cached, nothing stored
+			b.open()
+			tm = eval[map[string]float64](b, `plumbUI.timing`)
+		})
+		if tm == nil {
+			continue
+		}
+		var steps []string
+		for _, s := range loadSteps {
+			steps = append(steps, fmt.Sprintf("%s %.0f", s.what, tm[s.key]))
+		}
+		t.Logf("load %d, ms since navigation: %s", i+1, strings.Join(steps, ", "))
+		first, ready = append(first, tm["restoredMs"]), append(ready, tm["readyMs"])
+	}
+	if len(first) < firstFrameRuns {
+		t.Fatalf("only %d of %d loads finished", len(first), firstFrameRuns)
+	}
 	slices.Sort(first)
 	slices.Sort(ready)
 	med := first[len(first)/2]
-	t.Logf("navigation to first interactive frame, %d cold loads: median %.0f ms (min %.0f, max %.0f; app ready: median %.0f ms); goal ≤ %v",
+	t.Logf("navigation to first interactive frame, %d cold loads: median %.0f ms (min %.0f, max %.0f; app's first frame: median %.0f ms); goal ≤ %v",
 		len(first), med, first[0], first[len(first)-1], ready[len(ready)/2], maxFirstFrame)
-	// The time depends on how busy the machine is (software WebGL shares the cores with everything
-	// else), so the goal fails the test only where asked for, on a quiet machine: PLUMB_STRICT_TIMING=1.
-	if med > float64(maxFirstFrame.Milliseconds()) {
-		report := t.Logf
-		if os.Getenv("PLUMB_STRICT_TIMING") == "1" {
-			report = t.Errorf
-		}
-		report("first interactive frame after a median %.0f ms, over the %v goal", med, maxFirstFrame)
-	}
+	return time.Duration(med * float64(time.Millisecond))
 }
 
 // TestIdlePageDrawsNothing counts the frames the app paints while nothing happens: the canvas keeps the

@@ -5,8 +5,6 @@ import (
 	"compress/gzip"
 	"context"
 	"io"
-	"regexp"
-	"strconv"
 	"testing"
 	"time"
 
@@ -34,12 +32,7 @@ func TestBuildHello(t *testing.T) {
 			t.Errorf("page lacks %q", want)
 		}
 	}
-	m := regexp.MustCompile(`(?s)<script type="application/octet-stream" id="plumb-module" data-bytes="(\d+)">(.*?)</script>`).FindSubmatch(html)
-	if m == nil {
-		t.Fatal("page has no module")
-	}
-	n, _ := strconv.Atoi(string(m[1]))
-	packed, err := page.UnpackBytes(string(m[2]), n)
+	packed, err := page.Module(html)
 	if err != nil {
 		t.Fatalf("module does not unpack: %v", err)
 	}

@@ -2,6 +2,8 @@ package page
 
 import (
 	"fmt"
+	"regexp"
+	"strconv"
 	"strings"
 	"unicode/utf16"
 )
@@ -34,9 +36,9 @@ func PackBytes(data []byte) string {
 	return b.String()
 }
 
-// UnpackBytes reverses PackBytes for n bytes of data, from the page's bytes.
+// UnpackBytes reverses PackBytes for n bytes of data, from the page's bytes; n < 0 takes any length.
 func UnpackBytes(text string, n int) ([]byte, error) {
-	out := make([]byte, 0, n)
+	out := make([]byte, 0, max(n, 0))
 	for i := 0; i < len(text); i++ {
 		c := text[i]
 		switch {
@@ -50,7 +52,7 @@ func UnpackBytes(text string, n int) ([]byte, error) {
 		}
 		out = append(out, c)
 	}
-	if len(out) != n {
+	if n >= 0 && len(out) != n {
 		return nil, fmt.Errorf("page: packed module holds %d bytes, want %d", len(out), n)
 	}
 	return out, nil
@@ -99,4 +101,27 @@ func asciiJS(s string) string {
 // (CSS Syntax Level 3, §4.3.7).
 func asciiCSS(s string) string {
 	return asciiOnly(s, func(r rune) string { return fmt.Sprintf(`\%06X`, r) })
+}
+
+// Module returns the gzipped module a page from Render carries: its pieces unpacked and joined, checked
+// against the length the page states.
+func Module(html []byte) ([]byte, error) {
+	end := regexp.MustCompile(`<script>plumbStart\.end\((\d+)\)</script>`).FindSubmatch(html)
+	if end == nil {
+		return nil, fmt.Errorf("page: no module on the page")
+	}
+	// The pieces, as page.html writes them.
+	pieceRE := regexp.MustCompile(`<script type="application/octet-stream">([^<]*)</script><script>plumbStart\.feed\(\)</script>`)
+	var module []byte
+	for _, m := range pieceRE.FindAllSubmatch(html, -1) {
+		piece, err := UnpackBytes(string(m[1]), -1)
+		if err != nil {
+			return nil, err
+		}
+		module = append(module, piece...)
+	}
+	if n, _ := strconv.Atoi(string(end[1])); n != len(module) {
+		return nil, fmt.Errorf("page: the module's pieces hold %d bytes, the page says %s", len(module), end[1])
+	}
+	return module, nil
 }

@@ -50,9 +50,11 @@ func TestPackBytesRoundTrip(t *testing.T) {
 func FuzzPackBytes(f *testing.F) {
 	f.Add([]byte("\x00asm\x01\x00\x00\x00</script>\r\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
-		got, err := UnpackBytes(PackBytes(data), len(data))
-		if err != nil || !bytes.Equal(got, data) {
-			t.Fatalf("round trip of % x: % x, %v", data, got, err)
+		for _, n := range []int{len(data), -1} { // the length given, and any length
+			got, err := UnpackBytes(PackBytes(data), n)
+			if err != nil || !bytes.Equal(got, data) {
+				t.Fatalf("round trip of % x with n = %d: % x, %v", data, n, got, err)
+			}
 		}
 	})
 }

@@ -3,8 +3,9 @@
 // offline HTML file.
 //
 // The page needs nothing from the network. Its Content-Security-Policy (CSP) allows only the inline
-// scripts and styles it carries, WebAssembly compilation, and data: and blob: images; connect-src is
-// 'none', so neither the page nor the app can open a connection.
+// scripts and styles it carries, WebAssembly compilation, data: and blob: images, and a worker from a
+// blob: URL (the loader's, which compiles the module); connect-src is 'none', so neither the page, its
+// worker nor the app can open a connection.
 package page
 
 import (
@@ -18,7 +19,7 @@ import (
 
 // CSP is the page's Content-Security-Policy.
 const CSP = "default-src 'none'; script-src 'unsafe-inline' 'wasm-unsafe-eval'; style-src 'unsafe-inline'; " +
-	"img-src data: blob:; connect-src 'none'; base-uri 'none'; form-action 'none'"
+	"img-src data: blob:; worker-src blob:; connect-src 'none'; base-uri 'none'; form-action 'none'"
 
 var (
 	//go:embed page.html
@@ -27,6 +28,8 @@ var (
 	panelCSS string
 	//go:embed panel.js
 	panelJS string
+	//go:embed loader.js
+	loaderJS string
 
 	// The template's own text is kept to ASCII, like everything the page carries (see pack.go).
 	pageTemplate = template.Must(template.New("page.html").Parse(asciiHTML(pageHTML)))
@@ -70,8 +73,15 @@ type Gauge struct {
 	In     float64 `json:"in"`
 }
 
+// modulePiece is the size of the pieces the module is stored in, in bytes of its gzip form: the browser
+// compiles each piece as soon as it has read it, while it reads the rest of the page (loader.js). A
+// piece costs a few dozen bytes of markup and a call of the loader; at 64 KiB the compiler trails the
+// reading of the page by a few milliseconds.
+const modulePiece = 64 << 10
+
 // Render returns the complete page, in windows-1252 (Charset). The module is stored as its gzip form's
-// own bytes (PackBytes) and unpacked in the browser with DecompressionStream; the demo part and presets
+// own bytes (PackBytes), in pieces of modulePiece bytes near the top of the page, which the browser
+// inflates (DecompressionStream) and compiles as it reads them (loader.js); the demo part and presets
 // become JavaScript values (window.PLUMB_DEMO, a string, and window.PLUMB_PRESETS).
 func Render(a Assets) ([]byte, error) {
 	if bytes.Contains(bytes.ToLower(a.WasmExec), []byte("</script")) {
@@ -92,14 +102,21 @@ func Render(a Assets) ([]byte, error) {
 	if err != nil {
 		return nil, err
 	}
+	var pieces []string
+	for rest := a.Module; len(rest) > 0; {
+		n := min(len(rest), modulePiece)
+		pieces = append(pieces, PackBytes(rest[:n]))
+		rest = rest[n:]
+	}
 	var out bytes.Buffer
-	err = pageTemplate.Execute(&out, map[string]string{
+	err = pageTemplate.Execute(&out, map[string]any{
 		"CSP":       CSP,
 		"Charset":   Charset,
 		"CSS":       asciiCSS(panelCSS),
 		"JS":        asciiJS(panelJS),
 		"WasmExec":  asciiJS(string(a.WasmExec)),
-		"Module":    PackBytes(a.Module),
+		"Module":    pieces,
+		"Loader":    asciiJS(loaderJS),
 		"ModuleLen": strconv.Itoa(len(a.Module)),
 		"CP1252":    string(cp1252JSON),
 		"Demo":      asciiJS(string(demo)),

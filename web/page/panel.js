@@ -24,9 +24,12 @@
 
   const $ = (id) => document.getElementById(id);
   const presets = window.PLUMB_PRESETS || { materials: [], thicknesses: [], gauge_tables: {} };
-  // Milliseconds since navigation: unpackedMs (the module's text decoded), compiledMs, readyMs (the app's
-  // first frame), restoredMs (the part is on screen).
-  const timing = { scriptMs: performance.now() };
+  // Milliseconds since navigation, begun by the loader (loaderMs, fedMs: the module's last piece read,
+  // compiledMs): scriptMs (this script runs), instantiatedMs, mainMs (Go's main starts), readyMs (the
+  // app's first frame), loadedMs (the part is loaded), restoredMs (the part is on screen).
+  const start = window.plumbStart || { timing: {}, module: Promise.reject(new Error("the module loader did not run")) };
+  const timing = start.timing;
+  timing.scriptMs = performance.now();
   let app = null; // window.plumb once the app is ready
   let restored = false; // the autosaved or demo part has been loaded; until then nothing is autosaved
   let startup = { saved: null, crashed: false }; // what startApp read from storage before the app ran
@@ -79,11 +82,22 @@
   function fmtField(v) {
     return String(Number(v.toFixed(FIELD_DECIMALS[unitName()] ?? 4)));
   }
+  // fmtSig writes v to digits significant figures: plain with commas between thousands from 1e-3 to
+  // 1e7, in exponent form outside.
   function fmtSig(v, digits = 4) {
     if (!Number.isFinite(v)) return "—";
     const a = Math.abs(v);
     if (a !== 0 && (a < 1e-3 || a >= 1e7)) return minus(v.toExponential(digits - 1)).replace("e-", "e\u2212");
-    return minus(Number(v.toPrecision(digits)).toLocaleString("en", { maximumFractionDigits: 8 }));
+    return minus(groupThousands(String(Number(v.toPrecision(digits)))));
+  }
+  // groupThousands puts commas between the thousands of a number written plainly ("-1234.5"), as
+  // toLocaleString("en") does; that call's first use costs the start-up tens of milliseconds.
+  function groupThousands(text) {
+    const sign = text.startsWith("-") ? "-" : "";
+    const dot = text.indexOf(".");
+    let whole = text.slice(sign.length, dot < 0 ? text.length : dot);
+    for (let i = whole.length - 3; i > 0; i -= 3) whole = whole.slice(0, i) + "," + whole.slice(i);
+    return sign + whole + (dot < 0 ? "" : text.slice(dot));
   }
   function fmtDeg(v) { return Number.isFinite(v) ? minus(v.toFixed(1)) + "°" : "—"; }
 
@@ -95,37 +109,14 @@
     $("loading-msg").textContent = msg;
   }
 
-  // unpackBytes reverses the Go side's PackBytes (web/page/pack.go) on the module's text as the page's
-  // windows-1252 decoding gives it: characters up to U+00FF are their bytes, except those that bytes
-  // 0x80-0x9F decode to, listed in PLUMB_CP1252; byte 0x01 escapes the next byte, 0x40 more than meant.
-  function unpackBytes(text, n) {
-    const high = new Map(window.PLUMB_CP1252.map((c, i) => [c, 0x80 + i]));
-    const out = new Uint8Array(n);
-    let o = 0;
-    let escaped = false;
-    for (let i = 0; i < text.length && o < n; i++) {
-      let c = text.charCodeAt(i);
-      if (c >= 0x80 && (c < 0xa0 || c > 0xff)) c = high.get(c);
-      if (escaped) { out[o++] = c - 0x40; escaped = false; } else if (c === 0x01) escaped = true; else out[o++] = c;
-    }
-    if (o !== n) throw new Error("the packed app holds " + o + " bytes, not " + n);
-    return out;
-  }
-
-  // startApp unpacks the module and compiles it while it is still being inflated (a Response typed
-  // application/wasm streams into the compiler), reads the saved part meanwhile, and runs the app.
+  // startApp instantiates the module, which the loader (loader.js) has been compiling while the page was
+  // read, reads the saved part meanwhile, and runs the app.
   async function startApp() {
-    const holder = $("plumb-module");
-    const packed = unpackBytes(holder.textContent, Number(holder.dataset.bytes));
-    holder.remove();
-    timing.unpackedMs = performance.now();
-    const stream = new Blob([packed]).stream().pipeThrough(new DecompressionStream("gzip"));
     const go = new Go();
-    const compiled = WebAssembly.instantiateStreaming(
-      new Response(stream, { headers: { "Content-Type": "application/wasm" } }), go.importObject);
-    startup = await readStartup();
-    const { instance } = await compiled;
-    timing.compiledMs = performance.now();
+    const [module, saved] = await Promise.all([start.module, readStartup()]);
+    startup = saved;
+    const instance = await WebAssembly.instantiate(module, go.importObject);
+    timing.instantiatedMs = performance.now();
     go.run(instance).then(() => failed("The app stopped. Reload the page to start it again; your part is kept."));
   }
 
@@ -153,7 +144,9 @@
     }
     restored = true;
     $("text-font").replaceChildren(...app.fonts().map((f) => new Option(f, f)));
-    refresh();
+    // The app told the restored part as it loaded it; ask for its state only if it did not.
+    if (state === null) refresh();
+    else render();
     if (!startup.crashed && state) lastSaved.empty = Boolean(state.empty);
     $("loading").classList.add("done");
     setEnabled(true);
@@ -351,13 +344,14 @@
   function loadText(text, name, quiet) {
     if (!app) { toast("Still loading; try again in a moment."); return false; }
     const panel = panelMaterial(); // before loading: showing a part without a material empties the fields
+    const told = state;
     const r = app.load(text, name);
     if (!r.ok) {
       toast(name + ": " + r.error + "\nThe part on screen is unchanged.", true);
       return false;
     }
     $("units-note").hidden = true;
-    refresh();
+    if (state === told) refresh(); // the app tells the new part as it loads it (onChange); ask if it did not
     const warnings = r.warnings || [];
     const adopted = !quiet && r.has_material === false && adoptPanelMaterial(panel);
     if (adopted) toast("Opened " + name + ". It names no material: using the panel's, " + (state.material || adopted) + ".");
@@ -1024,6 +1018,10 @@
   setMode("sheet");
   setEnabled(false);
   wire();
+  // Lay the page out now, while nothing else runs: once the app starts, the browser compiles its
+  // hot functions on every core, and the first layout, forced by the canvas taking the focus, took
+  // several times as long then.
+  document.body.getBoundingClientRect();
   startApp().catch((e) => failed("Plumb could not start in this browser: " + e.message +
     ". It needs WebAssembly, WebGL 2 and a browser from 2023 or later."));
 })();
