@@ -339,8 +339,23 @@ func (in *instr) run(regs [][]float64) {
 		for i := range d {
 			d[i] = blend(a[i], b[i], c[i])
 		}
+	case opExp:
+		runExp(d, a)
 	default:
 		in.runFunc(d, a, regs)
+	}
+}
+
+// runExp is runFunc for exp, with the exponential inlined instead of called through a function
+// value: it is the costliest of the common operations.
+func runExp(d, a []float64) {
+	var prev uint64
+	for i, x := range a {
+		if bits := math.Float64bits(x); i == 0 || bits != prev {
+			prev, d[i] = bits, exp(x)
+			continue
+		}
+		d[i] = d[i-1]
 	}
 }
 

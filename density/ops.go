@@ -54,7 +54,7 @@ const (
 var unaryFuncs = [...]func(float64) float64{
 	opNeg:    func(a float64) float64 { return -a },
 	opSqrt:   math.Sqrt,
-	opExp:    math.Exp,
+	opExp:    exp,
 	opLn:     math.Log,
 	opLog10:  math.Log10,
 	opSin:    math.Sin,
