@@ -2,13 +2,17 @@ package density
 
 import "math"
 
-// exp returns eˣ by the method of the FreeBSD C library's e_exp.c (the one Go's portable math.Exp
-// uses), whose error is below one ulp: x = k·ln 2 + r with |r| ≤ ln 2 / 2, r carried as hi − lo in
-// two parts, e^r by a rational form with a degree-10 Remez polynomial, and the scaling by 2^k done by
-// building the power of two's bits. Where e^r·2^k is a normal number that multiplication is exact, so
-// the result is the portable math.Exp's to the bit; near overflow and underflow exp calls math.Exp.
-// It is small enough to inline and avoids math.Ldexp, which in WebAssembly (no assembly math.Exp)
-// is a large part of the cost of an exponential.
+// exp returns eˣ to below one ulp (about 0.55 at most by the bound below), by the table-driven method of
+// P. T. P. Tang, "Table-driven implementation of the exponential function in IEEE floating-point
+// arithmetic", ACM Trans. Math. Software 15 (1989) 144–157 (from memory): x = (32m + j)·ln 2/32 + r
+// with |r| ≤ ln 2/64, so eˣ = 2^m·2^(j/32)·e^r, where 2^(j/32) comes from a table as a sum of two
+// doubles (expTable) and e^r − 1 from its Taylor polynomial to r⁶, whose remainder r⁷/7! < 3.5e-18
+// is far below the half ulp (1.1e-16) of the result. The rounding of the final sum, at most half
+// an ulp, dominates the error; the reduction is exact (ln 2/32 is split so that n·ln2Hi32 is exact
+// and Sterbenz's lemma makes x − n·ln2Hi32 exact), the rest adds a few hundredths of an ulp. It
+// needs no division and no math.Ldexp (the power 2^m is built from its bits: the result is a
+// normal number for |x| < 707), so it costs less than math.Exp in WebAssembly, where math.Exp has
+// no assembly form; beyond ±707 and for NaN exp is math.Exp.
 //
 // The interval check bounds exp over [lo, hi] by this same function at the ends, widened by
 // libraryULPs (2) ulps (monotoneInterval): exp is within one ulp of the exact exponential, which is
@@ -16,39 +20,60 @@ import "math"
 // (math.Exp's assembly form on amd64 is not always within one ulp: 1.23 ulps at x = 385.7489993292296.)
 func exp(x float64) float64 {
 	const (
-		ln2Hi = 6.93147180369123816490e-01
-		ln2Lo = 1.90821492927058770002e-10
-		log2e = 1.44269504088896338700e+00
-		// Beyond ±reach the result may leave the normal numbers (2^±1021 at most after rounding k).
-		reach    = 707
-		nearZero = 1.0 / (1 << 28)
+		reach   = 707
+		inv     = 46.16624130844683               // 32/ln 2
+		ln2Hi32 = 6.93147180369123816490e-01 / 32 // ln 2/32 to 33 bits: n·ln2Hi32 is exact for |n| < 2²⁰
+		ln2Lo32 = 1.90821492927058770002e-10 / 32 // ln 2/32 − ln2Hi32
 	)
-	if !(-reach < x && x < reach) || -nearZero < x && x < nearZero {
-		return math.Exp(x) // NaN, the infinities, overflow, underflow and 1 + x near zero
+	if !(-reach < x && x < reach) {
+		return math.Exp(x) // NaN, the infinities, overflow and underflow
 	}
-	var k int
+	var n int
 	if x < 0 {
-		k = int(log2e*x - 0.5)
+		n = int(x*inv - 0.5)
 	} else {
-		k = int(log2e*x + 0.5)
+		n = int(x*inv + 0.5)
 	}
-	hi := x - float64(k)*ln2Hi
-	lo := float64(k) * ln2Lo
-	return expReduced(hi, lo) * math.Float64frombits(uint64(k+1023)<<52)
+	fn := float64(n)
+	r := (x - fn*ln2Hi32) - fn*ln2Lo32
+	p := r + r*r*(1.0/2+r*(1.0/6+r*(1.0/24+r*(1.0/120+r*(1.0/720)))))
+	t := &expTable[n&31]
+	return (t[0] + (t[1] + t[0]*p)) * math.Float64frombits(uint64(n>>5+1023)<<52)
 }
 
-// expReduced returns e^r for r = hi − lo, |r| ≤ ln 2 / 2, by the rational form of e_exp.c:
-// e^r = 1 + r + r·c(r)/(2 − c(r)) with c(r) = r − r²·P(r²).
-func expReduced(hi, lo float64) float64 {
-	const (
-		p1 = 1.66666666666666657415e-01
-		p2 = -2.77777777770155933842e-03
-		p3 = 6.61375632143793436117e-05
-		p4 = -1.65339022054652515390e-06
-		p5 = 4.13813679705723846039e-08
-	)
-	r := hi - lo
-	t := r * r
-	c := r - t*(p1+t*(p2+t*(p3+t*(p4+t*p5))))
-	return 1 - ((lo - (r*c)/(2-c)) - hi)
+// expTable[j] is 2^(j/32) as the sum of a double and a small correction (its rounding error),
+// computed to 60 decimal digits; TestExpTable checks it against 256-bit arithmetic.
+var expTable = [32][2]float64{
+	{1.0, 0.0},
+	{1.0218971486541166, 5.109225028973444e-17},
+	{1.0442737824274138, 8.551889705537965e-17},
+	{1.0671404006768237, -7.899853966841582e-17},
+	{1.0905077326652577, -3.046782079812471e-17},
+	{1.1143867425958924, 1.0410278456845571e-16},
+	{1.1387886347566916, 8.912812676025408e-17},
+	{1.1637248587775775, 3.8292048369240935e-17},
+	{1.189207115002721, 3.982015231465646e-17},
+	{1.215247359980469, -7.712630692681488e-17},
+	{1.241857812073484, 4.658027591836937e-17},
+	{1.2690509571917332, 2.667932131342186e-18},
+	{1.2968395546510096, 2.5382502794888315e-17},
+	{1.3252366431597413, -2.8587312100388614e-17},
+	{1.3542555469368927, 7.70094837980299e-17},
+	{1.383909881963832, -6.770511658794786e-17},
+	{1.4142135623730951, -9.667293313452913e-17},
+	{1.4451808069770467, -3.0237581349939873e-17},
+	{1.4768261459394993, -3.483994556892796e-17},
+	{1.5091644275934228, -1.016455327754295e-16},
+	{1.5422108254079407, 7.949834809697621e-17},
+	{1.5759808451078865, -1.0136916471278304e-17},
+	{1.6104903319492543, 2.4707192569797888e-17},
+	{1.645755478153965, -1.0125679913674773e-16},
+	{1.681792830507429, 8.199010020581497e-17},
+	{1.718619298122478, -1.851380418263111e-17},
+	{1.7562521603732995, 2.960140695448873e-17},
+	{1.7947090750031072, 1.8227458427912087e-17},
+	{1.8340080864093424, 3.283107224245627e-17},
+	{1.8741676341103, -6.122763413004143e-17},
+	{1.9152065613971474, -1.0619946056195963e-16},
+	{1.9571441241754002, 8.960767791036668e-17},
 }
