@@ -44,6 +44,16 @@ func (r Rect) Center() Point { return Point{(r.Min.X + r.Max.X) / 2, (r.Min.Y + 
 // Size returns the width and height of r as a vector.
 func (r Rect) Size() Point { return r.Max.Sub(r.Min) }
 
+// containsAll reports whether every point of ps lies in r (edges included).
+func (r Rect) containsAll(ps []Point) bool {
+	for _, p := range ps {
+		if !r.Contains(p) {
+			return false
+		}
+	}
+	return true
+}
+
 // Contains reports whether p lies in r (edges included).
 func (r Rect) Contains(p Point) bool {
 	return r.Min.X <= p.X && p.X <= r.Max.X && r.Min.Y <= p.Y && p.Y <= r.Max.Y

@@ -249,9 +249,14 @@ func (s Segment) Sub(t0, t1 float64) Segment {
 	return s
 }
 
-// Bounds returns the tightest axis-aligned rectangle holding s.
+// Bounds returns the tightest axis-aligned rectangle holding s. A line, or a Bézier whose inner
+// control points lie in the rectangle of its end points, has that rectangle (the curve lies in the
+// convex hull of its control points), found without the extremes.
 func (s Segment) Bounds() Rect {
 	r := RectFromPoints(s.Start(), s.End())
+	if s.Kind != KindArc && r.containsAll(s.P[1:s.Degree()]) {
+		return r
+	}
 	for _, t := range s.extremes(nil) {
 		r = r.Extend(s.At(t))
 	}

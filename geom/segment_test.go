@@ -16,6 +16,8 @@ var testSegments = []struct {
 	{"quad flat", Quad(Pt(0, 0), Pt(1, 1), Pt(2, 2))},
 	{"cubic", Cubic(Pt(0, 0), Pt(1, 3), Pt(3, -2), Pt(4, 1))},
 	{"cubic loop", Cubic(Pt(0, 0), Pt(4, 3), Pt(-1, 3), Pt(3, 0))},
+	{"cubic inside its end box", Cubic(Pt(0, 0), Pt(1, 2.5), Pt(3, 0.5), Pt(4, 3))},
+	{"cubic doubling back inside its end box", Cubic(Pt(0, 0), Pt(4, 0.2), Pt(0, 2.8), Pt(4, 3))},
 	{"circular arc", Arc(Pt(1, 1), 2, 0.3, 2.5)},
 	{"circular arc clockwise", Arc(Pt(-1, 2), 1.5, 1, -4)},
 	{"elliptical arc", EllipticalArc(Pt(0, 0), 3, 1, 0.6, -0.5, 4.2)},
