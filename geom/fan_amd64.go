@@ -1,3 +1,5 @@
+//go:build amd64 && !purego
+
 package geom
 
 // add adds the edges from the open vertex through pts, each point relative to c (the local origin O in

@@ -1,6 +1,7 @@
 package sketch
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"os"
@@ -472,6 +473,42 @@ func TestReanalyzeNewMaterial(t *testing.T) {
 			if got.Pieces[i].Origin != want.Pieces[i].Origin {
 				t.Errorf("%+v: piece %d moments %+v, Analyze gives %+v", m, i, got.Pieces[i].Origin, want.Pieces[i].Origin)
 			}
+		}
+	}
+}
+
+// TestAnalyzePaced: pacing changes nothing of an analysis or a level-hole search, pace is called as
+// the work goes on, and an error from it stops the work and comes back.
+func TestAnalyzePaced(t *testing.T) {
+	d := plate(400, 200, "8")
+	for i := range 300 {
+		c := geom.Pt(10+float64(i%30)*13, 10+float64(i/30)*18)
+		d.Cutouts = append(d.Cutouts, geom.Region{Loops: []geom.Loop{geom.Circle(c, 4)}})
+	}
+	want, err := Analyze(d, AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	calls := 0
+	opt := AnalyzeOptions{Pace: func() error { calls++; return nil }}
+	got, err := Analyze(d, opt)
+	if err != nil || got.Origin != want.Origin || calls == 0 {
+		t.Fatalf("paced: moments %+v, error %v, %d calls of pace; unpaced %+v", got.Origin, err, calls, want.Origin)
+	}
+	stop := errors.New("stop")
+	for _, after := range []int{1, 2, calls} {
+		n := 0
+		opt := AnalyzeOptions{Pace: func() error {
+			if n++; n >= after {
+				return stop
+			}
+			return nil
+		}}
+		if _, err := Analyze(d, opt); !errors.Is(err, stop) {
+			t.Errorf("pace failing at call %d of %d: error %v", after, calls, err)
+		}
+		if _, err := LevelHole(d, 6, HangOptions{Whole: want, Analyze: opt}); n > 0 && !errors.Is(err, stop) {
+			t.Errorf("level hole, pace failing at call %d: error %v", after, err)
 		}
 	}
 }

@@ -122,6 +122,15 @@ func TestLetteringSignScale(t *testing.T) {
 		t.Errorf("right after an edit: pending %v, mass %v (before: %v), greyed %v, note %q; want the figures before, pending and greyed",
 			seen[0], seen[1], mass, seen[2], seen[3])
 	}
+	if dir := os.Getenv("PLUMB_SHOTS"); dir != "" {
+		shot, err := chromedp.Run(b.ctx, chromedp.CaptureScreenshot())
+		if err == nil {
+			err = os.WriteFile(filepath.Join(dir, "lettering-sign-pending.png"), shot, 0o644)
+		}
+		if err != nil {
+			t.Error(err)
+		}
+	}
 	b.waitFor(`!plumb.state().pending`)
 	if got := b.state().Mass; !near(got, mass*5/3, 1e-12, 0) {
 		t.Errorf("at 5 mm the mass is %v, want 5/3 of %v", got, mass)

@@ -295,12 +295,14 @@
     return { saved, crashed: readStore(STARTING) !== null && stored !== null };
   }
 
-  // settleStartup clears the start-up marker once the app has painted the part twice and a second has
-  // passed: the part opened without stopping the page.
+  // settleStartup clears the start-up marker once the app has painted the part twice, a second has
+  // passed and the part's analysis and level-hole search are in (a large part's run in the background,
+  // after the first frames): the part opened without stopping the page.
   function settleStartup() {
     const from = performance.now();
     const check = () => {
-      if (app.frames().drawn >= 2 && performance.now() - from > 1000) {
+      const analysed = state !== null && !state.pending && !state.level_pending;
+      if (app.frames().drawn >= 2 && performance.now() - from > 1000 && analysed) {
         try { localStorage.removeItem(STARTING); } catch { /* nothing to clear */ }
         return;
       }
