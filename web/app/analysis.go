@@ -58,6 +58,9 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result, pace fun
 	}
 	opt := sketch.AnalyzeOptions{Pace: pace}
 	r.a, r.err = sketch.Reanalyze(doc, before, known, opt)
+	if errors.Is(r.err, errSuperseded) {
+		return r // stopped: nothing of it is shown
+	}
 	// An analysis that succeeded has checked the geometry already.
 	sound := r.a != nil || geometrySound(doc)
 	switch {
