@@ -376,22 +376,27 @@ func (fr *frame) rasterMaterial(bodyShown bool) {
 	if len(d.Outline.Loops) == 0 {
 		return
 	}
-	for _, l := range d.Outline.Loops {
-		r.add(l, false)
-	}
-	for _, c := range d.Cutouts {
-		for _, l := range c.Loops {
-			r.add(l, true)
+	// Each region is added winding +1 where it is material and −1 where it is cut out, whichever way
+	// its loops run.
+	add := func(loops []geom.Loop, material bool) {
+		reverse := windingSign(loops) < 0
+		if !material {
+			reverse = !reverse
 		}
+		for _, l := range loops {
+			r.add(l, reverse)
+		}
+	}
+	add(d.Outline.Loops, true)
+	for _, c := range d.Cutouts {
+		add(c.Loops, false)
 	}
 	for _, t := range d.Texts {
 		sh, err := t.Shape("")
 		if err != nil || t.Role == sketch.RoleAdded {
 			continue
 		}
-		for _, l := range sh.Region.Loops {
-			r.add(l, t.Role != sketch.RoleSeparate) // cut out, or material of its own
-		}
+		add(sh.Region.Loops, t.Role == sketch.RoleSeparate) // material of its own, or cut out
 	}
 	r.draw(fr.p.dst, colMaterial)
 }

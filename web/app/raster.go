@@ -71,3 +71,24 @@ func (r *rasterFill) draw(dst *ebiten.Image, clr color.Color) {
 	r.img.WritePixels(r.pic.Pix)
 	dst.DrawImage(r.img, nil)
 }
+
+// windingSign returns +1 when the loops, taken together, wind counter-clockwise (their signed area,
+// by the polygon through the segments' ends, is positive), −1 when clockwise, and 0 for none: font
+// outlines and drawn regions may run either way, and a fill that adds them to the outline, or takes
+// them from it, must know which.
+func windingSign(loops []geom.Loop) float64 {
+	area := 0.0
+	for _, l := range loops {
+		for i, s := range l {
+			a, b := s.Start(), l[(i+1)%len(l)].Start()
+			area += a.X*b.Y - b.X*a.Y
+		}
+	}
+	switch {
+	case area > 0:
+		return 1
+	case area < 0:
+		return -1
+	}
+	return 0
+}
