@@ -30,9 +30,11 @@ func (p *pacer) step() bool {
 
 // check calls pace now, between phases of the work, and reports whether the computation may go on.
 func (p *pacer) check() bool {
-	if p == nil || p.pace == nil || p.err != nil {
-		return p == nil || p.err == nil
+	if p == nil || p.pace == nil {
+		return true
 	}
-	p.err = p.pace()
+	if p.err == nil {
+		p.err = p.pace()
+	}
 	return p.err == nil
 }

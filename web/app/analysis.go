@@ -70,9 +70,8 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result, pace fun
 		r.body = doc.Body()
 	}
 	switch {
-	case sound && prev != nil && prev.doc != nil && r.a != nil && prev.a != nil && prev.a.Body.Pieces != nil &&
-		&prev.a.Body.Pieces[0] == &r.a.Body.Pieces[0]:
-		r.onPart = prev.onPart // the same shape: the doublers lie where they did
+	case prev != nil && sameBody(prev.a, r.a):
+		r.onPart = prev.onPart // the shape of the part before: the doublers lie where they did
 	case sound:
 		for _, o := range doc.Overlaid() {
 			r.onPart = append(r.onPart, doc.OnMaterial(o.Region))
@@ -88,6 +87,12 @@ func analyse(doc *sketch.Document, rev int, edge float64, prev *result, pace fun
 	}
 	r.ms = float64(time.Since(start).Microseconds()) / 1000
 	return r
+}
+
+// sameBody reports whether two analyses share their material boundary, as an analysis of a new
+// material shares its part's (sketch.Reanalyze).
+func sameBody(a, b *sketch.Analysis) bool {
+	return a != nil && b != nil && len(a.Body.Pieces) > 0 && len(b.Body.Pieces) > 0 && &a.Body.Pieces[0] == &b.Body.Pieces[0]
 }
 
 // levelFound is what a level-hole search found, for result.setLevel.

@@ -379,7 +379,7 @@ func (fr *frame) rasterMaterial(bodyShown bool) {
 	// Each region is added winding +1 where it is material and −1 where it is cut out, whichever way
 	// its loops run.
 	add := func(loops []geom.Loop, material bool) {
-		reverse := windingSign(loops) < 0
+		reverse := clockwise(loops)
 		if !material {
 			reverse = !reverse
 		}

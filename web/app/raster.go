@@ -72,11 +72,10 @@ func (r *rasterFill) draw(dst *ebiten.Image, clr color.Color) {
 	dst.DrawImage(r.img, nil)
 }
 
-// windingSign returns +1 when the loops, taken together, wind counter-clockwise (their signed area,
-// by the polygon through the segments' ends, is positive), −1 when clockwise, and 0 for none: font
-// outlines and drawn regions may run either way, and a fill that adds them to the outline, or takes
-// them from it, must know which.
-func windingSign(loops []geom.Loop) float64 {
+// clockwise reports whether the loops, taken together, wind clockwise (their signed area, by the
+// polygon through the segments' ends, is negative): font outlines and drawn regions may run either
+// way, and a fill that adds them to the outline, or takes them from it, must know which.
+func clockwise(loops []geom.Loop) bool {
 	area := 0.0
 	for _, l := range loops {
 		for i, s := range l {
@@ -84,11 +83,5 @@ func windingSign(loops []geom.Loop) float64 {
 			area += a.X*b.Y - b.X*a.Y
 		}
 	}
-	switch {
-	case area > 0:
-		return 1
-	case area < 0:
-		return -1
-	}
-	return 0
+	return area < 0
 }
