@@ -54,8 +54,9 @@ func (e *DensityError) Error() string {
 
 // Integrate returns the moments of the density f over the region that b bounds, by adaptive
 // Gauss–Green product cubature (see the package documentation): ∬f dA = ∮ F dy with
-// F(x, y) = ∫_ξ^x f(s, y) ds, ξ the left edge of the bounding box, an outer Gauss–Legendre rule along each
-// piece and an inner one along each horizontal from ξ. Every node lies in the bounding box.
+// F(x, y) = ∫_ξ^x f(s, y) ds, ξ the vertical through the centre of the bounding box, an outer
+// Gauss–Legendre rule along each piece and an inner one along each horizontal from ξ. Every node lies
+// in the bounding box, and the horizontals are at most half its width long.
 //
 // Each piece is integrated twice, the second time with higher outer and inner orders; the second value
 // is kept and the difference is its (conservative) error estimate. While the summed estimate exceeds
@@ -84,7 +85,7 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 		o, pieces = Point{}, b.Pieces
 	}
 	box := Loop(pieces).Bounds()
-	cb := &cubature{f: f, o: o, c: box.Center(), base: box.Min.X - box.Center().X,
+	cb := &cubature{f: f, o: o, c: box.Center(), base: 0,
 		half: math.Max(box.Size().X, box.Size().Y) / 2, signChecked: opt.SignChecked}
 	const room = 2 * batchNodes // a batch plus one more piece's rules, usually
 	cb.xs, cb.ys, cb.us, cb.out = make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room)
@@ -100,9 +101,10 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 // The second rule is one order higher in each direction: the difference of two Gauss rules of
 // neighbouring orders still measures the error of the lower one, which for a smooth density is far
 // larger than that of the higher one kept, and it costs fewer evaluations than a larger step. The
-// starting orders are the least with which a density that changes by a factor of e across the part,
-// as exp(x/200) does across the 220 mm flower outline of the benchmarks, meets the default tolerance
-// with few pieces refined; a rougher density is refined where its estimates say.
+// starting orders are the least with which a density that changes by a factor of three across half the
+// part, as exp(x/200) does across the 440 mm thousand-sided outline of the benchmarks, meets the
+// default tolerance with no piece refined (BenchmarkFormulaOutline, sketch/bench_test.go); a rougher
+// density is refined where its estimates say.
 const (
 	outerStart = 2
 	outerStep  = 1
@@ -130,7 +132,7 @@ type cubature struct {
 	f           Field
 	o           Point                  // Combine's origin of the pieces (see Boundary), or (0, 0)
 	c           Point                  // local origin (bounding-box centre, relative to o)
-	base        float64                // ξ − c.X: the base line in local coordinates
+	base        float64                // ξ − c.X: the base line in local coordinates (0: through the centre)
 	half        float64                // L: half the larger side of the bounding box
 	xs, ys, out []float64              // density nodes and values, for all queued jobs
 	us          []float64              // local abscissae of the nodes

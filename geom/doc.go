@@ -34,8 +34,10 @@
 // arithmetic) to 1e-13 of each quantity. Points inside such an arc are found in the same frame.
 //
 // For a general density (Boundary.Integrate) the inner integral Q is itself computed by Gauss–Legendre
-// along the horizontal from the base line x = ξ, taken at the left edge of the bounding box so that every
-// node lies in the bounding box: the Gauss–Green product cubature of A. Sommariva and M. Vianello,
+// along the horizontal from the base line x = ξ, taken through the centre of the bounding box: every node
+// lies in the bounding box, and no horizontal is longer than half its width, so that a rule of a given
+// order integrates a density that changes along the rows about 2^(2n+1) times more closely than from
+// the box's left edge (the Gauss–Legendre error grows as the (2n+1)th power of the length). This is the Gauss–Green product cubature of A. Sommariva and M. Vianello,
 // "Product Gauss cubature over polygons based on Green's integration formula", BIT Numerical Mathematics
 // 47 (2007) 441–453, and its extension to curved boundaries, "Gauss–Green cubature and moment computation
 // over arbitrary geometries", J. Comput. Appl. Math. 231 (2009) (volume and year from memory). Nodes may

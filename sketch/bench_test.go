@@ -256,16 +256,8 @@ func (expSinPeer) Eval(xs, ys, out []float64) {
 // (web/browser_test.go TestRecomputeTime): a 1,000-sided polygon around r(θ) = 200 + 20·sin 7θ mm
 // with a formula density, analysed (the page's part has no hole).
 func BenchmarkAnalyzeThousandSides(b *testing.B) {
-	pts := make([]geom.Point, 1000)
-	for i := range pts {
-		a := 2 * math.Pi * float64(i) / float64(len(pts))
-		r := 200 + 20*math.Sin(7*a)
-		pts[i] = geom.Pt(r*math.Cos(a), r*math.Sin(a))
-	}
-	d := NewDocument()
-	d.Outline = geom.Region{Loops: []geom.Loop{geom.Polygon(pts...)}}
 	for _, f := range []string{"8 + k*x*y", "8 + 2*sin(k*x)*cos(k*y)"} {
-		d.Material = density.Spec{Formula: f, Unit: "kg/m2", Params: map[string]float64{"k": 5e-5}}
+		d := thousandSidesDocument(density.Spec{Formula: f, Unit: "kg/m2", Params: map[string]float64{"k": 5e-5}})
 		b.Run(f, func(b *testing.B) {
 			measure(b, func() {
 				if _, err := Analyze(d, AnalyzeOptions{}); err != nil {
@@ -274,4 +266,41 @@ func BenchmarkAnalyzeThousandSides(b *testing.B) {
 			})
 		})
 	}
+}
+
+// BenchmarkRematerialThousandSides is the native counterpart of the browser's recompute timing
+// (web/browser_test.go TestRecomputeTime) step for step: the 1,000-sided part analysed once, then
+// its density parameter changed, so Reanalyze keeps the shape and integrates the new density.
+func BenchmarkRematerialThousandSides(b *testing.B) {
+	for _, f := range []string{"8 + k*x*y", "8 + 2*sin(k*x)*cos(k*y)", "exp(x/200)*(2 + sin(y/50)) + k"} {
+		b.Run(f, func(b *testing.B) {
+			before := thousandSidesDocument(density.Spec{Formula: f, Unit: "kg/m2", Params: map[string]float64{"k": 5e-5}})
+			prev, err := Analyze(before, AnalyzeOptions{})
+			if err != nil {
+				b.Fatal(err)
+			}
+			d := *before
+			d.Material.Params = map[string]float64{"k": 6e-5}
+			measure(b, func() {
+				if _, err := Reanalyze(&d, before, prev, AnalyzeOptions{}); err != nil {
+					b.Fatal(err)
+				}
+			})
+		})
+	}
+}
+
+// thousandSidesDocument returns the part of the browser's recompute timing: a 1,000-sided polygon
+// around r(θ) = 200 + 20·sin 7θ mm, of the given material.
+func thousandSidesDocument(material density.Spec) *Document {
+	pts := make([]geom.Point, 1000)
+	for i := range pts {
+		a := 2 * math.Pi * float64(i) / float64(len(pts))
+		r := 200 + 20*math.Sin(7*a)
+		pts[i] = geom.Pt(r*math.Cos(a), r*math.Sin(a))
+	}
+	d := NewDocument()
+	d.Outline = geom.Region{Loops: []geom.Loop{geom.Polygon(pts...)}}
+	d.Material = material
+	return d
 }

@@ -158,20 +158,34 @@ func (c checkResult) encloses(mass float64) bool {
 	return mass >= c.lo-slack && mass <= c.hi+slack
 }
 
-// focus cuts each part into its piece inside the square around hot (three times hot's extent) and
-// the rest.
+// focus cuts each part into five: its piece inside the square around hot (three times hot's
+// extent), the pieces left and right of the square in the band of rows the square spans, and the
+// pieces above and below that band. Only the square's piece then has the feature within its
+// bounding box. The cubature integrates along rows inside each piece's bounding box
+// (geom.Boundary.Integrate), so no other piece's rows pass through the feature: a piece whose rows
+// did would carry the feature in the values along its far edges, where nodes spaced for a smooth
+// density miss it.
 func focus(parts []materialPart, hot geom.Rect) []materialPart {
 	size := hot.Size()
 	side := 1.5 * math.Max(size.X, size.Y)
 	c := hot.Center()
-	square := geom.Region{Loops: []geom.Loop{geom.RectLoop(c.Sub(geom.Pt(side, side)), c.Add(geom.Pt(side, side)))}}
+	sq := geom.Rect{Min: c.Sub(geom.Pt(side, side)), Max: c.Add(geom.Pt(side, side))}
 	var out []materialPart
 	for _, p := range parts {
+		all := p.body.Bounds().Union(sq)
+		tiles := []geom.Rect{sq,
+			{Min: all.Min, Max: geom.Pt(all.Max.X, sq.Min.Y)},                     // below the band
+			{Min: geom.Pt(all.Min.X, sq.Max.Y), Max: all.Max},                     // above it
+			{Min: geom.Pt(all.Min.X, sq.Min.Y), Max: geom.Pt(sq.Min.X, sq.Max.Y)}, // left of the square
+			{Min: geom.Pt(sq.Max.X, sq.Min.Y), Max: geom.Pt(all.Max.X, sq.Max.Y)}, // right of it
+		}
 		n := len(p.regions)
-		regions := append(append([]geom.Region(nil), p.regions...), square)
-		in := func(in []bool) bool { return in[n] && p.keep(in[:n]) }
-		outside := func(in []bool) bool { return !in[n] && p.keep(in[:n]) }
-		for _, keep := range []func([]bool) bool{in, outside} {
+		for _, t := range tiles {
+			if t.Min.X >= t.Max.X || t.Min.Y >= t.Max.Y {
+				continue
+			}
+			regions := append(slices.Clip(p.regions), geom.Region{Loops: []geom.Loop{geom.RectLoop(t.Min, t.Max)}})
+			keep := func(in []bool) bool { return in[n] && p.keep(in[:n]) }
 			if b := geom.Combine(keep, regions...); !b.IsEmpty() {
 				out = append(out, materialPart{regions: regions, keep: keep, body: b})
 			}
