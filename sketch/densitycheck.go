@@ -1,7 +1,6 @@
 package sketch
 
 import (
-	"container/heap"
 	"math"
 	"slices"
 
@@ -44,8 +43,10 @@ const (
 type checkBox struct {
 	r        geom.Rect
 	b        density.Interval
-	straddle bool  // the part's boundary may cross the box; else the box lies inside the part
-	pieces   []int // indices of the pieces whose boxes meet r (straddling boxes only)
+	straddle bool // the part's boundary may cross the box; else the box lies inside the part
+	// pieces are where, in densityCheck.pieces, the indices of the pieces whose boxes meet r lie
+	// (straddling boxes only): pieces[0] up to pieces[1].
+	pieces   [2]int32
 	priority float64
 }
 
@@ -53,18 +54,22 @@ func (c *checkBox) area() float64 { s := c.r.Size(); return s.X * s.Y }
 
 // densityCheck is the state of one interval check.
 type densityCheck struct {
-	body      geom.Boundary
-	f         *density.Field
-	bounds    []geom.Rect    // of body's pieces
-	ray       []geom.Segment // reused by crossing
-	minSide   float64
-	edgeSide  float64
-	scale     float64 // the largest density value met so far
-	enclose   bool
-	area      float64 // the part's exact area
-	boxes     checkBoxHeap
-	unsettled []*checkBox // boxes that could not be cut further
-	evaluated int
+	body   geom.Boundary
+	f      *density.Field
+	bounds []geom.Rect // of body's pieces
+	// pieces holds the piece indices of every straddling box, each box's a run of it (checkBox.pieces):
+	// a box's run is a subset of its parent's, appended when the box is pushed.
+	pieces     []int32
+	minSide    float64
+	edgeSide   float64
+	scale      float64 // the largest density value met so far
+	enclose    bool
+	area       float64    // the part's exact area
+	boxes      []checkBox // a max-heap by priority
+	unsettled  []checkBox // boxes that could not be cut further
+	edge       []edgeBox  // reused by enclosure
+	evaluated  int
+	xs, ys, vs [1]float64 // reused by evalAt
 }
 
 // checkResult is what the interval check found.
@@ -87,37 +92,45 @@ const hotShare = 1e-3
 // also narrows the mass enclosure. A point of the part where the density is negative, infinite or
 // not a number is returned as the density's *DomainError.
 func checkDensity(body geom.Boundary, area float64, f *density.Field, enclose bool) (checkResult, error) {
-	box := body.Bounds()
-	c := &densityCheck{body: body, f: f, enclose: enclose, area: area,
-		minSide: checkMinBox * math.Max(box.Size().X, box.Size().Y), edgeSide: checkEdgeBox * math.Max(box.Size().X, box.Size().Y)}
-	c.bounds = make([]geom.Rect, len(body.Pieces))
-	all := make([]int, len(body.Pieces))
-	for i, s := range body.Pieces {
-		c.bounds[i], all[i] = s.Bounds(), i
-	}
-	centre := box.Center()
-	v := []float64{0}
-	f.Eval([]float64{centre.X}, []float64{centre.Y}, v)
-	c.scale = math.Abs(v[0])
-	if err := c.push(box, true, all); err != nil {
+	c, err := runCheck(body, area, f, enclose)
+	if err != nil {
 		return checkResult{}, err
-	}
-	for i := 0; len(c.boxes) > 0 && c.evaluated < checkBoxes && !c.settled(i); i++ {
-		b := heap.Pop(&c.boxes).(*checkBox)
-		if err := c.cut(b); err != nil {
-			return checkResult{}, err
-		}
 	}
 	return c.result(), nil
 }
 
+// runCheck runs the interval check as checkDensity does and returns its boxes.
+func runCheck(body geom.Boundary, area float64, f *density.Field, enclose bool) (*densityCheck, error) {
+	box := body.Bounds()
+	side := math.Max(box.Size().X, box.Size().Y)
+	n := len(body.Pieces)
+	c := &densityCheck{body: body, f: f, enclose: enclose, area: area, minSide: checkMinBox * side,
+		edgeSide: checkEdgeBox * side, bounds: make([]geom.Rect, n), pieces: make([]int32, n, 8*n+64),
+		boxes: make([]checkBox, 0, 256)}
+	for i, s := range body.Pieces {
+		c.bounds[i], c.pieces[i] = s.Bounds(), int32(i)
+	}
+	c.scale = math.Abs(c.evalAt(box.Center()))
+	if err := c.push(box, true, c.pieces); err != nil {
+		return nil, err
+	}
+	for i := 0; len(c.boxes) > 0 && c.evaluated < checkBoxes && !c.settled(i); i++ {
+		if err := c.cut(c.pop()); err != nil {
+			return nil, err
+		}
+	}
+	return c, nil
+}
+
 // push bounds the density on r, places r against the part and queues it; a box outside the part is
-// dropped. A box whose lower bound is below zero has its centre tried: if the density fails there,
-// inside the part, that is the error.
-func (c *densityCheck) push(r geom.Rect, straddle bool, pieces []int) error {
+// dropped. A straddling box's pieces are looked for among from, its parent's. A box whose lower
+// bound is below zero has its centre tried: if the density fails there, inside the part, that is
+// the error.
+func (c *densityCheck) push(r geom.Rect, straddle bool, from []int32) error {
+	var run [2]int32
 	if straddle {
-		pieces = c.crossing(r, pieces)
-		if len(pieces) == 0 {
+		var crossed bool
+		if run, crossed = c.crossing(r, from); !crossed {
 			if !c.contains(r.Center()) {
 				return nil
 			}
@@ -125,14 +138,14 @@ func (c *densityCheck) push(r geom.Rect, straddle bool, pieces []int) error {
 		}
 	}
 	c.evaluated++
-	b := &checkBox{r: r, b: c.f.Bounds(r.Min.X, r.Max.X, r.Min.Y, r.Max.Y), straddle: straddle, pieces: pieces}
-	if !c.nonNegative(b) {
-		if err := c.tryCentre(b); err != nil {
+	b := checkBox{r: r, b: c.f.Bounds(r.Min.X, r.Max.X, r.Min.Y, r.Max.Y), straddle: straddle, pieces: run}
+	if !c.nonNegative(&b) {
+		if err := c.tryCentre(&b); err != nil {
 			return err
 		}
 	}
-	b.priority = c.priority(b)
-	heap.Push(&c.boxes, b)
+	b.priority = c.priority(&b)
+	c.queue(b)
 	return nil
 }
 
@@ -140,39 +153,85 @@ func (c *densityCheck) push(r geom.Rect, straddle bool, pieces []int) error {
 // it has one (Analyze's material and Combine's boundaries do).
 func (c *densityCheck) contains(p geom.Point) bool { return c.body.Contains(p) }
 
-// crossing returns the pieces among from whose boxes meet r, or none when none of them comes
-// within r's half-diagonal of its centre (so none meets r).
-func (c *densityCheck) crossing(r geom.Rect, from []int) []int {
-	var out []int
-	near := geom.Boundary{Pieces: c.ray[:0]}
+// crossing appends to c.pieces the pieces among from whose boxes meet r and returns where they lie
+// there (a checkBox's pieces), reporting true; or it appends none and reports false when none of
+// them comes near r (near), so that none meets r.
+func (c *densityCheck) crossing(r geom.Rect, from []int32) ([2]int32, bool) {
+	start := len(c.pieces)
 	for _, i := range from {
-		s := c.bounds[i]
+		s := &c.bounds[i]
 		if s.Min.X <= r.Max.X && s.Max.X >= r.Min.X && s.Min.Y <= r.Max.Y && s.Max.Y >= r.Min.Y {
-			out = append(out, i)
-			near.Pieces = append(near.Pieces, c.body.Pieces[i])
+			c.pieces = append(c.pieces, i)
 		}
 	}
-	c.ray = near.Pieces
-	if len(out) > 0 && near.Distance(r.Center()) > r.Size().Norm()/2 {
-		return nil
+	if !c.near(r, c.pieces[start:]) {
+		c.pieces = c.pieces[:start]
+		return [2]int32{}, false
 	}
-	return out
+	return [2]int32{int32(start), int32(len(c.pieces))}, true
+}
+
+// crossSlack widens the disk that near tests, relative to the box's half-diagonal and its centre's
+// coordinates: far above the rounding of the distances and of the pieces' bounds (a few units in
+// the last place of the coordinates), so that rounding can only make a box straddle, never make a
+// box that an edge crosses count as inside.
+const crossSlack = 1e-12
+
+// near reports whether one of the pieces comes within the disk about r's centre through its
+// corners, which holds r. It stops at the first such piece, and measures a piece's distance from
+// the centre (Boundary.Distance of the piece alone) only when neither its box lies wholly outside
+// the disk nor one of its ends inside it.
+func (c *densityCheck) near(r geom.Rect, pieces []int32) bool {
+	p := r.Center()
+	reach := r.Size().Norm() / 2
+	reach += crossSlack * (reach + math.Abs(p.X) + math.Abs(p.Y))
+	inDisk := func(dx, dy float64) bool { return dx*dx+dy*dy <= reach*reach }
+	for _, i := range pieces {
+		if !inDisk(gap(c.bounds[i].Min.X, c.bounds[i].Max.X, p.X), gap(c.bounds[i].Min.Y, c.bounds[i].Max.Y, p.Y)) {
+			continue
+		}
+		s := &c.body.Pieces[i]
+		if a, b := s.Start().Sub(p), s.End().Sub(p); inDisk(a.X, a.Y) || inDisk(b.X, b.Y) {
+			return true
+		}
+		if (geom.Boundary{Pieces: c.body.Pieces[i : i+1]}).Distance(p) <= reach {
+			return true
+		}
+	}
+	return false
+}
+
+// gap returns how far v lies outside [lo, hi] (0 within it).
+func gap(lo, hi, v float64) float64 {
+	switch {
+	case v < lo:
+		return lo - v
+	case v > hi:
+		return v - hi
+	}
+	return 0
+}
+
+// evalAt returns the density at p.
+func (c *densityCheck) evalAt(p geom.Point) float64 {
+	c.xs[0], c.ys[0] = p.X, p.Y
+	c.f.Eval(c.xs[:], c.ys[:], c.vs[:])
+	return c.vs[0]
 }
 
 // tryCentre evaluates the density at the box's centre and returns the domain error there when the
 // value fails and the centre lies in the part.
 func (c *densityCheck) tryCentre(b *checkBox) error {
 	p := b.r.Center()
-	v := []float64{0}
-	c.f.Eval([]float64{p.X}, []float64{p.Y}, v)
-	if v[0] >= 0 && !math.IsInf(v[0], 1) {
-		c.scale = math.Max(c.scale, v[0])
+	v := c.evalAt(p)
+	if v >= 0 && !math.IsInf(v, 1) {
+		c.scale = math.Max(c.scale, v)
 		return nil
 	}
 	if b.straddle && !c.contains(p) {
 		return nil
 	}
-	return c.f.DomainError(p.X, p.Y, v[0])
+	return c.f.DomainError(p.X, p.Y, v)
 }
 
 // nonNegative reports whether the box's lower bound proves the density at least zero there (up to
@@ -202,7 +261,7 @@ func (c *densityCheck) priority(b *checkBox) float64 {
 // enclosing, the enclosure is narrow enough (looked at every 64th cut i, as it costs a pass over
 // the boxes).
 func (c *densityCheck) settled(i int) bool {
-	top := c.boxes[0]
+	top := &c.boxes[0]
 	switch {
 	case top.priority == math.Inf(1):
 		return false
@@ -216,63 +275,109 @@ func (c *densityCheck) settled(i int) bool {
 }
 
 // cut replaces b by its four quarters, or sets it aside when it is as small as boxes go.
-func (c *densityCheck) cut(b *checkBox) error {
+func (c *densityCheck) cut(b checkBox) error {
 	s := b.r.Size()
 	if math.Max(s.X, s.Y) <= c.minSide {
 		c.unsettled = append(c.unsettled, b)
 		return nil
 	}
 	m := b.r.Center()
+	from := c.pieces[b.pieces[0]:b.pieces[1]]
 	for _, q := range [4]geom.Rect{
 		{Min: b.r.Min, Max: m}, {Min: geom.Pt(m.X, b.r.Min.Y), Max: geom.Pt(b.r.Max.X, m.Y)},
 		{Min: geom.Pt(b.r.Min.X, m.Y), Max: geom.Pt(m.X, b.r.Max.Y)}, {Min: m, Max: b.r.Max},
 	} {
-		if err := c.push(q, b.straddle, b.pieces); err != nil {
+		if err := c.push(q, b.straddle, from); err != nil {
 			return err
 		}
 	}
 	return nil
 }
 
-// all returns every box, queued or set aside.
-func (c *densityCheck) all() []*checkBox {
-	return append(slices.Clone([]*checkBox(c.boxes)), c.unsettled...)
+// queue adds b to the heap of boxes.
+func (c *densityCheck) queue(b checkBox) {
+	c.boxes = append(c.boxes, b)
+	h := c.boxes
+	for i := len(h) - 1; i > 0; {
+		up := (i - 1) / 2
+		if h[i].priority <= h[up].priority {
+			break
+		}
+		h[i], h[up] = h[up], h[i]
+		i = up
+	}
 }
+
+// pop removes the box of the highest priority from the heap and returns it.
+func (c *densityCheck) pop() checkBox {
+	h := c.boxes
+	top, n := h[0], len(h)-1
+	h[0] = h[n]
+	h = h[:n]
+	for i := 0; 2*i+1 < n; {
+		k := 2*i + 1
+		if k+1 < n && h[k+1].priority > h[k].priority {
+			k++
+		}
+		if h[k].priority <= h[i].priority {
+			break
+		}
+		h[i], h[k] = h[k], h[i]
+		i = k
+	}
+	c.boxes = h
+	return top
+}
+
+// each calls fn for every box, queued or set aside.
+func (c *densityCheck) each(fn func(b *checkBox)) {
+	for i := range c.boxes {
+		fn(&c.boxes[i])
+	}
+	for i := range c.unsettled {
+		fn(&c.unsettled[i])
+	}
+}
+
+// edgeBox is what enclosure needs of a straddling box: its bounds of the density, and its area.
+type edgeBox struct{ lo, hi, area float64 }
 
 // enclosure returns guaranteed bounds of ∬ρ dA over the part. Boxes inside the part add their
 // bounds times their area. The straddling boxes share the rest of the part's area, S; their part of
 // the integral lies between the least and the most that S spread over them can give: filling the
 // boxes with the lowest lower bounds first, and those with the highest upper bounds first.
 func (c *densityCheck) enclosure() (lo, hi float64) {
-	var edge []*checkBox
+	edge := c.edge[:0]
 	rest := c.area
-	for _, b := range c.all() {
+	c.each(func(b *checkBox) {
+		a := b.area()
 		if b.straddle {
-			edge = append(edge, b)
-			continue
+			edge = append(edge, edgeBox{b.b.Lo, b.b.Hi, a})
+			return
 		}
-		lo, hi = lo+b.b.Lo*b.area(), hi+b.b.Hi*b.area()
-		rest -= b.area()
-	}
+		lo, hi = lo+b.b.Lo*a, hi+b.b.Hi*a
+		rest -= a
+	})
+	c.edge = edge
 	rest = math.Max(rest, 0)
-	slices.SortFunc(edge, func(p, q *checkBox) int { return cmpFloat(p.b.Lo, q.b.Lo) })
-	lo += fill(edge, rest, func(b *checkBox) float64 { return b.b.Lo })
+	slices.SortFunc(edge, func(p, q edgeBox) int { return cmpFloat(p.lo, q.lo) })
+	lo += fill(edge, rest, func(b *edgeBox) float64 { return b.lo })
 	slices.Reverse(edge)
-	slices.SortStableFunc(edge, func(p, q *checkBox) int { return cmpFloat(q.b.Hi, p.b.Hi) })
-	hi += fill(edge, rest, func(b *checkBox) float64 { return b.b.Hi })
+	slices.SortStableFunc(edge, func(p, q edgeBox) int { return cmpFloat(q.hi, p.hi) })
+	hi += fill(edge, rest, func(b *edgeBox) float64 { return b.hi })
 	return lo, hi
 }
 
 // fill spreads the area rest over the boxes in order, each up to its own area, and returns the sum
 // of value × area given.
-func fill(boxes []*checkBox, rest float64, value func(*checkBox) float64) float64 {
+func fill(boxes []edgeBox, rest float64, value func(*edgeBox) float64) float64 {
 	sum := 0.0
-	for _, b := range boxes {
-		a := math.Min(rest, b.area())
+	for i := range boxes {
+		a := math.Min(rest, boxes[i].area)
 		if a <= 0 {
 			break
 		}
-		sum += value(b) * a
+		sum += value(&boxes[i]) * a
 		rest -= a
 	}
 	return sum
@@ -292,41 +397,24 @@ func cmpFloat(a, b float64) int {
 func (c *densityCheck) result() checkResult {
 	r := checkResult{proved: true, boxesIn: c.evaluated, hot: geom.EmptyRect(), scale: c.scale}
 	widest := -1.0
-	width := func(b *checkBox) float64 { return (b.b.Hi - b.b.Lo) * b.area() }
-	for _, b := range c.all() {
+	lo, hi := math.Inf(1), math.Inf(-1)
+	c.each(func(b *checkBox) {
 		if !c.nonNegative(b) && r.proved {
 			r.proved, r.doubt = false, b.r.Center()
 		}
-		if w := width(b); w > widest {
+		if w := (b.b.Hi - b.b.Lo) * b.area(); w > widest {
 			widest, r.widest = w, b.r
 		}
-	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, b := range c.all() {
 		lo, hi = math.Min(lo, b.b.Lo), math.Max(hi, b.b.Hi)
-	}
-	for _, b := range c.all() {
+	})
+	c.each(func(b *checkBox) {
 		if b.b.Hi-b.b.Lo >= hotShare*(hi-lo) {
 			r.hot = r.hot.Union(b.r)
 		}
-	}
+	})
 	if c.enclose {
 		r.lo, r.hi = c.enclosure()
 		r.enclosed = true
 	}
 	return r
-}
-
-// checkBoxHeap is a max-heap of boxes by priority.
-type checkBoxHeap []*checkBox
-
-func (h checkBoxHeap) Len() int           { return len(h) }
-func (h checkBoxHeap) Less(i, j int) bool { return h[i].priority > h[j].priority }
-func (h checkBoxHeap) Swap(i, j int)      { h[i], h[j] = h[j], h[i] }
-func (h *checkBoxHeap) Push(x any)        { *h = append(*h, x.(*checkBox)) }
-func (h *checkBoxHeap) Pop() any {
-	old := *h
-	b := old[len(old)-1]
-	*h = old[:len(old)-1]
-	return b
 }
