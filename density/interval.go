@@ -29,18 +29,30 @@ const libraryULPs = 2
 // underflowed, far below any density), and an infinite end already bounds everything. A NaN end
 // gives the whole line.
 func outward(lo, hi float64, n int) Interval {
-	if math.IsNaN(lo) || math.IsNaN(hi) {
+	if lo != lo || hi != hi { // NaN
 		return whole
 	}
-	for range n {
-		if lo != 0 && !math.IsInf(lo, 0) {
-			lo = math.Nextafter(lo, math.Inf(-1))
-		}
-		if hi != 0 && !math.IsInf(hi, 0) {
-			hi = math.Nextafter(hi, math.Inf(1))
-		}
+	return Interval{stepULPs(lo, n, false), stepULPs(hi, n, true)}
+}
+
+// stepULPs moves x by n ulps up (towards +∞) or down, as n steps of math.Nextafter would, except
+// that zero and infinite values stay; a step towards zero stops at zero.
+func stepULPs(x float64, n int, up bool) float64 {
+	if x == 0 || x-x != 0 { // zero, infinite (or NaN, which outward has excluded)
+		return x
 	}
-	return Interval{lo, hi}
+	const sign, inf = 1 << 63, 0x7ff0_0000_0000_0000
+	b := math.Float64bits(x)
+	mag, k := b&^sign, uint64(n) // the magnitude's bits count its ulps up from zero
+	switch {
+	case up == (x > 0): // away from zero
+		mag = min(mag+k, inf)
+	case mag <= k:
+		mag = 0
+	default:
+		mag -= k
+	}
+	return math.Float64frombits(mag | b&sign)
 }
 
 // Bounds returns an interval that holds every value of the density (kg per square document unit)
@@ -130,8 +142,8 @@ func monotoneInterval(op opcode, a Interval) Interval {
 		return outward(f(a.Lo), f(a.Hi), 1)
 	}
 	r := outward(f(a.Lo), f(a.Hi), libraryULPs)
-	if op == opExp {
-		r.Lo = math.Max(r.Lo, 0)
+	if op == opExp && !(r.Lo >= 0) {
+		r.Lo = 0
 	}
 	return r
 }
@@ -143,10 +155,7 @@ func mulInterval(a, b Interval) Interval {
 	if a.Contains(0) && b.unbounded() || b.Contains(0) && a.unbounded() {
 		return whole
 	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, p := range [4]float64{mul0(a.Lo, b.Lo), mul0(a.Lo, b.Hi), mul0(a.Hi, b.Lo), mul0(a.Hi, b.Hi)} {
-		lo, hi = math.Min(lo, p), math.Max(hi, p)
-	}
+	lo, hi := span4(mul0(a.Lo, b.Lo), mul0(a.Lo, b.Hi), mul0(a.Hi, b.Lo), mul0(a.Hi, b.Hi))
 	return outward(lo, hi, 1)
 }
 
@@ -162,11 +171,27 @@ func divInterval(a, b Interval) Interval {
 	if b.Contains(0) {
 		return whole
 	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, p := range [4]float64{a.Lo / b.Lo, a.Lo / b.Hi, a.Hi / b.Lo, a.Hi / b.Hi} {
-		lo, hi = math.Min(lo, p), math.Max(hi, p)
-	}
+	lo, hi := span4(a.Lo/b.Lo, a.Lo/b.Hi, a.Hi/b.Lo, a.Hi/b.Hi)
 	return outward(lo, hi, 1)
+}
+
+// span4 returns the least and the greatest of four values, or NaN for both when one of them is NaN
+// (∞/∞). It compares plainly, where math.Min is a call (in WebAssembly too): the sign of a zero
+// end does not matter to an interval, which is the same set of reals with −0 or +0 at its end.
+func span4(a, b, c, d float64) (lo, hi float64) {
+	if a != a || b != b || c != c || d != d {
+		return math.NaN(), math.NaN()
+	}
+	lo, hi = a, a
+	for _, v := range [3]float64{b, c, d} {
+		if v < lo {
+			lo = v
+		}
+		if v > hi {
+			hi = v
+		}
+	}
+	return lo, hi
 }
 
 func absInterval(a Interval) Interval {
@@ -263,14 +288,18 @@ func trigInterval(op opcode, a Interval) Interval {
 		return Interval{-1, 1}
 	}
 	f := unaryFuncs[op]
-	r := outward(math.Min(f(a.Lo), f(a.Hi)), math.Max(f(a.Lo), f(a.Hi)), libraryULPs)
-	if holdsPoint(lo, hi, math.Pi/2) {
+	p, q := f(a.Lo), f(a.Hi)
+	if q < p {
+		p, q = q, p
+	}
+	r := outward(p, q, libraryULPs)
+	if !(r.Hi < 1) || holdsPoint(lo, hi, math.Pi/2) {
 		r.Hi = 1
 	}
-	if holdsPoint(lo, hi, -math.Pi/2) {
+	if !(r.Lo > -1) || holdsPoint(lo, hi, -math.Pi/2) {
 		r.Lo = -1
 	}
-	return Interval{math.Max(r.Lo, -1), math.Min(r.Hi, 1)}
+	return r
 }
 
 // holdsPoint reports whether [lo, hi] may hold p + 2πk for some whole k, counting near misses

@@ -71,3 +71,30 @@ func TestBoundsTight(t *testing.T) {
 		}
 	}
 }
+
+// TestStepULPs checks stepULPs against n steps of math.Nextafter, which stop at a zero and stay at an
+// infinity, across the sign, subnormal, largest-finite and infinite values.
+func TestStepULPs(t *testing.T) {
+	xs := []float64{1, -1, 3.7e-3, -2.5e8, math.SmallestNonzeroFloat64, -math.SmallestNonzeroFloat64,
+		2 * math.SmallestNonzeroFloat64, -3 * math.SmallestNonzeroFloat64, 0x1p-1022, math.MaxFloat64,
+		-math.MaxFloat64, math.Nextafter(math.MaxFloat64, 0), 0, math.Copysign(0, -1), math.Inf(1), math.Inf(-1)}
+	for _, x := range xs {
+		for _, n := range []int{0, 1, 2, 3, 44} {
+			for _, up := range []bool{false, true} {
+				to := math.Inf(-1)
+				if up {
+					to = math.Inf(1)
+				}
+				want := x
+				for range n {
+					if want != 0 && !math.IsInf(want, 0) {
+						want = math.Nextafter(want, to)
+					}
+				}
+				if got := stepULPs(x, n, up); math.Float64bits(got) != math.Float64bits(want) {
+					t.Errorf("stepULPs(%g, %d, up %v) = %g, want %g", x, n, up, got, want)
+				}
+			}
+		}
+	}
+}
