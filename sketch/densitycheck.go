@@ -56,7 +56,7 @@ func (c *checkBox) area() float64 { s := c.r.Size(); return s.X * s.Y }
 type densityCheck struct {
 	body   geom.Boundary
 	f      *density.Field
-	bounds []geom.Rect // of body's pieces
+	bounds []geom.Rect // of body's pieces (Boundary.AppendPieceBounds)
 	// pieces holds the piece indices of every straddling box, each box's a run of it (checkBox.pieces):
 	// a box's run is a subset of its parent's, appended when the box is pushed.
 	pieces     []int32
@@ -105,10 +105,13 @@ func runCheck(body geom.Boundary, area float64, f *density.Field, enclose bool) 
 	side := math.Max(box.Size().X, box.Size().Y)
 	n := len(body.Pieces)
 	c := &densityCheck{body: body, f: f, enclose: enclose, area: area, minSide: checkMinBox * side,
-		edgeSide: checkEdgeBox * side, bounds: make([]geom.Rect, n), pieces: make([]int32, n, 8*n+64),
-		boxes: make([]checkBox, 0, 256)}
-	for i, s := range body.Pieces {
-		c.bounds[i], c.pieces[i] = s.Bounds(), int32(i)
+		edgeSide: checkEdgeBox * side, bounds: body.AppendPieceBounds(nil), pieces: make([]int32, n, 2*n+64),
+		boxes: make([]checkBox, 0, 4)}
+	if enclose { // room for the usual enclosure: some 6n piece indices, 3/4 of its boxes queued
+		c.pieces, c.boxes = slices.Grow(c.pieces, 6*n), slices.Grow(c.boxes, encloseBoxes*3/4+4)
+	}
+	for i := range c.pieces {
+		c.pieces[i] = int32(i)
 	}
 	c.scale = math.Abs(c.evalAt(box.Center()))
 	if err := c.push(box, true, c.pieces); err != nil {
