@@ -1,7 +1,6 @@
 package geom
 
 import (
-	"math"
 	"sync"
 )
 
@@ -67,9 +66,7 @@ func (b Boundary) queries() *queryIndex {
 // paddedBounds returns s.Bounds() widened by coarsePad of the coordinates' magnitude, as coarseBox is:
 // it holds every point of s as evaluated in floating point.
 func paddedBounds(s Segment) Rect {
-	r := s.Bounds()
-	m := coarsePad * max(math.Abs(r.Min.X), math.Abs(r.Max.X), math.Abs(r.Min.Y), math.Abs(r.Max.Y))
-	return Rect{r.Min.Sub(Pt(m, m)), r.Max.Add(Pt(m, m))}
+	return s.Bounds().padded()
 }
 
 // frame returns an exactly representable origin o near the pieces, the pieces, and the offset d to
