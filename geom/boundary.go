@@ -28,13 +28,19 @@ func (b Boundary) Indexed() Boundary {
 }
 
 // queryIndex is the spatial index of a Boundary's pieces: a box tree over their bounds (padded for
-// rounding like coarseBox), and the Boundary's bounds and coincidence tolerance.
+// rounding like coarseBox), and the Boundary's bounds and coincidence tolerance; and its pieces in
+// their local frame (Local).
 type queryIndex struct {
 	once   sync.Once
 	n      int
 	tree   *boxTree
 	bounds Rect
 	tol    float64
+
+	localOnce   sync.Once // Local's frame, worked out on its first call
+	localN      int
+	localO      Point
+	localPieces []Segment
 }
 
 // queries returns b's index, built now if need be, or nil when b has none or its pieces changed in
