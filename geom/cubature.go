@@ -411,6 +411,7 @@ func (c *cubature) queue(e *evaluator, no, ni, np int, dst *rawMoments) {
 	xs, ys, us := c.xs[i:i+n], c.ys[i:i+n], c.us[i:i+n]
 	vs, ws := c.vs[k0:k0+no], c.ws[k0:k0+no]
 	ox, oy, cx, cy := c.o.X, c.o.Y, c.c.X, c.c.Y // locals: the stores below cannot change them
+	tau := inner.t
 	i = 0
 	for k, t := range outer.t {
 		x, y, dy := e.at(t)
@@ -419,11 +420,12 @@ func (c *cubature) queue(e *evaluator, no, ni, np int, dst *rawMoments) {
 		row := oy + (cy + y)
 		for panel := range np {
 			left := span * float64(panel)
-			for _, tau := range inner.t {
-				u := left + span*tau
-				us[i], xs[i], ys[i] = u, ox+(cx+u), row
-				i++
+			ur, xr, yr := us[i:i+len(tau)], xs[i:i+len(tau)], ys[i:i+len(tau)]
+			for q, tq := range tau {
+				u := left + span*tq
+				ur[q], xr[q], yr[q] = u, ox+(cx+u), row
 			}
+			i += len(tau)
 		}
 	}
 }
@@ -455,25 +457,26 @@ func (c *cubature) flush() error {
 
 // sumJob forms one job's weighted sums from the density values.
 func (c *cubature) sumJob(j gridJob, out []float64) rawMoments {
-	inner := c.rule(j.ni)
-	var r rawMoments
-	n := j.no * j.ni * j.np
+	w := c.rule(j.ni).w
+	row := j.ni * j.np // the nodes of one outer node
+	n := j.no * row
 	us, out := c.us[j.node:j.node+n], out[j.node:j.node+n]
-	i := 0
-	for k := range j.no {
-		var m, su, suu float64
-		for range j.np {
-			for _, w := range inner.w {
-				u, f := us[i], w*out[i]
-				m, su, suu = m+f, su+f*u, suu+f*u*u
-				i++
+	ws, vs := c.ws[j.outer:j.outer+j.no], c.vs[j.outer:j.outer+j.no]
+	var m, su, sv, suu, suv, svv float64
+	for k, wk := range ws {
+		var rm, rsu, rsuu float64
+		for i := k * row; i < (k+1)*row; i += j.ni {
+			ur, fr := us[i:i+len(w)], out[i:i+len(w)]
+			for q, wq := range w {
+				u, f := ur[q], wq*fr[q]
+				rm, rsu, rsuu = rm+f, rsu+f*u, rsuu+f*u*u
 			}
 		}
-		w, v := c.ws[j.outer+k], c.vs[j.outer+k]
-		m, su, suu = w*m, w*su, w*suu
-		r = r.add(rawMoments{m, su, m * v, suu, su * v, m * v * v})
+		v := vs[k]
+		rm, rsu, rsuu = wk*rm, wk*rsu, wk*rsuu
+		m, su, sv, suu, suv, svv = m+rm, su+rsu, sv+rm*v, suu+rsuu, suv+rsu*v, svv+rm*v*v
 	}
-	return r
+	return rawMoments{m, su, sv, suu, suv, svv}
 }
 
 // isHorizontal reports whether s is a line or Bézier whose control points share one y.
