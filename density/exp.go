@@ -24,17 +24,16 @@ func exp(x float64) float64 {
 		inv     = 46.16624130844683               // 32/ln 2
 		ln2Hi32 = 6.93147180369123816490e-01 / 32 // ln 2/32 to 33 bits: n·ln2Hi32 is exact for |n| < 2²⁰
 		ln2Lo32 = 1.90821492927058770002e-10 / 32 // ln 2/32 − ln2Hi32
+		round   = 0x1.8p52
 	)
 	if !(-reach < x && x < reach) {
 		return math.Exp(x) // NaN, the infinities, overflow and underflow
 	}
-	var n int
-	if x < 0 {
-		n = int(x*inv - 0.5)
-	} else {
-		n = int(x*inv + 0.5)
-	}
-	fn := float64(n)
+	// n is x·32/ln 2 rounded to the nearest integer without a branch: added to 1.5·2⁵², whose ulp
+	// is 1, it is rounded to an integer and stands in the low bits of the sum, in two's complement.
+	kd := x*inv + round
+	n := int32(math.Float64bits(kd))
+	fn := kd - round
 	r := (x - fn*ln2Hi32) - fn*ln2Lo32
 	p := r + r*r*(1.0/2+r*(1.0/6+r*(1.0/24+r*(1.0/120+r*(1.0/720)))))
 	t := &expTable[n&31]

@@ -1,9 +1,6 @@
 package geom
 
-import (
-	"math"
-	"sync"
-)
+import "sync"
 
 // Boundary is the oriented boundary of a material set: material lies on the left of every piece
 // (counter-clockwise outer edges, clockwise hole edges). It is what the integrals and queries run on.
@@ -31,13 +28,19 @@ func (b Boundary) Indexed() Boundary {
 }
 
 // queryIndex is the spatial index of a Boundary's pieces: a box tree over their bounds (padded for
-// rounding like coarseBox), and the Boundary's bounds and coincidence tolerance.
+// rounding like coarseBox), and the Boundary's bounds and coincidence tolerance; and its pieces in
+// their local frame (Local).
 type queryIndex struct {
 	once   sync.Once
 	n      int
 	tree   *boxTree
 	bounds Rect
 	tol    float64
+
+	localOnce   sync.Once // Local's frame, worked out on its first call
+	localN      int
+	localO      Point
+	localPieces []Segment
 }
 
 // queries returns b's index, built now if need be, or nil when b has none or its pieces changed in
@@ -67,9 +70,7 @@ func (b Boundary) queries() *queryIndex {
 // paddedBounds returns s.Bounds() widened by coarsePad of the coordinates' magnitude, as coarseBox is:
 // it holds every point of s as evaluated in floating point.
 func paddedBounds(s Segment) Rect {
-	r := s.Bounds()
-	m := coarsePad * max(math.Abs(r.Min.X), math.Abs(r.Max.X), math.Abs(r.Min.Y), math.Abs(r.Max.Y))
-	return Rect{r.Min.Sub(Pt(m, m)), r.Max.Add(Pt(m, m))}
+	return s.Bounds().padded()
 }
 
 // frame returns an exactly representable origin o near the pieces, the pieces, and the offset d to

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"sync"
 )
 
 // Field is an areal density evaluated in batches: out[i] = ρ(xs[i], ys[i]). len(xs)==len(ys)==len(out).
@@ -85,11 +86,35 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 		o, pieces = Point{}, b.Pieces
 	}
 	box := Loop(pieces).Bounds()
-	cb := &cubature{f: f, o: o, c: box.Center(), base: 0,
-		half: math.Max(box.Size().X, box.Size().Y) / 2, signChecked: opt.SignChecked}
-	const room = 2 * batchNodes // a batch plus one more piece's rules, usually
-	cb.xs, cb.ys, cb.us, cb.out = make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room), make([]float64, 0, room)
+	scratch := getScratch()
+	defer scratchPool.Put(scratch)
+	cb := &cubature{f: f, o: o, c: box.Center(), half: math.Max(box.Size().X, box.Size().Y) / 2,
+		signChecked: opt.SignChecked, cubScratch: scratch}
 	return cb.run(Boundary{Pieces: pieces}, tol, maxEvals)
+}
+
+// cubScratch is the memory one Integrate call works in: its pieces and the node buffers. Integrate
+// takes it from scratchPool and puts it back, so that a part integrated again and again (the
+// browser recomputes on every edit) allocates almost nothing.
+type cubScratch struct {
+	store       []cubPiece // the initial pieces; the heap points into it
+	xs, ys, out []float64  // density nodes and values, for all queued jobs
+	us          []float64  // local abscissae of the nodes
+	vs, ws      []float64  // per outer node: local ordinate and weight W·y'·(panel length)
+	jobs        []gridJob  // product rules queued for the next batch evaluation
+}
+
+var scratchPool sync.Pool
+
+// getScratch returns a cubScratch from the pool, or a new one with room for a batch plus one more
+// piece's rules.
+func getScratch() *cubScratch {
+	if s, ok := scratchPool.Get().(*cubScratch); ok {
+		return s
+	}
+	const room = 2 * batchNodes
+	return &cubScratch{xs: make([]float64, 0, room), ys: make([]float64, 0, room), out: make([]float64, 0, room),
+		us: make([]float64, 0, room)}
 }
 
 // Cubature orders. A piece starts with outerStart outer nodes on a line and one more on a Bézier or
@@ -128,19 +153,16 @@ func outerOrder(s Segment) int {
 }
 
 // cubature holds the state of one Integrate call: the density, the local frame and the reused buffers.
+// The base line of the rows, x = ξ, is the vertical through the local origin: ξ − c.X = 0.
 type cubature struct {
 	f           Field
 	o           Point                  // Combine's origin of the pieces (see Boundary), or (0, 0)
 	c           Point                  // local origin (bounding-box centre, relative to o)
-	base        float64                // ξ − c.X: the base line in local coordinates (0: through the centre)
 	half        float64                // L: half the larger side of the bounding box
-	xs, ys, out []float64              // density nodes and values, for all queued jobs
-	us          []float64              // local abscissae of the nodes
-	vs, ws      []float64              // per outer node: local ordinate and weight W·y'·(panel length)
-	jobs        []gridJob              // product rules queued for the next batch evaluation
 	rules       [maxGLOrder + 1]glRule // the Gauss–Legendre rules used so far, by order
 	evals       int
 	signChecked bool // Options.SignChecked
+	*cubScratch
 }
 
 // gridJob is one product rule queued for evaluation: its orders and where its nodes and outer nodes
@@ -248,7 +270,8 @@ func (c *cubature) initialPieces(b Boundary) (pieceHeap, error) {
 	for _, s := range b.Pieces {
 		count += c.pieceCount(s)
 	}
-	store := make([]cubPiece, 0, count) // never grows, so the queued jobs' pointers stay valid
+	store := slices.Grow(c.store[:0], count) // never grows below, so the queued jobs' pointers stay valid
+	c.store = store
 	for _, s := range b.Pieces {
 		k := c.pieceCount(s)
 		s = s.translated(c.c.Mul(-1))
@@ -387,20 +410,22 @@ func (c *cubature) queue(e *evaluator, no, ni, np int, dst *rawMoments) {
 	c.xs, c.ys, c.us, c.vs, c.ws = c.xs[:i+n], c.ys[:i+n], c.us[:i+n], c.vs[:k0+no], c.ws[:k0+no]
 	xs, ys, us := c.xs[i:i+n], c.ys[i:i+n], c.us[i:i+n]
 	vs, ws := c.vs[k0:k0+no], c.ws[k0:k0+no]
-	base, ox, oy, cx, cy := c.base, c.o.X, c.o.Y, c.c.X, c.c.Y // locals: the stores below cannot change them
+	ox, oy, cx, cy := c.o.X, c.o.Y, c.c.X, c.c.Y // locals: the stores below cannot change them
+	tau := inner.t
 	i = 0
 	for k, t := range outer.t {
 		x, y, dy := e.at(t)
-		span := (x - base) / float64(np)
+		span := x / float64(np)
 		vs[k], ws[k] = y, outer.w[k]*dy*span
 		row := oy + (cy + y)
 		for panel := range np {
-			left := base + span*float64(panel)
-			for _, tau := range inner.t {
-				u := left + span*tau
-				us[i], xs[i], ys[i] = u, ox+(cx+u), row
-				i++
+			left := span * float64(panel)
+			ur, xr, yr := us[i:i+len(tau)], xs[i:i+len(tau)], ys[i:i+len(tau)]
+			for q, tq := range tau {
+				u := left + span*tq
+				ur[q], xr[q], yr[q] = u, ox+(cx+u), row
 			}
+			i += len(tau)
 		}
 	}
 }
@@ -432,25 +457,26 @@ func (c *cubature) flush() error {
 
 // sumJob forms one job's weighted sums from the density values.
 func (c *cubature) sumJob(j gridJob, out []float64) rawMoments {
-	inner := c.rule(j.ni)
-	var r rawMoments
-	n := j.no * j.ni * j.np
+	w := c.rule(j.ni).w
+	row := j.ni * j.np // the nodes of one outer node
+	n := j.no * row
 	us, out := c.us[j.node:j.node+n], out[j.node:j.node+n]
-	i := 0
-	for k := range j.no {
-		var m, su, suu float64
-		for range j.np {
-			for _, w := range inner.w {
-				u, f := us[i], w*out[i]
-				m, su, suu = m+f, su+f*u, suu+f*u*u
-				i++
+	ws, vs := c.ws[j.outer:j.outer+j.no], c.vs[j.outer:j.outer+j.no]
+	var m, su, sv, suu, suv, svv float64
+	for k, wk := range ws {
+		var rm, rsu, rsuu float64
+		for i := k * row; i < (k+1)*row; i += j.ni {
+			ur, fr := us[i:i+len(w)], out[i:i+len(w)]
+			for q, wq := range w {
+				u, f := ur[q], wq*fr[q]
+				rm, rsu, rsuu = rm+f, rsu+f*u, rsuu+f*u*u
 			}
 		}
-		w, v := c.ws[j.outer+k], c.vs[j.outer+k]
-		m, su, suu = w*m, w*su, w*suu
-		r = r.add(rawMoments{m, su, m * v, suu, su * v, m * v * v})
+		v := vs[k]
+		rm, rsu, rsuu = wk*rm, wk*rsu, wk*rsuu
+		m, su, sv, suu, suv, svv = m+rm, su+rsu, sv+rm*v, suu+rsuu, suv+rsu*v, svv+rm*v*v
 	}
-	return r
+	return rawMoments{m, su, sv, suu, suv, svv}
 }
 
 // isHorizontal reports whether s is a line or Bézier whose control points share one y.

@@ -7,10 +7,30 @@ import "slices"
 // Boundary has one (its points exact to the part's scale, see Boundary), else the pieces moved by
 // minus the first piece's start, which is exact for coordinates within a factor of two of it
 // (Sterbenz's lemma). It panics if b has no pieces.
+//
+// A Boundary with a spatial index (see Boundary) works the pieces out once and shares them with its
+// copies, as an editor analysing one part in one material after another asks for them each time;
+// the caller must not change them.
 func (b Boundary) Local() (o Point, pieces []Segment) {
 	if len(b.Pieces) == 0 {
 		panic("geom: Local of an empty boundary")
 	}
+	x := b.index
+	if x == nil {
+		return b.localCopy()
+	}
+	x.localOnce.Do(func() {
+		x.localN = len(b.Pieces)
+		x.localO, x.localPieces = b.localCopy()
+	})
+	if x.localN != len(b.Pieces) {
+		return b.localCopy()
+	}
+	return x.localO, x.localPieces
+}
+
+// localCopy is Local worked out afresh.
+func (b Boundary) localCopy() (o Point, pieces []Segment) {
 	o, pieces, d := b.frame()
 	if d == (Point{}) {
 		return o, slices.Clone(pieces)

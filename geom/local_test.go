@@ -2,6 +2,7 @@ package geom
 
 import (
 	"math"
+	"slices"
 	"testing"
 )
 
@@ -15,9 +16,13 @@ func TestLocal(t *testing.T) {
 	cut := Region{Loops: []Loop{RectLoop(far.Add(Pt(1, -1)), far.Add(Pt(4, 4)))}}
 	for _, b := range []Boundary{
 		{Pieces: RectLoop(Pt(2, 3), Pt(5, 7))},
+		Boundary{Pieces: RectLoop(Pt(2, 3), Pt(5, 7))}.Indexed(),
 		Combine(func(in []bool) bool { return in[0] && !in[1] }, square, cut),
 	} {
 		o, local := b.Local()
+		if o2, again := b.Local(); o2 != o || !slices.Equal(again, local) {
+			t.Errorf("a second Local gives %v %v, the first %v %v", o2, again, o, local)
+		}
 		if len(local) != len(b.Pieces) {
 			t.Fatalf("%d local pieces, want %d", len(local), len(b.Pieces))
 		}

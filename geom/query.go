@@ -62,7 +62,16 @@ func (b Boundary) Distance(p Point) float64 {
 
 // boxGap returns how far p lies outside the rectangle r along x and along y (0 within its extent).
 func boxGap(r Rect, p Point) (dx, dy float64) {
-	return max(0, r.Min.X-p.X, p.X-r.Max.X), max(0, r.Min.Y-p.Y, p.Y-r.Max.Y)
+	gap := func(lo, hi, v float64) float64 {
+		switch {
+		case v < lo:
+			return lo - v
+		case v > hi:
+			return v - hi
+		}
+		return 0
+	}
+	return gap(r.Min.X, r.Max.X, p.X), gap(r.Min.Y, r.Max.Y, p.Y)
 }
 
 // coarseBox returns a rectangle holding s.Bounds(), found without solving for the curve's extremes
@@ -84,7 +93,19 @@ func coarseBox(s Segment) Rect {
 		h := max(math.Abs(s.RX), math.Abs(s.RY))
 		r = r.Extend(s.C.Sub(Pt(h, h))).Extend(s.C.Add(Pt(h, h)))
 	}
-	m := coarsePad * max(math.Abs(r.Min.X), math.Abs(r.Max.X), math.Abs(r.Min.Y), math.Abs(r.Max.Y))
+	return r.padded()
+}
+
+// padded returns r widened on every side by coarsePad of the largest magnitude of its coordinates.
+// (Comparisons rather than the built-in max: WebAssembly builds call a function for each of those.)
+func (r Rect) padded() Rect {
+	m := 0.0
+	for _, v := range [4]float64{r.Min.X, r.Max.X, r.Min.Y, r.Max.Y} {
+		if v = math.Abs(v); !(v <= m) {
+			m = v
+		}
+	}
+	m *= coarsePad
 	return Rect{r.Min.Sub(Pt(m, m)), r.Max.Add(Pt(m, m))}
 }
 

@@ -26,8 +26,23 @@ func RectFromPoints(pts ...Point) Rect {
 func (r Rect) IsEmpty() bool { return r.Min.X > r.Max.X || r.Min.Y > r.Max.Y }
 
 // Extend returns the smallest rectangle holding r and p.
+//
+// A NaN coordinate of p, or of r, stays in the result, as with the built-in min and max; comparisons
+// take their place because WebAssembly builds call a function for each of those.
 func (r Rect) Extend(p Point) Rect {
-	return Rect{Point{min(r.Min.X, p.X), min(r.Min.Y, p.Y)}, Point{max(r.Max.X, p.X), max(r.Max.Y, p.Y)}}
+	if p.X < r.Min.X || p.X != p.X {
+		r.Min.X = p.X
+	}
+	if p.X > r.Max.X || p.X != p.X {
+		r.Max.X = p.X
+	}
+	if p.Y < r.Min.Y || p.Y != p.Y {
+		r.Min.Y = p.Y
+	}
+	if p.Y > r.Max.Y || p.Y != p.Y {
+		r.Max.Y = p.Y
+	}
+	return r
 }
 
 // Union returns the smallest rectangle holding r and s.

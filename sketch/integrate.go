@@ -179,12 +179,13 @@ func focus(parts []materialPart, hot geom.Rect) []materialPart {
 			{Min: geom.Pt(all.Min.X, sq.Min.Y), Max: geom.Pt(sq.Min.X, sq.Max.Y)}, // left of the square
 			{Min: geom.Pt(sq.Max.X, sq.Min.Y), Max: geom.Pt(all.Max.X, sq.Max.Y)}, // right of it
 		}
-		n := len(p.regions)
+		given := p.localRegions()
+		n := len(given)
 		for _, t := range tiles {
 			if t.Min.X >= t.Max.X || t.Min.Y >= t.Max.Y {
 				continue
 			}
-			regions := append(slices.Clip(p.regions), geom.Region{Loops: []geom.Loop{geom.RectLoop(t.Min, t.Max)}})
+			regions := append(slices.Clip(given), geom.Region{Loops: []geom.Loop{geom.RectLoop(t.Min, t.Max)}})
 			keep := func(in []bool) bool { return in[n] && p.keep(in[:n]) }
 			if b := geom.Combine(keep, regions...); !b.IsEmpty() {
 				out = append(out, materialPart{regions: regions, keep: keep, body: b})

@@ -14,6 +14,9 @@ type materialPart struct {
 	regions []geom.Region
 	keep    func(in []bool) bool
 	body    geom.Boundary
+	// shift is how far regions must move to lie where body does: translated moves only the body,
+	// and the regions when they are asked for (localRegions), which is seldom.
+	shift geom.Point
 }
 
 // densityCell is a piece of a materialPart on which the density is smooth, except for the kinks
@@ -129,21 +132,29 @@ func lineCrossing(l density.Line, p, q geom.Point, t float64) geom.Point {
 	return p.Add(q.Sub(p).Mul(t))
 }
 
-// translated returns the material moved by d (translatedSegments), with body, its boundary
-// already moved (geom.Boundary.Local gives it exactly).
+// translated returns the material moved by d, with body, its boundary already moved
+// (geom.Boundary.Local gives it exactly); its regions move when localRegions asks for them.
 func (m materialPart) translated(d geom.Point, body []geom.Segment) materialPart {
-	given := m.regions
-	if given == nil { // a piece given by its boundary alone (pieceOf): its loops, chained only now
-		given = []geom.Region{{Loops: m.body.Loops()}}
+	return materialPart{regions: m.regions, keep: m.keep, body: geom.Boundary{Pieces: body}, shift: m.shift.Add(d)}
+}
+
+// localRegions returns the regions moved to where the body lies (translatedSegments). A part given
+// by its boundary alone (pieceOf) has its loops chained from the body.
+func (m materialPart) localRegions() []geom.Region {
+	if m.regions == nil {
+		return []geom.Region{{Loops: m.body.Loops()}}
 	}
-	regions := make([]geom.Region, len(given))
-	for i, r := range given {
+	if m.shift == (geom.Point{}) {
+		return m.regions
+	}
+	regions := make([]geom.Region, len(m.regions))
+	for i, r := range m.regions {
 		regions[i] = geom.Region{Rule: r.Rule, Loops: make([]geom.Loop, len(r.Loops))}
 		for j, l := range r.Loops {
-			regions[i].Loops[j] = translatedSegments(l, d)
+			regions[i].Loops[j] = translatedSegments(l, m.shift)
 		}
 	}
-	return materialPart{regions: regions, keep: m.keep, body: geom.Boundary{Pieces: body}}
+	return regions
 }
 
 // translatedSegments returns the segments moved by d: their points and arc centres move, radii and
