@@ -3,6 +3,7 @@ package sketch
 import (
 	"math"
 	"slices"
+	"sync"
 
 	"plumb/density"
 	"plumb/geom"
@@ -92,37 +93,51 @@ const hotShare = 1e-3
 // also narrows the mass enclosure. A point of the part where the density is negative, infinite or
 // not a number is returned as the density's *DomainError.
 func checkDensity(body geom.Boundary, area float64, f *density.Field, enclose bool) (checkResult, error) {
-	c, err := runCheck(body, area, f, enclose)
-	if err != nil {
+	c, _ := checkPool.Get().(*densityCheck)
+	if c == nil {
+		c = new(densityCheck)
+	}
+	defer c.release()
+	if err := c.run(body, area, f, enclose); err != nil {
 		return checkResult{}, err
 	}
 	return c.result(), nil
 }
 
-// runCheck runs the interval check as checkDensity does and returns its boxes.
-func runCheck(body geom.Boundary, area float64, f *density.Field, enclose bool) (*densityCheck, error) {
+// checkPool holds finished checks, whose slices the next check reuses: a part checked again and
+// again (the browser recomputes on every edit) then allocates almost nothing for it.
+var checkPool sync.Pool
+
+// release lets go of what c refers to beyond its own slices and puts it in checkPool.
+func (c *densityCheck) release() {
+	c.body, c.f = geom.Boundary{}, nil
+	checkPool.Put(c)
+}
+
+// run runs the interval check as checkDensity does, in c's slices, leaving c with its boxes.
+func (c *densityCheck) run(body geom.Boundary, area float64, f *density.Field, enclose bool) error {
 	box := body.Bounds()
 	side := math.Max(box.Size().X, box.Size().Y)
 	n := len(body.Pieces)
-	c := &densityCheck{body: body, f: f, enclose: enclose, area: area, minSide: checkMinBox * side,
-		edgeSide: checkEdgeBox * side, bounds: body.AppendPieceBounds(nil), pieces: make([]int32, n, 2*n+64),
-		boxes: make([]checkBox, 0, 4)}
-	if enclose { // room for the usual enclosure: some 6n piece indices, 3/4 of its boxes queued
-		c.pieces, c.boxes = slices.Grow(c.pieces, 6*n), slices.Grow(c.boxes, encloseBoxes*3/4+4)
+	*c = densityCheck{body: body, f: f, enclose: enclose, area: area, minSide: checkMinBox * side,
+		edgeSide: checkEdgeBox * side, bounds: body.AppendPieceBounds(c.bounds[:0]), pieces: c.pieces[:0],
+		boxes: c.boxes[:0], unsettled: c.unsettled[:0], edge: c.edge[:0]}
+	if enclose { // room for the usual enclosure: some 7n piece indices, 3/4 of its boxes queued
+		c.pieces, c.boxes = slices.Grow(c.pieces, 8*n+64), slices.Grow(c.boxes, encloseBoxes*3/4+4)
 	}
-	for i := range c.pieces {
-		c.pieces[i] = int32(i)
+	for i := range n {
+		c.pieces = append(c.pieces, int32(i))
 	}
 	c.scale = math.Abs(c.evalAt(box.Center()))
 	if err := c.push(box, true, c.pieces); err != nil {
-		return nil, err
+		return err
 	}
 	for i := 0; len(c.boxes) > 0 && c.evaluated < checkBoxes && !c.settled(i); i++ {
 		if err := c.cut(c.pop()); err != nil {
-			return nil, err
+			return err
 		}
 	}
-	return c, nil
+	return nil
 }
 
 // push bounds the density on r, places r against the part and queues it; a box outside the part is

@@ -52,8 +52,8 @@ func TestCheckBoxesAgainstEdges(t *testing.T) {
 			area := tc.body.IntegratePoly(geom.ConstPoly(1)).M
 			size := tc.body.Bounds().Size()
 			scale := math.Max(size.X, size.Y)
-			c, err := runCheck(tc.body, area, f, true)
-			if err != nil {
+			c := new(densityCheck)
+			if err := c.run(tc.body, area, f, true); err != nil {
 				t.Fatal(err)
 			}
 			inside, straddling := 0, 0
@@ -124,8 +124,8 @@ func TestCheckCrossingAgainstDistance(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 5))
 	for _, tc := range checkBodies() {
 		t.Run(tc.name, func(t *testing.T) {
-			c, err := runCheck(tc.body, 1, mmField(t, "1"), false)
-			if err != nil {
+			c := new(densityCheck)
+			if err := c.run(tc.body, 1, mmField(t, "1"), false); err != nil {
 				t.Fatal(err)
 			}
 			all := c.pieces[:len(tc.body.Pieces)]
