@@ -59,8 +59,9 @@ type densityCheck struct {
 	f      *density.Field
 	bounds []geom.Rect // of body's pieces (Boundary.AppendPieceBounds)
 	// pieces holds the piece indices of every straddling box, each box's a run of it (checkBox.pieces):
-	// a box's run is a subset of its parent's, appended when the box is pushed.
+	// a box's run is a subset of its parent's, appended when the parent is cut (split).
 	pieces     []int32
+	quarters   [4][]int32 // reused by split
 	minSide    float64
 	edgeSide   float64
 	scale      float64 // the largest density value met so far
@@ -121,15 +122,17 @@ func (c *densityCheck) run(body geom.Boundary, area float64, f *density.Field, e
 	n := len(body.Pieces)
 	*c = densityCheck{body: body, f: f, enclose: enclose, area: area, minSide: checkMinBox * side,
 		edgeSide: checkEdgeBox * side, bounds: body.AppendPieceBounds(c.bounds[:0]), pieces: c.pieces[:0],
-		boxes: c.boxes[:0], unsettled: c.unsettled[:0], edge: c.edge[:0]}
+		boxes: c.boxes[:0], unsettled: c.unsettled[:0], edge: c.edge[:0], quarters: c.quarters}
 	if enclose { // room for the usual enclosure: some 7n piece indices, 3/4 of its boxes queued
 		c.pieces, c.boxes = slices.Grow(c.pieces, 8*n+64), slices.Grow(c.boxes, encloseBoxes*3/4+4)
 	}
 	for i := range n {
-		c.pieces = append(c.pieces, int32(i))
+		if meets(&c.bounds[i], &box) {
+			c.pieces = append(c.pieces, int32(i))
+		}
 	}
 	c.scale = math.Abs(c.evalAt(box.Center()))
-	if err := c.push(box, true, c.pieces); err != nil {
+	if err := c.push(box, true, [2]int32{0, int32(len(c.pieces))}); err != nil {
 		return err
 	}
 	for i := 0; len(c.boxes) > 0 && c.evaluated < checkBoxes && !c.settled(i); i++ {
@@ -141,19 +144,16 @@ func (c *densityCheck) run(body geom.Boundary, area float64, f *density.Field, e
 }
 
 // push bounds the density on r, places r against the part and queues it; a box outside the part is
-// dropped. A straddling box's pieces are looked for among from, its parent's. A box whose lower
-// bound is below zero has its centre tried: if the density fails there, inside the part, that is
-// the error.
-func (c *densityCheck) push(r geom.Rect, straddle bool, from []int32) error {
-	var run [2]int32
-	if straddle {
-		var crossed bool
-		if run, crossed = c.crossing(r, from); !crossed {
-			if !c.contains(r.Center()) {
-				return nil
-			}
-			straddle = false
+// dropped. A box that may straddle the edge comes with the run of c.pieces that holds the pieces
+// whose boxes meet it; it straddles the edge if one of them comes near it. A box whose lower bound
+// is below zero has its centre tried: if the density fails there, inside the part, that is the
+// error.
+func (c *densityCheck) push(r geom.Rect, straddle bool, run [2]int32) error {
+	if straddle && !c.near(r, c.pieces[run[0]:run[1]]) {
+		if !c.contains(r.Center()) {
+			return nil
 		}
+		straddle, run = false, [2]int32{}
 	}
 	c.evaluated++
 	b := checkBox{r: r, b: c.f.Bounds(r.Min.X, r.Max.X, r.Min.Y, r.Max.Y), straddle: straddle, pieces: run}
@@ -171,22 +171,47 @@ func (c *densityCheck) push(r geom.Rect, straddle bool, from []int32) error {
 // it has one (Analyze's material and Combine's boundaries do).
 func (c *densityCheck) contains(p geom.Point) bool { return c.body.Contains(p) }
 
-// crossing appends to c.pieces the pieces among from whose boxes meet r and returns where they lie
-// there (a checkBox's pieces), reporting true; or it appends none and reports false when none of
-// them comes near r (near), so that none meets r.
-func (c *densityCheck) crossing(r geom.Rect, from []int32) ([2]int32, bool) {
-	start := len(c.pieces)
+// meets reports whether the rectangles s and r meet (their closed extents overlap).
+func meets(s, r *geom.Rect) bool {
+	return s.Min.X <= r.Max.X && s.Max.X >= r.Min.X && s.Min.Y <= r.Max.Y && s.Max.Y >= r.Min.Y
+}
+
+// split appends to c.pieces, for each quarter of a box about its centre m in turn (cut's order:
+// lower left, lower right, upper left, upper right), the pieces among from whose boxes meet the
+// quarter, and returns where each quarter's run lies. The pieces of from meet the whole box, so a
+// quarter needs only the tests against m: a piece meets the lower left quarter when its box
+// reaches down to m.X and m.Y, and so on, in one pass over from.
+func (c *densityCheck) split(from []int32, m geom.Point) (runs [4][2]int32) {
+	q := &c.quarters
+	for k := range q {
+		q[k] = q[k][:0]
+	}
 	for _, i := range from {
 		s := &c.bounds[i]
-		if s.Min.X <= r.Max.X && s.Max.X >= r.Min.X && s.Min.Y <= r.Max.Y && s.Max.Y >= r.Min.Y {
-			c.pieces = append(c.pieces, i)
+		west, east := s.Min.X <= m.X, s.Max.X >= m.X
+		if s.Min.Y <= m.Y {
+			if west {
+				q[0] = append(q[0], i)
+			}
+			if east {
+				q[1] = append(q[1], i)
+			}
+		}
+		if s.Max.Y >= m.Y {
+			if west {
+				q[2] = append(q[2], i)
+			}
+			if east {
+				q[3] = append(q[3], i)
+			}
 		}
 	}
-	if !c.near(r, c.pieces[start:]) {
-		c.pieces = c.pieces[:start]
-		return [2]int32{}, false
+	for k := range q {
+		start := len(c.pieces)
+		c.pieces = append(c.pieces, q[k]...)
+		runs[k] = [2]int32{int32(start), int32(len(c.pieces))}
 	}
-	return [2]int32{int32(start), int32(len(c.pieces))}, true
+	return runs
 }
 
 // crossSlack widens the disk that near tests, relative to the box's half-diagonal and its centre's
@@ -300,12 +325,15 @@ func (c *densityCheck) cut(b checkBox) error {
 		return nil
 	}
 	m := b.r.Center()
-	from := c.pieces[b.pieces[0]:b.pieces[1]]
-	for _, q := range [4]geom.Rect{
+	var runs [4][2]int32
+	if b.straddle {
+		runs = c.split(c.pieces[b.pieces[0]:b.pieces[1]], m)
+	}
+	for k, q := range [4]geom.Rect{
 		{Min: b.r.Min, Max: m}, {Min: geom.Pt(m.X, b.r.Min.Y), Max: geom.Pt(b.r.Max.X, m.Y)},
 		{Min: geom.Pt(b.r.Min.X, m.Y), Max: geom.Pt(m.X, b.r.Max.Y)}, {Min: m, Max: b.r.Max},
 	} {
-		if err := c.push(q, b.straddle, from); err != nil {
+		if err := c.push(q, b.straddle, runs[k]); err != nil {
 			return err
 		}
 	}

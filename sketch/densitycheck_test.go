@@ -117,10 +117,10 @@ func piecesOf(body geom.Boundary, indices []int32) geom.Boundary {
 	return out
 }
 
-// TestCheckCrossingAgainstDistance checks crossing on random boxes of all sizes against its
-// definition: a box straddles the edge when some piece whose box meets it comes within its
-// half-diagonal of its centre, by Boundary.Distance over those pieces.
-func TestCheckCrossingAgainstDistance(t *testing.T) {
+// TestCheckNearAgainstDistance checks near on random boxes of all sizes against its definition: a
+// box straddles the edge when some piece whose box meets it comes within its half-diagonal of its
+// centre, by Boundary.Distance over those pieces.
+func TestCheckNearAgainstDistance(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 5))
 	for _, tc := range checkBodies() {
 		t.Run(tc.name, func(t *testing.T) {
@@ -128,7 +128,6 @@ func TestCheckCrossingAgainstDistance(t *testing.T) {
 			if err := c.run(tc.body, 1, mmField(t, "1"), false); err != nil {
 				t.Fatal(err)
 			}
-			all := c.pieces[:len(tc.body.Pieces)]
 			box := tc.body.Bounds()
 			size := box.Size()
 			crossed := 0
@@ -136,10 +135,10 @@ func TestCheckCrossingAgainstDistance(t *testing.T) {
 				side := math.Max(size.X, size.Y) * math.Pow(2, -12*rng.Float64())
 				p := geom.Pt(box.Min.X+size.X*(1.2*rng.Float64()-0.1), box.Min.Y+size.Y*(1.2*rng.Float64()-0.1))
 				r := geom.Rect{Min: p, Max: p.Add(geom.Pt(side, side*(0.5+rng.Float64())))}
-				near := piecesOf(tc.body, meeting(tc.body, r))
-				want := len(near.Pieces) > 0 && near.Distance(r.Center()) <= r.Size().Norm()/2
-				if _, got := c.crossing(r, all); got != want {
-					t.Errorf("box %v: crossing %v, want %v", r, got, want)
+				meet := meeting(tc.body, r)
+				want := len(meet) > 0 && piecesOf(tc.body, meet).Distance(r.Center()) <= r.Size().Norm()/2
+				if got := c.near(r, meet); got != want {
+					t.Errorf("box %v: near %v, want %v", r, got, want)
 				}
 				if want {
 					crossed++
