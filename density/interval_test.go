@@ -98,3 +98,24 @@ func TestStepULPs(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkBounds bounds formulas over 256 boxes, a quadtree's level over a 400 mm part, as the
+// interval check of a part does.
+func BenchmarkBounds(b *testing.B) {
+	for _, src := range []string{"exp(x/200)*(2 + sin(y/50))", "8 + k*x*y", "8 + 2*sin(k*x)*cos(k*y)"} {
+		b.Run(src, func(b *testing.B) {
+			p, err := Compile(src, map[string]float64{"k": 5e-5})
+			if err != nil {
+				b.Fatal(err)
+			}
+			f := newField(p, 1e-6, "density", "kg/m²", Length{"mm", 1})
+			b.ReportAllocs()
+			for b.Loop() {
+				for i := range 256 {
+					x, y := float64(i%16)*25-200, float64(i/16)*25-200
+					f.Bounds(x, x+25, y, y+25)
+				}
+			}
+		})
+	}
+}
