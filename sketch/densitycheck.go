@@ -115,7 +115,8 @@ func (c *densityCheck) release() {
 	checkPool.Put(c)
 }
 
-// run runs the interval check as checkDensity does, in c's slices, leaving c with its boxes.
+// run runs the interval check as checkDensity does, in c's slices, leaving c with its boxes. The
+// first box is the part's bounding box, with every piece whose box meets it.
 func (c *densityCheck) run(body geom.Boundary, area float64, f *density.Field, enclose bool) error {
 	box := body.Bounds()
 	side := math.Max(box.Size().X, box.Size().Y)
@@ -123,8 +124,8 @@ func (c *densityCheck) run(body geom.Boundary, area float64, f *density.Field, e
 	*c = densityCheck{body: body, f: f, enclose: enclose, area: area, minSide: checkMinBox * side,
 		edgeSide: checkEdgeBox * side, bounds: body.AppendPieceBounds(c.bounds[:0]), pieces: c.pieces[:0],
 		boxes: c.boxes[:0], unsettled: c.unsettled[:0], edge: c.edge[:0], quarters: c.quarters}
-	if enclose { // room for the usual enclosure: some 7n piece indices, 3/4 of its boxes queued
-		c.pieces, c.boxes = slices.Grow(c.pieces, 8*n+64), slices.Grow(c.boxes, encloseBoxes*3/4+4)
+	if enclose { // room for the usual enclosure: some 6n piece indices, 3/4 of its boxes queued
+		c.pieces, c.boxes = slices.Grow(c.pieces, 6*n+512), slices.Grow(c.boxes, encloseBoxes*3/4+4)
 	}
 	for i := range n {
 		if meets(&c.bounds[i], &box) {
