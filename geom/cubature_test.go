@@ -207,3 +207,42 @@ func TestIntegrateSignChecked(t *testing.T) {
 		t.Errorf("mass %v, %v; want 301/6", r.M, err)
 	}
 }
+
+// TestIntegrateJoinsCutArcs cuts each quarter of a circle of radius 3 about (1, 2) at three points,
+// as Combine cuts arcs, and checks that the cubature integrates the cut circle with the same
+// evaluations as the whole one, both to the closed form, while pieces of two different circles that
+// meet are not joined. Over a disk of radius R about the origin ∬ e^(a·x) dA = 2πR·I₁(aR)/a, from
+// ∫₋₁¹ √(1 − t²) e^(zt) dt = π·I₁(z)/z (Abramowitz and Stegun 9.6.18 with ν = 1, from memory), with
+// I₁(z) = Σ (z/2)^(2k+1)/(k!(k+1)!); moving the disk to (1, 2) multiplies it by e^(a·1).
+func TestIntegrateJoinsCutArcs(t *testing.T) {
+	f := funcField(func(x, y float64) float64 { return math.Exp(x / 4) })
+	whole := Circle(Pt(1, 2), 3)
+	var cut Loop
+	for _, s := range whole {
+		a, rest := s.Split(0.3)
+		b, c := rest.Split(0.5)
+		c, d := c.Split(0.4)
+		cut = append(cut, a, b, c, d)
+	}
+	w := mustIntegrate(t, bnd(whole), f, Options{})
+	c := mustIntegrate(t, bnd(cut), f, Options{})
+	if c.Evals != w.Evals {
+		t.Errorf("cut circle: %d evaluations, whole circle %d", c.Evals, w.Evals)
+	}
+	i1, term := 0.0, 0.375 // z/2 for z = 3/4
+	for k := 0; term > 1e-20; k++ {
+		i1 += term
+		term *= 0.375 * 0.375 / float64((k+1)*(k+2))
+	}
+	want := math.Exp(0.25) * 2 * math.Pi * 3 * i1 / 0.25
+	for _, r := range []Result{w, c} {
+		if math.Abs(r.M-want) > 1e-12*want {
+			t.Errorf("mass %.17g, want %.17g", r.M, want)
+		}
+	}
+	// Two half circles of different centres meeting at a point stay two arcs.
+	halves := Loop{Arc(Pt(0, 0), 1, -math.Pi/2, math.Pi), Arc(Pt(0, 0.5), 0.5, math.Pi/2, math.Pi)}
+	if s, next := arcRun(halves, 0); next != 1 || s != halves[0] {
+		t.Errorf("arcRun joined arcs of two circles: %+v, next %d", s, next)
+	}
+}
