@@ -19,9 +19,10 @@ func (a Interval) unbounded() bool { return math.IsInf(a.Lo, 0) || math.IsInf(a.
 // Contains reports whether v lies in the interval.
 func (a Interval) Contains(v float64) bool { return a.Lo <= v && v <= a.Hi }
 
-// libraryULPs is how far, in units in the last place, the results of math's elementary functions
-// (Exp, Log, Sin, Pow, …) are moved outward: they are accurate to about one ulp, not correctly
-// rounded, so two ulps cover them with room to spare.
+// libraryULPs is how far, in units in the last place, the results of the elementary functions (math's
+// Log, Pow, …, and our own exp, sin and cos) are moved outward: they are accurate to about one ulp,
+// not correctly rounded, so two ulps cover them with room to spare (exp, sin and cos are proven
+// within one ulp in their comments).
 const libraryULPs = 2
 
 // outward widens [lo, hi] by n ulps at each end (n = 1 for the correctly rounded + − × ÷ and
@@ -274,7 +275,11 @@ func blendInterval(a, b, v Interval) Interval {
 	return Interval{math.Max(r.Lo, 0), math.Min(r.Hi, 1)}
 }
 
-// trigInterval bounds sin or cos: ±1 where the range holds a crest or trough, else the ends.
+// trigInterval bounds sin or cos: ±1 where the range holds a crest or trough, else the ends. Between
+// crests the exact sine is monotone, and sin and cos (trig.go) are within one ulp of it, so their
+// values inside the range lie within two ulps of their values at the ends. Beyond trigReach they are
+// math.Sin and math.Cos, whose error near a zero is not bounded in ulps (math.Sin(π) is 7 ulps off),
+// so a range that reaches there gets the whole [−1, 1].
 func trigInterval(op opcode, a Interval) Interval {
 	shift := 0.0 // cos(v) = sin(v + π/2)
 	if op == opCos {
@@ -284,7 +289,7 @@ func trigInterval(op opcode, a Interval) Interval {
 	switch {
 	case a.unbounded():
 		return whole // the sine of an infinite value is not a number
-	case hi-lo >= 2*math.Pi:
+	case hi-lo >= 2*math.Pi, !(math.Abs(a.Lo) < trigReach && math.Abs(a.Hi) < trigReach):
 		return Interval{-1, 1}
 	}
 	f := unaryFuncs[op]
