@@ -341,6 +341,10 @@ func (in *instr) run(regs [][]float64) {
 		}
 	case opExp:
 		runExp(d, a)
+	case opSin:
+		runTrig(d, a, 0)
+	case opCos:
+		runTrig(d, a, 32)
 	default:
 		in.runFunc(d, a, regs)
 	}
@@ -353,6 +357,19 @@ func runExp(d, a []float64) {
 	for i, x := range a {
 		if bits := math.Float64bits(x); i == 0 || bits != prev {
 			prev, d[i] = bits, exp(x)
+			continue
+		}
+		d[i] = d[i-1]
+	}
+}
+
+// runTrig is runFunc for sin (q = 0) and cos (q = 32), calling turnSin directly instead of through
+// a function value and a wrapper: in WebAssembly a call costs about as much as a few multiplications.
+func runTrig(d, a []float64, q int32) {
+	var prev uint64
+	for i, x := range a {
+		if bits := math.Float64bits(x); i == 0 || bits != prev {
+			prev, d[i] = bits, turnSin(x, q)
 			continue
 		}
 		d[i] = d[i-1]

@@ -1,6 +1,7 @@
 package density
 
 import (
+	"fmt"
 	"math"
 	"testing"
 )
@@ -55,6 +56,24 @@ func BenchmarkTranscendental(b *testing.B) {
 			}
 		}
 	})
+}
+
+// BenchmarkWave measures a formula of sines and cosines, with arguments within ±0.03 (a gentle
+// wave across a part, as in sketch's BenchmarkRematerialThousandSides) and within ±30.
+func BenchmarkWave(b *testing.B) {
+	xs, ys := grid(benchPoints)
+	out := make([]float64, benchPoints)
+	for _, k := range []float64{5e-5, 0.05} {
+		p, err := Compile("8 + 2*sin(k*x)*cos(k*y)", map[string]float64{"k": k})
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(fmt.Sprint("k=", k), func(b *testing.B) {
+			for b.Loop() {
+				p.Eval(xs, ys, out)
+			}
+		})
+	}
 }
 
 // BenchmarkCompile measures the work done each time the user edits a formula.

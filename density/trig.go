@@ -4,29 +4,25 @@ import "math"
 
 // trigReach bounds the arguments that sin and cos reduce themselves; beyond it they are math.Sin
 // and math.Cos. Below it the multiple n of π/64 nearest the argument is below 2¹⁶ in magnitude,
-// which the split of π/64 in sinTurn needs.
+// which the split of π/64 in turnSin needs.
 const trigReach = 3200
 
-// sin returns the sine of x, to below one ulp for |x| < trigReach (see sinTurn), and math.Sin(x)
+// sin returns the sine of x, to below one ulp for |x| < trigReach (see turnSin), and math.Sin(x)
 // beyond, for ±0 (which keeps its sign), for NaN and for the infinities.
-func sin(x float64) float64 {
-	if !(math.Abs(x) < trigReach) || x == 0 {
-		return math.Sin(x)
-	}
-	return sinTurn(x, 0)
-}
+func sin(x float64) float64 { return turnSin(x, 0) }
 
-// cos returns the cosine of x, to below one ulp for |x| < trigReach (see sinTurn), and math.Cos(x)
+// cos returns the cosine of x, to below one ulp for |x| < trigReach (see turnSin), and math.Cos(x)
 // beyond, for NaN and for the infinities.
-func cos(x float64) float64 {
-	if !(math.Abs(x) < trigReach) {
+func cos(x float64) float64 { return turnSin(x, 32) }
+
+// turnSin returns sin(x + q·π/64) for q = 0 (sin x) or q = 32 (cos x).
+func turnSin(x float64, q int32) float64 {
+	if !(math.Abs(x) < trigReach) || x == 0 && q == 0 {
+		if q == 0 {
+			return math.Sin(x)
+		}
 		return math.Cos(x)
 	}
-	return sinTurn(x, 32)
-}
-
-// sinTurn returns sin(x + q·π/64) for |x| < trigReach.
-func sinTurn(x float64, q int32) float64 {
 	const (
 		inv   = 20.371832715762604    // 64/π
 		p1    = 0.049087385212260415  // π/64 to 37 bits: n·p1 is exact for |n| < 2¹⁶

@@ -1,6 +1,7 @@
 package density
 
 import (
+	"fmt"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -127,24 +128,29 @@ func TestSinCosWithinOneULP(t *testing.T) {
 		len(xs), worst[0], worstMath[0], worst[1], worstMath[1])
 }
 
-// BenchmarkSin compares sin and cos with math.Sin and math.Cos over 512 arguments spread over ±8.
+// BenchmarkSin compares sin and cos with math.Sin and math.Cos over 512 arguments spread over ±8
+// and over ±0.02, the size of k·x in a gentle wave across a part.
 func BenchmarkSin(b *testing.B) {
-	xs := make([]float64, 512)
-	for i := range xs {
-		xs[i] = 16*float64(i)/float64(len(xs)) - 8 + 1e-3*float64(i%7)
-	}
-	var sink float64
-	for _, c := range []struct {
-		name string
-		f    func(float64) float64
-	}{{"sin", sin}, {"math.Sin", math.Sin}, {"cos", cos}, {"math.Cos", math.Cos}} {
-		b.Run(c.name, func(b *testing.B) {
-			for b.Loop() {
-				for _, x := range xs {
-					sink += c.f(x)
+	for _, spread := range []float64{8, 0.02} {
+		xs := make([]float64, 512)
+		for i := range xs {
+			xs[i] = spread * (2*float64(i)/float64(len(xs)) - 1 + 1e-4*float64(i%7))
+		}
+		for _, c := range []struct {
+			name string
+			f    func(float64) float64
+		}{{"sin", sin}, {"math.Sin", math.Sin}, {"cos", cos}, {"math.Cos", math.Cos}} {
+			b.Run(fmt.Sprintf("%s/±%g", c.name, spread), func(b *testing.B) {
+				sum := 0.0
+				for b.Loop() {
+					for _, x := range xs {
+						sum += c.f(x)
+					}
 				}
-			}
-		})
+				if math.IsNaN(sum) {
+					b.Fatal("not a number")
+				}
+			})
+		}
 	}
-	_ = sink
 }
