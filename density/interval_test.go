@@ -15,7 +15,7 @@ func TestBoundsHoldValues(t *testing.T) {
 		"min(x, 2y, 40) + max(x - y, 3)", "8 + 1000*exp(-((x-50.123)^2 + (y-50.456)^2)*1000)",
 		"exp(x/200)*(2 + sin(y/50))", "cos(x/7)*sin(y/3) + tan(x/500)", "sqrt(x^2 + 1) + hypot(x, y)",
 		"r + theta", "ln(1 + r^2) + log10(2 + x^2)", "(x - 1e6)^2*(y - 1e6)", "x^-3 + pow(1 + r, 0.5)",
-		"pow(2 + y^2, x/100)", "(x*y)^3 - x^5 + 2", "1/(x - 0.5)",
+		"pow(2 + y^2, x/100)", "(x*y)^3 - x^5 + 2", "1/(x - 0.5)", "sin(x/2)*cos(y/3)", "sin(x/150) + cos(y/100)",
 	}
 	rng := rand.New(rand.NewPCG(1, 2))
 	xs, ys, out := make([]float64, 66), make([]float64, 66), make([]float64, 66)
@@ -58,6 +58,10 @@ func TestBoundsTight(t *testing.T) {
 		{"blend(80, 120, x)", 0, 80, 0, 1, 0, 0},
 		{"x*y", 0, 2, 0, 3, 0, 6},
 		{"abs(x)", -1, 0, 0, 1, 0, 1},
+		{"sin(x)", 4000, 4000.5, 0, 1, -1, 1}, // beyond trigReach: math.Sin, not bounded in ulps near zeros
+		{"cos(x)", -1, 3200, 0, 1, -1, 1},
+		// sin 1 = 0.8414709848078965066… (from memory), moved two ulps out at each end.
+		{"sin(x)", 1, 1, 0, 1, 0.8414709848078965, 0.8414709848078966},
 	}
 	for _, tt := range tests {
 		p, err := Compile(tt.src, nil)

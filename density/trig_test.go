@@ -154,3 +154,125 @@ func BenchmarkSin(b *testing.B) {
 		}
 	}
 }
+
+// TestSinCosSymmetry checks that sin is odd and cos even bit for bit (the table is symmetric and
+// rounding to nearest is too), that sin keeps the sign of a zero, and that cos 0 is exactly 1.
+func TestSinCosSymmetry(t *testing.T) {
+	if s := sin(math.Copysign(0, -1)); s != 0 || !math.Signbit(s) {
+		t.Errorf("sin(-0) = %v, want -0", s)
+	}
+	if s := sin(0); s != 0 || math.Signbit(s) {
+		t.Errorf("sin(0) = %v, want +0", s)
+	}
+	if c := cos(0); c != 1 {
+		t.Errorf("cos(0) = %v, want 1", c)
+	}
+	for _, x := range trigArgs() {
+		if s, m := sin(-x), sin(x); s != -m {
+			t.Errorf("sin(%v) = %v but sin(%v) = %v", -x, s, x, m)
+		}
+		if c, m := cos(-x), cos(x); c != m {
+			t.Errorf("cos(%v) = %v but cos(%v) = %v", -x, c, x, m)
+		}
+	}
+}
+
+// TestSinTable checks sinTable against sines and cosines of jπ/64 in 256-bit arithmetic
+// (bigSinCos, independent of the table): hi is the nearest double to the sine, hi + lo within
+// 2⁻¹⁰⁴ of it; sign is the sign of the cosine (+1 where it is zero) and cosLess the nearest double
+// to cos − sign. It checks the split of π/64 in turnSin too: p1 and p2 have at most 37 significant
+// bits, and p1 + p2 + p3 is within 2⁻¹³⁵ of π/64.
+func TestSinTable(t *testing.T) {
+	pi := bigPi()
+	step := new(big.Float).SetPrec(trigPrec).Quo(pi, big.NewFloat(64))
+	for j, e := range sinTable {
+		theta := new(big.Float).SetPrec(trigPrec).Mul(step, big.NewFloat(float64(j)))
+		s, c := bigSinCosSmall(theta)
+		if j%32 == 0 { // the zeros are exact; the series leaves a trace far below any double
+			s.SetInt64([]int64{0, 1, 0, -1}[j/32])
+			c.SetInt64([]int64{1, 0, -1, 0}[j/32])
+		}
+		if hi, _ := s.Float64(); hi != e.hi {
+			t.Errorf("sinTable[%d].hi = %v, want %v", j, e.hi, hi)
+		}
+		d := new(big.Float).SetPrec(trigPrec).Sub(s, big.NewFloat(e.hi))
+		d.Sub(d, big.NewFloat(e.lo))
+		if f, _ := d.Float64(); math.Abs(f) > 0x1p-104 {
+			t.Errorf("sinTable[%d]: hi + lo is %g from sin(%dπ/64)", j, f, j)
+		}
+		if want := math.Copysign(1, float64(c.Sign())+0.5); e.sign != want {
+			t.Errorf("sinTable[%d].sign = %v, want %v", j, e.sign, want)
+		}
+		less := new(big.Float).SetPrec(trigPrec).Sub(c, big.NewFloat(e.sign))
+		if want, _ := less.Float64(); e.cosLess != want {
+			t.Errorf("sinTable[%d].cosLess = %v, want %v", j, e.cosLess, want)
+		}
+	}
+	for _, p := range []float64{trigP1, trigP2} {
+		if m := math.Float64bits(p) << 12; m<<36 != 0 { // 52 stored bits, the last 16 zero
+			t.Errorf("%v has more than 37 significant bits", p)
+		}
+	}
+	d := new(big.Float).SetPrec(trigPrec).Sub(step, big.NewFloat(trigP1))
+	d.Sub(d, big.NewFloat(trigP2))
+	d.Sub(d, big.NewFloat(trigP3))
+	if f, _ := d.Float64(); math.Abs(f) > 0x1p-135 {
+		t.Errorf("p1 + p2 + p3 is %g from π/64", f)
+	}
+	if inv, _ := new(big.Float).SetPrec(trigPrec).Quo(big.NewFloat(64), pi).Float64(); inv != trigInv {
+		t.Errorf("trigInv = %v, want %v", trigInv, inv)
+	}
+}
+
+// TestTrigReductionMargin checks the reduction step of turnSin's error bound. Where sin x or cos x
+// is near zero, x is near a multiple kπ/2 (k ≠ 0) and the reduced argument r = x − kπ/2 is the
+// whole answer, so its absolute error, at most |n|·(|π/64 − p1 − p2 − p3| + 2⁻⁵²·p3) + 2⁻¹⁰⁶·|r|,
+// must be small beside the least |r|. For each binade [2ᵉ, 2ᵉ⁺¹) below trigReach the doubles are
+// m·2ᵉ⁻⁵², so |x − kπ/2| = 2ᵉ⁻⁵²·|m − kα| with α = (π/2)/2ᵉ⁻⁵², and the least |m − kα| over
+// 0 < k ≤ K is at least |qα − p| for the last convergent p/q of α's continued fraction with q ≤ K
+// (best approximation by continued fractions); the test finds it and checks that the reduction
+// error is below 1/32 of an ulp of the result there.
+func TestTrigReductionMargin(t *testing.T) {
+	pi := bigPi()
+	half := new(big.Float).SetPrec(trigPrec).Quo(pi, big.NewFloat(2))
+	worst := 0.0
+	for e := 0; math.Ldexp(1, e) < trigReach; e++ {
+		top := math.Min(math.Ldexp(1, e+1), trigReach)
+		unit := math.Ldexp(1, e-52)
+		alpha := new(big.Float).SetPrec(trigPrec).Quo(half, big.NewFloat(unit))
+		dist := closestMultiple(alpha, top/(math.Pi/2)) * unit
+		n := math.Ceil(top * trigInv)
+		reduction := n*(0x1p-135+0x1p-52*trigP3) + 0x1p-106*dist
+		// |sin r| ≥ 0.999|r| for |r| ≤ π/64, and an ulp of a value v exceeds 2⁻⁵³|v|.
+		ulps := reduction / (0x1p-53 * 0.999 * dist)
+		if ulps > 1.0/32 {
+			t.Errorf("binade 2^%d: the reduction error %.3g may be %.3g ulp of a result near zero, %.3g from a multiple of π/2",
+				e, reduction, ulps, dist)
+		}
+		worst = math.Max(worst, ulps)
+	}
+	t.Logf("reduction error at most %.4f ulp near the zeros", worst)
+}
+
+// closestMultiple returns a lower bound on |kα − m| over whole m and 0 < k ≤ kMax: |qα − p| for
+// the last convergent p/q of α with q ≤ kMax.
+func closestMultiple(alpha *big.Float, kMax float64) float64 {
+	ip, _ := alpha.Int(nil)
+	frac := new(big.Float).SetPrec(trigPrec).Sub(alpha, new(big.Float).SetInt(ip))
+	p0, q0, p1, q1 := big.NewInt(1), big.NewInt(0), ip, big.NewInt(1)
+	for frac.Sign() != 0 {
+		x := new(big.Float).SetPrec(trigPrec).Quo(big.NewFloat(1), frac)
+		a, _ := x.Int(nil)
+		frac = x.Sub(x, new(big.Float).SetInt(a))
+		p2 := new(big.Int).Add(new(big.Int).Mul(a, p1), p0)
+		q2 := new(big.Int).Add(new(big.Int).Mul(a, q1), q0)
+		if q, _ := new(big.Float).SetInt(q2).Float64(); q > kMax {
+			break
+		}
+		p0, q0, p1, q1 = p1, q1, p2, q2
+	}
+	d := new(big.Float).SetPrec(trigPrec).Mul(new(big.Float).SetInt(q1), alpha)
+	d.Sub(d, new(big.Float).SetInt(p1))
+	f, _ := d.Float64()
+	return math.Abs(f)
+}
