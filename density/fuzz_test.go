@@ -67,7 +67,8 @@ func FuzzParseLength(f *testing.F) {
 // formula at the centre when it does not ask for a cut.
 func FuzzBounds(f *testing.F) {
 	for _, s := range []string{"1+abs(x-130)/50", "floor(x/37)*blend(80,120,y)", "min(x, 2y, 3) - max(x, y)",
-		"exp(-((x-5)^2+(y-5)^2)*1000)", "tan(x)/sqrt(y)", "x^-3 + pow(y, x)", "theta + r^3", "ln(x) + log10(y) + hypot(x, y)"} {
+		"exp(-((x-5)^2+(y-5)^2)*1000)", "tan(x)/sqrt(y)", "x^-3 + pow(y, x)", "theta + r^3", "ln(x) + log10(y) + hypot(x, y)",
+		"sin(x)*cos(y) + cos(3*x)"} {
 		f.Add(s, -3.0, 7.0, 2.0, 0.5)
 	}
 	f.Fuzz(func(t *testing.T, src string, x0, w, y0, h float64) {

@@ -276,3 +276,17 @@ func closestMultiple(alpha *big.Float, kMax float64) float64 {
 	f, _ := d.Float64()
 	return math.Abs(f)
 }
+
+// TestSinCosBeyondReach checks that sin and cos are math.Sin and math.Cos beyond trigReach and for
+// NaN and the infinities (whose sine is not a number).
+func TestSinCosBeyondReach(t *testing.T) {
+	for _, x := range []float64{trigReach, -trigReach, 3201.5, 1e6, -1e6, 1 << 40, 1e300, math.MaxFloat64,
+		math.Inf(1), math.Inf(-1), math.NaN()} {
+		for i, f := range [2]func(float64) float64{sin, cos} {
+			got, want := f(x), []func(float64) float64{math.Sin, math.Cos}[i](x)
+			if got != want && !(math.IsNaN(got) && math.IsNaN(want)) {
+				t.Errorf("%s(%v) = %v, want %v", []string{"sin", "cos"}[i], x, got, want)
+			}
+		}
+	}
+}
