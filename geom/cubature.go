@@ -82,10 +82,12 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 		return Result{}, nil
 	}
 	o, pieces, d := b.frame()
+	var box Rect
 	if d != (Point{}) {
-		o, pieces = Point{}, b.Pieces
+		o, pieces, box = Point{}, b.Pieces, b.Bounds() // from the spatial index, when b has one
+	} else {
+		box = Loop(pieces).Bounds()
 	}
-	box := Loop(pieces).Bounds()
 	scratch := getScratch()
 	defer scratchPool.Put(scratch)
 	cb := &cubature{f: f, o: o, c: box.Center(), half: math.Max(box.Size().X, box.Size().Y) / 2,
