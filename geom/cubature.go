@@ -82,11 +82,12 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 		return Result{}, nil
 	}
 	o, pieces, d := b.frame()
-	var box Rect
 	if d != (Point{}) {
-		o, pieces, box = Point{}, b.Pieces, b.Bounds() // from the spatial index, when b has one
-	} else {
-		box = Loop(pieces).Bounds()
+		o, pieces = Point{}, b.Pieces
+	}
+	box := b.Bounds() // from the spatial index, when b has one
+	if &pieces[0] != &b.Pieces[0] {
+		box = Loop(pieces).Bounds() // Combine's local copy
 	}
 	scratch := getScratch()
 	defer scratchPool.Put(scratch)
