@@ -37,10 +37,10 @@ type queryIndex struct {
 	bounds Rect
 	tol    float64
 
-	localOnce   sync.Once // Local's frame, worked out on its first call
-	localN      int
-	localO      Point
-	localPieces []Segment
+	localOnce sync.Once // Local's frame, worked out on its first call
+	localN    int
+	localO    Point
+	local     Boundary
 }
 
 // queries returns b's index, built now if need be, or nil when b has none or its pieces changed in

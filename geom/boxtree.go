@@ -164,7 +164,7 @@ func (t *boxTree) nearest(p Point, dist func(i int) float64) float64 {
 		return best
 	}
 	gap := func(r Rect) float64 {
-		dx, dy := boxGap(r, p)
+		dx, dy := r.Gap(p)
 		return math.Hypot(dx, dy)
 	}
 	var stack [128]int32 // twice the depth, which median splits keep near log₂(n/treeLeaf)

@@ -85,7 +85,10 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	if d != (Point{}) {
 		o, pieces = Point{}, b.Pieces
 	}
-	box := Loop(pieces).Bounds()
+	box := b.Bounds() // from the spatial index, when b has one
+	if &pieces[0] != &b.Pieces[0] {
+		box = Loop(pieces).Bounds() // Combine's local copy
+	}
 	scratch := getScratch()
 	defer scratchPool.Put(scratch)
 	cb := &cubature{f: f, o: o, c: box.Center(), half: math.Max(box.Size().X, box.Size().Y) / 2,

@@ -2,31 +2,35 @@ package geom
 
 import "slices"
 
-// Local returns an exactly representable point o near the boundary and its pieces relative to o,
+// Local returns an exactly representable point o near the boundary and the boundary moved by −o,
 // for work in a frame where the part's coordinates are small: Combine's own local copy where the
 // Boundary has one (its points exact to the part's scale, see Boundary), else the pieces moved by
 // minus the first piece's start, which is exact for coordinates within a factor of two of it
-// (Sterbenz's lemma). It panics if b has no pieces.
+// (Sterbenz's lemma). The moved boundary has a spatial index of its own. It panics if b has no
+// pieces.
 //
-// A Boundary with a spatial index (see Boundary) works the pieces out once and shares them with its
-// copies, as an editor analysing one part in one material after another asks for them each time;
-// the caller must not change them.
-func (b Boundary) Local() (o Point, pieces []Segment) {
+// A Boundary with a spatial index (see Boundary) works the moved boundary out once and shares it,
+// index included, with its copies, as an editor analysing one part in one material after another
+// asks for it each time; the caller must not change its pieces.
+func (b Boundary) Local() (o Point, local Boundary) {
 	if len(b.Pieces) == 0 {
 		panic("geom: Local of an empty boundary")
 	}
 	x := b.index
 	if x == nil {
-		return b.localCopy()
+		o, pieces := b.localCopy()
+		return o, Boundary{Pieces: pieces}.Indexed()
 	}
 	x.localOnce.Do(func() {
 		x.localN = len(b.Pieces)
-		x.localO, x.localPieces = b.localCopy()
+		o, pieces := b.localCopy()
+		x.localO, x.local = o, Boundary{Pieces: pieces}.Indexed()
 	})
 	if x.localN != len(b.Pieces) {
-		return b.localCopy()
+		o, pieces := b.localCopy()
+		return o, Boundary{Pieces: pieces}.Indexed()
 	}
-	return x.localO, x.localPieces
+	return x.localO, x.local
 }
 
 // localCopy is Local worked out afresh.

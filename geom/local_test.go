@@ -19,9 +19,13 @@ func TestLocal(t *testing.T) {
 		Boundary{Pieces: RectLoop(Pt(2, 3), Pt(5, 7))}.Indexed(),
 		Combine(func(in []bool) bool { return in[0] && !in[1] }, square, cut),
 	} {
-		o, local := b.Local()
-		if o2, again := b.Local(); o2 != o || !slices.Equal(again, local) {
-			t.Errorf("a second Local gives %v %v, the first %v %v", o2, again, o, local)
+		o, moved := b.Local()
+		local := moved.Pieces
+		if o2, again := b.Local(); o2 != o || !slices.Equal(again.Pieces, local) {
+			t.Errorf("a second Local gives %v %v, the first %v %v", o2, again.Pieces, o, local)
+		}
+		if box := Loop(local).Bounds(); moved.Bounds() != box {
+			t.Errorf("the moved boundary's bounds %v, its pieces' %v", moved.Bounds(), box)
 		}
 		if len(local) != len(b.Pieces) {
 			t.Fatalf("%d local pieces, want %d", len(local), len(b.Pieces))

@@ -50,7 +50,7 @@ func (b Boundary) Distance(p Point) float64 {
 		best = b.Pieces[first].Start().Dist(p)
 	}
 	for _, s := range b.Pieces {
-		dx, dy := boxGap(coarseBox(s), p)
+		dx, dy := coarseBox(s).Gap(p)
 		if dx >= best || dy >= best || math.Hypot(dx, dy) >= best || !usable(s) {
 			continue
 		}
@@ -58,20 +58,6 @@ func (b Boundary) Distance(p Point) float64 {
 		best = min(best, d)
 	}
 	return best
-}
-
-// boxGap returns how far p lies outside the rectangle r along x and along y (0 within its extent).
-func boxGap(r Rect, p Point) (dx, dy float64) {
-	gap := func(lo, hi, v float64) float64 {
-		switch {
-		case v < lo:
-			return lo - v
-		case v > hi:
-			return v - hi
-		}
-		return 0
-	}
-	return gap(r.Min.X, r.Max.X, p.X), gap(r.Min.Y, r.Max.Y, p.Y)
 }
 
 // coarseBox returns a rectangle holding s.Bounds(), found without solving for the curve's extremes

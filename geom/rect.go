@@ -73,3 +73,17 @@ func (r Rect) containsAll(ps []Point) bool {
 func (r Rect) Contains(p Point) bool {
 	return r.Min.X <= p.X && p.X <= r.Max.X && r.Min.Y <= p.Y && p.Y <= r.Max.Y
 }
+
+// Gap returns how far p lies outside r along x and along y (0 within its extent).
+func (r Rect) Gap(p Point) (dx, dy float64) {
+	gap := func(lo, hi, v float64) float64 {
+		switch {
+		case v < lo:
+			return lo - v
+		case v > hi:
+			return v - hi
+		}
+		return 0
+	}
+	return gap(r.Min.X, r.Max.X, p.X), gap(r.Min.Y, r.Max.Y, p.Y)
+}

@@ -231,7 +231,7 @@ func (c *densityCheck) near(r geom.Rect, pieces []int32) bool {
 	reach += crossSlack * (reach + math.Abs(p.X) + math.Abs(p.Y))
 	inDisk := func(dx, dy float64) bool { return dx*dx+dy*dy <= reach*reach }
 	for _, i := range pieces {
-		if !inDisk(gap(c.bounds[i].Min.X, c.bounds[i].Max.X, p.X), gap(c.bounds[i].Min.Y, c.bounds[i].Max.Y, p.Y)) {
+		if !inDisk(c.bounds[i].Gap(p)) {
 			continue
 		}
 		s := &c.body.Pieces[i]
@@ -243,17 +243,6 @@ func (c *densityCheck) near(r geom.Rect, pieces []int32) bool {
 		}
 	}
 	return false
-}
-
-// gap returns how far v lies outside [lo, hi] (0 within it).
-func gap(lo, hi, v float64) float64 {
-	switch {
-	case v < lo:
-		return lo - v
-	case v > hi:
-		return v - hi
-	}
-	return 0
 }
 
 // evalAt returns the density at p.

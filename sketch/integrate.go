@@ -31,7 +31,7 @@ type densityResult struct {
 // cubature's estimate is not a guaranteed bound. known, when not nil, is the check of the material
 // before a hole was cut in it, which stands in for the check of m when it can (holeCheck.check).
 func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt AnalyzeOptions, known *holeCheck) (densityResult, error) {
-	at, pieces := m.body.Local()
+	at, local := m.body.Local()
 	if c, ok := f.Constant(); ok {
 		if err := f.CheckDomain([]float64{at.X}, []float64{at.Y}); err != nil {
 			return densityResult{}, err
@@ -51,13 +51,13 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 		g := &localPoly{at: at, p: toGeomPoly(p)}
 		res := densityResult{Result: geom.Result{Moments: m.body.IntegratePolyAbout(at, g.p)}, poly: g,
 			warnings: check.signWarnings(f)}
-		if w := g.disagreement(f, pieces, check.scale); w != "" {
+		if w := g.disagreement(f, local.Pieces, check.scale); w != "" {
 			res.warnings = append(res.warnings, w)
 		}
 		return res, nil
 	}
-	local := m.translated(at.Mul(-1), pieces)
-	cells, complete := splitAtKinks(local, f, at)
+	part := m.translated(at.Mul(-1), local)
+	cells, complete := splitAtKinks(part, f, at)
 	numeric := slices.ContainsFunc(cells, func(c densityCell) bool { _, ok := c.r.Field.Polynomial(); return !ok })
 	var err error
 	check, ok := known.check(f, numeric)
@@ -67,7 +67,7 @@ func integrateField(m materialPart, shape *geom.Moments, f *density.Field, opt A
 		}
 	}
 	res := densityResult{check: &check, warnings: check.signWarnings(f)}
-	res.Result, cells, err = integrateAround(local, cells, f, check, at, opt)
+	res.Result, cells, err = integrateAround(part, cells, f, check, at, opt)
 	if err != nil {
 		return densityResult{}, err
 	}

@@ -134,8 +134,8 @@ func lineCrossing(l density.Line, p, q geom.Point, t float64) geom.Point {
 
 // translated returns the material moved by d, with body, its boundary already moved
 // (geom.Boundary.Local gives it exactly); its regions move when localRegions asks for them.
-func (m materialPart) translated(d geom.Point, body []geom.Segment) materialPart {
-	return materialPart{regions: m.regions, keep: m.keep, body: geom.Boundary{Pieces: body}, shift: m.shift.Add(d)}
+func (m materialPart) translated(d geom.Point, body geom.Boundary) materialPart {
+	return materialPart{regions: m.regions, keep: m.keep, body: body, shift: m.shift.Add(d)}
 }
 
 // localRegions returns the regions moved to where the body lies (translatedSegments). A part given

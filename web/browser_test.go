@@ -715,8 +715,11 @@ func thousandSides() *sketch.Document {
 
 // TestRecomputeTime measures (and does not assert) how long the app takes to recompute a part with
 // a 1,000-segment outline and a formula density (a polynomial, sin·cos, and the exp·sin density the
-// kernel benchmarks use) after its parameter changes, nine times each; the goal is under 6 ms. The
-// native counterpart, step for step, is sketch's BenchmarkRematerialThousandSides.
+// kernel benchmarks use) after its parameter changes; the goal is under 6 ms. The first two changes
+// after loading are logged on their own: the browser runs new WebAssembly code in a quick first form
+// and compiles the code it finds hot again, in the background, so they take longer. The median is
+// over the nine changes after them. The native counterpart, step for step, is sketch's
+// BenchmarkRematerialThousandSides.
 func TestRecomputeTime(t *testing.T) {
 	b := newBrowser(t)
 	b.open()
@@ -730,7 +733,7 @@ func TestRecomputeTime(t *testing.T) {
 		d.Material = density.Spec{Formula: f.formula, Params: map[string]float64{"k": 1e-4}}
 		b.load(partJSON(t, d), "thousand.json")
 		var times []float64
-		for i := range 9 {
+		for i := range 11 {
 			eval[any](b, fmt.Sprintf(`(plumb.setMaterial({formula: %q, unit: "kg/m2", params: {k: %g}}), null)`, f.formula, 1e-5*float64(i+5)))
 			s := b.state()
 			if s.Error != "" {
@@ -738,9 +741,10 @@ func TestRecomputeTime(t *testing.T) {
 			}
 			times = append(times, s.RecomputeMS)
 		}
+		first, times := times[:2], times[2:]
 		slices.Sort(times)
-		t.Logf("recompute, 1,000 segments, %s formula %q: median %.2f ms (min %.2f, max %.2f; goal < 6 ms)",
-			f.what, f.formula, times[len(times)/2], times[0], times[len(times)-1])
+		t.Logf("recompute, 1,000 segments, %s formula %q: median %.2f ms (min %.2f, max %.2f; goal < 6 ms); first two %.2f, %.2f ms",
+			f.what, f.formula, times[len(times)/2], times[0], times[len(times)-1], first[0], first[1])
 	}
 }
 
