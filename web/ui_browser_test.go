@@ -194,11 +194,14 @@ func checkEdgeDistanceMovesSuggestedHole(b *browser) {
 // TestScreenshots saves pictures of the page for a person to look at: the demo, an SVG drawing
 // dropped on the page, a plate with its suggested hole, a U with its least-tilt positions, and the
 // demo's drilling template as a PDF (to render with pdftoppm). It runs only when PLUMB_SHOTS names a
-// directory.
+// directory, which it makes if need be.
 func TestScreenshots(t *testing.T) {
 	dir := os.Getenv("PLUMB_SHOTS")
 	if dir == "" {
 		t.Skip("set PLUMB_SHOTS to a directory to save screenshots")
+	}
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		t.Fatal(err)
 	}
 	b := newBrowser(t)
 	b.open()
