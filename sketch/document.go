@@ -23,8 +23,8 @@ type Document struct {
 	Notes    string
 	// ShapeError bounds the area, in square document units, between the drawing a reader took the
 	// part from and the segments it holds, where the reader had to approximate curves the segments
-	// cannot represent (0: exact). Analyze adds it to the error estimate. It is not saved: a part file
-	// holds its own segments exactly.
+	// cannot represent (0: exact). Analyze adds it to the error estimate, and a part file keeps it
+	// ("shape_error").
 	ShapeError float64
 }
 

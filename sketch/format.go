@@ -34,11 +34,16 @@ import (
 //	  "holes": [{"at": [300, 410], "diameter": 8}],
 //	  "texts": [{"text": "OPEN", "font": "go-bold", "height": 120, "at": [100, 50], "angle_deg": 0,
 //	             "spacing": 0, "role": "cutout", "stencil": {"width": 4, "count": 1}}],
-//	  "notes": "free text"
+//	  "notes": "free text",
+//	  "shape_error": 0.42
 //	}
 //
 // "format" and "version" are required; a file with a newer version than FormatVersion is refused.
 // Version 1 files (the same format without "texts") are read as they are; Save writes version 2.
+// "shape_error" (square document units, at least zero, absent when 0) is Document.ShapeError: the
+// area by which a drawing read from SVG or DXF may differ from the segments kept, where the reader
+// had to approximate curves. It stays with the part, so that a part saved and opened again still
+// says how far its figures may be off the drawing.
 // Unknown keys are errors (they are usually misspellings). "units" is a length unit ("mm" when
 // absent). A material is either {"material", "thickness"} or {"formula", "unit", "params"},
 // optionally with "custom" materials ({"key", "name", "density", "areal", "approx", "gauge_system",
@@ -115,7 +120,7 @@ func Load(data []byte) (*Document, error) {
 		return nil, tn.fail("lettering needs a part file of version 2 or later; this one says version %d", ver)
 	}
 	if err := root.only("format", "version", "name", "units", "material", "outline", "cutouts",
-		"overlays", "holes", "texts", "notes"); err != nil {
+		"overlays", "holes", "texts", "notes", "shape_error"); err != nil {
 		return nil, err
 	}
 	d := NewDocument()
@@ -231,8 +236,14 @@ func checkFormat(root object) (int, error) {
 func loadDocument(root object, d *Document) error {
 	err := root.stringFields(field[string]{"name", &d.Name}, field[string]{"notes", &d.Notes},
 		field[string]{"units", &d.Units})
+	if err == nil {
+		err = root.numberFields(field[float64]{"shape_error", &d.ShapeError})
+	}
 	if err != nil {
 		return err
+	}
+	if n, ok := root.get("shape_error"); ok && !(d.ShapeError >= 0) {
+		return n.fail("shape error is negative")
 	}
 	unit := density.Length{Name: "mm", MM: 1}
 	if n, ok := root.get("units"); ok {
@@ -973,7 +984,7 @@ func (o object) need(key string) (node, error) {
 // (an empty Units reads back as "mm", empty lists and maps as nil).
 func (d *Document) Save() ([]byte, error) {
 	f := fileDoc{Format: FormatName, Version: FormatVersion, Name: d.Name, Units: d.Units,
-		Material: saveSpec(d.Material), Outline: saveRegion(d.Outline), Notes: d.Notes}
+		Material: saveSpec(d.Material), Outline: saveRegion(d.Outline), Notes: d.Notes, ShapeError: d.ShapeError}
 	for _, c := range d.Cutouts {
 		f.Cutouts = append(f.Cutouts, saveRegion(c))
 	}
@@ -1042,17 +1053,18 @@ func nonFinite(v reflect.Value, path string) (string, bool) {
 // The file types below fix the key order of saved files.
 type (
 	fileDoc struct {
-		Format   string        `json:"format"`
-		Version  int           `json:"version"`
-		Name     string        `json:"name,omitempty"`
-		Units    string        `json:"units,omitempty"`
-		Material *fileSpec     `json:"material,omitempty"`
-		Outline  fileRegion    `json:"outline"`
-		Cutouts  []fileRegion  `json:"cutouts,omitempty"`
-		Overlays []fileOverlay `json:"overlays,omitempty"`
-		Holes    []fileHole    `json:"holes,omitempty"`
-		Texts    []fileText    `json:"texts,omitempty"`
-		Notes    string        `json:"notes,omitempty"`
+		Format     string        `json:"format"`
+		Version    int           `json:"version"`
+		Name       string        `json:"name,omitempty"`
+		Units      string        `json:"units,omitempty"`
+		Material   *fileSpec     `json:"material,omitempty"`
+		Outline    fileRegion    `json:"outline"`
+		Cutouts    []fileRegion  `json:"cutouts,omitempty"`
+		Overlays   []fileOverlay `json:"overlays,omitempty"`
+		Holes      []fileHole    `json:"holes,omitempty"`
+		Texts      []fileText    `json:"texts,omitempty"`
+		Notes      string        `json:"notes,omitempty"`
+		ShapeError float64       `json:"shape_error,omitempty"`
 	}
 	fileText struct {
 		Text     string       `json:"text"`

@@ -51,6 +51,7 @@ func sampleDocument() *Document {
 		{Text: "tag", Font: "go-mono", Height: 20, At: geom.Pt(500, 0), Role: RoleSeparate},
 	}
 	d.Notes = "line one\nline two"
+	d.ShapeError = 0.0123
 	return d
 }
 
@@ -210,7 +211,7 @@ func TestLoadErrors(t *testing.T) {
 			"version: this part file has format version 7, newer than the version 2 this Plumb reads; " +
 				"update Plumb to open it"},
 		{"unknown key", `{` + head + `, "outlines": {}}`, `outlines: unknown key (expected one of: ` +
-			`"format", "version", "name", "units", "material", "outline", "cutouts", "overlays", "holes", "texts", "notes")`},
+			`"format", "version", "name", "units", "material", "outline", "cutouts", "overlays", "holes", "texts", "notes", "shape_error")`},
 		{"bad units", `{` + head + `, "units": "furlong"}`, "units: ..."},
 		{"duplicate top key", `{` + head + `, "units": "mm", "units": "in"}`, `units: the key "units" is given twice in one object`},
 		{"duplicate nested key", `{` + head + `, "outline": {"loops": [` + square(0, `{"arc": {"center": [0, 0], "radius": 1, "radius": 2, "start_deg": 0, "sweep_deg": 90}}`) + `]}}`,
@@ -267,6 +268,8 @@ func TestLoadErrors(t *testing.T) {
 		{"material name", `{` + head + `, "overlays": [{"region": {"loops": [` + square(0, "") +
 			`]}, "material": {"material": "unobtainium", "thickness": "3 mm"}}]}`, `overlays[0].material.material: ...`},
 		{"version type", `{"format": "plumb-part", "version": "1"}`, `version: expected a whole number, found "1"`},
+		{"shape error", `{` + head + `, "shape_error": -0.5}`, `shape_error: shape error is negative`},
+		{"shape error type", `{` + head + `, "shape_error": "0.5"}`, `shape_error: ...`},
 		{"lettering in version 1", `{"format": "plumb-part", "version": 1, "texts": []}`,
 			`texts: lettering needs a part file of version 2 or later; this one says version 1`},
 		{"text without height", `{` + head2 + `, "texts": [{"text": "A", "at": [0, 0]}]}`, `texts[0].height: missing`},

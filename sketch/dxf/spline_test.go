@@ -2,6 +2,7 @@ package dxf
 
 import (
 	"math"
+	"slices"
 	"testing"
 
 	"github.com/paulmach/orb"
@@ -161,6 +162,23 @@ func TestSplineApproximated(t *testing.T) {
 	}
 	if d.ShapeError > 1e-4*area {
 		t.Errorf("bound %.3g is loose for an area of %.6g", d.ShapeError, area)
+	}
+	// Saved as a part file and opened again, the part still says its curves were approximated.
+	data, err := d.Save()
+	if err != nil {
+		t.Fatal(err)
+	}
+	again, err := sketch.Load(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := sketch.Analyze(again, sketch.AnalyzeOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if again.ShapeError != d.ShapeError || b.RelErr != a.RelErr || !slices.Equal(b.Warnings, a.Warnings) {
+		t.Errorf("after saving and opening: ShapeError %g, RelErr %g, warnings %q; before %g, %g, %q",
+			again.ShapeError, b.RelErr, b.Warnings, d.ShapeError, a.RelErr, a.Warnings)
 	}
 }
 
