@@ -254,6 +254,13 @@ func TestScreenshots(t *testing.T) {
 	b.waitFor(`document.getElementById("answers").classList.contains("stale")`)
 	eval[any](b, `(document.getElementById("answers").scrollIntoView(), null)`)
 	shot("stale")
+	// A plate tapered by rolling, typed in as a density formula: 3 mm of steel at the left edge to
+	// 1 mm at the right (x = 400 mm), 7.85 kg/m² per mm.
+	b.load(partJSON(t, plainPlate()), "plate.json")
+	b.do(chromedp.Click(chromedp.CSS(`[data-mode="formula"]`)))
+	b.typeInto("formula", "7.85*(3 - x/200)")
+	b.waitFor(`JSON.stringify(plumb.state()).includes("x/200") && plumb.state().level_pending === false`)
+	shot("formula")
 }
 
 // checkStaleFiguresGreyed checks that while the material field holds an error the figures are greyed
