@@ -132,8 +132,9 @@ func getScratch() *cubScratch {
 // larger than that of the higher one kept, and it costs fewer evaluations than a larger step. The
 // starting orders are the least with which a density that changes by a factor of three across half the
 // part, as exp(x/200) does across the 440 mm thousand-sided outline of the benchmarks, meets the
-// default tolerance with no piece refined (BenchmarkFormulaOutline, sketch/bench_test.go); a rougher
-// density is refined where its estimates say.
+// default tolerance with no piece refined (sketch/bench_test.go: BenchmarkRematerialThousandSides,
+// and BenchmarkFormulaOutline on the 220 mm flower outline); a rougher density is refined where its
+// estimates say.
 const (
 	outerStart = 2
 	outerStep  = 1
