@@ -20,6 +20,9 @@ type Options struct {
 	// value below zero at a node outside it (the nodes fill the bounding box) is integrated as it
 	// is instead of stopping the integration; NaN and infinite values still stop it.
 	SignChecked bool
+	// Shift moves the nodes before the density sees them: f is evaluated at Shift + (x, y) for a
+	// node (x, y) of b, for a boundary given about a point Shift of a density's own frame.
+	Shift Point
 }
 
 // The defaults for Options.
@@ -34,11 +37,18 @@ type Result struct {
 	RelErr   float64 // estimated relative error (largest over the moments, each against its natural scale)
 	LimitHit bool    // the work limit stopped refinement before Tol was met
 	Evals    int     // density evaluations used
+	// Negative holds, with Options.SignChecked, the first few nodes (at most MaxNegative, in b's
+	// coordinates) where the density was below zero and was integrated as it was: those that lie in
+	// the region, which only the caller can tell, show a sign check that missed.
+	Negative []Point
 }
 
-// DensityError reports a density that is NaN, infinite or negative at a point geom evaluated.
-// Integrate evaluates the density on the region's bounding box, so the point may lie outside the
-// region itself.
+// MaxNegative is how many nodes with a density below zero Result.Negative keeps.
+const MaxNegative = 16
+
+// DensityError reports a density that is NaN, infinite or negative at a point geom evaluated, in
+// the density's frame (moved by Options.Shift). Integrate evaluates the density on the region's
+// bounding box, so the point may lie outside the region itself.
 type DensityError struct{ X, Y, Value float64 }
 
 // Error says what is wrong with the value and where: "density is negative (-0.5) at (3, 4)".
@@ -92,7 +102,7 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	scratch := getScratch()
 	defer scratchPool.Put(scratch)
 	cb := &cubature{f: f, o: o, c: box.Center(), half: math.Max(box.Size().X, box.Size().Y) / 2,
-		signChecked: opt.SignChecked, cubScratch: scratch}
+		shift: opt.Shift, signChecked: opt.SignChecked, cubScratch: scratch}
 	return cb.run(Boundary{Pieces: pieces}, tol, maxEvals)
 }
 
@@ -165,8 +175,10 @@ type cubature struct {
 	c           Point                  // local origin (bounding-box centre, relative to o)
 	half        float64                // L: half the larger side of the bounding box
 	rules       [maxGLOrder + 1]glRule // the Gauss–Legendre rules used so far, by order
+	shift       Point                  // Options.Shift
 	evals       int
-	signChecked bool // Options.SignChecked
+	signChecked bool    // Options.SignChecked
+	negative    []Point // Result.Negative
 	*cubScratch
 }
 
@@ -256,7 +268,7 @@ func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
 	// Re-sum: the running totals above carry the rounding of many additions and removals.
 	total, errSum = sumPieces(pieces)
 	return Result{Moments: c.moments(total), RelErr: c.norm(errSum, c.scale(total)),
-		LimitHit: limitHit, Evals: c.evals}, nil
+		LimitHit: limitHit, Evals: c.evals, Negative: c.negative}, nil
 }
 
 // moments returns the Moments of the integrals about the local origin: about o when that is not
@@ -442,20 +454,20 @@ func (c *cubature) queue(e *evaluator, no, ni, np int, dst *rawMoments) {
 	c.xs, c.ys, c.us, c.vs, c.ws = c.xs[:i+n], c.ys[:i+n], c.us[:i+n], c.vs[:k0+no], c.ws[:k0+no]
 	xs, ys, us := c.xs[i:i+n], c.ys[i:i+n], c.us[i:i+n]
 	vs, ws := c.vs[k0:k0+no], c.ws[k0:k0+no]
-	ox, oy, cx, cy := c.o.X, c.o.Y, c.c.X, c.c.Y // locals: the stores below cannot change them
+	ox, oy, cx, cy, sx, sy := c.o.X, c.o.Y, c.c.X, c.c.Y, c.shift.X, c.shift.Y // locals: the stores below cannot change them
 	tau := inner.t
 	i = 0
 	for k, t := range outer.t {
 		x, y, dy := e.at(t)
 		span := x / float64(np)
 		vs[k], ws[k] = y, outer.w[k]*dy*span
-		row := oy + (cy + y)
+		row := sy + (oy + (cy + y))
 		for panel := range np {
 			left := span * float64(panel)
 			ur, xr, yr := us[i:i+len(tau)], xs[i:i+len(tau)], ys[i:i+len(tau)]
 			for q, tq := range tau {
 				u := left + span*tq
-				ur[q], xr[q], yr[q] = u, ox+(cx+u), row
+				ur[q], xr[q], yr[q] = u, sx+(ox+(cx+u)), row
 			}
 			i += len(tau)
 		}
@@ -479,12 +491,27 @@ func (c *cubature) flush() error {
 		if math.IsNaN(v) || math.IsInf(v, 0) || !c.signChecked {
 			return &DensityError{X: c.xs[i], Y: c.ys[i], Value: v}
 		}
+		if len(c.negative) < MaxNegative {
+			c.negative = append(c.negative, c.node(i))
+		}
 	}
 	for _, j := range c.jobs {
 		*j.dst = c.sumJob(j, out)
 	}
 	c.xs, c.ys, c.us, c.vs, c.ws, c.jobs = c.xs[:0], c.ys[:0], c.us[:0], c.vs[:0], c.ws[:0], c.jobs[:0]
 	return nil
+}
+
+// node returns queued node i in b's coordinates: its row's ordinate from its job's outer node.
+func (c *cubature) node(i int) Point {
+	var y float64
+	for _, j := range c.jobs {
+		if n := j.no * j.ni * j.np; i >= j.node && i < j.node+n {
+			y = c.vs[j.outer+(i-j.node)/(j.ni*j.np)]
+			break
+		}
+	}
+	return Point{c.o.X + (c.c.X + c.us[i]), c.o.Y + (c.c.Y + y)}
 }
 
 // sumJob forms one job's weighted sums from the density values.

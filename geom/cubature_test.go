@@ -3,6 +3,7 @@ package geom
 import (
 	"errors"
 	"math"
+	"reflect"
 	"strings"
 	"testing"
 )
@@ -180,7 +181,7 @@ func TestIntegrateNodesInBoundingBox(t *testing.T) {
 }
 
 func TestIntegrateEmptyAndMisuse(t *testing.T) {
-	if r, err := (Boundary{}).Integrate(ConstPoly(1), Options{}); err != nil || r != (Result{}) {
+	if r, err := (Boundary{}).Integrate(ConstPoly(1), Options{}); err != nil || !reflect.DeepEqual(r, Result{}) {
 		t.Errorf("empty: %+v %v", r, err)
 	}
 	defer func() {
@@ -244,5 +245,31 @@ func TestIntegrateJoinsCutArcs(t *testing.T) {
 	halves := Loop{Arc(Pt(0, 0), 1, -math.Pi/2, math.Pi), Arc(Pt(0, 0.5), 0.5, math.Pi/2, math.Pi)}
 	if s, next := arcRun(halves, 0); next != 1 || s != halves[0] {
 		t.Errorf("arcRun joined arcs of two circles: %+v, next %d", s, next)
+	}
+}
+
+// TestIntegrateShiftAndNegative checks Options.Shift against a density that moves the nodes
+// itself, bit for bit, and that with SignChecked the nodes where the density is below zero come
+// back in the boundary's own coordinates.
+func TestIntegrateShiftAndNegative(t *testing.T) {
+	b := bnd(RectLoop(Pt(-2, -1), Pt(3, 4)))
+	shift := Pt(1e6+0.25, -7e5)
+	rho := func(x, y float64) float64 { return 2 + math.Sin(x-shift.X)*math.Cos(y-shift.Y) }
+	moved := funcField(func(x, y float64) float64 { return rho(shift.X+x, shift.Y+y) })
+	want := mustIntegrate(t, b, moved, Options{})
+	got := mustIntegrate(t, b, funcField(rho), Options{Shift: shift})
+	if got.Moments != want.Moments || got.Evals != want.Evals {
+		t.Errorf("shifted: %+v, want %+v", got.Moments, want.Moments)
+	}
+
+	below := funcField(func(x, y float64) float64 { return x - shift.X }) // negative where x < 0
+	r := mustIntegrate(t, b, below, Options{Shift: shift, SignChecked: true})
+	if len(r.Negative) == 0 || len(r.Negative) > MaxNegative {
+		t.Fatalf("%d negative nodes kept, want 1 to %d", len(r.Negative), MaxNegative)
+	}
+	for _, p := range r.Negative {
+		if v := below(shift.X+p.X, shift.Y+p.Y); !(v < 0) || !(Rect{Pt(-2, -1), Pt(3, 4)}).Contains(p) {
+			t.Errorf("negative node %v: density %g there", p, v)
+		}
 	}
 }

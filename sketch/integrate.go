@@ -217,19 +217,21 @@ func integrateCells(cells []densityCell, f *density.Field, o geom.Point, opt Ana
 			r.Moments = r.Moments.Add(c.body.IntegratePolyAbout(geom.Point{}, toGeomPoly(p)))
 			continue
 		}
-		sf := &shiftedField{f: g, o: o}
 		limit := max(budget-r.Evals, minCellEvals)
-		q, err := c.body.Integrate(sf, geom.Options{Tol: opt.Tol, MaxEvals: limit, SignChecked: true})
+		q, err := c.body.Integrate(g, geom.Options{Tol: opt.Tol, MaxEvals: limit, SignChecked: true, Shift: o})
 		var de *geom.DensityError
 		if errors.As(err, &de) {
-			return r, f.DomainError(o.X+de.X, o.Y+de.Y, de.Value)
+			return r, f.DomainError(de.X, de.Y, de.Value)
 		}
 		if err != nil {
 			return r, err
 		}
-		for _, p := range sf.negative {
+		// The cubature, told the sign is checked, integrates values below zero as they are: those at
+		// nodes that lie in the part are errors the interval check missed.
+		for _, p := range q.Negative {
 			if c.body.Contains(p) {
-				return r, f.DomainError(o.X+p.X, o.Y+p.Y, sf.value(p))
+				x, y := o.X+p.X, o.Y+p.Y
+				return r, f.DomainError(x, y, valueAt(g, x, y))
 			}
 		}
 		r.Moments = r.Moments.Add(q.Moments)
@@ -347,4 +349,11 @@ func (g *localPoly) disagreement(f *density.Field, pieces []geom.Segment, scale 
 	return fmt.Sprintf("the density formula loses digits to rounding this far from the origin: its terms cancel "+
 		"(two ways of evaluating it differ by %.1e of its largest value, at %s); write it about a point near the part, "+
 		"as in k*(x - x0)^2 with x0 near the part's x", worst/scale, f.Where(xs[at], ys[at]))
+}
+
+// valueAt returns the density g at (x, y).
+func valueAt(g geom.Field, x, y float64) float64 {
+	out := []float64{0}
+	g.Eval([]float64{x}, []float64{y}, out)
+	return out[0]
 }

@@ -2,7 +2,6 @@ package sketch
 
 import (
 	"math"
-	"slices"
 
 	"plumb/density"
 	"plumb/geom"
@@ -170,40 +169,4 @@ func translatedSegments(ss []geom.Segment, d geom.Point) []geom.Segment {
 		out[i] = s
 	}
 	return out
-}
-
-// shiftedField is a density field taking points about o: (u, v) ↦ ρ(o.X + u, o.Y + v), for
-// integrating cells given about o. It keeps the first few nodes where the density is below zero
-// (the cubature, told the sign is checked, integrates them as they are): those that lie in the
-// part, which only the caller can tell, are errors the interval check missed. It reuses its
-// buffers, so it serves one integration at a time.
-type shiftedField struct {
-	f        *density.Field
-	o        geom.Point
-	xs, ys   []float64
-	negative []geom.Point // about o
-}
-
-// maxNegative is how many nodes with a value below zero a shiftedField keeps.
-const maxNegative = 16
-
-// Eval sets out[i] to the density at (o.X + us[i], o.Y + vs[i]).
-func (s *shiftedField) Eval(us, vs, out []float64) {
-	s.xs, s.ys = slices.Grow(s.xs[:0], len(us))[:len(us)], slices.Grow(s.ys[:0], len(vs))[:len(vs)]
-	for i := range us {
-		s.xs[i], s.ys[i] = s.o.X+us[i], s.o.Y+vs[i]
-	}
-	s.f.Eval(s.xs, s.ys, out)
-	for i, v := range out {
-		if v < 0 && len(s.negative) < maxNegative {
-			s.negative = append(s.negative, geom.Pt(us[i], vs[i]))
-		}
-	}
-}
-
-// value returns the density at p, given about o.
-func (s *shiftedField) value(p geom.Point) float64 {
-	out := []float64{0}
-	s.f.Eval([]float64{s.o.X + p.X}, []float64{s.o.Y + p.Y}, out)
-	return out[0]
 }
