@@ -101,7 +101,8 @@ func (b Boundary) Integrate(f Field, opt Options) (Result, error) {
 	}
 	scratch := getScratch()
 	defer scratchPool.Put(scratch)
-	cb := &cubature{f: f, o: o, c: box.Center(), half: math.Max(box.Size().X, box.Size().Y) / 2,
+	cb := &cubature{f: f, o: o, c: box.Center(), hw: box.Size().X / 2, hh: box.Size().Y / 2,
+		half:  math.Max(box.Size().X, box.Size().Y) / 2,
 		shift: opt.Shift, signChecked: opt.SignChecked, cubScratch: scratch}
 	return cb.run(Boundary{Pieces: pieces}, tol, maxEvals)
 }
@@ -132,7 +133,8 @@ func getScratch() *cubScratch {
 }
 
 // Cubature orders. A piece starts with outerStart outer nodes on a line and one more on a Bézier or
-// an arc, plus on an arc one per two thirds of a radian of sweep; it starts with innerStart inner nodes.
+// an arc, plus on an arc one per two thirds of a radian of sweep; it starts with innerStart inner nodes,
+// or fewer where the density is smooth enough along the rows (startInner).
 // Its second rule has outerStep more outer nodes and innerHigher(ni) inner ones. Refinement raises the
 // outer order by two up to outerMax and then cuts the piece in half; it raises the inner order by half
 // up to innerMax and then cuts the inner interval into more panels.
@@ -151,6 +153,46 @@ const (
 	outerMax   = 8
 	innerStart = 5
 	innerMax   = 40
+)
+
+// startInner picks the inner order the pieces start with, from the density itself: the least from
+// innerLeast up to innerStart whose rows, as long as any in the box (from the centre to the box's
+// left and right edges), agree with those of the next order to within probeShare of tol, measured
+// as the pieces' estimates are (norm) on the integral along each of the two edges with probeOuter
+// outer nodes. A nearly constant density then starts with three inner nodes instead of five; one
+// that changes fast along the rows keeps five. The pieces' own estimates still decide: a piece
+// whose rows need more is refined. The probe's evaluations count with the rest.
+func (c *cubature) startInner(tol float64) (int, error) {
+	edges := [2]Segment{Line(Pt(c.hw, -c.hh), Pt(c.hw, c.hh)), Line(Pt(-c.hw, c.hh), Pt(-c.hw, -c.hh))}
+	var est [2][innerStart + 2]rawMoments
+	for k, s := range edges {
+		e := s.evaluator()
+		for n := innerLeast; n <= innerStart; n++ {
+			c.queue(&e, probeOuter, n, 1, &est[k][n])
+		}
+	}
+	if err := c.flush(); err != nil {
+		return 0, err
+	}
+	for n := innerLeast; n < innerStart; n++ {
+		agree := true
+		for k := range edges {
+			diff := absRaw(est[k][n+1].add(est[k][n].scale(-1)))
+			agree = agree && c.norm(diff, c.scale(est[k][n+1])) <= probeShare*tol
+		}
+		if agree {
+			return n, nil
+		}
+	}
+	return innerStart, nil
+}
+
+// The probe of startInner: the least inner order it may pick, the outer order along the edges, and
+// the share of the tolerance the rows' disagreement must stay within.
+const (
+	innerLeast = 3
+	probeOuter = 4
+	probeShare = 1e-2
 )
 
 // innerHigher returns the inner order of a piece's second rule.
@@ -173,6 +215,7 @@ type cubature struct {
 	f           Field
 	o           Point                  // Combine's origin of the pieces (see Boundary), or (0, 0)
 	c           Point                  // local origin (bounding-box centre, relative to o)
+	hw, hh      float64                // half the bounding box's width and height
 	half        float64                // L: half the larger side of the bounding box
 	rules       [maxGLOrder + 1]glRule // the Gauss–Legendre rules used so far, by order
 	shift       Point                  // Options.Shift
@@ -230,7 +273,11 @@ func (p *cubPiece) cost() int { return p.np * (p.no*p.ni + (p.no+outerStep)*inne
 // run integrates over b: first estimates for every piece, then refinement of the worst piece until the
 // summed error estimate meets tol or the work limit is reached.
 func (c *cubature) run(b Boundary, tol float64, maxEvals int) (Result, error) {
-	pieces, err := c.initialPieces(b)
+	ni, err := c.startInner(tol)
+	if err != nil {
+		return Result{Evals: c.evals}, err
+	}
+	pieces, err := c.initialPieces(b, ni)
 	if err != nil {
 		return Result{Evals: c.evals}, err
 	}
@@ -281,8 +328,8 @@ func (c *cubature) moments(total rawMoments) Moments {
 }
 
 // initialPieces returns the boundary's segments in local coordinates, arcs cut to at most 90°, each
-// with its first estimates. Horizontal lines and Béziers (dy ≡ 0) contribute nothing and are left out.
-func (c *cubature) initialPieces(b Boundary) (pieceHeap, error) {
+// with its first estimates, of ni inner nodes. Horizontal lines and Béziers (dy ≡ 0) contribute nothing and are left out.
+func (c *cubature) initialPieces(b Boundary, ni int) (pieceHeap, error) {
 	count := 0
 	for i := 0; i < len(b.Pieces); {
 		var s Segment
@@ -297,7 +344,7 @@ func (c *cubature) initialPieces(b Boundary) (pieceHeap, error) {
 		k := c.pieceCount(s)
 		s = s.translated(c.c.Mul(-1))
 		for i := range k {
-			p := cubPiece{s: s, ni: innerStart, np: 1}
+			p := cubPiece{s: s, ni: ni, np: 1}
 			if s.Kind == KindArc {
 				p.s = arcPiece(s, i, k)
 			}

@@ -273,3 +273,36 @@ func TestIntegrateShiftAndNegative(t *testing.T) {
 		}
 	}
 }
+
+// TestIntegrateStartOrder checks that the inner order the pieces start with follows the density
+// along the rows: a linear density on a disk of radius 100 starts with the least order, exp(x/20)
+// with the most, and both still meet the tolerance against closed forms. On a disk of radius R,
+// ∬ (1 + x/1000) dA = πR² (the disk is symmetric in x), and ∬ e^(x/20) dA = 2πR·I₁(R/20)·20
+// (Abramowitz and Stegun 9.6.18 with ν = 1, from memory; I₁ by its series).
+func TestIntegrateStartOrder(t *testing.T) {
+	b := bnd(Circle(Pt(0, 0), 100))
+	i1, term := 0.0, 2.5 // z/2 for z = 5
+	for k := 0; term > 1e-20; k++ {
+		i1 += term
+		term *= 2.5 * 2.5 / float64((k+1)*(k+2))
+	}
+	for _, tc := range []struct {
+		name string
+		f    funcField
+		want float64
+		ni   int
+	}{
+		{"linear", func(x, y float64) float64 { return 1 + x/1000 }, math.Pi * 1e4, innerLeast},
+		{"exp(x/20)", func(x, y float64) float64 { return math.Exp(x / 20) }, 2 * math.Pi * 100 * i1 * 20, innerStart},
+	} {
+		c := &cubature{f: tc.f, hw: 100, hh: 100, half: 100, cubScratch: getScratch()}
+		ni, err := c.startInner(DefaultTol)
+		if err != nil || ni != tc.ni {
+			t.Errorf("%s: starts with %d inner nodes (%v), want %d", tc.name, ni, err, tc.ni)
+		}
+		r := mustIntegrate(t, b, tc.f, Options{})
+		if math.Abs(r.M-tc.want) > 1e-10*tc.want {
+			t.Errorf("%s: mass %.17g, want %.17g", tc.name, r.M, tc.want)
+		}
+	}
+}
