@@ -146,17 +146,7 @@ func TestEditTimeToFrame(t *testing.T) {
 	} {
 		var times []float64
 		for i := range 5 {
-			ms := eval[float64](b, fmt.Sprintf(`new Promise((done) => {
-				const i = %d;
-				const n = plumb.frames().drawn;
-				const t0 = performance.now();
-				%s;
-				const wait = () => {
-					const f = plumb.frames();
-					if (f.drawn > n) done(f.last_ms - t0); else requestAnimationFrame(wait);
-				};
-				requestAnimationFrame(wait);
-			})`, i, e.call))
+			ms := b.editToFrame(fmt.Sprintf("const i = %d; %s", i, e.call))
 			times = append(times, ms)
 			b.frames(3) // the level-hole search after the edit
 		}
